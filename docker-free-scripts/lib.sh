@@ -1,0 +1,457 @@
+# shellcheck shell=bash
+# Helpers shared by the docker-free scripts (sourced, not executed). Needs only bash, coreutils,
+# util-linux (runuser, setsid) and node: no curl, ss, ps or lsof, which a fresh machine may lack.
+# Functions are prefixed rl_. Callers source env.sh for a profile before using the service helpers.
+
+RL_SCRIPTS="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
+RL_ROOT="$(cd "$RL_SCRIPTS/.." && pwd)"
+RL_TSX="$RL_ROOT/node_modules/.bin/tsx"
+RL_NEXT="$RL_ROOT/node_modules/next/dist/bin/next"
+
+# ------------------------------------------------------------------ progress output
+RL_LINE_OPEN=0
+RL_STEP_T0=0
+
+# rl_step N TOTAL "Doing something" → prints "[N/TOTAL] Doing something … " and leaves the line open.
+rl_step() {
+  rl_close_line
+  printf '[%s/%s] %s … ' "$1" "$2" "$3"
+  RL_LINE_OPEN=1
+  RL_STEP_T0=$SECONDS
+}
+
+rl_close_line() {
+  if [ "$RL_LINE_OPEN" = 1 ]; then
+    printf '\n'
+    RL_LINE_OPEN=0
+  fi
+}
+
+# rl_ok [detail] → "ok" (with the elapsed time when the step took 3 s or more).
+rl_ok() {
+  local took=$((SECONDS - RL_STEP_T0)) extra=""
+  [ "$took" -ge 3 ] && extra=" (${took} s)"
+  if [ "$RL_LINE_OPEN" = 1 ]; then
+    printf 'ok%s%s\n' "${1:+, $1}" "$extra"
+  else
+    printf '      ok%s%s\n' "${1:+, $1}" "$extra"
+  fi
+  RL_LINE_OPEN=0
+}
+
+# rl_note "text" → an indented line under the current step.
+rl_note() {
+  rl_close_line
+  printf '      %s\n' "$*"
+}
+
+rl_warn() {
+  rl_close_line
+  printf '      warning: %s\n' "$*"
+}
+
+# rl_fail "what failed" "how to fix it" [log file] → FAILED, the reason, the tail of the log.
+rl_fail() {
+  local what="$1" fix="${2:-}" log="${3:-}"
+  if [ "$RL_LINE_OPEN" = 1 ]; then printf 'FAILED\n'; RL_LINE_OPEN=0; fi
+  {
+    printf '\n  ✗ %s\n' "$what"
+    if [ -n "$log" ] && [ -s "$log" ]; then
+      printf '\n  Last lines of %s:\n' "$(rl_rel "$log")"
+      tail -n 30 "$log" | sed 's/^/    | /'
+    fi
+    if [ -n "$fix" ]; then
+      printf '\n  How to fix: %s\n' "$fix"
+    fi
+    printf '\n'
+  } >&2
+}
+
+# rl_die "what" "fix" [log] → rl_fail, then exit 1 (traps still run).
+rl_die() {
+  rl_fail "$@"
+  exit 1
+}
+
+# Path relative to the repository root, for messages.
+rl_rel() {
+  case "$1" in
+    "$RL_ROOT"/*) printf '%s' "${1#"$RL_ROOT"/}" ;;
+    *) printf '%s' "$1" ;;
+  esac
+}
+
+# ------------------------------------------------------------------ system checks
+rl_check_node() {
+  if ! command -v node >/dev/null 2>&1 || ! command -v npm >/dev/null 2>&1; then
+    rl_die "Node.js and npm were not found on PATH." "install Node.js 20 (or newer) with npm, then run this again."
+  fi
+  local major
+  major="$(node -p 'process.versions.node.split(".")[0]')"
+  if [ "$major" -lt 20 ]; then
+    rl_die "Node.js $(node -v) is too old." "install Node.js 20 (or newer)."
+  fi
+}
+
+# True when node_modules is missing or older than package-lock.json.
+rl_need_npm_ci() {
+  [ ! -d "$RL_ROOT/node_modules" ] && return 0
+  [ ! -f "$RL_ROOT/node_modules/.package-lock.json" ] && return 0
+  [ "$RL_ROOT/package-lock.json" -nt "$RL_ROOT/node_modules/.package-lock.json" ] && return 0
+  [ ! -x "$RL_TSX" ] && return 0
+  return 1
+}
+
+# rl_npm_ci LOG → runs npm ci in the current directory (the scripts cd to the repository root).
+rl_npm_ci() {
+  local log="$1"
+  rl_run_logged "$log" npm ci --no-audit --no-fund
+}
+
+# rl_apt_install LOG PACKAGE… → apt-get update + install, as root or through sudo.
+rl_apt_install() {
+  local log="$1"
+  shift
+  local -a sudo=()
+  if [ "$(id -u)" != 0 ]; then
+    if command -v sudo >/dev/null 2>&1; then
+      sudo=(sudo -n)
+    else
+      rl_fail "Installing $* needs root." "run as root, or install them yourself: apt-get install -y $*"
+      return 1
+    fi
+  fi
+  if ! command -v apt-get >/dev/null 2>&1; then
+    rl_fail "apt-get is not available on this machine." "install these packages with your system's package manager: $*"
+    return 1
+  fi
+  rl_run_logged "$log" "${sudo[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -q || {
+    rl_fail "apt-get update failed." "check the network access to the Debian mirrors, then run this again." "$log"
+    return 1
+  }
+  rl_run_logged "$log" "${sudo[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -q --no-install-recommends "$@" || {
+    rl_fail "apt-get install $* failed." "run 'apt-get install -y $*' by hand and look at its error." "$log"
+    return 1
+  }
+}
+
+rl_pg_bindir() {
+  local d
+  d="$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1)"
+  if [ -n "$d" ] && [ -x "$d/initdb" ]; then
+    printf '%s' "$d"
+    return 0
+  fi
+  return 1
+}
+
+# ------------------------------------------------------------------ processes
+# Commands that run for a while are started in their own session (setsid) in the background and
+# waited for, so a signal to the script is handled at once and the whole process group can be
+# stopped. RL_CHILD holds the one running right now.
+RL_CHILD=""
+
+# rl_run_logged LOG CMD… → runs CMD with its output appended to LOG; returns its status.
+rl_run_logged() {
+  local log="$1" rc=0
+  shift
+  mkdir -p "$(dirname "$log")"
+  printf '\n===== %s: %s\n' "$(date '+%F %T')" "$*" >>"$log"
+  setsid "$@" </dev/null >>"$log" 2>&1 &
+  RL_CHILD=$!
+  wait "$RL_CHILD" || rc=$?
+  RL_CHILD=""
+  return "$rc"
+}
+
+# rl_last_run LOG → the output of the last command rl_run_logged appended to LOG.
+rl_last_run() {
+  awk '/^===== / { buf = ""; next } { buf = buf $0 "\n" } END { printf "%s", buf }' "$1" 2>/dev/null
+}
+
+# rl_run_shown CMD… → like rl_run_logged but the output goes to the terminal.
+rl_run_shown() {
+  local rc=0
+  setsid "$@" </dev/null &
+  RL_CHILD=$!
+  wait "$RL_CHILD" || rc=$?
+  RL_CHILD=""
+  return "$rc"
+}
+
+rl_alive() {
+  [ -n "${1:-}" ] && kill -0 "$1" 2>/dev/null
+}
+
+rl_cmdline() {
+  tr '\0' ' ' <"/proc/$1/cmdline" 2>/dev/null | cut -c1-160
+}
+
+# rl_kill_tree PID [SECONDS] → SIGTERM to the process group (falls back to the pid), SIGKILL
+# after the timeout. Returns once the process is gone.
+rl_kill_tree() {
+  local pid="$1" timeout="${2:-10}" i
+  rl_alive "$pid" || return 0
+  kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+  for ((i = 0; i < timeout * 10; i++)); do
+    rl_alive "$pid" || break
+    # A zombie child of ours counts as gone once reaped.
+    if [ "$(sed 's/.*) //' "/proc/$pid/stat" 2>/dev/null | cut -d' ' -f1)" = Z ]; then wait "$pid" 2>/dev/null || true; fi
+    sleep 0.1
+  done
+  if rl_alive "$pid"; then
+    kill -KILL -- "-$pid" 2>/dev/null || kill -KILL "$pid" 2>/dev/null || true
+    sleep 0.2
+  fi
+  wait "$pid" 2>/dev/null || true
+  return 0
+}
+
+# ------------------------------------------------------------------ ports
+rl_port_busy() {
+  (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null
+}
+
+# rl_port_pids PORT → pids of the processes listening on 127.0.0.1/0.0.0.0:PORT (reads /proc).
+rl_port_pids() {
+  local port hex inodes inode fd pid
+  port="$1"
+  hex="$(printf '%04X' "$port")"
+  inodes="$(awk -v p=":$hex" '$4 == "0A" && substr($2, length($2) - 4) == p { print $10 }' /proc/net/tcp /proc/net/tcp6 2>/dev/null | sort -u)"
+  [ -z "$inodes" ] && return 0
+  for fd in /proc/[0-9]*/fd/*; do
+    inode="$(readlink "$fd" 2>/dev/null)" || continue
+    case "$inode" in socket:*) ;; *) continue ;; esac
+    inode="${inode#socket:[}"
+    inode="${inode%]}"
+    if grep -qx "$inode" <<<"$inodes"; then
+      pid="${fd#/proc/}"
+      echo "${pid%%/*}"
+    fi
+  done | sort -un
+}
+
+# rl_port_owner PORT → "pid N (command)" descriptions of who listens there.
+rl_port_owner() {
+  local pid out=""
+  for pid in $(rl_port_pids "$1"); do
+    out+="pid $pid ($(rl_cmdline "$pid"))"$'\n'
+  done
+  printf '%s' "${out:-an unknown process (try: ss -ltnp 'sport = :$1')}"
+}
+
+# A process is "ours" when it runs from this checkout (its working directory is the repo root).
+rl_is_ours() {
+  [ "$(readlink "/proc/$1/cwd" 2>/dev/null)" = "$RL_ROOT" ]
+}
+
+# rl_free_port PORT LABEL → ok when free; stops leftovers of our own earlier runs; otherwise fails
+# with who holds the port.
+rl_free_port() {
+  local port="$1" label="$2" pid pids theirs=0 i
+  rl_port_busy "$port" || return 0
+  pids="$(rl_port_pids "$port")"
+  for pid in $pids; do
+    rl_is_ours "$pid" || theirs=1
+  done
+  if [ -n "$pids" ] && [ "$theirs" = 0 ]; then
+    for pid in $pids; do
+      rl_note "stopping a leftover $label from an earlier run on port $port (pid $pid)"
+      rl_kill_tree "$pid" 10
+    done
+    for ((i = 0; i < 50; i++)); do rl_port_busy "$port" || return 0; sleep 0.1; done
+  fi
+  rl_fail "Port 127.0.0.1:$port (needed for the $label) is already in use by:
+    $(rl_port_owner "$port")" \
+    "stop that process, or if it is a Rimeline script still running in another terminal, stop it there (Ctrl-C)."
+  return 1
+}
+
+# ------------------------------------------------------------------ HTTP
+# rl_http_status URL → prints the HTTP status code, 000 when nothing answers.
+rl_http_status() {
+  if command -v curl >/dev/null 2>&1; then
+    curl -s -o /dev/null -w '%{http_code}' --max-time 5 "$1" 2>/dev/null || true
+  else
+    node -e '
+      const c = new AbortController(); setTimeout(() => c.abort(), 5000).unref();
+      fetch(process.argv[1], { signal: c.signal, redirect: "manual" })
+        .then((r) => process.stdout.write(String(r.status)), () => process.stdout.write("000"));
+    ' "$1" 2>/dev/null || printf '000'
+  fi
+}
+
+rl_http_body() {
+  if command -v curl >/dev/null 2>&1; then
+    curl -s --max-time 5 "$1" 2>/dev/null || true
+  else
+    node -e 'fetch(process.argv[1]).then((r) => r.text()).then((t) => process.stdout.write(t), () => {})' "$1" 2>/dev/null || true
+  fi
+}
+
+# rl_wait_http URL SECONDS [PID] → waits until URL answers with any HTTP status. Fails early when
+# PID exits. Returns 0 (answered), 1 (timeout), 2 (process exited).
+rl_wait_http() {
+  local url="$1" timeout="$2" pid="${3:-}" start=$SECONDS code
+  while true; do
+    code="$(rl_http_status "$url")"
+    [ "$code" != 000 ] && [ -n "$code" ] && return 0
+    if [ -n "$pid" ] && ! rl_alive "$pid"; then return 2; fi
+    [ $((SECONDS - start)) -ge "$timeout" ] && return 1
+    sleep 0.3
+  done
+}
+
+# ------------------------------------------------------------------ local services
+# Background services started by this script, in start order; rl_stop_services stops them in
+# reverse order. Pid files live in $RIMELINE_RUN/<name>.pid.
+RL_SERVICES=()
+declare -A RL_SERVICE_PID=()
+declare -A RL_SERVICE_LABEL=()
+
+# rl_stop_stale NAME LABEL → stops a process recorded in NAME.pid by an earlier run that crashed.
+rl_stop_stale() {
+  local name="$1" label="$2" file pid
+  file="$RIMELINE_RUN/$name.pid"
+  [ -f "$file" ] || return 0
+  pid="$(cat "$file" 2>/dev/null)"
+  if rl_alive "$pid" && rl_is_ours "$pid"; then
+    rl_note "stopping the $label left running by an earlier run (pid $pid)"
+    rl_kill_tree "$pid" 10
+  fi
+  rm -f "$file"
+}
+
+# rl_service_start NAME LABEL READY_URL CMD… → starts CMD in the background (logs in
+# $RIMELINE_LOGS/NAME.log), records its pid, waits up to RL_READY_TIMEOUT (30 s) for READY_URL.
+rl_service_start() {
+  local name="$1" label="$2" url="$3" log pid rc=0
+  shift 3
+  log="$RIMELINE_LOGS/$name.log"
+  mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
+  printf '\n===== %s: %s\n' "$(date '+%F %T')" "$*" >>"$log"
+  (cd "$RL_ROOT" && exec setsid "$@" </dev/null >>"$log" 2>&1) &
+  pid=$!
+  echo "$pid" >"$RIMELINE_RUN/$name.pid"
+  RL_SERVICES+=("$name")
+  RL_SERVICE_PID[$name]=$pid
+  RL_SERVICE_LABEL[$name]=$label
+  rl_wait_http "$url" "${RL_READY_TIMEOUT:-30}" "$pid" || rc=$?
+  case $rc in
+    0) return 0 ;;
+    1) rl_fail "The $label did not answer at $url within ${RL_READY_TIMEOUT:-30} s." \
+         "look at the log above ($(rl_rel "$log")); if the machine is very slow, set RL_READY_TIMEOUT=120 and retry." "$log" ;;
+    *) rl_fail "The $label exited during start-up." "look at the log above ($(rl_rel "$log"))." "$log" ;;
+  esac
+  return 1
+}
+
+# rl_stop_services → stops every service started by rl_service_start, newest first.
+rl_stop_services() {
+  local i name pid
+  for ((i = ${#RL_SERVICES[@]} - 1; i >= 0; i--)); do
+    name="${RL_SERVICES[$i]}"
+    pid="${RL_SERVICE_PID[$name]}"
+    if rl_alive "$pid"; then
+      printf '      stopping %s (pid %s) … ' "${RL_SERVICE_LABEL[$name]}" "$pid"
+      rl_kill_tree "$pid" 15
+      printf 'ok\n'
+    fi
+    rm -f "$RIMELINE_RUN/$name.pid"
+  done
+  RL_SERVICES=()
+}
+
+rl_start_s3() {
+  rl_free_port "$S3_PORT" "S3 fake" || return 1
+  rl_service_start s3 "S3 fake" "$S3_ENDPOINT/" \
+    "$RL_TSX" "$RL_SCRIPTS/s3-server.ts" --port "$S3_PORT" --dir "$RIMELINE_DATA/s3" --bucket "$S3_BUCKET"
+}
+
+rl_start_mail() {
+  rl_free_port "$SMTP_PORT" "mail catcher (SMTP)" || return 1
+  rl_free_port "$MAIL_HTTP_PORT" "mail catcher (HTTP API)" || return 1
+  rl_service_start mail "mail catcher" "$MAIL_CATCHER_URL/health" \
+    "$RL_TSX" "$RL_SCRIPTS/mail-catcher.ts" --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" --dir "$RIMELINE_DATA/mail"
+}
+
+# ------------------------------------------------------------------ locks
+# One run per profile at a time: .data/<profile>.lock holds the pid of the script that owns the
+# profile. A lock whose process is gone is stale and taken over.
+rl_lock_holder() {
+  local file="$RL_ROOT/.data/$1.lock" pid
+  [ -f "$file" ] || return 1
+  pid="$(cat "$file" 2>/dev/null)"
+  if rl_alive "$pid" && [ "$pid" != "$$" ]; then
+    printf '%s' "$pid"
+    return 0
+  fi
+  return 1
+}
+
+rl_lock() {
+  local profile="$1" holder
+  mkdir -p "$RL_ROOT/.data"
+  if holder="$(rl_lock_holder "$profile")"; then
+    rl_die "Another Rimeline script is already using the $profile profile (pid $holder: $(rl_cmdline "$holder"))." \
+      "stop it first (Ctrl-C in its terminal, or: kill $holder)."
+  fi
+  echo "$$" >"$RL_ROOT/.data/$profile.lock"
+  RL_LOCKED_PROFILES+=("$profile")
+}
+RL_LOCKED_PROFILES=()
+
+rl_unlock_all() {
+  local p
+  for p in "${RL_LOCKED_PROFILES[@]}"; do
+    if [ "$(cat "$RL_ROOT/.data/$p.lock" 2>/dev/null)" = "$$" ]; then rm -f "$RL_ROOT/.data/$p.lock"; fi
+  done
+  RL_LOCKED_PROFILES=()
+}
+
+# rl_wipe_profile_data → removes $RIMELINE_DATA, including a PostgreSQL cluster kept outside the
+# repository (see db-start.sh).
+rl_wipe_profile_data() {
+  local link="$RIMELINE_DATA/pg" target
+  if [ -L "$link" ]; then
+    target="$(readlink -f "$link")"
+    case "$target" in
+      /var/lib/postgresql/rimeline/*) rm -rf "$target" ;;
+    esac
+  fi
+  rm -rf "$RIMELINE_DATA"
+}
+
+# ------------------------------------------------------------------ PostgreSQL
+# rl_pg_vars → sets PGBIN (empty when the server is not installed), RL_PG_AS (the prefix that
+# runs a command as the postgres user when we are root) and PGDATA (the profile's cluster:
+# $RIMELINE_DATA/pg, or where that symlink points).
+rl_pg_vars() {
+  PGBIN="$(rl_pg_bindir || true)"
+  if [ "$(id -u)" = 0 ]; then
+    RL_PG_AS=(runuser -u postgres --)
+  else
+    RL_PG_AS=()
+  fi
+  if [ -L "$RIMELINE_DATA/pg" ]; then
+    PGDATA="$(readlink -f "$RIMELINE_DATA/pg")"
+  else
+    PGDATA="$RIMELINE_DATA/pg"
+  fi
+  export PGDATA
+}
+
+rl_pg_initialized() {
+  [ -f "$PGDATA/PG_VERSION" ]
+}
+
+rl_pg_running() {
+  [ -n "$PGBIN" ] && rl_pg_initialized && "${RL_PG_AS[@]}" "$PGBIN/pg_ctl" status -D "$PGDATA" >/dev/null 2>&1
+}
+
+# rl_pg_stop_profile PROFILE → fast stop of another profile's cluster (used when test and bench
+# share a port and one of them was left running). Quiet when it is not running.
+rl_pg_stop_profile() {
+  [ -e "$RL_ROOT/.data/$1/pg" ] || return 0
+  bash "$RL_SCRIPTS/db-stop.sh" "$1" --quiet
+}

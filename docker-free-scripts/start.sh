@@ -1,0 +1,224 @@
+#!/usr/bin/env bash
+# npm start: everything Rimeline needs on one machine, without containers (dev profile).
+#
+#   npm start                    build when needed, then run the production server
+#   npm start -- --rebuild       always run next build first
+#   npm run dev                  same services, but `next dev` (hot reload) instead of build + start
+#
+# Steps: npm ci when node_modules is missing or older than package-lock.json; the PostgreSQL server
+# (apt-get when absent); the private cluster in .data/dev/pg on 127.0.0.1:54329; the S3 fake
+# (127.0.0.1:4570) and the mail catcher (SMTP 127.0.0.1:1025, API 127.0.0.1:1080); migrations;
+# the demo data (the seed does nothing when the demo company exists); next build (skipped when
+# .next holds a build of the dev profile and no source file is newer than .next/BUILD_ID); the app
+# on 127.0.0.1:3000, reached at http://localhost:3000.
+# Logs: .data/dev/logs/. Ctrl-C (or SIGTERM) stops everything this run started, newest first.
+set -Eeuo pipefail
+cd "$(dirname "$0")/.."
+# shellcheck source=docker-free-scripts/lib.sh
+source docker-free-scripts/lib.sh
+
+mode=start
+rebuild=0
+for arg in "$@"; do
+  case "$arg" in
+    --dev) mode=dev ;;
+    --rebuild) rebuild=1 ;;
+    -h|--help) sed -n '2,14p' "$0"; exit 0 ;;
+    *) echo "start.sh: unknown option $arg (use --rebuild, or npm run dev)" >&2; exit 2 ;;
+  esac
+done
+
+rl_check_node
+# shellcheck source=docker-free-scripts/env.sh
+source docker-free-scripts/env.sh dev
+mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
+LOGS="$RIMELINE_LOGS"
+TOTAL=9
+
+pg_owned=0
+app_pid=""
+stopping=0
+
+cleanup() {
+  local rc=$?
+  trap '' INT TERM
+  [ "$stopping" = 1 ] && return
+  stopping=1
+  rl_close_line
+  if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 10; fi
+  if [ "${#RL_SERVICES[@]}" -gt 0 ] || [ "$pg_owned" = 1 ]; then
+    echo "Stopping Rimeline …"
+  fi
+  rl_stop_services
+  if [ "$pg_owned" = 1 ]; then
+    printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
+    if bash docker-free-scripts/db-stop.sh dev --quiet; then printf 'ok\n'; fi
+    rm -f "$RIMELINE_RUN/pg.owner"
+  fi
+  rl_unlock_all
+  [ "$rc" = 0 ] || [ "$rc" -ge 128 ] || echo "Rimeline did not start (see the message above)."
+  [ "$rc" -ge 128 ] && echo "Stopped."
+  return 0
+}
+on_signal() {
+  trap '' INT TERM
+  rl_close_line
+  echo
+  echo "Received $1."
+  if [ "$1" = INT ]; then exit 130; else exit 143; fi
+}
+trap cleanup EXIT
+trap 'on_signal INT' INT
+trap 'on_signal TERM' TERM
+
+rl_lock dev
+echo "Rimeline ($mode) — data in $(rl_rel "$RIMELINE_DATA"), logs in $(rl_rel "$LOGS")"
+
+# ---------------------------------------------------------------------------------------- 1
+rl_step 1 $TOTAL "Checking npm packages"
+if rl_need_npm_ci; then
+  printf 'installing with npm ci (about a minute) … '
+  rl_npm_ci "$LOGS/npm-ci.log" || rl_die "npm ci failed." \
+    "check the network access to the npm registry and the log above; then run npm start again." "$LOGS/npm-ci.log"
+  rl_ok "installed"
+else
+  rl_ok "up to date"
+fi
+
+# ---------------------------------------------------------------------------------------- 2
+rl_step 2 $TOTAL "Checking the PostgreSQL server"
+if pgbin="$(rl_pg_bindir)"; then
+  rl_ok "$(basename "$(dirname "$pgbin")") installed"
+else
+  printf 'not installed, installing Debian'"'"'s postgresql package (apt-get) … '
+  rl_apt_install "$LOGS/apt.log" postgresql || exit 1
+  rl_ok "installed"
+fi
+
+# ---------------------------------------------------------------------------------------- 3
+rl_step 3 $TOTAL "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
+rl_pg_vars
+if rl_pg_running; then
+  owner="$(cat "$RIMELINE_RUN/pg.owner" 2>/dev/null || true)"
+  if [ -n "$owner" ] && ! rl_alive "$owner"; then
+    # Left running by an earlier npm start that did not get to clean up: ours to stop at exit.
+    pg_owned=1
+    echo "$$" >"$RIMELINE_RUN/pg.owner"
+    rl_ok "already running (left by an earlier run; it will be stopped on exit)"
+  else
+    rl_ok "already running (started with npm run db:start; it stays running on exit)"
+  fi
+else
+  pg_owned=1
+  echo "$$" >"$RIMELINE_RUN/pg.owner"
+  rl_run_logged "$LOGS/db-start.log" bash docker-free-scripts/db-start.sh dev \
+    || rl_die "PostgreSQL did not start." "read the messages above; 'npm run db:start' shows the same steps." "$LOGS/db-start.log"
+  rl_ok
+fi
+
+# ---------------------------------------------------------------------------------------- 4
+rl_step 4 $TOTAL "Starting the S3 fake on 127.0.0.1:$S3_PORT"
+rl_stop_stale s3 "S3 fake"
+rl_start_s3 || exit 1
+rl_ok "bucket $S3_BUCKET"
+
+# ---------------------------------------------------------------------------------------- 5
+rl_step 5 $TOTAL "Starting the mail catcher on 127.0.0.1:$SMTP_PORT (API on :$MAIL_HTTP_PORT)"
+rl_stop_stale mail "mail catcher"
+rl_start_mail || exit 1
+rl_ok
+
+# ---------------------------------------------------------------------------------------- 6
+rl_step 6 $TOTAL "Running database migrations"
+[ -f db/migrate.ts ] || rl_die "db/migrate.ts is missing." "restore it from git (git checkout -- db/migrate.ts)."
+rl_run_logged "$LOGS/migrate.log" "$RL_TSX" db/migrate.ts latest \
+  || rl_die "The migrations failed." "fix the failing migration shown above, then run npm start again." "$LOGS/migrate.log"
+applied="$(rl_last_run "$LOGS/migrate.log" | grep -c ': Success' || true)"
+if [ "$applied" -gt 0 ]; then rl_ok "$applied applied"; else rl_ok "already up to date"; fi
+
+# ---------------------------------------------------------------------------------------- 7
+rl_step 7 $TOTAL "Loading the demo data (only when absent)"
+[ -f docker-free-scripts/seed.ts ] || rl_die "docker-free-scripts/seed.ts is missing." "restore it from git."
+rl_run_logged "$LOGS/seed.log" "$RL_TSX" docker-free-scripts/seed.ts \
+  || rl_die "Loading the demo data failed." "read the log above; 'npm run db:seed' runs the same step." "$LOGS/seed.log"
+rl_ok "$(rl_last_run "$LOGS/seed.log" | grep -v '^[[:space:]]*$' | tail -n 1 | cut -c1-90)"
+
+# ---------------------------------------------------------------------------------------- 8
+if [ "$mode" = dev ]; then
+  rl_step 8 $TOTAL "Building the app"
+  rl_ok "skipped (next dev compiles on demand)"
+else
+  rl_step 8 $TOTAL "Building the app (next build)"
+  why=""
+  if [ "$rebuild" = 1 ]; then
+    why="asked for with --rebuild"
+  elif [ ! -f .next/BUILD_ID ]; then
+    why="no build yet"
+  elif [ "$(cat .next/rimeline-profile 2>/dev/null)" != dev ]; then
+    why="the last build was made for another profile"
+  else
+    newer="$(find . \( -path ./node_modules -o -path ./.next -o -path ./.data -o -path ./.git -o -path ./tests \
+      -o -path ./docker-free-scripts \) -prune -o -type f \( -name '*.ts' -o -name '*.tsx' -o -name '*.js' -o -name '*.mjs' \
+      -o -name '*.cjs' -o -name '*.css' -o -name '*.json' -o -path './public/*' \) -newer .next/BUILD_ID -print -quit)"
+    [ -n "$newer" ] && why="${newer#./} changed"
+  fi
+  if [ -z "$why" ]; then
+    rl_ok "up to date, skipped (npm start -- --rebuild forces a build)"
+  else
+    printf '%s, building (about a minute) … ' "$why"
+    rm -f .next/rimeline-profile
+    rl_run_logged "$LOGS/build.log" node "$RL_NEXT" build \
+      || rl_die "next build failed." "fix the error shown above (full output: $(rl_rel "$LOGS")/build.log), then run npm start again." "$LOGS/build.log"
+    echo dev >.next/rimeline-profile
+    rl_ok
+  fi
+fi
+
+# ---------------------------------------------------------------------------------------- 9
+rl_step 9 $TOTAL "Starting the app on 127.0.0.1:$APP_PORT"
+rl_stop_stale app "app"
+rl_free_port "$APP_PORT" "app" || exit 1
+if [ "$mode" = dev ]; then
+  RL_READY_TIMEOUT=90 rl_service_start app "app (next dev)" "http://127.0.0.1:$APP_PORT/api/health" \
+    node "$RL_NEXT" dev -H 127.0.0.1 -p "$APP_PORT" || exit 1
+else
+  RL_READY_TIMEOUT=90 rl_service_start app "app" "http://127.0.0.1:$APP_PORT/api/health" \
+    node "$RL_NEXT" start -H 127.0.0.1 -p "$APP_PORT" || exit 1
+fi
+app_pid="${RL_SERVICE_PID[app]}"
+health_code="$(rl_http_status "http://127.0.0.1:$APP_PORT/api/health")"
+if [ "$health_code" = 200 ]; then
+  rl_ok "healthy"
+else
+  rl_ok
+  rl_warn "/api/health answered $health_code: $(rl_http_body "http://127.0.0.1:$APP_PORT/api/health" | cut -c1-200)"
+fi
+
+cat <<EOF
+
+  Rimeline is running at  $APP_URL
+  Mail inbox (admins):    $APP_URL/settings/mail
+
+  Demo sign-ins (password: rimeline-demo)
+    admin@rimeline.test        admin
+    office@rimeline.test       office
+    tech@rimeline.test         technician
+    owner@client-one.test      client user of the first client
+    owner@client-two.test      client user of the second client
+
+  Logs: $(rl_rel "$LOGS")/ (app.log, s3.log, mail.log, postgres.log)
+  Press Ctrl-C to stop everything.
+
+EOF
+
+# Run until Ctrl-C, or until one of the services exits on its own.
+while true; do
+  wait -n "${RL_SERVICE_PID[app]}" "${RL_SERVICE_PID[s3]}" "${RL_SERVICE_PID[mail]}" || true
+  for name in app s3 mail; do
+    if ! rl_alive "${RL_SERVICE_PID[$name]}"; then
+      rl_fail "The ${RL_SERVICE_LABEL[$name]} stopped unexpectedly." \
+        "read the log above, then run npm start again." "$LOGS/$name.log"
+      exit 1
+    fi
+  done
+done
