@@ -1,0 +1,109 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Mail, Phone, Trash2 } from 'lucide-react';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/card';
+import { Field, Input, describedBy } from '@/components/ui/field';
+import type { ContactDto } from '@/lib/clients/dto';
+import { useDeleteContact, useSaveContact } from '@/lib/clients/hooks';
+import { createContactSchema } from '@/lib/clients/schemas';
+
+type Values = z.input<typeof createContactSchema>;
+
+export function ContactManager({ clientId, contacts, canWrite }: { clientId: string; contacts: ContactDto[]; canWrite: boolean }) {
+  const router = useRouter();
+  const save = useSaveContact(clientId);
+  const remove = useDeleteContact(clientId);
+  const [banner, setBanner] = useState<string>();
+  const form = useForm<Values>({ resolver: zodResolver(createContactSchema), defaultValues: { name: '', email: '', phone: '', title: '', receivesReports: true } });
+  const errors = form.formState.errors;
+  const onSubmit = form.handleSubmit(async (values) => {
+    setBanner(undefined);
+    try {
+      await save.mutateAsync(createContactSchema.parse(values));
+      form.reset();
+      router.refresh();
+    } catch (error) {
+      setBanner(applyServerErrors(error, form.setError, ['name', 'email', 'phone', 'title']));
+    }
+  });
+  return (
+    <div className="space-y-3">
+      {contacts.length === 0 ? <EmptyState title="No contacts yet." /> : null}
+      {contacts.length > 0 ? (
+        <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
+          {contacts.map((c) => (
+            <li key={c.id} className="flex flex-wrap items-center gap-3 px-4 py-3">
+              <span className="min-w-0 flex-1">
+                <span className="block font-semibold">
+                  {c.name}
+                  {c.title ? <span className="font-normal text-slate-600"> · {c.title}</span> : null}
+                </span>
+                <span className="flex flex-wrap gap-x-4 text-sm text-slate-700">
+                  {c.email ? (
+                    <a className="inline-flex items-center gap-1 underline" href={`mailto:${c.email}`}>
+                      <Mail aria-hidden className="size-4" /> {c.email}
+                    </a>
+                  ) : null}
+                  {c.phone ? (
+                    <a className="inline-flex items-center gap-1 underline" href={`tel:${c.phone}`}>
+                      <Phone aria-hidden className="size-4" /> {c.phone}
+                    </a>
+                  ) : null}
+                  <span>{c.receivesReports ? 'Receives visit reports' : 'No visit reports'}</span>
+                </span>
+              </span>
+              {canWrite ? (
+                <Button
+                  variant="ghost"
+                  size="sm"
+                  aria-label={`Remove ${c.name}`}
+                  onClick={async () => {
+                    if (!window.confirm(`Remove ${c.name} from this client's contacts?`)) return;
+                    await remove.mutateAsync(c.id);
+                    router.refresh();
+                  }}
+                >
+                  <Trash2 aria-hidden className="size-4" /> Remove
+                </Button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {canWrite ? (
+        <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2">
+          {banner ? <Alert tone="danger" title={banner} className="sm:col-span-2" /> : null}
+          <Field id="contact-name" label="Name" error={errors.name?.message}>
+            <Input id="contact-name" {...describedBy('contact-name', errors.name?.message)} {...form.register('name')} />
+          </Field>
+          <Field id="contact-title" label="Title" error={errors.title?.message}>
+            <Input id="contact-title" placeholder="Facilities lead" {...describedBy('contact-title', errors.title?.message)} {...form.register('title')} />
+          </Field>
+          <Field id="contact-email" label="E-mail" error={errors.email?.message}>
+            <Input id="contact-email" type="email" {...describedBy('contact-email', errors.email?.message)} {...form.register('email')} />
+          </Field>
+          <Field id="contact-phone" label="Phone" error={errors.phone?.message}>
+            <Input id="contact-phone" type="tel" {...describedBy('contact-phone', errors.phone?.message)} {...form.register('phone')} />
+          </Field>
+          <label className="flex min-h-11 items-center gap-2 text-sm font-medium sm:col-span-2">
+            <input type="checkbox" className="size-5" {...form.register('receivesReports')} />
+            Send this contact a report after each visit
+          </label>
+          <div className="sm:col-span-2">
+            <Button type="submit" disabled={form.formState.isSubmitting}>
+              Add contact
+            </Button>
+          </div>
+        </form>
+      ) : null}
+    </div>
+  );
+}

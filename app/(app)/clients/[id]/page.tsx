@@ -1,0 +1,53 @@
+import type { Metadata } from 'next';
+import { SiteList } from '@/components/sites/site-list';
+import { ButtonLink } from '@/components/ui/button';
+import { Card, PageHeader } from '@/components/ui/card';
+import { orNotFound } from '@/lib/api/page';
+import { requirePageActor } from '@/lib/auth';
+import { can } from '@/lib/auth/access';
+import { getClient, listContacts } from '@/lib/clients/service';
+import { listSites } from '@/lib/sites/service';
+import { ArchiveClientButton } from '@/app/(app)/clients/[id]/_components/archive-client-button';
+import { ContactManager } from '@/app/(app)/clients/[id]/_components/contact-manager';
+
+export const metadata: Metadata = { title: 'Client' };
+
+export default async function ClientPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const actor = await requirePageActor(`/clients/${id}`, 'contacts.read');
+  const client = await orNotFound(getClient(actor, id));
+  const [sites, contacts] = await Promise.all([listSites(actor, { clientId: id, limit: 200, archived: 'exclude' }), listContacts(actor, id)]);
+  const canWrite = can(actor, 'clients.write');
+  return (
+    <div className="space-y-6">
+      <PageHeader
+        title={client.name}
+        subtitle={client.archivedAt ? 'Archived client' : `${client.siteCount} ${client.siteCount === 1 ? 'site' : 'sites'}`}
+        actions={
+          canWrite ? (
+            <>
+              <ButtonLink href={`/sites/new?clientId=${client.id}`}>Add a site</ButtonLink>
+              <ButtonLink href={`/clients/${client.id}/edit`} variant="secondary">
+                Edit
+              </ButtonLink>
+              <ArchiveClientButton clientId={client.id} archived={Boolean(client.archivedAt)} />
+            </>
+          ) : null
+        }
+      />
+      {client.notes ? <Card className="whitespace-pre-line text-sm">{client.notes}</Card> : null}
+      <section aria-labelledby="sites-h" className="space-y-3">
+        <h2 id="sites-h" className="text-lg font-semibold">
+          Sites
+        </h2>
+        <SiteList sites={sites.items} showClient={false} empty="This client has no sites yet." />
+      </section>
+      <section aria-labelledby="contacts-h" className="space-y-3">
+        <h2 id="contacts-h" className="text-lg font-semibold">
+          Contacts
+        </h2>
+        <ContactManager clientId={client.id} contacts={contacts} canWrite={can(actor, 'contacts.write')} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,146 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
+import { useSaveSite } from '@/lib/sites/hooks';
+import { createSiteSchema } from '@/lib/sites/schemas';
+import type { SiteDto } from '@/lib/sites/dto';
+
+type FormValues = z.input<typeof createSiteSchema>;
+type FormOutput = z.output<typeof createSiteSchema>;
+const fields = ['clientId', 'name', 'addressLine1', 'addressLine2', 'city', 'region', 'postalCode', 'country', 'timeZone', 'elevationM', 'accessNotes'] as const;
+const FEET_PER_M = 1 / 0.3048;
+
+export function SiteForm({
+  site,
+  clients,
+  defaultClientId,
+  units,
+  timeZones,
+}: {
+  site?: SiteDto;
+  clients: { id: string; name: string }[];
+  defaultClientId?: string;
+  units: 'imperial' | 'metric';
+  timeZones: string[];
+}) {
+  const router = useRouter();
+  const save = useSaveSite(site?.id);
+  const [banner, setBanner] = useState<string>();
+  const toDisplay = (m: number) => (units === 'imperial' ? String(Math.round(m * FEET_PER_M)) : String(Math.round(m)));
+  const form = useForm<FormValues, unknown, FormOutput>({
+    resolver: zodResolver(createSiteSchema),
+    defaultValues: {
+      clientId: site?.clientId ?? defaultClientId ?? '',
+      name: site?.name ?? '',
+      addressLine1: site?.addressLine1 ?? '',
+      addressLine2: site?.addressLine2 ?? '',
+      city: site?.city ?? '',
+      region: site?.region ?? '',
+      postalCode: site?.postalCode ?? '',
+      country: site?.country ?? 'US',
+      timeZone: site?.timeZone ?? 'America/Chicago',
+      elevationM: site?.elevationM ?? 0,
+      accessNotes: site?.accessNotes ?? '',
+    },
+  });
+  const [elevation, setElevation] = useState(toDisplay(site?.elevationM ?? 0));
+  const errors = form.formState.errors;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setBanner(undefined);
+    try {
+      const { clientId, ...rest } = values;
+      const saved = await save.mutateAsync(site ? rest : { clientId, ...rest });
+      router.push(`/sites/${saved.id}`);
+      router.refresh();
+    } catch (error) {
+      setBanner(applyServerErrors(error, form.setError, fields));
+    }
+  });
+
+  function onElevation(value: string) {
+    setElevation(value);
+    const n = Number(value);
+    // Stored in metres; a site's elevation sets the barometric pressure for gauge readings.
+    form.setValue('elevationM', value.trim() === '' || Number.isNaN(n) ? Number.NaN : units === 'imperial' ? n * 0.3048 : n, { shouldValidate: form.formState.isSubmitted });
+  }
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
+      {banner ? <Alert tone="danger" title={banner} /> : null}
+      {!site ? (
+        <Field id="clientId" label="Client" error={errors.clientId?.message}>
+          <Select id="clientId" {...describedBy('clientId', errors.clientId?.message)} {...form.register('clientId')}>
+            <option value="">Choose a client…</option>
+            {clients.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
+          </Select>
+        </Field>
+      ) : null}
+      <Field id="name" label="Site name" error={errors.name?.message} hint="How technicians and the owner call it, e.g. “Harbor Street kitchen”.">
+        <Input id="name" {...describedBy('name', errors.name?.message)} {...form.register('name')} />
+      </Field>
+      <Field id="addressLine1" label="Street address" error={errors.addressLine1?.message}>
+        <Input id="addressLine1" autoComplete="address-line1" {...describedBy('addressLine1', errors.addressLine1?.message)} {...form.register('addressLine1')} />
+      </Field>
+      <Field id="addressLine2" label="Address line 2" error={errors.addressLine2?.message}>
+        <Input id="addressLine2" autoComplete="address-line2" {...describedBy('addressLine2', errors.addressLine2?.message)} {...form.register('addressLine2')} />
+      </Field>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <Field id="city" label="City" error={errors.city?.message}>
+          <Input id="city" {...describedBy('city', errors.city?.message)} {...form.register('city')} />
+        </Field>
+        <Field id="region" label="State / region" error={errors.region?.message}>
+          <Input id="region" {...describedBy('region', errors.region?.message)} {...form.register('region')} />
+        </Field>
+        <Field id="postalCode" label="Postal code" error={errors.postalCode?.message}>
+          <Input id="postalCode" {...describedBy('postalCode', errors.postalCode?.message)} {...form.register('postalCode')} />
+        </Field>
+      </div>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <Field id="country" label="Country code" error={errors.country?.message}>
+          <Input id="country" maxLength={2} {...describedBy('country', errors.country?.message)} {...form.register('country')} />
+        </Field>
+        <Field id="timeZone" label="Time zone" error={errors.timeZone?.message} hint="Visits at this site show in this zone.">
+          <Select id="timeZone" {...describedBy('timeZone', errors.timeZone?.message)} {...form.register('timeZone')}>
+            {timeZones.map((z) => (
+              <option key={z} value={z}>
+                {z}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field
+          id="elevation"
+          label={`Elevation (${units === 'imperial' ? 'ft' : 'm'})`}
+          error={errors.elevationM?.message}
+          hint="Sets the barometric pressure used to convert gauge readings."
+        >
+          <Input id="elevation" inputMode="numeric" value={elevation} onChange={(e) => onElevation(e.target.value)} {...describedBy('elevation', errors.elevationM?.message)} />
+        </Field>
+      </div>
+      <Field id="accessNotes" label="Access notes" error={errors.accessNotes?.message} hint="Roof hatch, keys, hours, who to ask on arrival.">
+        <Textarea id="accessNotes" {...describedBy('accessNotes', errors.accessNotes?.message)} {...form.register('accessNotes')} />
+      </Field>
+      <div className="flex gap-2">
+        <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
+          {form.formState.isSubmitting ? 'Saving…' : site ? 'Save changes' : 'Create site'}
+        </Button>
+        <Button variant="secondary" size="lg" onClick={() => router.back()}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

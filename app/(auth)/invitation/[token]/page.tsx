@@ -1,0 +1,34 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { roleLabels, type Role } from '@/lib/auth/permissions';
+import { findOpenInvitation } from '@/lib/users/service';
+import { AcceptInvitationForm } from '@/app/(auth)/invitation/[token]/accept-form';
+
+export const metadata: Metadata = { title: 'Accept invitation' };
+
+export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const invitation = token.length <= 200 ? await findOpenInvitation(token) : null;
+  if (!invitation) {
+    return (
+      <>
+        <h1 className="mb-3 text-xl font-bold">This invitation is no longer valid</h1>
+        <p className="text-slate-700">It may have expired, been replaced or already been used. Ask your admin to send a new one.</p>
+        <p className="mt-4">
+          <Link className="font-semibold text-ice-800 underline" href="/sign-in">
+            Go to sign-in
+          </Link>
+        </p>
+      </>
+    );
+  }
+  return (
+    <>
+      <h1 className="mb-2 text-xl font-bold">Join {invitation.company_name}</h1>
+      <p className="mb-4 text-slate-700">
+        {invitation.name} ({invitation.email}), you are invited as {roleLabels[invitation.role as Role]}.
+      </p>
+      <AcceptInvitationForm token={token} email={invitation.email} />
+    </>
+  );
+}

@@ -1,0 +1,24 @@
+import type { Metadata, Viewport } from 'next';
+import { cookies } from 'next/headers';
+import type { ReactNode } from 'react';
+import { inter } from '@/app/fonts';
+import { Providers } from '@/app/providers';
+import './globals.css';
+
+export const metadata: Metadata = {
+  title: { default: 'Rimeline', template: '%s · Rimeline' },
+  description: 'Service records for commercial refrigeration equipment.',
+};
+
+export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#0f172a' };
+
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  const contrast = (await cookies()).get('rl-contrast')?.value === 'high';
+  return (
+    <html lang="en" className={`${inter.variable} ${contrast ? 'contrast-high' : ''}`}>
+      <body className="min-h-screen bg-slate-50 font-sans text-slate-900 antialiased">
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

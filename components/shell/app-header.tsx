@@ -1,0 +1,84 @@
+'use client';
+
+import { Building2, Gauge, Home, MapPin, Settings, Snowflake, Sun, LogOut } from 'lucide-react';
+import { signOut } from 'next-auth/react';
+import Link from 'next/link';
+import { usePathname, useRouter } from 'next/navigation';
+import { roleLabels, type Role } from '@/lib/auth/permissions';
+import type { NavItem } from '@/lib/navigation';
+import { cn } from '@/lib/utils';
+
+const icons = { home: Home, sites: MapPin, clients: Building2, settings: Settings, gauge: Gauge } as const;
+
+function isActive(pathname: string, href: string): boolean {
+  return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);
+}
+
+export function AppHeader({ items, name, role, highContrast }: { items: NavItem[]; name: string; role: Role; highContrast: boolean }) {
+  const pathname = usePathname();
+  const router = useRouter();
+
+  function toggleContrast() {
+    document.cookie = `rl-contrast=${highContrast ? 'normal' : 'high'}; path=/; max-age=31536000; samesite=lax`;
+    router.refresh();
+  }
+
+  return (
+    <header className="bg-slate-900 text-white">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2 focus:text-slate-900">
+        Skip to content
+      </a>
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-3 py-2 sm:px-6">
+        <Link href="/" className="flex min-h-11 items-center gap-2 text-lg font-bold">
+          <Snowflake aria-hidden className="size-6 text-ice-300" />
+          Rimeline
+        </Link>
+        <div className="ml-auto flex items-center gap-1">
+          <button
+            type="button"
+            onClick={toggleContrast}
+            aria-pressed={highContrast}
+            className="flex min-h-11 items-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
+          >
+            <Sun aria-hidden className="size-5" />
+            <span className="hidden sm:inline">{highContrast ? 'Normal contrast' : 'Sunlight mode'}</span>
+            <span className="sr-only sm:hidden">High contrast</span>
+          </button>
+          <span className="hidden text-right text-sm leading-tight text-slate-300 md:block">
+            {name}
+            <br />
+            <span className="text-xs text-slate-400">{roleLabels[role]}</span>
+          </span>
+          <button
+            type="button"
+            onClick={() => signOut({ callbackUrl: '/sign-in' })}
+            className="flex min-h-11 items-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
+          >
+            <LogOut aria-hidden className="size-5" />
+            Sign out
+          </button>
+        </div>
+        <nav aria-label="Main" className="-mx-1 flex w-full gap-1 overflow-x-auto pb-1">
+          {items.map((item) => {
+            const Icon = icons[item.icon];
+            const active = isActive(pathname, item.href);
+            return (
+              <Link
+                key={item.href}
+                href={item.href}
+                aria-current={active ? 'page' : undefined}
+                className={cn(
+                  'flex min-h-11 shrink-0 items-center gap-2 rounded-md px-3 text-sm font-semibold',
+                  active ? 'bg-ice-100 text-ice-950' : 'text-slate-200 hover:bg-slate-800',
+                )}
+              >
+                <Icon aria-hidden className="size-5" />
+                {item.label}
+              </Link>
+            );
+          })}
+        </nav>
+      </div>
+    </header>
+  );
+}

@@ -1,0 +1,23 @@
+import 'server-only';
+import { Kysely, PostgresDialect } from 'kysely';
+import pg from 'pg';
+import { env } from '@/lib/env';
+import type { DB } from '@/db/schema.gen';
+
+// int8 (counts) fits in a JS number for every count we make; numeric stays a string unless a
+// column is read through a helper that converts it on purpose.
+pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number.parseInt(v, 10));
+pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number.parseFloat(v));
+
+export type Database = DB;
+
+const globalForDb = globalThis as unknown as { rimelineDb?: Kysely<DB> };
+
+function createDb(): Kysely<DB> {
+  const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: env.DATABASE_POOL_MAX });
+  return new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
+}
+
+// Cached on globalThis so dev hot reload reuses one pool.
+export const db: Kysely<DB> = globalForDb.rimelineDb ?? createDb();
+if (env.NODE_ENV !== 'production') globalForDb.rimelineDb = db;

@@ -1,0 +1,127 @@
+import 'server-only';
+import { NextResponse, type NextRequest } from 'next/server';
+import { z, type ZodType } from 'zod';
+import { requireActor, type Actor } from '@/lib/auth';
+import { assertCan } from '@/lib/auth/access';
+import type { Permission } from '@/lib/auth/permissions';
+import { AppError, type ErrorIssue } from '@/lib/errors';
+import { logger } from '@/lib/logger';
+
+type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
+
+interface Options<P, Q, B> {
+  /** Checked before the body is read, so a refused role gets 403 rather than a validation error. */
+  permission?: Permission;
+  params?: ZodType<P>;
+  query?: ZodType<Q>;
+  body?: ZodType<B>;
+  /** Status on success when the handler returns a value (201 for creates). */
+  status?: 200 | 201 | 202;
+  maxBodyBytes?: number;
+}
+
+interface HandlerInput<P, Q, B> {
+  actor: Actor;
+  params: P;
+  query: Q;
+  body: B;
+  req: NextRequest;
+}
+
+const DEFAULT_MAX_BODY = 1_000_000;
+
+export function zodIssues(error: z.ZodError): ErrorIssue[] {
+  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));
+}
+
+function validationError(error: z.ZodError): AppError {
+  return new AppError('validation_failed', 'Some fields need attention.', zodIssues(error));
+}
+
+function queryObject(url: URL): Record<string, string | string[]> {
+  const out: Record<string, string | string[]> = {};
+  for (const key of new Set(url.searchParams.keys())) {
+    const all = url.searchParams.getAll(key);
+    out[key] = all.length > 1 ? all : (all[0] ?? '');
+  }
+  return out;
+}
+
+async function readJson(req: NextRequest, maxBytes: number): Promise<unknown> {
+  const length = Number(req.headers.get('content-length') ?? '0');
+  if (length > maxBytes) throw new AppError('payload_too_large', `The request body is larger than ${maxBytes} bytes.`);
+  const type = req.headers.get('content-type') ?? '';
+  if (!type.toLowerCase().startsWith('application/json')) {
+    throw new AppError('unsupported_media_type', 'Send the request body as application/json.');
+  }
+  const text = await req.text();
+  if (Buffer.byteLength(text) > maxBytes) throw new AppError('payload_too_large', `The request body is larger than ${maxBytes} bytes.`);
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError('bad_request', 'The request body is not valid JSON.');
+  }
+}
+
+/** Maps any thrown value to the one error shape; unknown errors are logged and hidden. */
+export function errorResponse(error: unknown): NextResponse {
+  const appError = toAppError(error);
+  if (appError.code === 'internal') logger.error({ err: error }, 'unhandled error in route handler');
+  return NextResponse.json(appError.toBody(), { status: appError.status });
+}
+
+export function toAppError(error: unknown): AppError {
+  if (error instanceof AppError) return error;
+  if (error instanceof z.ZodError) return validationError(error);
+  const pg = error as { code?: unknown; constraint?: unknown };
+  if (typeof pg?.code === 'string') {
+    if (pg.code === '23505') return new AppError('conflict', 'A record with these details already exists.');
+    if (pg.code === '23503') return new AppError('validation_failed', 'A linked record does not exist or is still in use.');
+    if (pg.code === '23514') return new AppError('validation_failed', 'A value is outside what this record allows.');
+    if (pg.code === '22P02' || pg.code === '22003' || pg.code === '22007') return new AppError('bad_request', 'A value has the wrong format.');
+  }
+  return new AppError('internal');
+}
+
+/**
+ * Wraps every route handler export: session (401), params (404 when malformed), query and body
+ * (400/413/415/422) parsing, one service call, and error mapping. Services do the authorization.
+ */
+export function withApi<P = Record<string, never>, Q = Record<string, never>, B = undefined, R = unknown>(
+  options: Options<P, Q, B>,
+  handler: (input: HandlerInput<P, Q, B>) => Promise<R>,
+) {
+  return async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
+    try {
+      const actor = await requireActor();
+      if (options.permission) assertCan(actor, options.permission);
+      const rawParams = (await ctx?.params) ?? {};
+      let params = rawParams as unknown as P;
+      if (options.params) {
+        const parsed = options.params.safeParse(rawParams);
+        // A malformed id cannot name anything the caller may see.
+        if (!parsed.success) throw new AppError('not_found');
+        params = parsed.data;
+      }
+      let query = {} as Q;
+      if (options.query) {
+        const parsed = options.query.safeParse(queryObject(req.nextUrl));
+        if (!parsed.success) throw validationError(parsed.error);
+        query = parsed.data;
+      }
+      let body = undefined as B;
+      if (options.body) {
+        const raw = await readJson(req, options.maxBodyBytes ?? DEFAULT_MAX_BODY);
+        const parsed = options.body.safeParse(raw);
+        if (!parsed.success) throw validationError(parsed.error);
+        body = parsed.data;
+      }
+      const result = await handler({ actor, params, query, body, req });
+      if (result instanceof Response) return result;
+      if (result === undefined || result === null) return new Response(null, { status: 204 });
+      return NextResponse.json(result, { status: options.status ?? 200 });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

@@ -1,0 +1,51 @@
+import 'server-only';
+import { getServerSession } from 'next-auth';
+import { redirect } from 'next/navigation';
+import { cache } from 'react';
+import { db } from '@/db';
+import { AppError } from '@/lib/errors';
+import type { Actor } from '@/lib/auth/actor';
+import { authOptions } from '@/lib/auth/options';
+import { roleCan, type Permission, type Role } from '@/lib/auth/permissions';
+
+export { authOptions };
+export type { Actor };
+
+/** The signed-in, active user, or null. Read fresh from the database once per request. */
+export const getActor = cache(async (): Promise<Actor | null> => {
+  const session = await getServerSession(authOptions);
+  const id = (session?.user as { id?: string } | undefined)?.id;
+  if (!id) return null;
+  const row = await db
+    .selectFrom('users')
+    .select(['id', 'company_id', 'role', 'client_id', 'name', 'email', 'units', 'metric_pressure'])
+    .where('id', '=', id)
+    .where('deactivated_at', 'is', null)
+    .executeTakeFirst();
+  if (!row) return null;
+  return {
+    id: row.id,
+    companyId: row.company_id,
+    role: row.role as Role,
+    clientId: row.client_id,
+    name: row.name,
+    email: row.email,
+    units: row.units as Actor['units'],
+    metricPressure: row.metric_pressure as Actor['metricPressure'],
+  };
+});
+
+/** For route handlers and actions: 401 when signed out. */
+export async function requireActor(): Promise<Actor> {
+  const actor = await getActor();
+  if (!actor) throw new AppError('unauthorized');
+  return actor;
+}
+
+/** For pages and layouts: signed-out visitors go to sign-in and come back afterwards. */
+export async function requirePageActor(returnTo = '/', permission?: Permission): Promise<Actor> {
+  const actor = await getActor();
+  if (!actor) redirect(`/sign-in?callbackUrl=${encodeURIComponent(returnTo)}`);
+  if (permission && !roleCan(actor.role, permission)) redirect('/?denied=1');
+  return actor;
+}

@@ -1,0 +1,38 @@
+// The role × action matrix: the one table that says who may do what. Pure data, safe on the client
+// (navigation hides what a role cannot do); the server enforces it through lib/auth/access.ts.
+export const roles = ['admin', 'office', 'technician', 'client'] as const;
+export type Role = (typeof roles)[number];
+
+export const roleLabels: Record<Role, string> = {
+  admin: 'Admin',
+  office: 'Office',
+  technician: 'Technician',
+  client: 'Owner (client user)',
+};
+
+const staff: Role[] = ['admin', 'office', 'technician'];
+const everyone: Role[] = ['admin', 'office', 'technician', 'client'];
+const officeUp: Role[] = ['admin', 'office'];
+
+export const permissions = {
+  'clients.read': everyone,
+  'clients.write': officeUp,
+  'contacts.read': staff,
+  'contacts.write': officeUp,
+  'sites.read': everyone,
+  'sites.write': officeUp,
+  'areas.read': everyone,
+  'areas.write': officeUp,
+  'users.manage': ['admin'],
+  'company.settings': ['admin'],
+  'profile.update': everyone,
+  'audit.read': officeUp,
+  'mail.inbox': ['admin'],
+  'calc.use': everyone,
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof permissions;
+
+export function roleCan(role: Role, permission: Permission): boolean {
+  return (permissions[permission] as readonly Role[]).includes(role);
+}

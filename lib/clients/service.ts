@@ -1,0 +1,209 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { clientVisibleTo, escapeLike } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import { toClientDto, toContactDto, type ClientDto, type ContactDto } from '@/lib/clients/dto';
+import type {
+  CreateClientInput,
+  CreateContactInput,
+  ListClientsQuery,
+  UpdateClientInput,
+  UpdateContactInput,
+} from '@/lib/clients/schemas';
+import { AppError } from '@/lib/errors';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+function clientQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('clients')
+    .where(clientVisibleTo(actor))
+    .select([
+      'clients.id',
+      'clients.name',
+      'clients.notes',
+      'clients.archived_at',
+      'clients.created_at',
+      'clients.updated_at',
+      (eb) =>
+        eb
+          .selectFrom('sites')
+          .whereRef('sites.client_id', '=', 'clients.id')
+          .where('sites.archived_at', 'is', null)
+          .select(eb.fn.countAll<number>().as('n'))
+          .as('site_count'),
+    ]);
+}
+
+export async function listClients(actor: Actor, query: ListClientsQuery, db: Db = defaultDb): Promise<Page<ClientDto>> {
+  assertCan(actor, 'clients.read');
+  const cursor = decodeCursor(query.cursor);
+  let q = clientQuery(actor, db);
+  if (query.archived === 'exclude') q = q.where('clients.archived_at', 'is', null);
+  if (query.archived === 'only') q = q.where('clients.archived_at', 'is not', null);
+  if (query.q) q = q.where('clients.name', 'ilike', `%${escapeLike(query.q)}%`);
+  if (cursor) {
+    const key = String(cursor.k ?? '');
+    q = q.where((eb) =>
+      eb.or([
+        eb(sql`lower(clients.name)`, '>', key),
+        eb.and([eb(sql`lower(clients.name)`, '=', key), eb('clients.id', '>', cursor.id)]),
+      ]),
+    );
+  }
+  const rows = await q.orderBy(sql`lower(clients.name)`).orderBy('clients.id').limit(query.limit + 1).execute();
+  const items = rows.slice(0, query.limit).map(toClientDto);
+  const last = items.at(-1);
+  return {
+    items,
+    nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.name.toLowerCase(), id: last.id }) : null,
+  };
+}
+
+export async function getClient(actor: Actor, id: string, db: Db = defaultDb): Promise<ClientDto> {
+  assertCan(actor, 'clients.read');
+  const row = await clientQuery(actor, db).where('clients.id', '=', id).executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Client not found.');
+  return toClientDto(row);
+}
+
+export async function createClient(actor: Actor, input: CreateClientInput, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
+  assertCan(actor, 'clients.write');
+  return db.transaction().execute(async (trx) => {
+    const row = await trx
+      .insertInto('clients')
+      .values({ company_id: actor.companyId, name: input.name, notes: input.notes ?? null })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const created = await getClient(actor, row.id, trx);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'client', entityId: row.id, after: created });
+    return created;
+  });
+}
+
+export async function updateClient(actor: Actor, id: string, input: UpdateClientInput, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
+  assertCan(actor, 'clients.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getClient(actor, id, trx);
+    await trx
+      .updateTable('clients')
+      .set({
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.notes !== undefined ? { notes: input.notes } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getClient(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'client', entityId: id, before, after });
+    return after;
+  });
+}
+
+export async function setClientArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
+  assertCan(actor, 'clients.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getClient(actor, id, trx);
+    await trx
+      .updateTable('clients')
+      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getClient(actor, id, trx);
+    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'client', entityId: id, before, after });
+    return after;
+  });
+}
+
+export async function listContacts(actor: Actor, clientId: string, db: Db = defaultDb): Promise<ContactDto[]> {
+  assertCan(actor, 'contacts.read');
+  await getClient(actor, clientId, db);
+  const rows = await db
+    .selectFrom('client_contacts')
+    .selectAll()
+    .where('client_id', '=', clientId)
+    .where('company_id', '=', actor.companyId)
+    .orderBy('name')
+    .execute();
+  return rows.map(toContactDto);
+}
+
+async function getContactRow(actor: Actor, clientId: string, contactId: string, db: Db) {
+  const row = await db
+    .selectFrom('client_contacts')
+    .selectAll()
+    .where('id', '=', contactId)
+    .where('client_id', '=', clientId)
+    .where('company_id', '=', actor.companyId)
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Contact not found.');
+  return row;
+}
+
+export async function createContact(actor: Actor, clientId: string, input: CreateContactInput, db: Kysely<DB> = defaultDb): Promise<ContactDto> {
+  assertCan(actor, 'contacts.write');
+  return db.transaction().execute(async (trx) => {
+    await getClient(actor, clientId, trx);
+    const row = await trx
+      .insertInto('client_contacts')
+      .values({
+        company_id: actor.companyId,
+        client_id: clientId,
+        name: input.name,
+        email: input.email ?? null,
+        phone: input.phone ?? null,
+        title: input.title ?? null,
+        receives_reports: input.receivesReports,
+      })
+      .returningAll()
+      .executeTakeFirstOrThrow();
+    const dto = toContactDto(row);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'client_contact', entityId: row.id, after: dto });
+    return dto;
+  });
+}
+
+export async function updateContact(
+  actor: Actor,
+  clientId: string,
+  contactId: string,
+  input: UpdateContactInput,
+  db: Kysely<DB> = defaultDb,
+): Promise<ContactDto> {
+  assertCan(actor, 'contacts.write');
+  return db.transaction().execute(async (trx) => {
+    const before = toContactDto(await getContactRow(actor, clientId, contactId, trx));
+    const row = await trx
+      .updateTable('client_contacts')
+      .set({
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.email !== undefined ? { email: input.email } : {}),
+        ...(input.phone !== undefined ? { phone: input.phone } : {}),
+        ...(input.title !== undefined ? { title: input.title } : {}),
+        ...(input.receivesReports !== undefined ? { receives_reports: input.receivesReports } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', contactId)
+      .returningAll()
+      .executeTakeFirstOrThrow();
+    const after = toContactDto(row);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'client_contact', entityId: contactId, before, after });
+    return after;
+  });
+}
+
+export async function deleteContact(actor: Actor, clientId: string, contactId: string, db: Kysely<DB> = defaultDb): Promise<void> {
+  assertCan(actor, 'contacts.write');
+  await db.transaction().execute(async (trx) => {
+    const before = toContactDto(await getContactRow(actor, clientId, contactId, trx));
+    await trx.deleteFrom('client_contacts').where('id', '=', contactId).execute();
+    await recordAudit(trx, actor, { action: 'delete', entityType: 'client_contact', entityId: contactId, before });
+  });
+}

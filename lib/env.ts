@@ -1,0 +1,41 @@
+import 'server-only';
+import { z } from 'zod';
+
+// The only place that reads server variables. Defaults fit the embedded single-machine setup;
+// production points these at managed services without code changes (see README).
+const booleanFlag = z
+  .enum(['true', 'false', '1', '0', ''])
+  .optional()
+  .transform((v) => v === 'true' || v === '1');
+
+const serverEnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  DATABASE_URL: z.url().default('postgres://postgres@127.0.0.1:54329/rimeline'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).default('rimeline'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
+  S3_FORCE_PATH_STYLE: booleanFlag,
+  SMTP_URL: z.url().default('smtp://127.0.0.1:1025'),
+  MAIL_FROM: z.string().min(3).default('Rimeline <no-reply@rimeline.test>'),
+  MAIL_CATCHER_URL: z.url().optional(),
+  APP_URL: z.url().default('http://localhost:3000'),
+  AUTH_SECRET: z.string().min(16, 'AUTH_SECRET must be at least 16 characters'),
+  DEMO_MODE: booleanFlag,
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+});
+
+export type ServerEnv = z.infer<typeof serverEnvSchema>;
+
+function loadEnv(): ServerEnv {
+  const parsed = serverEnvSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid environment configuration:\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}
+
+export const env = loadEnv();

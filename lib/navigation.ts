@@ -1,0 +1,20 @@
+import type { Role } from '@/lib/auth/permissions';
+
+export interface NavItem {
+  href: string;
+  label: string;
+  icon: 'home' | 'sites' | 'clients' | 'settings' | 'gauge';
+  roles: readonly Role[];
+}
+
+// Places are added here as they are built; nothing links to a page that does not exist yet.
+export const navItems: NavItem[] = [
+  { href: '/', label: 'Home', icon: 'home', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/sites', label: 'Sites', icon: 'sites', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/clients', label: 'Clients', icon: 'clients', roles: ['admin', 'office'] },
+  { href: '/settings', label: 'Settings', icon: 'settings', roles: ['admin', 'office', 'technician', 'client'] },
+];
+
+export function navFor(role: Role): NavItem[] {
+  return navItems.filter((i) => i.roles.includes(role));
+}

@@ -1,0 +1,229 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { escapeLike, siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import { getClient } from '@/lib/clients/service';
+import { AppError } from '@/lib/errors';
+import { toAreaDto, toSiteDto, type AreaDto, type SiteDto } from '@/lib/sites/dto';
+import type {
+  CreateAreaInput,
+  CreateSiteInput,
+  ListSitesQuery,
+  UpdateAreaInput,
+  UpdateSiteInput,
+} from '@/lib/sites/schemas';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+function siteQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('sites')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .where(siteVisibleTo(actor))
+    .select([
+      'sites.id',
+      'sites.client_id',
+      'clients.name as client_name',
+      'sites.name',
+      'sites.address_line1',
+      'sites.address_line2',
+      'sites.city',
+      'sites.region',
+      'sites.postal_code',
+      'sites.country',
+      'sites.time_zone',
+      'sites.elevation_m',
+      'sites.access_notes',
+      'sites.archived_at',
+      'sites.created_at',
+      'sites.updated_at',
+      (eb) =>
+        eb
+          .selectFrom('areas')
+          .whereRef('areas.site_id', '=', 'sites.id')
+          .where('areas.archived_at', 'is', null)
+          .select(eb.fn.countAll<number>().as('n'))
+          .as('area_count'),
+    ]);
+}
+
+export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = defaultDb): Promise<Page<SiteDto>> {
+  assertCan(actor, 'sites.read');
+  const cursor = decodeCursor(query.cursor);
+  let q = siteQuery(actor, db);
+  if (query.clientId) q = q.where('sites.client_id', '=', query.clientId);
+  if (query.archived === 'exclude') q = q.where('sites.archived_at', 'is', null);
+  if (query.archived === 'only') q = q.where('sites.archived_at', 'is not', null);
+  if (query.q) {
+    const like = `%${escapeLike(query.q)}%`;
+    q = q.where((eb) => eb.or([eb('sites.name', 'ilike', like), eb('sites.city', 'ilike', like), eb('clients.name', 'ilike', like)]));
+  }
+  if (cursor) {
+    const key = String(cursor.k ?? '');
+    q = q.where((eb) =>
+      eb.or([
+        eb(sql`lower(sites.name)`, '>', key),
+        eb.and([eb(sql`lower(sites.name)`, '=', key), eb('sites.id', '>', cursor.id)]),
+      ]),
+    );
+  }
+  const rows = await q.orderBy(sql`lower(sites.name)`).orderBy('sites.id').limit(query.limit + 1).execute();
+  const items = rows.slice(0, query.limit).map(toSiteDto);
+  const last = items.at(-1);
+  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.name.toLowerCase(), id: last.id }) : null };
+}
+
+export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Promise<SiteDto> {
+  assertCan(actor, 'sites.read');
+  const row = await siteQuery(actor, db).where('sites.id', '=', id).executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Site not found.');
+  return toSiteDto(row);
+}
+
+export async function createSite(actor: Actor, input: CreateSiteInput, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
+  assertCan(actor, 'sites.write');
+  return db.transaction().execute(async (trx) => {
+    const client = await getClient(actor, input.clientId, trx).catch(() => {
+      throw new AppError('validation_failed', 'Choose a client.', [{ path: 'clientId', message: 'This client does not exist.' }]);
+    });
+    if (client.archivedAt) throw new AppError('validation_failed', 'This client is archived.', [{ path: 'clientId', message: 'Restore the client first.' }]);
+    const row = await trx
+      .insertInto('sites')
+      .values({
+        company_id: actor.companyId,
+        client_id: input.clientId,
+        name: input.name,
+        address_line1: input.addressLine1 ?? null,
+        address_line2: input.addressLine2 ?? null,
+        city: input.city ?? null,
+        region: input.region ?? null,
+        postal_code: input.postalCode ?? null,
+        country: input.country,
+        time_zone: input.timeZone,
+        elevation_m: input.elevationM,
+        access_notes: input.accessNotes ?? null,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const created = await getSite(actor, row.id, trx);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'site', entityId: row.id, after: created });
+    return created;
+  });
+}
+
+export async function updateSite(actor: Actor, id: string, input: UpdateSiteInput, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
+  assertCan(actor, 'sites.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getSite(actor, id, trx);
+    const set = {
+      ...(input.name !== undefined ? { name: input.name } : {}),
+      ...(input.addressLine1 !== undefined ? { address_line1: input.addressLine1 } : {}),
+      ...(input.addressLine2 !== undefined ? { address_line2: input.addressLine2 } : {}),
+      ...(input.city !== undefined ? { city: input.city } : {}),
+      ...(input.region !== undefined ? { region: input.region } : {}),
+      ...(input.postalCode !== undefined ? { postal_code: input.postalCode } : {}),
+      ...(input.country !== undefined ? { country: input.country } : {}),
+      ...(input.timeZone !== undefined ? { time_zone: input.timeZone } : {}),
+      ...(input.elevationM !== undefined ? { elevation_m: input.elevationM } : {}),
+      ...(input.accessNotes !== undefined ? { access_notes: input.accessNotes } : {}),
+    };
+    await trx.updateTable('sites').set({ ...set, updated_at: sql`now()` }).where('id', '=', id).where('company_id', '=', actor.companyId).execute();
+    const after = await getSite(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'site', entityId: id, before, after });
+    return after;
+  });
+}
+
+export async function setSiteArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
+  assertCan(actor, 'sites.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getSite(actor, id, trx);
+    await trx
+      .updateTable('sites')
+      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getSite(actor, id, trx);
+    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'site', entityId: id, before, after });
+    return after;
+  });
+}
+
+export async function listAreas(actor: Actor, siteId: string, includeArchived = false, db: Db = defaultDb): Promise<AreaDto[]> {
+  assertCan(actor, 'areas.read');
+  await getSite(actor, siteId, db);
+  let q = db.selectFrom('areas').selectAll().where('site_id', '=', siteId).where('company_id', '=', actor.companyId);
+  if (!includeArchived) q = q.where('archived_at', 'is', null);
+  return (await q.orderBy('name').execute()).map(toAreaDto);
+}
+
+async function getAreaRow(actor: Actor, siteId: string, areaId: string, db: Db) {
+  await getSite(actor, siteId, db);
+  const row = await db
+    .selectFrom('areas')
+    .selectAll()
+    .where('id', '=', areaId)
+    .where('site_id', '=', siteId)
+    .where('company_id', '=', actor.companyId)
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Area not found.');
+  return row;
+}
+
+export async function createArea(actor: Actor, siteId: string, input: CreateAreaInput, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
+  assertCan(actor, 'areas.write');
+  return db.transaction().execute(async (trx) => {
+    await getSite(actor, siteId, trx);
+    const row = await trx
+      .insertInto('areas')
+      .values({ company_id: actor.companyId, site_id: siteId, name: input.name, kind: input.kind, notes: input.notes ?? null })
+      .returningAll()
+      .executeTakeFirstOrThrow();
+    const dto = toAreaDto(row);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'area', entityId: row.id, after: dto });
+    return dto;
+  });
+}
+
+export async function updateArea(actor: Actor, siteId: string, areaId: string, input: UpdateAreaInput, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
+  assertCan(actor, 'areas.write');
+  return db.transaction().execute(async (trx) => {
+    const before = toAreaDto(await getAreaRow(actor, siteId, areaId, trx));
+    const row = await trx
+      .updateTable('areas')
+      .set({
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.kind !== undefined ? { kind: input.kind } : {}),
+        ...(input.notes !== undefined ? { notes: input.notes } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', areaId)
+      .returningAll()
+      .executeTakeFirstOrThrow();
+    const after = toAreaDto(row);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'area', entityId: areaId, before, after });
+    return after;
+  });
+}
+
+export async function setAreaArchived(actor: Actor, siteId: string, areaId: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
+  assertCan(actor, 'areas.write');
+  return db.transaction().execute(async (trx) => {
+    const before = toAreaDto(await getAreaRow(actor, siteId, areaId, trx));
+    const row = await trx
+      .updateTable('areas')
+      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
+      .where('id', '=', areaId)
+      .returningAll()
+      .executeTakeFirstOrThrow();
+    const after = toAreaDto(row);
+    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'area', entityId: areaId, before, after });
+    return after;
+  });
+}
