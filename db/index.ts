@@ -1,13 +1,8 @@
 import 'server-only';
 import { Kysely, PostgresDialect } from 'kysely';
-import pg from 'pg';
+import { pg } from '@/db/pg-types';
 import { env } from '@/lib/env';
 import type { DB } from '@/db/schema.gen';
-
-// int8 (counts) fits in a JS number for every count we make; numeric stays a string unless a
-// column is read through a helper that converts it on purpose.
-pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number.parseInt(v, 10));
-pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number.parseFloat(v));
 
 export type Database = DB;
 

@@ -1,13 +1,13 @@
 // Runs Kysely's Migrator: `tsx db/migrate.ts latest | down | up | reset`.
 import { promises as fs } from 'node:fs';
 import path from 'node:path';
-import { FileMigrationProvider, Kysely, Migrator, PostgresDialect, type MigrationResultSet } from 'kysely';
+import { FileMigrationProvider, Kysely, Migrator, PostgresDialect, type MigrationProvider, type MigrationResultSet } from 'kysely';
 import pg from 'pg';
 
-export function createMigrator(db: Kysely<unknown>): Migrator {
+export function createMigrator(db: Kysely<unknown>, provider?: MigrationProvider): Migrator {
   return new Migrator({
     db,
-    provider: new FileMigrationProvider({ fs, path, migrationFolder: path.join(import.meta.dirname, 'migrations') }),
+    provider: provider ?? new FileMigrationProvider({ fs, path, migrationFolder: path.join(import.meta.dirname, 'migrations') }),
   });
 }
 

@@ -1,6 +1,6 @@
 // Loads the demo scenario once (npm start runs it every time; it does nothing the second time).
 import { Kysely, PostgresDialect } from 'kysely';
-import pg from 'pg';
+import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
 import { seedDemo } from '@/db/seeds/demo';
 

@@ -1,0 +1,67 @@
+import { Kysely, PostgresDialect, sql } from 'kysely';
+import { pg } from '@/db/pg-types';
+import type { DB } from '@/db/schema.gen';
+import { seedDemo } from '@/db/seeds/demo';
+import type { Actor } from '@/lib/auth/actor';
+import type { Role } from '@/lib/auth/permissions';
+
+export const testDatabaseUrl = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/rimeline_test';
+
+export function createTestDb(url = testDatabaseUrl): Kysely<DB> {
+  return new Kysely<DB>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max: 3 }) }) });
+}
+
+const tables = [
+  'mail_outbox',
+  'sign_in_throttles',
+  'auth_verification_tokens',
+  'audit_events',
+  'invitations',
+  'areas',
+  'sites',
+  'client_contacts',
+  'users',
+  'clients',
+  'companies',
+];
+
+/** Empties every app table (TRUNCATE skips the audit table's no-delete row trigger) and loads the demo. */
+export async function resetToDemo(db: Kysely<DB>): Promise<void> {
+  const existing = await sql<{ tablename: string }>`select tablename from pg_tables where schemaname = 'public'`.execute(db);
+  const present = new Set(existing.rows.map((r) => r.tablename));
+  const list = tables.filter((t) => present.has(t)).concat([...present].filter((t) => !tables.includes(t) && !t.startsWith('kysely_')));
+  await sql.raw(`truncate ${list.map((t) => `"${t}"`).join(', ')} restart identity cascade`).execute(db);
+  await seedDemo(db);
+}
+
+export async function actorFor(db: Kysely<DB>, email: string): Promise<Actor> {
+  const row = await db.selectFrom('users').selectAll().where('email', '=', email).executeTakeFirstOrThrow();
+  return {
+    id: row.id,
+    companyId: row.company_id,
+    role: row.role as Role,
+    clientId: row.client_id,
+    name: row.name,
+    email: row.email,
+    units: row.units as Actor['units'],
+    metricPressure: row.metric_pressure as Actor['metricPressure'],
+  };
+}
+
+export const demoEmails = {
+  admin: 'admin@rimeline.test',
+  office: 'office@rimeline.test',
+  technician: 'tech@rimeline.test',
+  client: 'owner@client-one.test',
+  clientTwo: 'owner@client-two.test',
+} as const;
+
+/** A second, unrelated company for cross-tenant checks. */
+export async function createOtherCompany(db: Kysely<DB>): Promise<{ companyId: string; clientId: string; siteId: string; adminEmail: string }> {
+  const company = await db.insertInto('companies').values({ name: 'Other Service Co' }).returning('id').executeTakeFirstOrThrow();
+  const client = await db.insertInto('clients').values({ company_id: company.id, name: 'Other Client' }).returning('id').executeTakeFirstOrThrow();
+  const site = await db.insertInto('sites').values({ company_id: company.id, client_id: client.id, name: 'Other Site' }).returning('id').executeTakeFirstOrThrow();
+  const adminEmail = 'admin@other.test';
+  await db.insertInto('users').values({ company_id: company.id, email: adminEmail, name: 'Other Admin', role: 'admin' }).execute();
+  return { companyId: company.id, clientId: client.id, siteId: site.id, adminEmail };
+}

@@ -1,0 +1,148 @@
+// The role × action matrix of DEVELOPERS.md, checked on every route handler of the foundation.
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { call, mockAuthModule, session } from '@/tests/helpers/session';
+
+vi.mock('@/lib/auth', () => mockAuthModule());
+
+const db = createTestDb();
+type RoleName = 'admin' | 'office' | 'technician' | 'client';
+const roles: RoleName[] = ['admin', 'office', 'technician', 'client'];
+
+interface Ids {
+  clientOne: string;
+  siteOne: string;
+  areaOne: string;
+  techUser: string;
+}
+let ids: Ids;
+let counter = 0;
+
+beforeAll(async () => {
+  await resetToDemo(db);
+  const client = await db.selectFrom('clients').select('id').where('name', '=', 'Marrowgate Eatery Group').executeTakeFirstOrThrow();
+  const site = await db.selectFrom('sites').select('id').where('client_id', '=', client.id).orderBy('name').executeTakeFirstOrThrow();
+  const area = await db.selectFrom('areas').select('id').where('site_id', '=', site.id).executeTakeFirstOrThrow();
+  const tech = await db.selectFrom('users').select('id').where('email', '=', demoEmails.technician).executeTakeFirstOrThrow();
+  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id };
+});
+
+afterAll(async () => {
+  await db.destroy();
+});
+
+async function newContact(): Promise<string> {
+  const row = await db
+    .insertInto('client_contacts')
+    .values({ company_id: (await db.selectFrom('clients').select('company_id').where('id', '=', ids.clientOne).executeTakeFirstOrThrow()).company_id, client_id: ids.clientOne, name: `Temp ${++counter}` })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function newInvitation(): Promise<string> {
+  const admin = await actorFor(db, demoEmails.admin);
+  const row = await db
+    .insertInto('invitations')
+    .values({ company_id: admin.companyId, email: `temp${++counter}@example.test`, name: 'Temp', role: 'technician', token_hash: `hash-${counter}-${Date.now()}`, invited_by: admin.id, expires_at: new Date(Date.now() + 86_400_000) })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+interface Case {
+  name: string;
+  route: () => Promise<Record<string, (...args: never[]) => Promise<Response>>>;
+  method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
+  params?: () => Promise<Record<string, string>>;
+  body?: () => unknown;
+  expect: Record<RoleName, number>;
+}
+
+const all = (status: number): Record<RoleName, number> => ({ admin: status, office: status, technician: status, client: status });
+const officeUp = (ok: number): Record<RoleName, number> => ({ admin: ok, office: ok, technician: 403, client: 403 });
+const staffRead = (ok: number): Record<RoleName, number> => ({ admin: ok, office: ok, technician: ok, client: 403 });
+const adminOnly = (ok: number): Record<RoleName, number> => ({ admin: ok, office: 403, technician: 403, client: 403 });
+
+const cases: Case[] = [
+  { name: 'GET /api/me', route: () => import('@/app/api/me/route'), method: 'GET', expect: all(200) },
+  { name: 'PATCH /api/me', route: () => import('@/app/api/me/route'), method: 'PATCH', body: () => ({ units: 'imperial' }), expect: all(200) },
+  { name: 'GET /api/clients', route: () => import('@/app/api/clients/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/clients', route: () => import('@/app/api/clients/route'), method: 'POST', body: () => ({ name: `Matrix client ${++counter}` }), expect: officeUp(201) },
+  { name: 'GET /api/clients/:id', route: () => import('@/app/api/clients/[id]/route'), method: 'GET', params: async () => ({ id: ids.clientOne }), expect: all(200) },
+  { name: 'PATCH /api/clients/:id', route: () => import('@/app/api/clients/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.clientOne }), body: () => ({ notes: 'Matrix note' }), expect: officeUp(200) },
+  { name: 'POST /api/clients/:id/archive', route: () => import('@/app/api/clients/[id]/archive/route'), method: 'POST', params: async () => ({ id: ids.clientOne }), expect: officeUp(200) },
+  { name: 'POST /api/clients/:id/restore', route: () => import('@/app/api/clients/[id]/restore/route'), method: 'POST', params: async () => ({ id: ids.clientOne }), expect: officeUp(200) },
+  { name: 'GET /api/clients/:id/contacts', route: () => import('@/app/api/clients/[id]/contacts/route'), method: 'GET', params: async () => ({ id: ids.clientOne }), expect: staffRead(200) },
+  { name: 'POST /api/clients/:id/contacts', route: () => import('@/app/api/clients/[id]/contacts/route'), method: 'POST', params: async () => ({ id: ids.clientOne }), body: () => ({ name: 'Matrix contact' }), expect: officeUp(201) },
+  { name: 'PATCH /api/clients/:id/contacts/:contactId', route: () => import('@/app/api/clients/[id]/contacts/[contactId]/route'), method: 'PATCH', params: async () => ({ id: ids.clientOne, contactId: await newContact() }), body: () => ({ phone: '555-0199' }), expect: officeUp(200) },
+  { name: 'DELETE /api/clients/:id/contacts/:contactId', route: () => import('@/app/api/clients/[id]/contacts/[contactId]/route'), method: 'DELETE', params: async () => ({ id: ids.clientOne, contactId: await newContact() }), expect: officeUp(204) },
+  { name: 'GET /api/sites', route: () => import('@/app/api/sites/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/sites', route: () => import('@/app/api/sites/route'), method: 'POST', body: () => ({ clientId: ids.clientOne, name: `Matrix site ${++counter}` }), expect: officeUp(201) },
+  { name: 'GET /api/sites/:id', route: () => import('@/app/api/sites/[id]/route'), method: 'GET', params: async () => ({ id: ids.siteOne }), expect: all(200) },
+  { name: 'PATCH /api/sites/:id', route: () => import('@/app/api/sites/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.siteOne }), body: () => ({ accessNotes: 'Matrix' }), expect: officeUp(200) },
+  { name: 'POST /api/sites/:id/archive', route: () => import('@/app/api/sites/[id]/archive/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), expect: officeUp(200) },
+  { name: 'POST /api/sites/:id/restore', route: () => import('@/app/api/sites/[id]/restore/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), expect: officeUp(200) },
+  { name: 'GET /api/sites/:id/areas', route: () => import('@/app/api/sites/[id]/areas/route'), method: 'GET', params: async () => ({ id: ids.siteOne }), expect: all(200) },
+  { name: 'POST /api/sites/:id/areas', route: () => import('@/app/api/sites/[id]/areas/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), body: () => ({ name: `Matrix area ${++counter}`, kind: 'roof' }), expect: officeUp(201) },
+  { name: 'PATCH /api/sites/:id/areas/:areaId', route: () => import('@/app/api/sites/[id]/areas/[areaId]/route'), method: 'PATCH', params: async () => ({ id: ids.siteOne, areaId: ids.areaOne }), body: () => ({ notes: 'Matrix' }), expect: officeUp(200) },
+  { name: 'POST /api/sites/:id/areas/:areaId/archive', route: () => import('@/app/api/sites/[id]/areas/[areaId]/archive/route'), method: 'POST', params: async () => ({ id: ids.siteOne, areaId: ids.areaOne }), expect: officeUp(200) },
+  { name: 'POST /api/sites/:id/areas/:areaId/restore', route: () => import('@/app/api/sites/[id]/areas/[areaId]/restore/route'), method: 'POST', params: async () => ({ id: ids.siteOne, areaId: ids.areaOne }), expect: officeUp(200) },
+  { name: 'GET /api/users', route: () => import('@/app/api/users/route'), method: 'GET', expect: adminOnly(200) },
+  { name: 'GET /api/users/:id', route: () => import('@/app/api/users/[id]/route'), method: 'GET', params: async () => ({ id: ids.techUser }), expect: adminOnly(200) },
+  { name: 'PATCH /api/users/:id', route: () => import('@/app/api/users/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.techUser }), body: () => ({ role: 'technician', clientId: null }), expect: adminOnly(200) },
+  { name: 'GET /api/invitations', route: () => import('@/app/api/invitations/route'), method: 'GET', expect: adminOnly(200) },
+  { name: 'POST /api/invitations', route: () => import('@/app/api/invitations/route'), method: 'POST', body: () => ({ email: `matrix${++counter}@example.test`, name: 'Matrix', role: 'office' }), expect: adminOnly(201) },
+  { name: 'DELETE /api/invitations/:id', route: () => import('@/app/api/invitations/[id]/route'), method: 'DELETE', params: async () => ({ id: await newInvitation() }), expect: adminOnly(204) },
+  { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: all(200) },
+  { name: 'PATCH /api/company', route: () => import('@/app/api/company/route'), method: 'PATCH', body: () => ({ servicePhone: '555-0100' }), expect: adminOnly(200) },
+];
+
+describe('access matrix', () => {
+  for (const c of cases) {
+    it(`${c.name}: signed out → 401`, async () => {
+      session.actor = null;
+      const mod = await c.route();
+      const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
+      expect(res.status).toBe(401);
+      expect(res.body).toMatchObject({ error: { code: 'unauthorized' } });
+    });
+    for (const role of roles) {
+      it(`${c.name}: ${role} → ${c.expect[role]}`, async () => {
+        session.actor = await actorFor(db, demoEmails[role]);
+        const mod = await c.route();
+        const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
+        expect(res.status, JSON.stringify(res.body)).toBe(c.expect[role]);
+        if (res.status >= 400) expect(res.body).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
+      });
+    }
+  }
+});
+
+describe('client scoping', () => {
+  it('a client user gets 404 for another client’s site, areas and client record', async () => {
+    session.actor = await actorFor(db, demoEmails.clientTwo);
+    const siteRoute = await import('@/app/api/sites/[id]/route');
+    const areasRoute = await import('@/app/api/sites/[id]/areas/route');
+    const clientRoute = await import('@/app/api/clients/[id]/route');
+    expect((await call(siteRoute.GET as never, { params: { id: ids.siteOne } })).status).toBe(404);
+    expect((await call(areasRoute.GET as never, { params: { id: ids.siteOne } })).status).toBe(404);
+    expect((await call(clientRoute.GET as never, { params: { id: ids.clientOne } })).status).toBe(404);
+  });
+
+  it('a client user’s lists hold only their own client’s sites', async () => {
+    session.actor = await actorFor(db, demoEmails.clientTwo);
+    const sitesRoute = await import('@/app/api/sites/route');
+    const res = await call(sitesRoute.GET as never, { path: '/api/sites' });
+    const items = (res.body as { items: { clientName: string }[] }).items;
+    expect(items.length).toBe(2);
+    expect(new Set(items.map((s) => s.clientName))).toEqual(new Set(['Tidewell Family Grocers']));
+  });
+
+  it('a malformed id is 404, not a server error', async () => {
+    session.actor = await actorFor(db, demoEmails.admin);
+    const siteRoute = await import('@/app/api/sites/[id]/route');
+    const res = await call(siteRoute.GET as never, { params: { id: 'not-a-uuid' } });
+    expect(res.status).toBe(404);
+  });
+});
