@@ -1,0 +1,323 @@
+// Refrigerant leak rate, leak-repair obligations and yearly totals.
+// Leak-rate methods: 40 CFR 82.152 "leak rate" (parallel definition in 40 CFR 84.102), TRADE-REFERENCE §6.1.
+import {
+  DEFAULT_JURISDICTION,
+  getComplianceRules,
+  type ApplicationCategory,
+  type JurisdictionId,
+  type LeakRegime,
+} from '@/lib/calc/compliance-rules';
+import { toUtcDay, utcDayToIso, utcYear, type DateInput } from '@/lib/calc/dates';
+import { CalcInputError, fmt, requirePositive } from '@/lib/calc/errors';
+import { findRefrigerant, getRefrigerant } from '@/lib/calc/refrigerants';
+import { kgToLb, toKg, type MassUnit } from '@/lib/calc/units';
+
+export interface AnnualizedLeakRate {
+  ratePct: number;
+  /** Days since the previous addition, or null when this is the first one. */
+  daysSinceLastAddition: number | null;
+  /** min(days since the last addition, 365); 365 for a first addition. */
+  daysUsed: number;
+  basis: string;
+}
+
+/**
+ * Annualizing method, 40 CFR 82.152 (leak rate, steps 1–4):
+ * rate % = (added ÷ full charge) × (365 ÷ min(days since the last addition, 365)) × 100.
+ * With no earlier addition, 365 days are used (TRADE-REFERENCE §6.1; from memory for Part 84).
+ * `added` and `fullCharge` must be in the same mass unit.
+ */
+export function annualizedLeakRate(input: {
+  added: number;
+  fullCharge: number;
+  additionDate: DateInput;
+  previousAdditionDate?: DateInput | null | undefined;
+}): AnnualizedLeakRate {
+  requirePositive(input.added, 'refrigerant added');
+  requirePositive(input.fullCharge, 'full charge');
+  const day = toUtcDay(input.additionDate, 'additionDate');
+  let daysSinceLastAddition: number | null = null;
+  if (input.previousAdditionDate !== undefined && input.previousAdditionDate !== null) {
+    const previous = toUtcDay(input.previousAdditionDate, 'previousAdditionDate');
+    daysSinceLastAddition = day - previous;
+    if (daysSinceLastAddition < 0) {
+      throw new CalcInputError('the previous addition date is after this addition', 'previousAdditionDate');
+    }
+    if (daysSinceLastAddition === 0) {
+      throw new CalcInputError(
+        'two additions on the same day count as one: add the amounts together and use the earlier addition date',
+        'previousAdditionDate',
+      );
+    }
+  }
+  const daysUsed = daysSinceLastAddition === null ? 365 : Math.min(daysSinceLastAddition, 365);
+  return {
+    ratePct: (input.added / input.fullCharge) * (365 / daysUsed) * 100,
+    daysSinceLastAddition,
+    daysUsed,
+    basis: '40 CFR 82.152 / 84.102 annualizing method: (added ÷ full charge) × (365 ÷ days since the last addition, at most 365) × 100.',
+  };
+}
+
+/**
+ * Rolling-average method, 40 CFR 82.152: refrigerant added over the previous 365 days (or since the
+ * last successful repair, if that is shorter; that clause from memory) ÷ full charge × 100.
+ */
+export function rollingAverageLeakRate(input: {
+  additions: readonly { date: DateInput; amount: number }[];
+  fullCharge: number;
+  asOf: DateInput;
+  lastRepairDate?: DateInput | null | undefined;
+}): { ratePct: number; windowStart: string; addedInWindow: number; basis: string } {
+  requirePositive(input.fullCharge, 'full charge');
+  const asOf = toUtcDay(input.asOf, 'asOf');
+  let start = asOf - 365;
+  if (input.lastRepairDate) start = Math.max(start, toUtcDay(input.lastRepairDate, 'lastRepairDate'));
+  let addedInWindow = 0;
+  input.additions.forEach((a, i) => {
+    requirePositive(a.amount, `addition ${i + 1} amount`);
+    const d = toUtcDay(a.date, `addition ${i + 1} date`);
+    if (d > start && d <= asOf) addedInWindow += a.amount;
+  });
+  return {
+    ratePct: (addedInWindow / input.fullCharge) * 100,
+    windowStart: utcDayToIso(start),
+    addedInWindow,
+    basis: '40 CFR 82.152 rolling-average method: refrigerant added in the previous 365 days (or since the last repair) ÷ full charge × 100.',
+  };
+}
+
+export interface RegimeApplicability {
+  regimeId: string;
+  name: string;
+  citation: string;
+  applies: boolean;
+  reason: string;
+}
+
+/** Which leak-repair regimes cover an appliance on a date. Basis: the jurisdiction's rules data. */
+export function leakRuleApplicability(input: {
+  refrigerant: string;
+  fullCharge: number;
+  massUnit: MassUnit;
+  onDate: DateInput;
+  jurisdiction?: JurisdictionId | undefined;
+}): RegimeApplicability[] {
+  const r = getRefrigerant(input.refrigerant);
+  requirePositive(input.fullCharge, 'full charge');
+  const chargeLb = kgToLb(toKg(input.fullCharge, input.massUnit));
+  const day = toUtcDay(input.onDate, 'onDate');
+  return getComplianceRules(input.jurisdiction).regimes.map((regime) => {
+    const base = { regimeId: regime.id, name: regime.name, citation: regime.citation };
+    if (day < toUtcDay(regime.appliesFrom)) {
+      return { ...base, applies: false, reason: `applies from ${regime.appliesFrom}` };
+    }
+    const covered = coversRefrigerant(regime, r);
+    if (!covered.covered) return { ...base, applies: false, reason: covered.reason };
+    if (chargeLb < regime.minFullChargeLb) {
+      return { ...base, applies: false, reason: `full charge ${fmt(chargeLb, 1)} lb is below ${regime.minFullChargeLb} lb` };
+    }
+    return {
+      ...base,
+      applies: true,
+      reason: `${covered.reason}; full charge ${fmt(chargeLb, 1)} lb ≥ ${regime.minFullChargeLb} lb`,
+    };
+  });
+}
+
+function coversRefrigerant(
+  regime: LeakRegime,
+  r: { id: string; containsOds: boolean; containsHfc: boolean; gwpAr4: number },
+): { covered: boolean; reason: string } {
+  if (regime.covers === 'ods') {
+    return r.containsOds
+      ? { covered: true, reason: `${r.id} is an ozone-depleting (class I/II) refrigerant` }
+      : { covered: false, reason: `${r.id} contains no ozone-depleting substance` };
+  }
+  if (r.containsHfc) return { covered: true, reason: `${r.id} contains an HFC` };
+  const limit = regime.gwpAbove ?? Infinity;
+  // GWP on the AR4 basis used by the AIM Act exchange values (from memory).
+  if (!r.containsOds && r.gwpAr4 > limit) return { covered: true, reason: `${r.id} is a substitute with GWP ${r.gwpAr4} > ${limit}` };
+  return { covered: false, reason: `${r.id} contains no HFC and its GWP (${r.gwpAr4}, AR4) is not above ${limit}` };
+}
+
+export interface LeakEventInput {
+  jurisdiction?: JurisdictionId | undefined;
+  refrigerant: string;
+  application: ApplicationCategory;
+  fullCharge: number;
+  added: number;
+  massUnit: MassUnit;
+  additionDate: DateInput;
+  previousAdditionDate?: DateInput | null | undefined;
+  /** Industrial process refrigeration needing a process shutdown for the repair. */
+  iprShutdown?: boolean | undefined;
+}
+
+export interface LeakEventResult {
+  jurisdiction: JurisdictionId;
+  ratePct: number;
+  daysUsed: number;
+  thresholdPct: number;
+  exceedsThreshold: boolean;
+  /** True when at least one regime legally covers this appliance on the addition date. */
+  regulated: boolean;
+  applicability: RegimeApplicability[];
+  /** Set when the threshold is exceeded on a regulated appliance. */
+  repairDueDate: string | null;
+  verification: { initial: string; followUp: string; followUpDays: number; followUpDaysFromMemory: true } | null;
+  cautions: string[];
+  basis: string;
+}
+
+/**
+ * Evaluates one refrigerant addition: annualized leak rate (40 CFR 82.152), threshold for the
+ * application (§82.157(c) / §84.106), repair deadline and verification tests.
+ */
+export function evaluateLeakEvent(input: LeakEventInput): LeakEventResult {
+  const jurisdiction = input.jurisdiction ?? DEFAULT_JURISDICTION;
+  const rules = getComplianceRules(jurisdiction);
+  const rate = annualizedLeakRate(input);
+  const applicability = leakRuleApplicability({
+    refrigerant: input.refrigerant,
+    fullCharge: input.fullCharge,
+    massUnit: input.massUnit,
+    onDate: input.additionDate,
+    jurisdiction,
+  });
+  const regulated = applicability.some((a) => a.applies);
+  const applying = rules.regimes.find((r) => applicability.some((a) => a.applies && a.regimeId === r.id));
+  const thresholdPct = (applying ?? rules.regimes[rules.regimes.length - 1])?.thresholdPct[input.application] ?? 10;
+  const exceedsThreshold = rate.ratePct > thresholdPct;
+  const cautions = [rules.caution];
+  if (!regulated) cautions.push('No regime covers this appliance on that date; the threshold is shown for guidance only.');
+  if (input.previousAdditionDate === undefined || input.previousAdditionDate === null) {
+    cautions.push('No earlier addition given, so 365 days were used (first addition).');
+  }
+  if (input.application === 'comfort_cooling') {
+    const excl = rules.regimes.find((r) => r.exclusions)?.exclusions;
+    if (excl) cautions.push(excl);
+  }
+  let repairDueDate: string | null = null;
+  let verification: LeakEventResult['verification'] = null;
+  if (exceedsThreshold && regulated) {
+    const days =
+      input.iprShutdown && input.application === 'industrial_process_refrigeration' ? rules.repairDaysIprShutdown : rules.repairDays;
+    repairDueDate = utcDayToIso(toUtcDay(input.additionDate, 'additionDate') + days);
+    verification = { ...rules.verification, followUpDaysFromMemory: true };
+  }
+  return {
+    jurisdiction,
+    ratePct: rate.ratePct,
+    daysUsed: rate.daysUsed,
+    thresholdPct,
+    exceedsThreshold,
+    regulated,
+    applicability,
+    repairDueDate,
+    verification,
+    cautions,
+    basis: `${rate.basis} Threshold by application (${applying?.citation ?? rules.regimes[0]?.citation ?? ''}); repair within ${rules.repairDays} days of the addition (${rules.repairDaysIprShutdown} with an industrial process shutdown).`,
+  };
+}
+
+export interface RefrigerantTransaction {
+  systemId: string;
+  refrigerant: string;
+  date: DateInput;
+  kind: 'added' | 'recovered';
+  amount: number;
+  unit: MassUnit;
+}
+
+export interface SystemYearTotal {
+  systemId: string;
+  year: number;
+  refrigerants: string[];
+  addedKg: number;
+  addedLb: number;
+  recoveredKg: number;
+  recoveredLb: number;
+  fullChargeKg: number | null;
+  /** Added ÷ full charge × 100; null without a full charge. */
+  addedPctOfCharge: number | null;
+  /** ≥ 125 % of the full charge added in the calendar year (40 CFR 82.157 chronic leaker). */
+  chronicLeaker: boolean | null;
+}
+
+export interface RefrigerantYearTotal {
+  year: number;
+  refrigerant: string;
+  addedKg: number;
+  addedLb: number;
+  recoveredKg: number;
+  recoveredLb: number;
+}
+
+/**
+ * Calendar-year totals per system and per refrigerant from a list of transactions.
+ * Chronic leaker: ≥125 % of the full charge added in a calendar year (40 CFR 82.157; report by 1 March).
+ * Unknown refrigerant names are kept as written, so old records still total.
+ */
+export function yearlyTotals(
+  transactions: readonly RefrigerantTransaction[],
+  fullChargeKgBySystem: Readonly<Record<string, number>> = {},
+  jurisdiction: JurisdictionId = DEFAULT_JURISDICTION,
+): { bySystem: SystemYearTotal[]; byRefrigerant: RefrigerantYearTotal[] } {
+  const chronicPct = getComplianceRules(jurisdiction).chronicLeakerPctOfCharge;
+  const systems = new Map<string, { systemId: string; year: number; refrigerants: Set<string>; added: number; recovered: number }>();
+  const refrigerants = new Map<string, { year: number; refrigerant: string; added: number; recovered: number }>();
+  transactions.forEach((t, i) => {
+    requirePositive(t.amount, `transaction ${i + 1} amount`);
+    if (typeof t.systemId !== 'string' || t.systemId === '') {
+      throw new CalcInputError(`transaction ${i + 1} has no system id`, 'systemId');
+    }
+    const year = utcYear(toUtcDay(t.date, `transaction ${i + 1} date`));
+    const refrigerant = findRefrigerant(t.refrigerant)?.id ?? t.refrigerant.trim();
+    const kg = toKg(t.amount, t.unit);
+    const sKey = `${t.systemId}\u0000${year}`;
+    const s = systems.get(sKey) ?? { systemId: t.systemId, year, refrigerants: new Set<string>(), added: 0, recovered: 0 };
+    s.refrigerants.add(refrigerant);
+    const rKey = `${refrigerant}\u0000${year}`;
+    const r = refrigerants.get(rKey) ?? { year, refrigerant, added: 0, recovered: 0 };
+    if (t.kind === 'added') {
+      s.added += kg;
+      r.added += kg;
+    } else {
+      s.recovered += kg;
+      r.recovered += kg;
+    }
+    systems.set(sKey, s);
+    refrigerants.set(rKey, r);
+  });
+  const bySystem = [...systems.values()]
+    .map((s): SystemYearTotal => {
+      const fullChargeKg = fullChargeKgBySystem[s.systemId] ?? null;
+      if (fullChargeKg !== null) requirePositive(fullChargeKg, `full charge of ${s.systemId}`);
+      const pct = fullChargeKg === null ? null : (s.added / fullChargeKg) * 100;
+      return {
+        systemId: s.systemId,
+        year: s.year,
+        refrigerants: [...s.refrigerants].sort(),
+        addedKg: s.added,
+        addedLb: kgToLb(s.added),
+        recoveredKg: s.recovered,
+        recoveredLb: kgToLb(s.recovered),
+        fullChargeKg,
+        addedPctOfCharge: pct,
+        chronicLeaker: pct === null ? null : pct >= chronicPct,
+      };
+    })
+    .sort((a, b) => a.year - b.year || a.systemId.localeCompare(b.systemId));
+  const byRefrigerant = [...refrigerants.values()]
+    .map((r) => ({
+      year: r.year,
+      refrigerant: r.refrigerant,
+      addedKg: r.added,
+      addedLb: kgToLb(r.added),
+      recoveredKg: r.recovered,
+      recoveredLb: kgToLb(r.recovered),
+    }))
+    .sort((a, b) => a.year - b.year || a.refrigerant.localeCompare(b.refrigerant));
+  return { bySystem, byRefrigerant };
+}
