@@ -245,25 +245,39 @@ rl_is_ours() {
   [ "$(readlink "/proc/$1/cwd" 2>/dev/null)" = "$RL_ROOT" ]
 }
 
-# rl_free_port PORT LABEL → ok when free; stops leftovers of our own earlier runs; otherwise fails
-# with who holds the port.
+# rl_recorded PID → true when PID, or its process group, is recorded in one of our pid files
+# (.data/<profile>/run/*.pid) and runs from this checkout: a service of an earlier run.
+rl_recorded() {
+  local pid="$1" pgid
+  rl_is_ours "$pid" || return 1
+  pgid="$(sed 's/.*) //' "/proc/$pid/stat" 2>/dev/null | cut -d' ' -f3)"
+  cat "$RL_ROOT"/.data/*/run/*.pid 2>/dev/null | grep -qxE "$pid${pgid:+|$pgid}"
+}
+
+# rl_free_port PORT LABEL → ok when the port is free. Stops what an earlier run of these scripts
+# left there (recorded in a pid file); otherwise fails and names the process holding the port.
 rl_free_port() {
-  local port="$1" label="$2" pid pids theirs=0 i
+  local port="$1" label="$2" pid pids foreign=0 i hint
   rl_port_busy "$port" || return 0
   pids="$(rl_port_pids "$port")"
   for pid in $pids; do
-    rl_is_ours "$pid" || theirs=1
+    rl_recorded "$pid" || foreign=1
   done
-  if [ -n "$pids" ] && [ "$theirs" = 0 ]; then
+  if [ -n "$pids" ] && [ "$foreign" = 0 ]; then
     for pid in $pids; do
       rl_note "stopping a leftover $label from an earlier run on port $port (pid $pid)"
       rl_kill_tree "$pid" 10
     done
     for ((i = 0; i < 50; i++)); do rl_port_busy "$port" || return 0; sleep 0.1; done
   fi
+  hint="stop that process (kill <pid>), or if it is a Rimeline script still running in another terminal, stop it there (Ctrl-C)."
+  for pid in $pids; do
+    if rl_is_ours "$pid"; then
+      hint="it runs from this checkout, so it is probably left over from an earlier run or started by hand: stop it with kill $pid, then try again."
+    fi
+  done
   rl_fail "Port 127.0.0.1:$port (needed for the $label) is already in use by:
-    $(rl_port_owner "$port")" \
-    "stop that process, or if it is a Rimeline script still running in another terminal, stop it there (Ctrl-C)."
+    $(rl_port_owner "$port")" "$hint"
   return 1
 }
 

@@ -141,7 +141,7 @@ rl_step 7 $TOTAL "Loading the demo data (only when absent)"
 [ -f docker-free-scripts/seed.ts ] || rl_die "docker-free-scripts/seed.ts is missing." "restore it from git."
 rl_run_logged "$LOGS/seed.log" "$RL_TSX" docker-free-scripts/seed.ts \
   || rl_die "Loading the demo data failed." "read the log above; 'npm run db:seed' runs the same step." "$LOGS/seed.log"
-rl_ok "$(rl_last_run "$LOGS/seed.log" | grep -v '^[[:space:]]*$' | tail -n 1 | cut -c1-90)"
+rl_ok "$(rl_last_run "$LOGS/seed.log" | grep -v '^[[:space:]]*$' | tail -n 1 | sed 's/^[[:space:]]*//' | cut -c1-90)"
 
 # ---------------------------------------------------------------------------------------- 8
 if [ "$mode" = dev ]; then

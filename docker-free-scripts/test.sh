@@ -162,6 +162,7 @@ rl_lock test
 next_step "Stopping leftovers and wiping .data/test"
 rl_stop_stale s3 "S3 fake"
 rl_stop_stale mail "mail catcher"
+rl_stop_stale app "test app server"
 if rl_pg_bindir >/dev/null; then
   bash docker-free-scripts/db-stop.sh test --quiet
   rl_pg_stop_profile bench   # bench shares the test ports; it is not running (no lock), so stop its database

@@ -31,6 +31,7 @@ export const fakeCameraFile = path.join(testData, 'fake-camera.y4m');
 
 export default defineConfig({
   testDir: './e2e',
+  globalSetup: './e2e/global-setup.ts',
   outputDir: path.join(testData, 'playwright-results'),
   workers: 1,
   fullyParallel: false,
@@ -80,8 +81,10 @@ export default defineConfig({
       },
     },
   ],
+  // The shell records the server's pid (exec keeps it) so npm test can stop a server left behind
+  // by a crashed run; Playwright starts and stops it itself.
   webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${appPort}`,
+    command: `mkdir -p .data/test/run && echo $$ > .data/test/run/app.pid && exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${appPort}`,
     cwd: root,
     url: `http://127.0.0.1:${appPort}/api/health`,
     reuseExistingServer: false,
