@@ -31,6 +31,7 @@ export const fakeCameraFile = path.join(testData, 'fake-camera.y4m');
 
 export default defineConfig({
   testDir: './e2e',
+  // Puts the test database back to the demo scenario before the browser tests.
   globalSetup: './e2e/global-setup.ts',
   outputDir: path.join(testData, 'playwright-results'),
   workers: 1,

@@ -5,16 +5,22 @@ import type { Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 
 // Failed sign-ins are counted per account and per client address in the database (not in
-// memory), so the limit holds across several app copies. After FREE_FAILURES inside the window
-// each further failure doubles the wait, up to MAX_LOCK_SECONDS.
+// memory), so the limit holds across several app copies. After the free failures inside the
+// window each further failure doubles the wait, up to MAX_LOCK_SECONDS. An address gets more
+// free failures than an account: a whole office can sit behind one address.
 const FREE_FAILURES = 5;
+const FREE_FAILURES_PER_ADDRESS = 20;
 const WINDOW_SECONDS = 15 * 60;
 const BASE_LOCK_SECONDS = 30;
 const MAX_LOCK_SECONDS = 15 * 60;
 
-export function lockSecondsAfter(failures: number): number {
-  if (failures < FREE_FAILURES) return 0;
-  return Math.min(MAX_LOCK_SECONDS, BASE_LOCK_SECONDS * 2 ** (failures - FREE_FAILURES));
+export function lockSecondsAfter(failures: number, free = FREE_FAILURES): number {
+  if (failures < free) return 0;
+  return Math.min(MAX_LOCK_SECONDS, BASE_LOCK_SECONDS * 2 ** (failures - free));
+}
+
+function freeFailuresFor(key: string): number {
+  return key.startsWith('ip:') ? FREE_FAILURES_PER_ADDRESS : FREE_FAILURES;
 }
 
 /** Seconds the caller must still wait for any of the keys, or 0. */
@@ -44,7 +50,7 @@ export async function recordFailure(keys: string[], db: Kysely<DB> = defaultDb):
       )
       .returning('failures')
       .executeTakeFirstOrThrow();
-    const lock = lockSecondsAfter(row.failures);
+    const lock = lockSecondsAfter(row.failures, freeFailuresFor(key));
     if (lock > 0) {
       await db
         .updateTable('sign_in_throttles')

@@ -26,4 +26,10 @@ describe('sign-in throttle', () => {
     await clearFailures(keys, db);
     expect(await secondsLocked(keys, db)).toBe(0);
   });
+
+  it('one address gets twenty free failures across accounts before it is slowed down', async () => {
+    for (let i = 0; i < 19; i++) expect(await recordFailure([`ip:10.9.9.9`], db)).toBe(0);
+    expect(await recordFailure([`ip:10.9.9.9`], db)).toBe(30);
+    expect(await secondsLocked(['email:someone@example.test', 'ip:10.9.9.9'], db)).toBeGreaterThan(25);
+  });
 });
