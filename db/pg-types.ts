@@ -6,3 +6,7 @@ pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number.parseInt(v, 10));
 pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number.parseFloat(v));
 
 export { pg };
+
+// A calendar date (install date, manufacture date) stays the 'YYYY-MM-DD' text it is; turning it
+// into a JS Date would shift it by the server's time zone.
+pg.types.setTypeParser(pg.types.builtins.DATE, (v) => v);

@@ -89,6 +89,38 @@ export interface Companies {
   updated_at: Generated<Timestamp>;
 }
 
+export interface Equipment {
+  area_id: string | null;
+  company_id: string;
+  condition: number | null;
+  condition_note: string | null;
+  created_at: Generated<Timestamp>;
+  deleted_at: Timestamp | null;
+  id: Generated<string>;
+  installed_on: string | null;
+  make: string | null;
+  manufactured_on: string | null;
+  model: string | null;
+  name: string;
+  nameplate: Generated<Json>;
+  search_text: Generated<string | null>;
+  serial: string | null;
+  site_id: string;
+  status: Generated<string>;
+  system_id: string | null;
+  type: string;
+  updated_at: Generated<Timestamp>;
+}
+
+export interface EquipmentRelations {
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  from_equipment_id: string;
+  id: Generated<string>;
+  kind: string;
+  to_equipment_id: string;
+}
+
 export interface Invitations {
   accepted_at: Timestamp | null;
   client_id: string | null;
@@ -148,6 +180,23 @@ export interface Sites {
   updated_at: Generated<Timestamp>;
 }
 
+export interface Systems {
+  application: string;
+  archived_at: Timestamp | null;
+  area_id: string | null;
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  design_box_temp_c: Numeric | null;
+  full_charge_kg: Numeric | null;
+  id: Generated<string>;
+  maintenance_interval_days: number | null;
+  name: string;
+  notes: string | null;
+  refrigerant: string;
+  site_id: string;
+  updated_at: Generated<Timestamp>;
+}
+
 export interface Users {
   client_id: string | null;
   company_id: string;
@@ -172,9 +221,12 @@ export interface DB {
   client_contacts: ClientContacts;
   clients: Clients;
   companies: Companies;
+  equipment: Equipment;
+  equipment_relations: EquipmentRelations;
   invitations: Invitations;
   mail_outbox: MailOutbox;
   sign_in_throttles: SignInThrottles;
   sites: Sites;
+  systems: Systems;
   users: Users;
 }

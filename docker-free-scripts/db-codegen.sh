@@ -49,7 +49,7 @@ echo "Migrating the scratch database $scratch_db …"
 DATABASE_URL="$scratch_url" PGDATABASE="$scratch_db" "$RL_TSX" db/migrate.ts latest
 
 echo "Generating db/schema.gen.ts …"
-# numeric columns are parsed to numbers at runtime (db/index.ts), so the types say number too.
+# numeric columns are parsed to numbers and dates kept as text at runtime (db/pg-types.ts), so the types say so too.
 DATABASE_URL="$scratch_url" node_modules/.bin/kysely-codegen --dialect postgres --url "$scratch_url" \
-  --out-file db/schema.gen.ts --numeric-parser number --log-level warn "$@"
+  --out-file db/schema.gen.ts --numeric-parser number --date-parser string --log-level warn "$@"
 echo "Done: db/schema.gen.ts (scratch database dropped)."

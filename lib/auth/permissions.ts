@@ -29,6 +29,12 @@ export const permissions = {
   'audit.read': officeUp,
   'mail.inbox': ['admin'],
   'calc.use': everyone,
+  'systems.read': everyone,
+  'systems.write': officeUp,
+  'equipment.read': everyone,
+  'equipment.write': staff,
+  'equipment.delete': officeUp,
+  'equipment.import': officeUp,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

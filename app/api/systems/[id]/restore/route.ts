@@ -1,0 +1,6 @@
+import { idParamsSchema } from '@/lib/api/schemas';
+import { withApi } from '@/lib/api/handler';
+import { setSystemArchived } from '@/lib/systems/service';
+
+// POST /api/systems/:id/restore: bring an archived system back.
+export const POST = withApi({ permission: 'systems.write', params: idParamsSchema }, async ({ actor, params }) => setSystemArchived(actor, params.id, false));

@@ -1,0 +1,118 @@
+import type { Nameplate } from '@/lib/equipment/nameplate';
+import type { EquipmentStatus, EquipmentType, RelationKind } from '@/lib/equipment/types';
+
+export interface EquipmentDto {
+  id: string;
+  siteId: string;
+  siteName: string;
+  clientName: string;
+  areaId: string | null;
+  areaName: string | null;
+  systemId: string | null;
+  systemName: string | null;
+  /** The system's refrigerant, else the nameplate's. */
+  refrigerant: string | null;
+  type: EquipmentType;
+  name: string;
+  make: string | null;
+  model: string | null;
+  serial: string | null;
+  manufacturedOn: string | null;
+  installedOn: string | null;
+  condition: number | null;
+  conditionNote: string | null;
+  status: EquipmentStatus;
+  nameplate: Nameplate;
+  deletedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface RelationDto {
+  id: string;
+  kind: RelationKind;
+  /** 'forward': this equipment controls/serves the other; 'backward': the other controls/serves this. */
+  direction: 'forward' | 'backward';
+  other: { id: string; name: string; type: EquipmentType };
+}
+
+export interface EquipmentDetailDto extends EquipmentDto {
+  relations: RelationDto[];
+  siteElevationM: number;
+  systemDesignBoxTempC: number | null;
+}
+
+export interface EquipmentRow {
+  id: string;
+  site_id: string;
+  site_name: string;
+  client_name: string;
+  area_id: string | null;
+  area_name: string | null;
+  system_id: string | null;
+  system_name: string | null;
+  refrigerant: string | null;
+  type: string;
+  name: string;
+  make: string | null;
+  model: string | null;
+  serial: string | null;
+  manufactured_on: string | null;
+  installed_on: string | null;
+  condition: number | null;
+  condition_note: string | null;
+  status: string;
+  nameplate: unknown;
+  deleted_at: Date | null;
+  created_at: Date;
+  updated_at: Date;
+}
+
+export function toEquipmentDto(row: EquipmentRow): EquipmentDto {
+  return {
+    id: row.id,
+    siteId: row.site_id,
+    siteName: row.site_name,
+    clientName: row.client_name,
+    areaId: row.area_id,
+    areaName: row.area_name,
+    systemId: row.system_id,
+    systemName: row.system_name,
+    refrigerant: row.refrigerant,
+    type: row.type as EquipmentType,
+    name: row.name,
+    make: row.make,
+    model: row.model,
+    serial: row.serial,
+    manufacturedOn: row.manufactured_on,
+    installedOn: row.installed_on,
+    condition: row.condition,
+    conditionNote: row.condition_note,
+    status: row.status as EquipmentStatus,
+    nameplate: (row.nameplate ?? {}) as Nameplate,
+    deletedAt: row.deleted_at?.toISOString() ?? null,
+    createdAt: row.created_at.toISOString(),
+    updatedAt: row.updated_at.toISOString(),
+  };
+}
+
+export interface SystemDto {
+  id: string;
+  siteId: string;
+  siteName: string;
+  areaId: string | null;
+  areaName: string | null;
+  name: string;
+  refrigerant: string;
+  fullChargeKg: number | null;
+  application: 'commercial_refrigeration' | 'industrial_process' | 'comfort_cooling';
+  designBoxTempC: number | null;
+  maintenanceIntervalDays: number | null;
+  notes: string | null;
+  equipmentCount: number;
+  /** The system's condensing unit (or compressor rack), when one is registered. */
+  condensingUnit: { id: string; name: string } | null;
+  archivedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+}

@@ -1,0 +1,293 @@
+import 'server-only';
+import { sql, type Expression, type Kysely, type RawBuilder, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { escapeLike, siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { zodIssues } from '@/lib/api/issues';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto } from '@/lib/equipment/dto';
+import { nameplateSchemaFor } from '@/lib/equipment/nameplate';
+import type { CreateEquipmentInput, CreateRelationInput, EquipmentSort, ListEquipmentQuery, UpdateEquipmentInput } from '@/lib/equipment/schemas';
+import type { EquipmentType, RelationKind } from '@/lib/equipment/types';
+import { AppError } from '@/lib/errors';
+import { getSite } from '@/lib/sites/service';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+export function equipmentBaseQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .leftJoin('areas', 'areas.id', 'equipment.area_id')
+    .leftJoin('systems', 'systems.id', 'equipment.system_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.company_id', '=', actor.companyId);
+}
+
+const refrigerantExpr = sql<string | null>`coalesce(systems.refrigerant, equipment.nameplate->>'refrigerant')`;
+
+const selection = [
+  'equipment.id',
+  'equipment.site_id',
+  'sites.name as site_name',
+  'clients.name as client_name',
+  'equipment.area_id',
+  'areas.name as area_name',
+  'equipment.system_id',
+  'systems.name as system_name',
+  'equipment.type',
+  'equipment.name',
+  'equipment.make',
+  'equipment.model',
+  'equipment.serial',
+  'equipment.manufactured_on',
+  'equipment.installed_on',
+  'equipment.condition',
+  'equipment.condition_note',
+  'equipment.status',
+  'equipment.nameplate',
+  'equipment.deleted_at',
+  'equipment.created_at',
+  'equipment.updated_at',
+] as const;
+
+// Each sort key with the SQL it orders by and the cast its cursor value needs.
+const sortExpressions: Record<EquipmentSort, { expr: RawBuilder<unknown>; cast: (v: unknown) => Expression<unknown> }> = {
+  name: { expr: sql`lower(equipment.name)`, cast: (v) => sql`${String(v)}::text` },
+  type: { expr: sql`equipment.type`, cast: (v) => sql`${String(v)}::text` },
+  make: { expr: sql`lower(coalesce(equipment.make, ''))`, cast: (v) => sql`${String(v)}::text` },
+  model: { expr: sql`lower(coalesce(equipment.model, ''))`, cast: (v) => sql`${String(v)}::text` },
+  serial: { expr: sql`lower(coalesce(equipment.serial, ''))`, cast: (v) => sql`${String(v)}::text` },
+  condition: { expr: sql`coalesce(equipment.condition, 0)`, cast: (v) => sql`${Number(v)}::int` },
+  installedOn: { expr: sql`coalesce(equipment.installed_on, '0001-01-01'::date)`, cast: (v) => sql`${String(v)}::date` },
+  updatedAt: { expr: sql`equipment.updated_at`, cast: (v) => sql`${String(v)}::timestamptz` },
+};
+
+/** Filters shared by the table, the CSV export and the benchmark. */
+export function filteredEquipment(actor: Actor, query: Omit<ListEquipmentQuery, 'cursor' | 'limit' | 'sort' | 'dir'>, db: Db) {
+  let q = equipmentBaseQuery(actor, db).where('equipment.deleted_at', 'is', null);
+  if (query.siteId) q = q.where('equipment.site_id', '=', query.siteId);
+  if (query.areaId) q = q.where('equipment.area_id', '=', query.areaId);
+  if (query.systemId) q = q.where('equipment.system_id', '=', query.systemId);
+  if (query.type?.length) q = q.where('equipment.type', 'in', query.type);
+  if (query.status?.length) q = q.where('equipment.status', 'in', query.status);
+  if (query.condition?.length) q = q.where('equipment.condition', 'in', query.condition);
+  if (query.refrigerant?.length) q = q.where(refrigerantExpr, 'in', query.refrigerant);
+  if (query.q) q = q.where('equipment.search_text', 'like', `%${escapeLike(query.q.toLowerCase())}%`);
+  return q;
+}
+
+export async function listEquipment(actor: Actor, query: ListEquipmentQuery, db: Db = defaultDb): Promise<Page<EquipmentDto>> {
+  assertCan(actor, 'equipment.read');
+  const cursor = decodeCursor(query.cursor);
+  const sort = sortExpressions[query.sort];
+  const op = query.dir === 'asc' ? '>' : '<';
+  let q = filteredEquipment(actor, query, db).select([...selection, refrigerantExpr.as('refrigerant'), sort.expr.as('sort_key')]);
+  if (cursor) q = q.where(sql<boolean>`(${sort.expr}, equipment.id) ${sql.raw(op)} (${sort.cast(cursor.k)}, ${cursor.id}::uuid)`);
+  const rows = await q
+    .orderBy(sort.expr, query.dir)
+    .orderBy('equipment.id', query.dir)
+    .limit(query.limit + 1)
+    .execute();
+  const page = rows.slice(0, query.limit);
+  const last = page.at(-1);
+  const key = last?.sort_key;
+  return {
+    items: page.map(toEquipmentDto),
+    nextCursor:
+      rows.length > query.limit && last
+        ? encodeCursor({ k: key instanceof Date ? key.toISOString() : typeof key === 'number' ? key : String(key ?? ''), id: last.id })
+        : null,
+  };
+}
+
+async function relationsOf(db: Db, id: string): Promise<RelationDto[]> {
+  const rows = await db
+    .selectFrom('equipment_relations as r')
+    .innerJoin('equipment as other', (join) =>
+      join.on(sql<boolean>`other.id = case when r.from_equipment_id = ${id}::uuid then r.to_equipment_id else r.from_equipment_id end`),
+    )
+    .where((eb) => eb.or([eb('r.from_equipment_id', '=', id), eb('r.to_equipment_id', '=', id)]))
+    .where('other.deleted_at', 'is', null)
+    .select(['r.id', 'r.kind', 'r.from_equipment_id', 'other.id as other_id', 'other.name as other_name', 'other.type as other_type'])
+    .orderBy('r.kind')
+    .orderBy('other.name')
+    .execute();
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind as RelationKind,
+    direction: r.from_equipment_id === id ? 'forward' : 'backward',
+    other: { id: r.other_id, name: r.other_name, type: r.other_type as EquipmentType },
+  }));
+}
+
+export async function getEquipment(actor: Actor, id: string, db: Db = defaultDb): Promise<EquipmentDetailDto> {
+  assertCan(actor, 'equipment.read');
+  const row = await equipmentBaseQuery(actor, db)
+    .where('equipment.id', '=', id)
+    .where('equipment.deleted_at', 'is', null)
+    .select([...selection, refrigerantExpr.as('refrigerant'), 'sites.elevation_m', 'systems.design_box_temp_c'])
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Equipment not found.');
+  return {
+    ...toEquipmentDto(row),
+    relations: await relationsOf(db, id),
+    siteElevationM: Number(row.elevation_m),
+    systemDesignBoxTempC: row.design_box_temp_c === null ? null : Number(row.design_box_temp_c),
+  };
+}
+
+/** Area and system must sit on the equipment's own site. */
+async function assertPlacement(db: Db, siteId: string, areaId: string | null | undefined, systemId: string | null | undefined): Promise<void> {
+  const issues = [];
+  if (areaId) {
+    const area = await db.selectFrom('areas').select('id').where('id', '=', areaId).where('site_id', '=', siteId).executeTakeFirst();
+    if (!area) issues.push({ path: 'areaId', message: 'Choose an area of this site.' });
+  }
+  if (systemId) {
+    const system = await db.selectFrom('systems').select('id').where('id', '=', systemId).where('site_id', '=', siteId).executeTakeFirst();
+    if (!system) issues.push({ path: 'systemId', message: 'Choose a system of this site.' });
+  }
+  if (issues.length) throw new AppError('validation_failed', 'Some fields need attention.', issues);
+}
+
+function parseNameplate(type: EquipmentType, value: unknown) {
+  const parsed = nameplateSchemaFor(type).safeParse(value ?? {});
+  if (!parsed.success) {
+    throw new AppError(
+      'validation_failed',
+      'Some nameplate fields need attention.',
+      zodIssues(parsed.error).map((i) => ({ path: `nameplate.${i.path}`, message: i.message })),
+    );
+  }
+  // Empty fields are not stored, so "unknown" and "left blank" read the same.
+  return Object.fromEntries(Object.entries(parsed.data as Record<string, unknown>).filter(([, v]) => v !== null && v !== undefined && v !== ''));
+}
+
+export async function insertEquipment(actor: Actor, input: CreateEquipmentInput, trx: Db): Promise<string> {
+  await assertPlacement(trx, input.siteId, input.areaId, input.systemId);
+  const row = await trx
+    .insertInto('equipment')
+    .values({
+      company_id: actor.companyId,
+      site_id: input.siteId,
+      area_id: input.areaId ?? null,
+      system_id: input.systemId ?? null,
+      type: input.type,
+      name: input.name,
+      make: input.make ?? null,
+      model: input.model ?? null,
+      serial: input.serial ?? null,
+      manufactured_on: input.manufacturedOn ?? null,
+      installed_on: input.installedOn ?? null,
+      condition: input.condition ?? null,
+      condition_note: input.conditionNote ?? null,
+      status: input.status,
+      nameplate: JSON.stringify(parseNameplate(input.type, input.nameplate)),
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+export async function createEquipment(actor: Actor, input: CreateEquipmentInput, db: Kysely<DB> = defaultDb): Promise<EquipmentDetailDto> {
+  assertCan(actor, 'equipment.write');
+  return db.transaction().execute(async (trx) => {
+    const site = await getSite(actor, input.siteId, trx);
+    if (site.archivedAt) throw new AppError('validation_failed', 'This site is archived.', [{ path: 'siteId', message: 'Restore the site first.' }]);
+    const id = await insertEquipment(actor, input, trx);
+    const created = await getEquipment(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'equipment', entityId: id, after: created });
+    return created;
+  });
+}
+
+export async function updateEquipment(actor: Actor, id: string, input: UpdateEquipmentInput, db: Kysely<DB> = defaultDb): Promise<EquipmentDetailDto> {
+  assertCan(actor, 'equipment.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getEquipment(actor, id, trx);
+    const areaId = input.areaId !== undefined ? input.areaId : before.areaId;
+    const systemId = input.systemId !== undefined ? input.systemId : before.systemId;
+    await assertPlacement(trx, before.siteId, areaId, systemId);
+    const manufacturedOn = input.manufacturedOn !== undefined ? input.manufacturedOn : before.manufacturedOn;
+    const installedOn = input.installedOn !== undefined ? input.installedOn : before.installedOn;
+    if (manufacturedOn && installedOn && installedOn < manufacturedOn) {
+      throw new AppError('validation_failed', 'Some fields need attention.', [{ path: 'installedOn', message: 'The install date is before the manufacture date.' }]);
+    }
+    await trx
+      .updateTable('equipment')
+      .set({
+        ...(input.areaId !== undefined ? { area_id: input.areaId } : {}),
+        ...(input.systemId !== undefined ? { system_id: input.systemId } : {}),
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.make !== undefined ? { make: input.make } : {}),
+        ...(input.model !== undefined ? { model: input.model } : {}),
+        ...(input.serial !== undefined ? { serial: input.serial } : {}),
+        ...(input.manufacturedOn !== undefined ? { manufactured_on: input.manufacturedOn } : {}),
+        ...(input.installedOn !== undefined ? { installed_on: input.installedOn } : {}),
+        ...(input.condition !== undefined ? { condition: input.condition } : {}),
+        ...(input.conditionNote !== undefined ? { condition_note: input.conditionNote } : {}),
+        ...(input.status !== undefined ? { status: input.status } : {}),
+        ...(input.nameplate !== undefined ? { nameplate: JSON.stringify(parseNameplate(before.type, input.nameplate)) } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getEquipment(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'equipment', entityId: id, before, after });
+    return after;
+  });
+}
+
+/** Soft delete: the record and its history stay for audits; it leaves every list. */
+export async function deleteEquipment(actor: Actor, id: string, db: Kysely<DB> = defaultDb): Promise<void> {
+  assertCan(actor, 'equipment.delete');
+  await db.transaction().execute(async (trx) => {
+    const before = await getEquipment(actor, id, trx);
+    await trx.updateTable('equipment').set({ deleted_at: sql`now()`, updated_at: sql`now()` }).where('id', '=', id).execute();
+    await recordAudit(trx, actor, { action: 'delete', entityType: 'equipment', entityId: id, before });
+  });
+}
+
+export async function addRelation(actor: Actor, id: string, input: CreateRelationInput, db: Kysely<DB> = defaultDb): Promise<RelationDto[]> {
+  assertCan(actor, 'equipment.write');
+  return db.transaction().execute(async (trx) => {
+    const self = await getEquipment(actor, id, trx);
+    const other = await getEquipment(actor, input.otherId, trx).catch(() => {
+      throw new AppError('validation_failed', 'Choose equipment on the same site.', [{ path: 'otherId', message: 'This equipment was not found.' }]);
+    });
+    if (other.id === self.id) throw new AppError('validation_failed', 'Equipment cannot relate to itself.', [{ path: 'otherId', message: 'Choose another piece of equipment.' }]);
+    if (other.siteId !== self.siteId) {
+      throw new AppError('validation_failed', 'Choose equipment on the same site.', [{ path: 'otherId', message: 'That equipment is on another site.' }]);
+    }
+    const [from, to] = input.direction === 'from' ? [self.id, other.id] : [other.id, self.id];
+    const row = await trx
+      .insertInto('equipment_relations')
+      .values({ company_id: actor.companyId, from_equipment_id: from, to_equipment_id: to, kind: input.kind })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    await recordAudit(trx, actor, { action: 'create', entityType: 'equipment_relation', entityId: row.id, after: { from, to, kind: input.kind } });
+    return relationsOf(trx, id);
+  });
+}
+
+export async function removeRelation(actor: Actor, id: string, relationId: string, db: Kysely<DB> = defaultDb): Promise<void> {
+  assertCan(actor, 'equipment.write');
+  await db.transaction().execute(async (trx) => {
+    await getEquipment(actor, id, trx);
+    const row = await trx
+      .deleteFrom('equipment_relations')
+      .where('id', '=', relationId)
+      .where('company_id', '=', actor.companyId)
+      .where((eb) => eb.or([eb('from_equipment_id', '=', id), eb('to_equipment_id', '=', id)]))
+      .returning(['id', 'from_equipment_id', 'to_equipment_id', 'kind'])
+      .executeTakeFirst();
+    if (!row) throw new AppError('not_found', 'Relation not found.');
+    await recordAudit(trx, actor, { action: 'delete', entityType: 'equipment_relation', entityId: relationId, before: row });
+  });
+}

@@ -1,0 +1,172 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import type { SystemDto } from '@/lib/equipment/dto';
+import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/equipment/schemas';
+import { AppError } from '@/lib/errors';
+import { getSite } from '@/lib/sites/service';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+function systemQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('systems')
+    .innerJoin('sites', 'sites.id', 'systems.site_id')
+    .leftJoin('areas', 'areas.id', 'systems.area_id')
+    .where(siteVisibleTo(actor))
+    .select((eb) => [
+      'systems.id',
+      'systems.site_id',
+      'sites.name as site_name',
+      'systems.area_id',
+      'areas.name as area_name',
+      'systems.name',
+      'systems.refrigerant',
+      'systems.full_charge_kg',
+      'systems.application',
+      'systems.design_box_temp_c',
+      'systems.maintenance_interval_days',
+      'systems.notes',
+      'systems.archived_at',
+      'systems.created_at',
+      'systems.updated_at',
+      eb
+        .selectFrom('equipment')
+        .whereRef('equipment.system_id', '=', 'systems.id')
+        .where('equipment.deleted_at', 'is', null)
+        .select(eb.fn.countAll<number>().as('n'))
+        .as('equipment_count'),
+      eb
+        .selectFrom('equipment')
+        .whereRef('equipment.system_id', '=', 'systems.id')
+        .where('equipment.deleted_at', 'is', null)
+        .where('equipment.type', '=', 'condensing_unit')
+        .select(sql<string>`json_build_object('id', equipment.id, 'name', equipment.name)::text`.as('cu'))
+        .orderBy('equipment.created_at')
+        .limit(1)
+        .as('condensing_unit'),
+    ]);
+}
+
+type SystemRow = Awaited<ReturnType<ReturnType<typeof systemQuery>['executeTakeFirstOrThrow']>>;
+
+function toSystemDto(row: SystemRow): SystemDto {
+  return {
+    id: row.id,
+    siteId: row.site_id,
+    siteName: row.site_name,
+    areaId: row.area_id,
+    areaName: row.area_name,
+    name: row.name,
+    refrigerant: row.refrigerant,
+    fullChargeKg: row.full_charge_kg === null ? null : Number(row.full_charge_kg),
+    application: row.application as SystemDto['application'],
+    designBoxTempC: row.design_box_temp_c === null ? null : Number(row.design_box_temp_c),
+    maintenanceIntervalDays: row.maintenance_interval_days,
+    notes: row.notes,
+    equipmentCount: Number(row.equipment_count ?? 0),
+    condensingUnit: row.condensing_unit ? (JSON.parse(row.condensing_unit) as { id: string; name: string }) : null,
+    archivedAt: row.archived_at?.toISOString() ?? null,
+    createdAt: row.created_at.toISOString(),
+    updatedAt: row.updated_at.toISOString(),
+  };
+}
+
+export async function listSystems(actor: Actor, query: ListSystemsQuery, db: Db = defaultDb): Promise<SystemDto[]> {
+  assertCan(actor, 'systems.read');
+  let q = systemQuery(actor, db);
+  if (query.siteId) q = q.where('systems.site_id', '=', query.siteId);
+  if (query.archived === 'exclude') q = q.where('systems.archived_at', 'is', null);
+  if (query.archived === 'only') q = q.where('systems.archived_at', 'is not', null);
+  if (query.q) q = q.where('systems.name', 'ilike', `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  const rows = await q.orderBy('sites.name').orderBy('systems.name').limit(query.limit).execute();
+  return rows.map(toSystemDto);
+}
+
+export async function getSystem(actor: Actor, id: string, db: Db = defaultDb): Promise<SystemDto> {
+  assertCan(actor, 'systems.read');
+  const row = await systemQuery(actor, db).where('systems.id', '=', id).executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'System not found.');
+  return toSystemDto(row);
+}
+
+async function assertAreaOnSite(db: Db, siteId: string, areaId: string | null | undefined): Promise<void> {
+  if (!areaId) return;
+  const area = await db.selectFrom('areas').select('id').where('id', '=', areaId).where('site_id', '=', siteId).executeTakeFirst();
+  if (!area) throw new AppError('validation_failed', 'That area is not on this site.', [{ path: 'areaId', message: 'Choose an area of this site.' }]);
+}
+
+export async function createSystem(actor: Actor, input: CreateSystemInput, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
+  assertCan(actor, 'systems.write');
+  return db.transaction().execute(async (trx) => {
+    await getSite(actor, input.siteId, trx);
+    await assertAreaOnSite(trx, input.siteId, input.areaId);
+    const row = await trx
+      .insertInto('systems')
+      .values({
+        company_id: actor.companyId,
+        site_id: input.siteId,
+        area_id: input.areaId ?? null,
+        name: input.name,
+        refrigerant: input.refrigerant,
+        full_charge_kg: input.fullChargeKg ?? null,
+        application: input.application,
+        design_box_temp_c: input.designBoxTempC ?? null,
+        maintenance_interval_days: input.maintenanceIntervalDays ?? null,
+        notes: input.notes ?? null,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const created = await getSystem(actor, row.id, trx);
+    await recordAudit(trx, actor, { action: 'create', entityType: 'system', entityId: row.id, after: created });
+    return created;
+  });
+}
+
+export async function updateSystem(actor: Actor, id: string, input: UpdateSystemInput, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
+  assertCan(actor, 'systems.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getSystem(actor, id, trx);
+    if (input.areaId !== undefined) await assertAreaOnSite(trx, before.siteId, input.areaId);
+    await trx
+      .updateTable('systems')
+      .set({
+        ...(input.name !== undefined ? { name: input.name } : {}),
+        ...(input.areaId !== undefined ? { area_id: input.areaId } : {}),
+        ...(input.refrigerant !== undefined ? { refrigerant: input.refrigerant } : {}),
+        ...(input.fullChargeKg !== undefined ? { full_charge_kg: input.fullChargeKg } : {}),
+        ...(input.application !== undefined ? { application: input.application } : {}),
+        ...(input.designBoxTempC !== undefined ? { design_box_temp_c: input.designBoxTempC } : {}),
+        ...(input.maintenanceIntervalDays !== undefined ? { maintenance_interval_days: input.maintenanceIntervalDays } : {}),
+        ...(input.notes !== undefined ? { notes: input.notes } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getSystem(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'system', entityId: id, before, after });
+    return after;
+  });
+}
+
+export async function setSystemArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
+  assertCan(actor, 'systems.write');
+  return db.transaction().execute(async (trx) => {
+    const before = await getSystem(actor, id, trx);
+    await trx
+      .updateTable('systems')
+      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
+      .where('id', '=', id)
+      .where('company_id', '=', actor.companyId)
+      .execute();
+    const after = await getSystem(actor, id, trx);
+    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'system', entityId: id, before, after });
+    return after;
+  });
+}
