@@ -35,5 +35,6 @@ export async function call(
   });
   const res = await handler(req, { params: Promise.resolve(params) });
   const text = await res.text();
-  return { status: res.status, body: text ? JSON.parse(text) : null };
+  const isJson = (res.headers.get('content-type') ?? '').includes('json');
+  return { status: res.status, body: text ? (isJson ? JSON.parse(text) : text) : null };
 }

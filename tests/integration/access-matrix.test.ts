@@ -14,6 +14,8 @@ interface Ids {
   siteOne: string;
   areaOne: string;
   techUser: string;
+  system: string;
+  equipment: string;
 }
 let ids: Ids;
 let counter = 0;
@@ -24,8 +26,35 @@ beforeAll(async () => {
   const site = await db.selectFrom('sites').select('id').where('client_id', '=', client.id).orderBy('name').executeTakeFirstOrThrow();
   const area = await db.selectFrom('areas').select('id').where('site_id', '=', site.id).executeTakeFirstOrThrow();
   const tech = await db.selectFrom('users').select('id').where('email', '=', demoEmails.technician).executeTakeFirstOrThrow();
-  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id };
+  const company = (await db.selectFrom('clients').select('company_id').where('id', '=', client.id).executeTakeFirstOrThrow()).company_id;
+  const system = await db
+    .insertInto('systems')
+    .values({ company_id: company, site_id: site.id, name: 'Matrix circuit', refrigerant: 'R-404A', application: 'commercial_refrigeration' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id, system: system.id, equipment: '' };
+  ids.equipment = await newEquipment();
 });
+
+async function newEquipment(): Promise<string> {
+  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
+  const row = await db
+    .insertInto('equipment')
+    .values({ company_id: company, site_id: ids.siteOne, system_id: ids.system, type: 'contactor', name: `Matrix contactor ${++counter}` })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function newRelation(): Promise<string> {
+  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
+  const row = await db
+    .insertInto('equipment_relations')
+    .values({ company_id: company, from_equipment_id: ids.equipment, to_equipment_id: await newEquipment(), kind: 'controls' })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
 
 afterAll(async () => {
   await db.destroy();
@@ -62,6 +91,7 @@ interface Case {
 const all = (status: number): Record<RoleName, number> => ({ admin: status, office: status, technician: status, client: status });
 const officeUp = (ok: number): Record<RoleName, number> => ({ admin: ok, office: ok, technician: 403, client: 403 });
 const staffRead = (ok: number): Record<RoleName, number> => ({ admin: ok, office: ok, technician: ok, client: 403 });
+const staffWrite = (ok: number): Record<RoleName, number> => ({ admin: ok, office: ok, technician: ok, client: 403 });
 const adminOnly = (ok: number): Record<RoleName, number> => ({ admin: ok, office: 403, technician: 403, client: 403 });
 
 const cases: Case[] = [
@@ -94,14 +124,34 @@ const cases: Case[] = [
   { name: 'GET /api/invitations', route: () => import('@/app/api/invitations/route'), method: 'GET', expect: adminOnly(200) },
   { name: 'POST /api/invitations', route: () => import('@/app/api/invitations/route'), method: 'POST', body: () => ({ email: `matrix${++counter}@example.test`, name: 'Matrix', role: 'office' }), expect: adminOnly(201) },
   { name: 'DELETE /api/invitations/:id', route: () => import('@/app/api/invitations/[id]/route'), method: 'DELETE', params: async () => ({ id: await newInvitation() }), expect: adminOnly(204) },
+  { name: 'GET /api/systems', route: () => import('@/app/api/systems/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/systems', route: () => import('@/app/api/systems/route'), method: 'POST', body: () => ({ siteId: ids.siteOne, name: `Matrix system ${++counter}`, refrigerant: 'R-448A', application: 'commercial_refrigeration' }), expect: officeUp(201) },
+  { name: 'GET /api/systems/:id', route: () => import('@/app/api/systems/[id]/route'), method: 'GET', params: async () => ({ id: ids.system }), expect: all(200) },
+  { name: 'PATCH /api/systems/:id', route: () => import('@/app/api/systems/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.system }), body: () => ({ notes: 'Matrix' }), expect: officeUp(200) },
+  { name: 'POST /api/systems/:id/archive', route: () => import('@/app/api/systems/[id]/archive/route'), method: 'POST', params: async () => ({ id: ids.system }), expect: officeUp(200) },
+  { name: 'POST /api/systems/:id/restore', route: () => import('@/app/api/systems/[id]/restore/route'), method: 'POST', params: async () => ({ id: ids.system }), expect: officeUp(200) },
+  { name: 'GET /api/equipment', route: () => import('@/app/api/equipment/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/equipment', route: () => import('@/app/api/equipment/route'), method: 'POST', body: () => ({ siteId: ids.siteOne, type: 'thermostat', name: `Matrix thermostat ${++counter}`, nameplate: { setpointC: 2 } }), expect: staffWrite(201) },
+  { name: 'GET /api/equipment/:id', route: () => import('@/app/api/equipment/[id]/route'), method: 'GET', params: async () => ({ id: ids.equipment }), expect: all(200) },
+  { name: 'PATCH /api/equipment/:id', route: () => import('@/app/api/equipment/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.equipment }), body: () => ({ condition: 3 }), expect: staffWrite(200) },
+  { name: 'DELETE /api/equipment/:id', route: () => import('@/app/api/equipment/[id]/route'), method: 'DELETE', params: async () => ({ id: await newEquipment() }), expect: officeUp(204) },
+  { name: 'GET /api/equipment/:id/relations', route: () => import('@/app/api/equipment/[id]/relations/route'), method: 'GET', params: async () => ({ id: ids.equipment }), expect: all(200) },
+  { name: 'POST /api/equipment/:id/relations', route: () => import('@/app/api/equipment/[id]/relations/route'), method: 'POST', params: async () => ({ id: ids.equipment }), body: () => ({ kind: 'serves', otherId: pendingOther.shift() }), expect: staffWrite(201) },
+  { name: 'DELETE /api/equipment/:id/relations/:relationId', route: () => import('@/app/api/equipment/[id]/relations/[relationId]/route'), method: 'DELETE', params: async () => ({ id: ids.equipment, relationId: await newRelation() }), expect: staffWrite(204) },
+  { name: 'GET /api/equipment/export', route: () => import('@/app/api/equipment/export/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/sites/:id/equipment-import', route: () => import('@/app/api/sites/[id]/equipment-import/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), body: () => ({ csv: 'type,name\ncontactor,Imported contactor', commit: false }), expect: officeUp(200) },
   { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: all(200) },
   { name: 'PATCH /api/company', route: () => import('@/app/api/company/route'), method: 'PATCH', body: () => ({ servicePhone: '555-0100' }), expect: adminOnly(200) },
 ];
+
+// Each relation POST needs a partner it is not yet related to; created in the row's params step.
+const pendingOther: string[] = [];
 
 describe('access matrix', () => {
   for (const c of cases) {
     it(`${c.name}: signed out → 401`, async () => {
       session.actor = null;
+      if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
       const mod = await c.route();
       const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
       expect(res.status).toBe(401);
@@ -110,6 +160,7 @@ describe('access matrix', () => {
     for (const role of roles) {
       it(`${c.name}: ${role} → ${c.expect[role]}`, async () => {
         session.actor = await actorFor(db, demoEmails[role]);
+        if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
         const mod = await c.route();
         const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
         expect(res.status, JSON.stringify(res.body)).toBe(c.expect[role]);
