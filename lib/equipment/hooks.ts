@@ -1,0 +1,153 @@
+'use client';
+
+import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import type { Page } from '@/lib/api/cursor';
+import type { EquipmentDetailDto, EquipmentDto, RelationDto, SystemDto } from '@/lib/equipment/dto';
+import type { ImportPreview } from '@/lib/equipment/import';
+import type { CreateEquipmentInput, CreateRelationInput, CreateSystemInput, EquipmentSort, UpdateEquipmentInput, UpdateSystemInput } from '@/lib/equipment/schemas';
+import type { EquipmentStatus, EquipmentType } from '@/lib/equipment/types';
+import type { AreaDto } from '@/lib/sites/dto';
+import { siteKeys } from '@/lib/sites/hooks';
+
+/** What the equipment table asks the API for; also what its URL carries. */
+export interface EquipmentListFilters {
+  siteId?: string;
+  areaId?: string;
+  systemId?: string;
+  type: EquipmentType[];
+  condition: number[];
+  refrigerant: string[];
+  status: EquipmentStatus[];
+  q?: string;
+  sort: EquipmentSort;
+  dir: 'asc' | 'desc';
+}
+
+export const equipmentKeys = {
+  all: ['equipment'] as const,
+  lists: () => ['equipment', 'list'] as const,
+  list: (filters: EquipmentListFilters | Record<string, unknown>) => ['equipment', 'list', filters] as const,
+  detail: (id: string) => ['equipment', 'detail', id] as const,
+};
+
+export const systemKeys = {
+  all: ['systems'] as const,
+  list: (q: Record<string, unknown>) => ['systems', 'list', q] as const,
+  detail: (id: string) => ['systems', 'detail', id] as const,
+};
+
+/** Query string for GET /api/equipment and its CSV export (repeated keys for several values). */
+export function equipmentSearchParams(filters: Partial<EquipmentListFilters>): URLSearchParams {
+  const params = new URLSearchParams();
+  if (filters.siteId) params.set('siteId', filters.siteId);
+  if (filters.areaId) params.set('areaId', filters.areaId);
+  if (filters.systemId) params.set('systemId', filters.systemId);
+  for (const t of filters.type ?? []) params.append('type', t);
+  for (const c of filters.condition ?? []) params.append('condition', String(c));
+  for (const r of filters.refrigerant ?? []) params.append('refrigerant', r);
+  for (const s of filters.status ?? []) params.append('status', s);
+  if (filters.q) params.set('q', filters.q);
+  if (filters.sort && filters.sort !== 'name') params.set('sort', filters.sort);
+  if (filters.dir && filters.dir !== 'asc') params.set('dir', filters.dir);
+  return params;
+}
+
+const PAGE_SIZE = 50;
+
+export function useEquipmentList(filters: EquipmentListFilters, initial?: { filters: EquipmentListFilters; page: Page<EquipmentDto> }) {
+  const matchesInitial = initial !== undefined && JSON.stringify(initial.filters) === JSON.stringify(filters);
+  return useInfiniteQuery({
+    queryKey: equipmentKeys.list(filters),
+    queryFn: ({ pageParam, signal }) => {
+      const params = equipmentSearchParams(filters);
+      if (pageParam) params.set('cursor', pageParam);
+      params.set('limit', String(PAGE_SIZE));
+      return apiFetch<Page<EquipmentDto>>(`/api/equipment?${params}`, { signal });
+    },
+    initialPageParam: '' as string,
+    getNextPageParam: (last) => last.nextCursor ?? undefined,
+    // Typing in the search box keeps the current rows on screen until the new ones arrive.
+    placeholderData: keepPreviousData,
+    ...(matchesInitial ? { initialData: { pages: [initial.page], pageParams: [''] } } : {}),
+  });
+}
+
+/** Equipment on one site, for pickers (relations). Sites rarely hold more than a few hundred units. */
+export function useSiteEquipment(siteId: string) {
+  return useQuery({
+    queryKey: equipmentKeys.list({ siteId, picker: true }),
+    queryFn: ({ signal }) => apiFetch<Page<EquipmentDto>>(`/api/equipment?siteId=${siteId}&limit=200`, { signal }),
+  });
+}
+
+export function useSiteAreas(siteId: string | undefined) {
+  return useQuery({
+    queryKey: siteKeys.areas(siteId ?? ''),
+    queryFn: ({ signal }) => apiFetch<Page<AreaDto>>(`/api/sites/${siteId}/areas`, { signal }),
+    enabled: Boolean(siteId),
+  });
+}
+
+export function useSaveEquipment(id?: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateEquipmentInput | UpdateEquipmentInput) =>
+      id
+        ? apiFetch<EquipmentDetailDto>(`/api/equipment/${id}`, { method: 'PATCH', json: input })
+        : apiFetch<EquipmentDetailDto>('/api/equipment', { method: 'POST', json: input }),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: equipmentKeys.all }), qc.invalidateQueries({ queryKey: systemKeys.all })]),
+  });
+}
+
+export function useDeleteEquipment(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' }),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: equipmentKeys.all }), qc.invalidateQueries({ queryKey: systemKeys.all })]),
+  });
+}
+
+export function useAddRelation(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateRelationInput) => apiFetch<Page<RelationDto>>(`/api/equipment/${id}/relations`, { method: 'POST', json: input }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: equipmentKeys.all }),
+  });
+}
+
+export function useRemoveRelation(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (relationId: string) => apiFetch<void>(`/api/equipment/${id}/relations/${relationId}`, { method: 'DELETE' }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: equipmentKeys.all }),
+  });
+}
+
+export function useSaveSystem(id?: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateSystemInput | UpdateSystemInput) =>
+      id ? apiFetch<SystemDto>(`/api/systems/${id}`, { method: 'PATCH', json: input }) : apiFetch<SystemDto>('/api/systems', { method: 'POST', json: input }),
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: systemKeys.all }), qc.invalidateQueries({ queryKey: equipmentKeys.all })]),
+  });
+}
+
+export function useArchiveSystem(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (archived: boolean) => apiFetch<SystemDto>(`/api/systems/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: systemKeys.all }),
+  });
+}
+
+/** CSV import: a preview first ({ commit: false }), then the same file with { commit: true }. */
+export function useEquipmentImport(siteId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: { csv: string; commit: boolean }) => apiFetch<ImportPreview>(`/api/sites/${siteId}/equipment-import`, { method: 'POST', json: input }),
+    onSuccess: (result) => {
+      if (result.imported > 0) return Promise.all([qc.invalidateQueries({ queryKey: equipmentKeys.all }), qc.invalidateQueries({ queryKey: siteKeys.all })]);
+    },
+  });
+}

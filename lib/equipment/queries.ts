@@ -1,0 +1,87 @@
+import { sql, type Expression, type Kysely, type RawBuilder, type Transaction } from 'kysely';
+import { escapeLike, siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor } from '@/lib/api/cursor';
+import type { Actor } from '@/lib/auth/actor';
+import type { EquipmentSort, ListEquipmentQuery } from '@/lib/equipment/schemas';
+
+// Query builders only (no connection of their own): the service executes them, and the
+// benchmark compiles the very same SQL to time it straight through pg.
+type Db = Kysely<DB> | Transaction<DB>;
+
+export function equipmentBaseQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .leftJoin('areas', 'areas.id', 'equipment.area_id')
+    .leftJoin('systems', 'systems.id', 'equipment.system_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.company_id', '=', actor.companyId);
+}
+
+export const refrigerantExpr = sql<string | null>`coalesce(systems.refrigerant, equipment.nameplate->>'refrigerant')`;
+
+export const selection = [
+  'equipment.id',
+  'equipment.site_id',
+  'sites.name as site_name',
+  'clients.name as client_name',
+  'equipment.area_id',
+  'areas.name as area_name',
+  'equipment.system_id',
+  'systems.name as system_name',
+  'equipment.type',
+  'equipment.name',
+  'equipment.make',
+  'equipment.model',
+  'equipment.serial',
+  'equipment.manufactured_on',
+  'equipment.installed_on',
+  'equipment.condition',
+  'equipment.condition_note',
+  'equipment.status',
+  'equipment.nameplate',
+  'equipment.deleted_at',
+  'equipment.created_at',
+  'equipment.updated_at',
+] as const;
+
+// Each sort key with the SQL it orders by and the cast its cursor value needs.
+const sortExpressions: Record<EquipmentSort, { expr: RawBuilder<unknown>; cast: (v: unknown) => Expression<unknown> }> = {
+  name: { expr: sql`lower(equipment.name)`, cast: (v) => sql`${String(v)}::text` },
+  type: { expr: sql`equipment.type`, cast: (v) => sql`${String(v)}::text` },
+  make: { expr: sql`lower(coalesce(equipment.make, ''))`, cast: (v) => sql`${String(v)}::text` },
+  model: { expr: sql`lower(coalesce(equipment.model, ''))`, cast: (v) => sql`${String(v)}::text` },
+  serial: { expr: sql`lower(coalesce(equipment.serial, ''))`, cast: (v) => sql`${String(v)}::text` },
+  condition: { expr: sql`coalesce(equipment.condition, 0)`, cast: (v) => sql`${Number(v)}::int` },
+  installedOn: { expr: sql`coalesce(equipment.installed_on, '0001-01-01'::date)`, cast: (v) => sql`${String(v)}::date` },
+  updatedAt: { expr: sql`equipment.updated_at`, cast: (v) => sql`${String(v)}::timestamptz` },
+};
+
+/** Filters shared by the table, the CSV export and the benchmark. */
+export function filteredEquipment(actor: Actor, query: Omit<ListEquipmentQuery, 'cursor' | 'limit' | 'sort' | 'dir'>, db: Db) {
+  let q = equipmentBaseQuery(actor, db).where('equipment.deleted_at', 'is', null);
+  if (query.siteId) q = q.where('equipment.site_id', '=', query.siteId);
+  if (query.areaId) q = q.where('equipment.area_id', '=', query.areaId);
+  if (query.systemId) q = q.where('equipment.system_id', '=', query.systemId);
+  if (query.type?.length) q = q.where('equipment.type', 'in', query.type);
+  if (query.status?.length) q = q.where('equipment.status', 'in', query.status);
+  if (query.condition?.length) q = q.where('equipment.condition', 'in', query.condition);
+  if (query.refrigerant?.length) q = q.where(refrigerantExpr, 'in', query.refrigerant);
+  if (query.q) q = q.where('equipment.search_text', 'like', `%${escapeLike(query.q.toLowerCase())}%`);
+  return q;
+}
+
+/** The list query for one page: filters, sort, keyset cursor, one extra row to detect a next page. */
+export function buildEquipmentListQuery(actor: Actor, query: ListEquipmentQuery, db: Db) {
+  const cursor = decodeCursor(query.cursor);
+  const sort = sortExpressions[query.sort];
+  const op = query.dir === 'asc' ? '>' : '<';
+  let q = filteredEquipment(actor, query, db).select([...selection, refrigerantExpr.as('refrigerant'), sort.expr.as('sort_key')]);
+  if (cursor) q = q.where(sql<boolean>`(${sort.expr}, equipment.id) ${sql.raw(op)} (${sort.cast(cursor.k)}, ${cursor.id}::uuid)`);
+  return q
+    .orderBy(sort.expr, query.dir)
+    .orderBy('equipment.id', query.dir)
+    .limit(query.limit + 1);
+}

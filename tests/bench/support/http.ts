@@ -1,0 +1,34 @@
+// Signs a demo user in over HTTP and returns a fetch that carries the session cookie.
+export async function signedInFetch(baseUrl: string, email: string, password = 'rimeline-demo') {
+  const jar = new Map<string, string>();
+  const remember = (res: Response) => {
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(';');
+      const [name, ...rest] = pair!.split('=');
+      jar.set(name!.trim(), rest.join('='));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+  const csrfRes = await fetch(`${baseUrl}/api/auth/csrf`);
+  remember(csrfRes);
+  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+  const login = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: cookie() },
+    body: new URLSearchParams({ csrfToken, email, password, json: 'true' }),
+  });
+  remember(login);
+  if (![...jar.keys()].some((k) => k.includes('session-token'))) throw new Error(`Sign-in as ${email} failed (${login.status})`);
+  return (path: string, init: RequestInit = {}) => fetch(`${baseUrl}${path}`, { ...init, headers: { ...(init.headers ?? {}), cookie: cookie() } });
+}
+
+export function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return Number.NaN;
+  const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
+  return sorted[i]!;
+}
+
+export function benchRow(name: string, measured: string, baseline: string, ratio: string, goal: string): void {
+  console.log(['BENCH', name, measured, baseline, ratio, goal].join('\t'));
+}
