@@ -13,7 +13,8 @@
 # missing (apt-get: chromium, zbar-tools, poppler-utils, postgresql; npm ci); start PostgreSQL
 # (127.0.0.1:54339, database rimeline_test, fsync off), the S3 fake (4571, bucket rimeline-test)
 # and the mail catcher (SMTP 1026, API 1081); run the migrations; vitest; next build with the
-# test environment; load the demo data; Playwright (its webServer starts next on 127.0.0.1:3100).
+# test environment; Playwright (its globalSetup resets the database to the demo scenario, its
+# webServer starts next on 127.0.0.1:3100).
 # Services are stopped on every exit path. The last line printed is always `N passed, N failed`
 # (vitest + Playwright; a stage that crashes counts as one failure) and the exit status is
 # non-zero when anything failed.
@@ -52,7 +53,7 @@ source docker-free-scripts/env.sh test
 
 TOTAL=7
 [ "$run_unit" = 1 ] && TOTAL=$((TOTAL + 1))
-[ "$run_e2e" = 1 ] && TOTAL=$((TOTAL + 3))
+[ "$run_e2e" = 1 ] && TOTAL=$((TOTAL + 2))
 step=0
 next_step() { step=$((step + 1)); rl_step "$step" "$TOTAL" "$1"; }
 header() {
@@ -73,19 +74,20 @@ summary() {
 const fs = require('node:fs');
 const [vitestFile, vitestRc, pwFile, pwRc] = process.argv.slice(2);
 let passed = 0, failed = 0;
+const how = (rc) => (rc === 'running' ? 'was interrupted' : `exit ${rc}`);
 const read = (f) => { try { return JSON.parse(fs.readFileSync(f, 'utf8')); } catch { return null; } };
 if (vitestRc !== 'skip') {
   const r = read(vitestFile);
   if (!r) {
     failed += 1;
-    console.log(`  vitest: crashed before writing its report (exit ${vitestRc}), counted as 1 failure`);
+    console.log(`  vitest: no report (${how(vitestRc)}), counted as 1 failure`);
   } else {
     let p = r.numPassedTests ?? 0, f = r.numFailedTests ?? 0;
     // A test file that fails to load has no failed test in it: count the file.
     for (const file of r.testResults ?? []) {
       if (file.status === 'failed' && !(file.assertionResults ?? []).some((a) => a.status === 'failed')) f += 1;
     }
-    if (f === 0 && vitestRc !== '0') { f = 1; console.log(`  vitest: exited ${vitestRc} without a failed test, counted as 1 failure`); }
+    if (f === 0 && vitestRc !== '0') { f = 1; console.log(`  vitest: ${how(vitestRc)} without a failed test, counted as 1 failure`); }
     console.log(`  vitest:     ${p} passed, ${f} failed` + (r.numPendingTests || r.numTodoTests ? `, ${(r.numPendingTests ?? 0) + (r.numTodoTests ?? 0)} skipped` : ''));
     passed += p; failed += f;
   }
@@ -94,13 +96,13 @@ if (pwRc !== 'skip') {
   const r = read(pwFile);
   if (!r || !r.stats) {
     failed += 1;
-    console.log(`  playwright: crashed before writing its report (exit ${pwRc}), counted as 1 failure`);
+    console.log(`  playwright: no report (${how(pwRc)}), counted as 1 failure`);
   } else {
     const s = r.stats;
     let p = (s.expected ?? 0) + (s.flaky ?? 0), f = s.unexpected ?? 0;
     const errors = (r.errors ?? []).length;
     if (errors > 0) { f += errors; console.log(`  playwright: ${errors} error(s) outside tests (e.g. the web server), counted as failures`); }
-    if (f === 0 && pwRc !== '0') { f = 1; console.log(`  playwright: exited ${pwRc} without a failed test, counted as 1 failure`); }
+    if (f === 0 && pwRc !== '0') { f = 1; console.log(`  playwright: ${how(pwRc)} without a failed test, counted as 1 failure`); }
     console.log(`  playwright: ${p} passed, ${f} failed` + (s.flaky ? ` (${s.flaky} flaky)` : '') + (s.skipped ? `, ${s.skipped} skipped` : ''));
     passed += p; failed += f;
   }
@@ -217,10 +219,10 @@ rl_ok
 # ------------------------------------------------------------------------------------ vitest
 if [ "$run_unit" = 1 ]; then
   header "Unit and integration tests (vitest)"
-  vitest_rc=0
+  vitest_rc=running
   rl_run_shown node_modules/.bin/vitest run --config tests/vitest.config.ts --passWithNoTests \
     --reporter=default --reporter=json --outputFile="$RIMELINE_DATA/vitest.json" \
-    "${filters[@]}" "${runner_args[@]}" || vitest_rc=$?
+    "${filters[@]}" "${runner_args[@]}" && vitest_rc=0 || vitest_rc=$?
 fi
 
 # ------------------------------------------------------------------------------------ Playwright
@@ -244,22 +246,11 @@ if [ "$run_e2e" = 1 ]; then
   fi
 
   if [ "$built" = 1 ]; then
-    next_step "Loading the demo data"
-    if [ ! -f docker-free-scripts/seed.ts ]; then
-      rl_fail "docker-free-scripts/seed.ts is missing." "restore it from git."
-      stage_failures+=("demo data")
-    elif rl_run_logged "$RIMELINE_LOGS/seed.log" "$RL_TSX" docker-free-scripts/seed.ts; then
-      rl_ok
-    else
-      rl_fail "Loading the demo data failed." "read the log above." "$RIMELINE_LOGS/seed.log"
-      stage_failures+=("demo data")
-    fi
-
     header "Browser tests (Playwright, Chromium, app on $APP_URL)"
     if rl_free_port "$APP_PORT" "test app server"; then
-      playwright_rc=0
+      playwright_rc=running
       rl_run_shown node_modules/.bin/playwright test --config tests/playwright.config.ts --pass-with-no-tests \
-        "${filters[@]}" "${runner_args[@]}" || playwright_rc=$?
+        "${filters[@]}" "${runner_args[@]}" && playwright_rc=0 || playwright_rc=$?
     else
       stage_failures+=("port $APP_PORT busy")
     fi
