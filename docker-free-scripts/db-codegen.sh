@@ -48,8 +48,10 @@ psql_admin -c "DROP DATABASE IF EXISTS $scratch_db WITH (FORCE)" -c "CREATE DATA
 echo "Migrating the scratch database $scratch_db …"
 DATABASE_URL="$scratch_url" PGDATABASE="$scratch_db" "$RL_TSX" db/migrate.ts latest
 
-echo "Generating db/schema.gen.ts …"
+verify=0
+for a in "$@"; do [ "$a" = --verify ] && verify=1; done
+if [ "$verify" = 1 ]; then echo "Checking db/schema.gen.ts against the migrated schema …"; else echo "Generating db/schema.gen.ts …"; fi
 # numeric columns are parsed to numbers and dates kept as text at runtime (db/pg-types.ts), so the types say so too.
 DATABASE_URL="$scratch_url" node_modules/.bin/kysely-codegen --dialect postgres --url "$scratch_url" \
   --out-file db/schema.gen.ts --numeric-parser number --date-parser string --log-level warn "$@"
-echo "Done: db/schema.gen.ts (scratch database dropped)."
+if [ "$verify" = 1 ]; then echo "db/schema.gen.ts is up to date."; else echo "Done: db/schema.gen.ts (scratch database dropped)."; fi
