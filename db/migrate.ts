@@ -7,6 +7,8 @@ import pg from 'pg';
 export function createMigrator(db: Kysely<unknown>, provider?: MigrationProvider): Migrator {
   return new Migrator({
     db,
+    // Work lands from parallel branches: a migration dated before one already applied still runs.
+    allowUnorderedMigrations: true,
     provider: provider ?? new FileMigrationProvider({ fs, path, migrationFolder: path.join(import.meta.dirname, 'migrations') }),
   });
 }

@@ -89,6 +89,24 @@ export interface Companies {
   updated_at: Generated<Timestamp>;
 }
 
+export interface Entries {
+  client_entry_id: string;
+  company_id: string;
+  computed: Json | null;
+  created_at: Generated<Timestamp>;
+  created_by: string;
+  data: Json;
+  equipment_id: string;
+  id: Generated<string>;
+  kind: string;
+  recorded_at: Timestamp;
+  system_id: string | null;
+  visit_id: string;
+  void_reason: string | null;
+  voided_at: Timestamp | null;
+  voided_by: string | null;
+}
+
 export interface Equipment {
   area_id: string | null;
   company_id: string;
@@ -119,6 +137,26 @@ export interface EquipmentRelations {
   id: Generated<string>;
   kind: string;
   to_equipment_id: string;
+}
+
+export interface FollowUps {
+  closed_at: Timestamp | null;
+  closed_by: string | null;
+  closed_visit_id: string | null;
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  created_by: string;
+  entry_id: string | null;
+  equipment_id: string | null;
+  id: Generated<string>;
+  raised_visit_id: string | null;
+  resolution: string | null;
+  scheduled_for: string | null;
+  severity: string;
+  site_id: string;
+  status: Generated<string>;
+  title: string;
+  updated_at: Generated<Timestamp>;
 }
 
 export interface Invitations {
@@ -214,6 +252,26 @@ export interface Users {
   updated_at: Generated<Timestamp>;
 }
 
+export interface Visits {
+  closed_by: string | null;
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  ended_at: Timestamp | null;
+  id: Generated<string>;
+  reason: string;
+  reopened_at: Timestamp | null;
+  reopened_by: string | null;
+  report_key: string | null;
+  reviewed_at: Timestamp | null;
+  reviewed_by: string | null;
+  site_id: string;
+  started_at: Timestamp;
+  status: Generated<string>;
+  summary: string | null;
+  technician_id: string;
+  updated_at: Generated<Timestamp>;
+}
+
 export interface DB {
   areas: Areas;
   audit_events: AuditEvents;
@@ -221,12 +279,15 @@ export interface DB {
   client_contacts: ClientContacts;
   clients: Clients;
   companies: Companies;
+  entries: Entries;
   equipment: Equipment;
   equipment_relations: EquipmentRelations;
+  follow_ups: FollowUps;
   invitations: Invitations;
   mail_outbox: MailOutbox;
   sign_in_throttles: SignInThrottles;
   sites: Sites;
   systems: Systems;
   users: Users;
+  visits: Visits;
 }
