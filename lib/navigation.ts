@@ -11,6 +11,7 @@ export interface NavItem {
 export const navItems: NavItem[] = [
   { href: '/', label: 'Home', icon: 'home', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/sites', label: 'Sites', icon: 'sites', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/tools/pt-chart', label: 'P-T chart', icon: 'gauge', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/clients', label: 'Clients', icon: 'clients', roles: ['admin', 'office'] },
   { href: '/settings', label: 'Settings', icon: 'settings', roles: ['admin', 'office', 'technician', 'client'] },
 ];

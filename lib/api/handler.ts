@@ -4,6 +4,7 @@ import { z, type ZodType } from 'zod';
 import { requireActor, type Actor } from '@/lib/auth';
 import { assertCan } from '@/lib/auth/access';
 import type { Permission } from '@/lib/auth/permissions';
+import { isCalcError } from '@/lib/calc/errors';
 import { AppError, type ErrorIssue } from '@/lib/errors';
 import { logger } from '@/lib/logger';
 
@@ -73,6 +74,8 @@ export function errorResponse(error: unknown): NextResponse {
 export function toAppError(error: unknown): AppError {
   if (error instanceof AppError) return error;
   if (error instanceof z.ZodError) return validationError(error);
+  // Calculation input and range errors (unknown refrigerant, above the critical point, …) are the caller's to fix.
+  if (isCalcError(error)) return new AppError('validation_failed', error.message, [{ path: error.field ?? '', message: error.message }]);
   const pg = error as { code?: unknown; constraint?: unknown };
   if (typeof pg?.code === 'string') {
     if (pg.code === '23505') return new AppError('conflict', 'A record with these details already exists.');
