@@ -30,6 +30,7 @@ export async function resetToDemo(db: Kysely<DB>): Promise<void> {
   const existing = await sql<{ tablename: string }>`select tablename from pg_tables where schemaname = 'public'`.execute(db);
   const present = new Set(existing.rows.map((r) => r.tablename));
   const list = tables.filter((t) => present.has(t)).concat([...present].filter((t) => !tables.includes(t) && !t.startsWith('kysely_')));
+  if (list.length === 0) throw new Error('The test database has no tables: run the migrations first (npm test does).');
   await sql.raw(`truncate ${list.map((t) => `"${t}"`).join(', ')} restart identity cascade`).execute(db);
   await seedDemo(db);
 }
