@@ -121,10 +121,10 @@ rl_ok
 # Hook for benches that need the app over HTTP (off by default).
 if [ "$with_app" = 1 ]; then
   next_step "Building the app for the bench profile (next build)"
-  rm -f .next/rimeline-profile
+  rm -f "$RL_DIST/rimeline-profile"
   rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build \
     || rl_die "next build failed." "fix the build error above." "$RIMELINE_LOGS/build.log"
-  echo bench >.next/rimeline-profile
+  echo bench >"$RL_DIST/rimeline-profile"
   rl_ok
   next_step "Starting the app on 127.0.0.1:$APP_PORT"
   rl_free_port "$APP_PORT" "app" || exit 1

@@ -7,6 +7,9 @@ RL_SCRIPTS="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)"
 RL_ROOT="$(cd "$RL_SCRIPTS/.." && pwd)"
 RL_TSX="$RL_ROOT/node_modules/.bin/tsx"
 RL_NEXT="$RL_ROOT/node_modules/next/dist/bin/next"
+# The build folder (next.config.ts reads NEXT_DIST_DIR; default .next).
+RL_DIST="${NEXT_DIST_DIR:-.next}"
+RL_DIST="${RL_DIST%/}"
 
 # ------------------------------------------------------------------ progress output
 RL_LINE_OPEN=0

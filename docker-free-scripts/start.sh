@@ -9,7 +9,7 @@
 # (apt-get when absent); the private cluster in .data/dev/pg on 127.0.0.1:54329; the S3 fake
 # (127.0.0.1:4570) and the mail catcher (SMTP 127.0.0.1:1025, API 127.0.0.1:1080); migrations;
 # the demo data (the seed does nothing when the demo company exists); next build (skipped when
-# .next holds a build of the dev profile and no source file is newer than .next/BUILD_ID); the app
+# the build folder (.next, or NEXT_DIST_DIR) holds a build of the dev profile and no source file is newer than its BUILD_ID); the app
 # on 127.0.0.1:3000, reached at http://localhost:3000.
 # Logs: .data/dev/logs/. Ctrl-C (or SIGTERM) stops everything this run started, newest first.
 set -Eeuo pipefail
@@ -36,7 +36,6 @@ LOGS="$RIMELINE_LOGS"
 TOTAL=9
 
 pg_owned=0
-app_pid=""
 stopping=0
 
 cleanup() {
@@ -152,24 +151,24 @@ else
   why=""
   if [ "$rebuild" = 1 ]; then
     why="asked for with --rebuild"
-  elif [ ! -f .next/BUILD_ID ]; then
+  elif [ ! -f "$RL_DIST/BUILD_ID" ]; then
     why="no build yet"
-  elif [ "$(cat .next/rimeline-profile 2>/dev/null)" != dev ]; then
+  elif [ "$(cat "$RL_DIST/rimeline-profile" 2>/dev/null)" != dev ]; then
     why="the last build was made for another profile"
   else
-    newer="$(find . \( -path ./node_modules -o -path ./.next -o -path ./.data -o -path ./.git -o -path ./tests \
+    newer="$(find . \( -path ./node_modules -o -path "./$RL_DIST" -o -path "./.next*" -o -path ./.data -o -path ./.git -o -path ./tests \
       -o -path ./docker-free-scripts \) -prune -o -type f \( -name '*.ts' -o -name '*.tsx' -o -name '*.js' -o -name '*.mjs' \
-      -o -name '*.cjs' -o -name '*.css' -o -name '*.json' -o -path './public/*' \) -newer .next/BUILD_ID -print -quit)"
+      -o -name '*.cjs' -o -name '*.css' -o -name '*.json' -o -path './public/*' \) -newer "$RL_DIST/BUILD_ID" -print -quit)"
     [ -n "$newer" ] && why="${newer#./} changed"
   fi
   if [ -z "$why" ]; then
     rl_ok "up to date, skipped (npm start -- --rebuild forces a build)"
   else
     printf '%s, building (about a minute) … ' "$why"
-    rm -f .next/rimeline-profile
+    rm -f "$RL_DIST/rimeline-profile"
     rl_run_logged "$LOGS/build.log" node "$RL_NEXT" build \
       || rl_die "next build failed." "fix the error shown above (full output: $(rl_rel "$LOGS")/build.log), then run npm start again." "$LOGS/build.log"
-    echo dev >.next/rimeline-profile
+    echo dev >"$RL_DIST/rimeline-profile"
     rl_ok
   fi
 fi
@@ -185,7 +184,6 @@ else
   RL_READY_TIMEOUT=90 rl_service_start app "app" "http://127.0.0.1:$APP_PORT/api/health" \
     node "$RL_NEXT" start -H 127.0.0.1 -p "$APP_PORT" || exit 1
 fi
-app_pid="${RL_SERVICE_PID[app]}"
 health_code="$(rl_http_status "http://127.0.0.1:$APP_PORT/api/health")"
 if [ "$health_code" = 200 ]; then
   rl_ok "healthy"

@@ -4,7 +4,7 @@
 #   npm test                              everything: vitest (unit + integration), then Playwright
 #   npm test -- --unit-only               vitest only (no build, no browser)
 #   npm test -- --e2e-only                Playwright only (still builds the app)
-#   npm test -- --e2e-only --no-build     Playwright against the existing test build in .next
+#   npm test -- --e2e-only --no-build     Playwright against the existing test build (.next or NEXT_DIST_DIR)
 #   npm test -- tests/unit/money          positional arguments are file filters for the runner(s)
 #   npm test -- --e2e-only -- --grep "sign in" --project desktop
 #                                         everything after a second -- goes to the runner(s) verbatim
@@ -228,15 +228,15 @@ fi
 # ------------------------------------------------------------------------------------ Playwright
 if [ "$run_e2e" = 1 ]; then
   next_step "Building the app for the test profile (next build)"
-  if [ "$build" = 0 ] && [ -f .next/BUILD_ID ] && [ "$(cat .next/rimeline-profile 2>/dev/null)" = test ]; then
+  if [ "$build" = 0 ] && [ -f "$RL_DIST/BUILD_ID" ] && [ "$(cat "$RL_DIST/rimeline-profile" 2>/dev/null)" = test ]; then
     rl_ok "skipped (--no-build, reusing the existing test build)"
     built=1
   else
     [ "$build" = 0 ] && printf 'no test build to reuse, building … '
-    rm -f .next/rimeline-profile
+    rm -f "$RL_DIST/rimeline-profile"
     built=0
     if rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build; then
-      echo test >.next/rimeline-profile
+      echo test >"$RL_DIST/rimeline-profile"
       built=1
       rl_ok
     else
