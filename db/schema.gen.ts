@@ -174,6 +174,26 @@ export interface Invitations {
   token_hash: string;
 }
 
+export interface LabelLayouts {
+  archived_at: Timestamp | null;
+  columns: number;
+  created_at: Generated<Timestamp>;
+  description: string | null;
+  id: string;
+  label_height_mm: Numeric;
+  label_width_mm: Numeric;
+  margin_left_mm: Generated<Numeric>;
+  margin_top_mm: Generated<Numeric>;
+  name: string;
+  padding_mm: Generated<Numeric>;
+  page_height_mm: Numeric;
+  page_width_mm: Numeric;
+  pitch_x_mm: Numeric;
+  pitch_y_mm: Numeric;
+  rows: number;
+  sort_order: Generated<number>;
+}
+
 export interface MailOutbox {
   attempts: Generated<number>;
   company_id: string | null;
@@ -190,6 +210,43 @@ export interface MailOutbox {
   subject: string;
   text_body: string;
   to_addresses: string[];
+}
+
+export interface Photos {
+  byte_size: number;
+  caption: string | null;
+  company_id: string;
+  content_type: string;
+  created_at: Generated<Timestamp>;
+  display_key: string;
+  equipment_id: string;
+  height: number;
+  id: Generated<string>;
+  kind: string;
+  location_kept: Generated<boolean>;
+  original_key: string;
+  original_name: string | null;
+  sort_at: Generated<Timestamp>;
+  taken_at: Timestamp | null;
+  thumb_key: string;
+  upload_key: Generated<string>;
+  uploaded_by: string;
+  width: number;
+}
+
+export interface PrintRuns {
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  created_by: string | null;
+  error_correction: string;
+  id: Generated<string>;
+  kind: string;
+  label_count: number;
+  layout_id: string;
+  pdf_bytes: number | null;
+  pdf_key: string | null;
+  site_id: string | null;
+  start_position: Generated<number>;
 }
 
 export interface SignInThrottles {
@@ -233,6 +290,35 @@ export interface Systems {
   refrigerant: string;
   site_id: string;
   updated_at: Generated<Timestamp>;
+}
+
+export interface Tags {
+  attached_at: Timestamp | null;
+  attached_by: string | null;
+  code: string;
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  equipment_id: string | null;
+  id: Generated<string>;
+  print_run_id: string | null;
+  replaced_by_id: string | null;
+  retired_at: Timestamp | null;
+  retired_by: string | null;
+  retired_note: string | null;
+  retired_reason: string | null;
+  site_id: string | null;
+  state: Generated<string>;
+  updated_at: Generated<Timestamp>;
+}
+
+export interface TagScans {
+  company_id: string;
+  equipment_id: string | null;
+  id: Generated<string>;
+  scanned_at: Generated<Timestamp>;
+  tag_id: string;
+  user_id: string;
+  via: string;
 }
 
 export interface Users {
@@ -284,10 +370,15 @@ export interface DB {
   equipment_relations: EquipmentRelations;
   follow_ups: FollowUps;
   invitations: Invitations;
+  label_layouts: LabelLayouts;
   mail_outbox: MailOutbox;
+  photos: Photos;
+  print_runs: PrintRuns;
   sign_in_throttles: SignInThrottles;
   sites: Sites;
   systems: Systems;
+  tag_scans: TagScans;
+  tags: Tags;
   users: Users;
   visits: Visits;
 }

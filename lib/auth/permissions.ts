@@ -35,6 +35,11 @@ export const permissions = {
   'equipment.write': staff,
   'equipment.delete': officeUp,
   'equipment.import': officeUp,
+  // Photos: everyone reads within their scope; a technician may change or delete their own uploads.
+  'photos.read': everyone,
+  'photos.upload': staff,
+  'photos.manage': officeUp,
+  'photos.maintain': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

@@ -1,0 +1,331 @@
+import 'server-only';
+import { randomUUID } from 'node:crypto';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor, encodeCursor } from '@/lib/api/cursor';
+import { assertCan, can } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import { AppError } from '@/lib/errors';
+import { logger } from '@/lib/logger';
+import { inspectPhotoStorage, repairPhotoStorage } from '@/lib/photos/consistency';
+import { toPhotoDto, type PhotoDto, type PhotoListDto, type StorageReportDto, type StorageRepairDto } from '@/lib/photos/dto';
+import { processPhoto } from '@/lib/photos/process';
+import { photoKinds, type ListPhotosQuery, type PhotoKind, type PhotoVariant, type UpdatePhotoInput } from '@/lib/photos/schemas';
+import { deleteObject, getObjectStream, objectKey, putObject, storageErrorKind } from '@/storage/objects';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+const storeDown = () => new AppError('unavailable', 'The photo store cannot be reached right now. Nothing was saved; try again in a moment.');
+
+/** Photos the actor may see: same company, equipment not deleted, site within a client user's scope. */
+function visiblePhotos(actor: Actor, db: Db) {
+  return db
+    .selectFrom('photos')
+    .innerJoin('equipment', 'equipment.id', 'photos.equipment_id')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .innerJoin('users as uploader', 'uploader.id', 'photos.uploaded_by')
+    .where(siteVisibleTo(actor))
+    .where('photos.company_id', '=', actor.companyId)
+    .where('equipment.deleted_at', 'is', null);
+}
+
+const dtoColumns = [
+  'photos.id',
+  'photos.equipment_id',
+  'photos.kind',
+  'photos.caption',
+  'photos.taken_at',
+  'photos.created_at',
+  'photos.sort_at',
+  'photos.uploaded_by',
+  'uploader.name as uploader_name',
+  'photos.width',
+  'photos.height',
+  'photos.content_type',
+  'photos.byte_size',
+  'photos.original_name',
+  'photos.location_kept',
+] as const;
+
+/** Office and admin may change any photo; a technician the ones they uploaded. */
+function canEdit(actor: Actor, uploadedBy: string): boolean {
+  return can(actor, 'photos.manage') || (can(actor, 'photos.upload') && uploadedBy === actor.id);
+}
+
+/** The equipment a photo is attached to, in the actor's scope, with what processing needs. */
+async function equipmentForPhotos(actor: Actor, equipmentId: string, db: Db) {
+  const row = await db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .innerJoin('companies', 'companies.id', 'equipment.company_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.company_id', '=', actor.companyId)
+    .where('equipment.id', '=', equipmentId)
+    .where('equipment.deleted_at', 'is', null)
+    .select(['equipment.id', 'equipment.name', 'sites.time_zone', 'companies.keep_photo_location'])
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Equipment not found.');
+  return row;
+}
+
+export async function listPhotos(actor: Actor, equipmentId: string, query: ListPhotosQuery, db: Db = defaultDb): Promise<PhotoListDto> {
+  assertCan(actor, 'photos.read');
+  const equipment = await equipmentForPhotos(actor, equipmentId, db);
+  const cursor = decodeCursor(query.cursor);
+  // The cursor carries the time as Postgres prints it: microseconds survive, unlike a JS Date.
+  let q = visiblePhotos(actor, db)
+    .where('photos.equipment_id', '=', equipmentId)
+    .select([...dtoColumns, sql<string>`photos.sort_at::text`.as('sort_key')]);
+  if (query.kind.length) q = q.where('photos.kind', 'in', query.kind);
+  if (cursor) {
+    const at = typeof cursor.k === 'string' ? cursor.k : '';
+    q = q.where(sql<boolean>`(photos.sort_at, photos.id) < (${at}::timestamptz, ${cursor.id}::uuid)`);
+  }
+  const rows = await q.orderBy('photos.sort_at', 'desc').orderBy('photos.id', 'desc').limit(query.limit + 1).execute();
+  const counts = await db
+    .selectFrom('photos')
+    .where('photos.equipment_id', '=', equipmentId)
+    .where('photos.company_id', '=', actor.companyId)
+    .select(['kind', (eb) => eb.fn.countAll<number>().as('n')])
+    .groupBy('kind')
+    .execute();
+  const kindCounts = Object.fromEntries(photoKinds.map((k) => [k, 0])) as Record<PhotoKind, number>;
+  for (const c of counts) kindCounts[c.kind as PhotoKind] = Number(c.n);
+  const page = rows.slice(0, query.limit);
+  const last = page.at(-1);
+  return {
+    items: page.map((r) => toPhotoDto(r, canEdit(actor, r.uploaded_by))),
+    nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.sort_key, id: last.id }) : null,
+    kindCounts,
+    total: Object.values(kindCounts).reduce((a, b) => a + b, 0),
+    canUpload: can(actor, 'photos.upload'),
+    timeZone: equipment.time_zone,
+  };
+}
+
+export async function getPhoto(actor: Actor, id: string, db: Db = defaultDb): Promise<PhotoDto> {
+  assertCan(actor, 'photos.read');
+  const row = await visiblePhotos(actor, db).where('photos.id', '=', id).select(dtoColumns).executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Photo not found.');
+  return toPhotoDto(row, canEdit(actor, row.uploaded_by));
+}
+
+export interface UploadPhotoInput {
+  equipmentId: string;
+  kind: PhotoKind;
+  caption: string | null;
+  uploadKey?: string;
+  fileName: string | null;
+  bytes: Uint8Array;
+}
+
+async function existingUpload(actor: Actor, uploadKey: string, equipmentId: string, db: Db): Promise<PhotoDto | null> {
+  const row = await db
+    .selectFrom('photos')
+    .select(['id', 'uploaded_by', 'equipment_id'])
+    .where('company_id', '=', actor.companyId)
+    .where('upload_key', '=', uploadKey)
+    .executeTakeFirst();
+  if (!row) return null;
+  if (row.uploaded_by !== actor.id || row.equipment_id !== equipmentId) {
+    throw new AppError('conflict', 'This upload key was already used for another photo; choose the file again.');
+  }
+  return getPhoto(actor, row.id, db);
+}
+
+async function removeObjects(keys: string[]): Promise<void> {
+  const results = await Promise.allSettled(keys.map((k) => deleteObject(k)));
+  const failed = results.filter((r) => r.status === 'rejected').length;
+  // The storage check finds and removes whatever could not be deleted now.
+  if (failed) logger.warn({ failed, keys }, 'photo objects left behind after a failed upload or delete');
+}
+
+/**
+ * Checks, processes and stores one photo. Nothing is written until every check has passed; the
+ * objects go first and the row last, and written objects are removed again if the row fails, so
+ * a failed upload leaves neither a row without its image nor (barring a second failure, which the
+ * storage check repairs) an image without its row.
+ */
+export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kysely<DB> = defaultDb): Promise<PhotoDto> {
+  assertCan(actor, 'photos.upload');
+  const equipment = await equipmentForPhotos(actor, input.equipmentId, db);
+  if (input.uploadKey) {
+    const earlier = await existingUpload(actor, input.uploadKey, equipment.id, db);
+    if (earlier) return earlier;
+  }
+  const processed = await processPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone });
+
+  const id = randomUUID();
+  const keys = {
+    original: objectKey(actor.companyId, 'photos', equipment.id, id, 'original'),
+    display: objectKey(actor.companyId, 'photos', equipment.id, id, 'display'),
+    thumb: objectKey(actor.companyId, 'photos', equipment.id, id, 'thumb'),
+  };
+  const puts = await Promise.allSettled([
+    putObject(keys.original, processed.original, processed.contentType),
+    putObject(keys.display, processed.display, 'image/webp'),
+    putObject(keys.thumb, processed.thumb, 'image/webp'),
+  ]);
+  const failedPut = puts.find((p) => p.status === 'rejected');
+  if (failedPut) {
+    await removeObjects(Object.values(keys));
+    const reason = (failedPut as PromiseRejectedResult).reason;
+    logger.warn({ err: reason }, 'photo upload could not write to the object store');
+    throw storageErrorKind(reason) === 'other' ? new AppError('internal') : storeDown();
+  }
+
+  try {
+    await db.transaction().execute(async (trx) => {
+      await trx
+        .insertInto('photos')
+        .values({
+          id,
+          company_id: actor.companyId,
+          equipment_id: equipment.id,
+          kind: input.kind,
+          caption: input.caption,
+          original_key: keys.original,
+          display_key: keys.display,
+          thumb_key: keys.thumb,
+          content_type: processed.contentType,
+          original_name: input.fileName,
+          byte_size: processed.original.byteLength,
+          width: processed.width,
+          height: processed.height,
+          taken_at: processed.takenAt,
+          location_kept: processed.locationKept,
+          uploaded_by: actor.id,
+          ...(input.uploadKey ? { upload_key: input.uploadKey } : {}),
+        })
+        .execute();
+      await recordAudit(trx, actor, {
+        action: 'create',
+        entityType: 'photo',
+        entityId: id,
+        after: {
+          equipmentId: equipment.id,
+          kind: input.kind,
+          caption: input.caption,
+          contentType: processed.contentType,
+          byteSize: processed.original.byteLength,
+          takenAt: processed.takenAt,
+          locationRemoved: processed.hadLocation && !processed.locationKept,
+        },
+      });
+    });
+  } catch (error) {
+    await removeObjects(Object.values(keys));
+    // Two tries of the same file at once: the first one's photo is the answer to both.
+    const pg = error as { code?: string; constraint?: string };
+    if (input.uploadKey && pg.code === '23505' && pg.constraint === 'photos_upload_key_unique') {
+      const earlier = await existingUpload(actor, input.uploadKey, equipment.id, db);
+      if (earlier) return earlier;
+    }
+    throw error;
+  }
+  return getPhoto(actor, id, db);
+}
+
+async function photoForChange(actor: Actor, id: string, db: Db) {
+  const row = await visiblePhotos(actor, db)
+    .where('photos.id', '=', id)
+    .select([...dtoColumns, 'photos.original_key', 'photos.display_key', 'photos.thumb_key'])
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Photo not found.');
+  if (!canEdit(actor, row.uploaded_by)) throw new AppError('forbidden', 'Only the person who uploaded this photo, the office or an admin can change it.');
+  return row;
+}
+
+export async function updatePhoto(actor: Actor, id: string, input: UpdatePhotoInput, db: Kysely<DB> = defaultDb): Promise<PhotoDto> {
+  assertCan(actor, 'photos.read');
+  return db.transaction().execute(async (trx) => {
+    const before = await photoForChange(actor, id, trx);
+    await trx
+      .updateTable('photos')
+      .set({ ...(input.kind !== undefined ? { kind: input.kind } : {}), ...(input.caption !== undefined ? { caption: input.caption } : {}) })
+      .where('id', '=', id)
+      .execute();
+    const after = await getPhoto(actor, id, trx);
+    await recordAudit(trx, actor, {
+      action: 'update',
+      entityType: 'photo',
+      entityId: id,
+      before: { kind: before.kind, caption: before.caption },
+      after: { kind: after.kind, caption: after.caption },
+    });
+    return after;
+  });
+}
+
+/** Removes the row (with an audit event) and then its three objects. */
+export async function deletePhoto(actor: Actor, id: string, db: Kysely<DB> = defaultDb): Promise<void> {
+  assertCan(actor, 'photos.read');
+  const keys = await db.transaction().execute(async (trx) => {
+    const row = await photoForChange(actor, id, trx);
+    await trx.deleteFrom('photos').where('id', '=', id).execute();
+    await recordAudit(trx, actor, {
+      action: 'delete',
+      entityType: 'photo',
+      entityId: id,
+      before: { equipmentId: row.equipment_id, kind: row.kind, caption: row.caption, takenAt: row.taken_at, uploadedBy: row.uploaded_by, originalName: row.original_name },
+    });
+    return [row.original_key, row.display_key, row.thumb_key];
+  });
+  await removeObjects(keys);
+}
+
+export interface PhotoFile {
+  body: ReadableStream;
+  contentType: string;
+  contentLength: number | null;
+  fileName: string;
+}
+
+/** The bytes of one variant, after the same access check as the photo itself. */
+export async function openPhotoFile(actor: Actor, id: string, variant: PhotoVariant, db: Db = defaultDb): Promise<PhotoFile> {
+  assertCan(actor, 'photos.read');
+  const row = await visiblePhotos(actor, db)
+    .where('photos.id', '=', id)
+    .select(['photos.original_key', 'photos.display_key', 'photos.thumb_key', 'photos.content_type', 'photos.original_name', 'photos.kind'])
+    .executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Photo not found.');
+  const key = variant === 'original' ? row.original_key : variant === 'display' ? row.display_key : row.thumb_key;
+  try {
+    const file = await getObjectStream(key);
+    const ext = variant === 'original' ? { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' }[row.content_type] ?? 'img' : 'webp';
+    return {
+      body: file.body,
+      contentType: variant === 'original' ? row.content_type : 'image/webp',
+      contentLength: file.contentLength,
+      fileName: variant === 'original' && row.original_name ? row.original_name : `${row.kind}-${id.slice(0, 8)}.${ext}`,
+    };
+  } catch (error) {
+    const kind = storageErrorKind(error);
+    if (kind === 'not_found') throw new AppError('not_found', 'The image file is missing from storage. An admin can run the storage check under Settings.');
+    if (kind === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Try again in a moment.');
+    throw error;
+  }
+}
+
+export async function checkPhotoStorage(actor: Actor, db: Kysely<DB> = defaultDb): Promise<StorageReportDto> {
+  assertCan(actor, 'photos.maintain');
+  try {
+    return await inspectPhotoStorage(db, actor.companyId);
+  } catch (error) {
+    if (storageErrorKind(error) === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Try the check again in a moment.');
+    throw error;
+  }
+}
+
+export async function repairStorage(actor: Actor, db: Kysely<DB> = defaultDb): Promise<StorageRepairDto> {
+  assertCan(actor, 'photos.maintain');
+  try {
+    return await repairPhotoStorage(db, actor.companyId, actor);
+  } catch (error) {
+    if (storageErrorKind(error) === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Nothing was repaired; try again in a moment.');
+    throw error;
+  }
+}
