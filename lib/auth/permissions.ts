@@ -40,6 +40,15 @@ export const permissions = {
   'photos.upload': staff,
   'photos.manage': officeUp,
   'photos.maintain': ['admin'],
+  'tags.scan': everyone,
+  'tags.claim': staff,
+  'tags.print': officeUp,
+  'visits.read': everyone,
+  'visits.start': staff,
+  'visits.review': officeUp,
+  'entries.write': staff,
+  'followups.read': everyone,
+  'followups.write': staff,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

@@ -1,0 +1,177 @@
+import { z } from 'zod';
+import { optionalText, requiredText } from '@/lib/api/schemas';
+import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
+
+export const VISIT_REASONS = ['no_cooling', 'maintenance', 'install', 'inspection', 'leak_check', 'follow_up'] as const;
+export type VisitReason = (typeof VISIT_REASONS)[number];
+export const visitReasonLabels: Record<VisitReason, string> = {
+  no_cooling: 'No-cooling call',
+  maintenance: 'Maintenance',
+  install: 'Install',
+  inspection: 'Inspection',
+  leak_check: 'Leak check',
+  follow_up: 'Follow-up',
+};
+
+export const SEVERITIES = ['safety', 'down', 'degraded', 'minor'] as const;
+export type Severity = (typeof SEVERITIES)[number];
+export const severityLabels: Record<Severity, string> = {
+  safety: 'Safety',
+  down: 'Down',
+  degraded: 'Degraded',
+  minor: 'Minor',
+};
+
+export const ENTRY_KINDS = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'condition', 'note', 'photo'] as const;
+export type EntryKind = (typeof ENTRY_KINDS)[number];
+export const entryKindLabels: Record<EntryKind, string> = {
+  reading: 'Readings',
+  finding: 'Finding',
+  action: 'Action',
+  setting_change: 'Setting change',
+  part: 'Part replaced',
+  refrigerant: 'Refrigerant',
+  condition: 'Condition',
+  note: 'Note',
+  photo: 'Photo',
+};
+
+const dateTime = z.iso.datetime({ offset: true, message: 'Use a date and time with its offset.' });
+
+// Readings are SI: kPa gauge, °C, V, A. Ranges cover every plausible field value (deep vacuum
+// to CO2 high side; −60 °C freezers to 90 °C discharge lines) and refuse typos beyond them.
+const kpaG = (label: string) => z.number({ message: `${label} must be a number.` }).min(-101, `${label} is below a full vacuum.`).max(14_000, `${label} is above any system's pressure.`);
+const tempC = (label: string) => z.number({ message: `${label} must be a number.` }).min(-70, `${label} is below −70 °C.`).max(150, `${label} is above 150 °C.`);
+const volts = (label: string) => z.number({ message: `${label} must be a number.` }).min(0, `${label} cannot be negative.`).max(1000, `${label} is above 1000 V.`);
+const amps = (label: string) => z.number({ message: `${label} must be a number.` }).min(0, `${label} cannot be negative.`).max(2000, `${label} is above 2000 A.`);
+
+export const readingFields = {
+  suctionKpaG: kpaG('Suction pressure'),
+  dischargeKpaG: kpaG('Discharge pressure'),
+  suctionLineC: tempC('Suction-line temperature'),
+  liquidLineC: tempC('Liquid-line temperature'),
+  boxC: tempC('Box (return air) temperature'),
+  supplyAirC: tempC('Supply air temperature'),
+  ambientC: tempC('Ambient temperature'),
+  voltsL1L2: volts('L1–L2'),
+  voltsL2L3: volts('L2–L3'),
+  voltsL1L3: volts('L1–L3'),
+  controlVolts: volts('Control voltage'),
+  compressorAmps: amps('Compressor current'),
+  fanAmps: amps('Fan current'),
+};
+export type ReadingKey = keyof typeof readingFields;
+
+export const readingDataSchema = z
+  .object(Object.fromEntries(Object.entries(readingFields).map(([k, s]) => [k, s.nullable().optional()])) as { [K in ReadingKey]: z.ZodOptional<z.ZodNullable<(typeof readingFields)[K]>> })
+  .strict()
+  .refine((d) => Object.values(d).some((v) => v !== null && v !== undefined), { message: 'Enter at least one reading.' });
+
+export const findingDataSchema = z.object({
+  text: requiredText('What was found', 2000),
+  severity: z.enum(SEVERITIES, { message: 'Choose a severity.' }),
+  raiseFollowUp: z.boolean().default(false),
+  followUpTitle: optionalText(200),
+});
+
+export const actionDataSchema = z
+  .object({
+    text: requiredText('What was done', 2000),
+    // A jumper or bypass across a safety or operating control, for diagnosis only.
+    bypassedControl: z.boolean().default(false),
+    bypassDescription: optionalText(300),
+  })
+  .refine((d) => !d.bypassedControl || Boolean(d.bypassDescription), { message: 'Say which control was bypassed.', path: ['bypassDescription'] });
+
+const lowSettings = z.object({ cutInKpaG: kpaG('Cut-in'), differentialKpa: z.number().min(0).max(7000) });
+const highSettings = z.object({ cutOutKpaG: kpaG('Cut-out'), differentialKpa: z.number().min(0).max(7000) });
+const thermostatSettings = z.object({ setpointC: tempC('Setpoint'), differentialK: z.number().min(0).max(30) });
+
+export const settingChangeDataSchema = z.discriminatedUnion('control', [
+  z.object({ control: z.literal('low'), asFound: lowSettings, asLeft: lowSettings }),
+  z.object({ control: z.literal('high'), asFound: highSettings, asLeft: highSettings }),
+  z.object({ control: z.literal('thermostat'), asFound: thermostatSettings, asLeft: thermostatSettings }),
+]);
+
+export const partDataSchema = z.object({
+  part: requiredText('Part', 200),
+  quantity: z.number().int().min(1, 'Quantity must be at least 1.').max(1000),
+  oldSerial: optionalText(80),
+  newSerial: optionalText(80),
+  // The whole component was replaced: retire this record and register its replacement.
+  replacesEquipment: z.boolean().default(false),
+});
+
+export const refrigerantDataSchema = z.object({
+  direction: z.enum(['added', 'recovered'], { message: 'Added or recovered?' }),
+  amountKg: z.number({ message: 'Amount must be a number.' }).positive('Amount must be above zero.').max(2000, 'Amount is above 2000 kg.'),
+  refrigerant: z.enum(REFRIGERANT_IDS, { message: 'Choose the refrigerant by its ASHRAE number.' }),
+  cylinderId: optionalText(60),
+  technicianCert: optionalText(60),
+});
+
+export const conditionDataSchema = z.object({
+  rating: z.number().int().min(1, 'Rate from 1 (failing) to 5 (like new).').max(5, 'Rate from 1 (failing) to 5 (like new).'),
+  note: optionalText(1000),
+});
+
+export const noteDataSchema = z.object({ text: requiredText('Note', 4000) });
+export const photoDataSchema = z.object({ photoId: z.uuid(), caption: optionalText(300) });
+
+const entryBase = { equipmentId: z.uuid('Choose the equipment.'), clientEntryId: z.uuid(), recordedAt: dateTime.optional() };
+
+export const createEntrySchema = z.discriminatedUnion(
+  'kind',
+  [
+    z.object({ ...entryBase, kind: z.literal('reading'), data: readingDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('finding'), data: findingDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('action'), data: actionDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('setting_change'), data: settingChangeDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('part'), data: partDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('refrigerant'), data: refrigerantDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('condition'), data: conditionDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('note'), data: noteDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('photo'), data: photoDataSchema }),
+  ],
+  { error: () => 'Choose what kind of entry this is.' },
+);
+
+export const startVisitSchema = z.object({
+  siteId: z.uuid('Choose a site.'),
+  reason: z.enum(VISIT_REASONS, { message: 'Choose the reason for the visit.' }),
+  startedAt: dateTime.optional(),
+});
+
+export const closeVisitSchema = z.object({
+  summary: requiredText('Summary', 4000),
+  endedAt: dateTime.optional(),
+  confirmBypassRemoved: z.boolean().default(false),
+});
+
+export const voidEntrySchema = z.object({ reason: requiredText('Reason', 500) });
+
+export const listVisitsQuerySchema = z.object({
+  siteId: z.uuid().optional(),
+  status: z.enum(['open', 'closed']).optional(),
+  technicianId: z.uuid().optional(),
+  cursor: z.string().max(500).optional(),
+  limit: z.coerce.number().int().min(1).max(100).default(30),
+});
+
+export const historyQuerySchema = z.object({
+  kind: z
+    .union([z.enum(ENTRY_KINDS), z.array(z.enum(ENTRY_KINDS))])
+    .transform((v) => (Array.isArray(v) ? v : [v]))
+    .optional(),
+  cursor: z.string().max(500).optional(),
+  limit: z.coerce.number().int().min(1).max(100).default(25),
+});
+
+export type CreateEntryInput = z.infer<typeof createEntrySchema>;
+export type StartVisitInput = z.infer<typeof startVisitSchema>;
+export type CloseVisitInput = z.infer<typeof closeVisitSchema>;
+export type ListVisitsQuery = z.infer<typeof listVisitsQuerySchema>;
+export type HistoryQuery = z.infer<typeof historyQuerySchema>;
+export type ReadingData = z.infer<typeof readingDataSchema>;
+export type SettingChangeData = z.infer<typeof settingChangeDataSchema>;
+export type RefrigerantData = z.infer<typeof refrigerantDataSchema>;
