@@ -35,7 +35,15 @@ const readingLabels: [string, string, Quantity | 'V' | 'A'][] = [
 ];
 
 export function formatTime(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone, dateStyle: 'medium', timeStyle: 'short', timeZoneName: 'short' }).format(new Date(iso));
+  return new Intl.DateTimeFormat('en-US', {
+    timeZone,
+    year: 'numeric',
+    month: 'short',
+    day: 'numeric',
+    hour: 'numeric',
+    minute: '2-digit',
+    timeZoneName: 'short',
+  }).format(new Date(iso));
 }
 
 function value(v: unknown, q: Quantity | 'V' | 'A', prefs: UnitPrefs): string {

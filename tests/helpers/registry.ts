@@ -1,0 +1,41 @@
+import type { Kysely } from 'kysely';
+import type { DB } from '@/db/schema.gen';
+
+/**
+ * A walk-in cooler circuit on a demo site, written straight to the database: a system with a
+ * full charge of 100 lb (45.359 kg), a condensing unit, an evaporator, a low-pressure control and
+ * a thermostat. Invented makes and serials.
+ */
+export async function createCoolerCircuit(db: Kysely<DB>, siteName = 'Pell Street Kitchen') {
+  const site = await db.selectFrom('sites').select(['id', 'company_id']).where('name', '=', siteName).executeTakeFirstOrThrow();
+  const system = await db
+    .insertInto('systems')
+    .values({
+      company_id: site.company_id,
+      site_id: site.id,
+      name: 'Walk-in cooler circuit',
+      refrigerant: 'R-404A',
+      full_charge_kg: 100 * 0.45359237,
+      application: 'commercial_refrigeration',
+      design_box_temp_c: 1.67,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const add = async (type: string, name: string, nameplate: Record<string, unknown> = {}) =>
+    (
+      await db
+        .insertInto('equipment')
+        .values({ company_id: site.company_id, site_id: site.id, system_id: system.id, type, name, nameplate: JSON.stringify(nameplate), serial: `${type.slice(0, 2).toUpperCase()}-${name.length}42` })
+        .returning('id')
+        .executeTakeFirstOrThrow()
+    ).id;
+  return {
+    siteId: site.id,
+    companyId: site.company_id,
+    systemId: system.id,
+    condensingUnitId: await add('condensing_unit', 'Cooler condensing unit', { voltage: 460, phase: '3', designPressureHighKpa: 2758 }),
+    evaporatorId: await add('evaporator', 'Cooler evaporator'),
+    lowControlId: await add('pressure_control', 'Low-pressure control', { controlKind: 'low' }),
+    thermostatId: await add('thermostat', 'Box thermostat', { controlVoltage: 24 }),
+  };
+}
