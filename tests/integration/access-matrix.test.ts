@@ -16,6 +16,9 @@ interface Ids {
   techUser: string;
   system: string;
   equipment: string;
+  closedVisit: string;
+  followUp: string;
+  siteTwo: string;
 }
 let ids: Ids;
 let counter = 0;
@@ -32,9 +35,48 @@ beforeAll(async () => {
     .values({ company_id: company, site_id: site.id, name: 'Matrix circuit', refrigerant: 'R-404A', application: 'commercial_refrigeration' })
     .returning('id')
     .executeTakeFirstOrThrow();
-  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id, system: system.id, equipment: '' };
+  const siteTwo = await db.selectFrom('sites').select('id').where('client_id', '=', client.id).where('id', '<>', site.id).executeTakeFirstOrThrow();
+  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id, system: system.id, equipment: '', closedVisit: '', followUp: '', siteTwo: siteTwo.id };
   ids.equipment = await newEquipment();
+  ids.closedVisit = await newVisit('closed');
+  ids.followUp = await newFollowUp();
 });
+
+/** A visit with a technician of its own, so the one-open-visit rule never collides between rows. */
+async function newVisit(status: 'open' | 'closed', technicianId?: string): Promise<string> {
+  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
+  const techId =
+    technicianId ??
+    (await db.insertInto('users').values({ company_id: company, email: `visit-tech-${++counter}@example.test`, name: 'Visit Tech', role: 'technician' }).returning('id').executeTakeFirstOrThrow()).id;
+  // One open visit per technician per site: an earlier row's visit for the same person is closed first.
+  await db.updateTable('visits').set({ status: 'closed', ended_at: new Date() }).where('technician_id', '=', techId).where('site_id', '=', ids.siteOne).where('status', '=', 'open').execute();
+  const row = await db
+    .insertInto('visits')
+    .values({ company_id: company, site_id: ids.siteOne, technician_id: techId, reason: 'maintenance', status, started_at: new Date(), ended_at: status === 'closed' ? new Date() : null, summary: status === 'closed' ? 'Matrix' : null })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function newEntry(visitId: string, authorId: string): Promise<string> {
+  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
+  const row = await db
+    .insertInto('entries')
+    .values({ company_id: company, visit_id: visitId, equipment_id: ids.equipment, kind: 'note', data: JSON.stringify({ text: 'Matrix' }), recorded_at: new Date(), created_by: authorId, client_entry_id: crypto.randomUUID() })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
+
+async function newFollowUp(): Promise<string> {
+  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
+  const row = await db
+    .insertInto('follow_ups')
+    .values({ company_id: company, site_id: ids.siteOne, equipment_id: ids.equipment, title: 'Matrix follow-up', severity: 'minor', created_by: ids.techUser })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return row.id;
+}
 
 async function newEquipment(): Promise<string> {
   const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
@@ -81,6 +123,7 @@ async function newInvitation(): Promise<string> {
 
 interface Case {
   name: string;
+  path?: string;
   route: () => Promise<Record<string, (...args: never[]) => Promise<Response>>>;
   method: 'GET' | 'POST' | 'PATCH' | 'DELETE';
   params?: () => Promise<Record<string, string>>;
@@ -140,6 +183,22 @@ const cases: Case[] = [
   { name: 'DELETE /api/equipment/:id/relations/:relationId', route: () => import('@/app/api/equipment/[id]/relations/[relationId]/route'), method: 'DELETE', params: async () => ({ id: ids.equipment, relationId: await newRelation() }), expect: staffWrite(204) },
   { name: 'GET /api/equipment/export', route: () => import('@/app/api/equipment/export/route'), method: 'GET', expect: all(200) },
   { name: 'POST /api/sites/:id/equipment-import', route: () => import('@/app/api/sites/[id]/equipment-import/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), body: () => ({ csv: 'type,name\ncontactor,Imported contactor', commit: false }), expect: officeUp(200) },
+  { name: 'GET /api/visits', route: () => import('@/app/api/visits/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/visits', route: () => import('@/app/api/visits/route'), method: 'POST', body: () => ({ siteId: ids.siteTwo, reason: 'maintenance' }), expect: staffWrite(201) },
+  { name: 'GET /api/visits/:id', route: () => import('@/app/api/visits/[id]/route'), method: 'GET', params: async () => ({ id: ids.closedVisit }), expect: all(200) },
+  { name: 'POST /api/visits/:id/entries', route: () => import('@/app/api/visits/[id]/entries/route'), method: 'POST', params: async () => ({ id: await newVisit('open', session.actor?.id) }), body: () => ({ kind: 'note', equipmentId: ids.equipment, clientEntryId: crypto.randomUUID(), data: { text: 'Matrix note' } }), expect: staffWrite(201) },
+  { name: 'POST /api/visits/:id/close', route: () => import('@/app/api/visits/[id]/close/route'), method: 'POST', params: async () => ({ id: await newVisit('open', session.actor?.id) }), body: () => ({ summary: 'Matrix close' }), expect: staffWrite(200) },
+  { name: 'POST /api/visits/:id/reopen', route: () => import('@/app/api/visits/[id]/reopen/route'), method: 'POST', params: async () => ({ id: await newVisit('closed') }), expect: officeUp(200) },
+  { name: 'POST /api/visits/:id/review', route: () => import('@/app/api/visits/[id]/review/route'), method: 'POST', params: async () => ({ id: await newVisit('closed') }), expect: officeUp(200) },
+  { name: 'GET /api/visits/:id/report', route: () => import('@/app/api/visits/[id]/report/route'), method: 'GET', params: async () => ({ id: ids.closedVisit }), expect: all(200) },
+  { name: 'POST /api/entries/:id/void', route: () => import('@/app/api/entries/[id]/void/route'), method: 'POST', params: async () => ({ id: await newEntry(await newVisit('open'), session.actor?.id ?? ids.techUser) }), body: () => ({ reason: 'Matrix' }), expect: staffWrite(200) },
+  { name: 'GET /api/equipment/:id/history', route: () => import('@/app/api/equipment/[id]/history/route'), method: 'GET', params: async () => ({ id: ids.equipment }), expect: all(200) },
+  { name: 'GET /api/equipment/:id/readings', route: () => import('@/app/api/equipment/[id]/readings/route'), method: 'GET', params: async () => ({ id: ids.equipment }), path: '/api/x?key=superheatK', expect: all(200) },
+  { name: 'GET /api/systems/:id/history', route: () => import('@/app/api/systems/[id]/history/route'), method: 'GET', params: async () => ({ id: ids.system }), expect: all(200) },
+  { name: 'GET /api/follow-ups', route: () => import('@/app/api/follow-ups/route'), method: 'GET', expect: all(200) },
+  { name: 'POST /api/follow-ups', route: () => import('@/app/api/follow-ups/route'), method: 'POST', body: () => ({ siteId: ids.siteOne, title: 'Matrix raised', severity: 'minor' }), expect: staffWrite(201) },
+  { name: 'GET /api/follow-ups/:id', route: () => import('@/app/api/follow-ups/[id]/route'), method: 'GET', params: async () => ({ id: ids.followUp }), expect: all(200) },
+  { name: 'PATCH /api/follow-ups/:id', route: () => import('@/app/api/follow-ups/[id]/route'), method: 'PATCH', params: async () => ({ id: await newFollowUp() }), body: () => ({ status: 'scheduled', scheduledFor: '2027-01-15' }), expect: staffWrite(200) },
   { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: all(200) },
   { name: 'PATCH /api/company', route: () => import('@/app/api/company/route'), method: 'PATCH', body: () => ({ servicePhone: '555-0100' }), expect: adminOnly(200) },
 ];
@@ -153,7 +212,7 @@ describe('access matrix', () => {
       session.actor = null;
       if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
       const mod = await c.route();
-      const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
+      const res = await call(mod[c.method] as never, { method: c.method, path: c.path, params: c.params ? await c.params() : {}, json: c.body?.() });
       expect(res.status).toBe(401);
       expect(res.body).toMatchObject({ error: { code: 'unauthorized' } });
     });
@@ -162,7 +221,7 @@ describe('access matrix', () => {
         session.actor = await actorFor(db, demoEmails[role]);
         if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
         const mod = await c.route();
-        const res = await call(mod[c.method] as never, { method: c.method, params: c.params ? await c.params() : {}, json: c.body?.() });
+        const res = await call(mod[c.method] as never, { method: c.method, path: c.path, params: c.params ? await c.params() : {}, json: c.body?.() });
         expect(res.status, JSON.stringify(res.body)).toBe(c.expect[role]);
         if (res.status >= 400) expect(res.body).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
       });
