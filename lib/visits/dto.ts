@@ -33,8 +33,10 @@ export interface EntryDto {
   createdByName: string;
   voidedAt: string | null;
   voidReason: string | null;
+  /** Made on the phone when the entry was submitted; a retry with it returns the first save. */
+  clientEntryId: string;
   /** For history lists: the visit the entry belongs to. */
-  visit?: { reason: VisitReason; startedAt: string; technicianName: string; status: 'open' | 'closed' };
+  visit?: { reason: VisitReason; startedAt: string; technicianName: string; status: 'open' | 'closed'; timeZone: string };
 }
 
 export interface VisitDetailDto extends VisitDto {

@@ -154,6 +154,8 @@ export const listVisitsQuerySchema = z.object({
   siteId: z.uuid().optional(),
   status: z.enum(['open', 'closed']).optional(),
   technicianId: z.uuid().optional(),
+  /** Closed visits the office has not reviewed yet. */
+  review: z.enum(['needed']).optional(),
   cursor: z.string().max(500).optional(),
   limit: z.coerce.number().int().min(1).max(100).default(30),
 });

@@ -100,6 +100,7 @@ function entryQuery(db: Db) {
       'author.name as author_name',
       'entries.voided_at',
       'entries.void_reason',
+      'entries.client_entry_id',
     ]);
 }
 
@@ -120,6 +121,7 @@ function toEntryDto(r: EntryRow): EntryDto {
     createdByName: r.author_name,
     voidedAt: r.voided_at?.toISOString() ?? null,
     voidReason: r.void_reason,
+    clientEntryId: r.client_entry_id,
   };
 }
 
@@ -143,6 +145,7 @@ export async function listVisits(actor: Actor, query: ListVisitsQuery, db: Db = 
   if (query.siteId) q = q.where('visits.site_id', '=', query.siteId);
   if (query.status) q = q.where('visits.status', '=', query.status);
   if (query.technicianId) q = q.where('visits.technician_id', '=', query.technicianId);
+  if (query.review === 'needed') q = q.where('visits.status', '=', 'closed').where('visits.reviewed_at', 'is', null);
   if (cursor) q = q.where(sql<boolean>`(visits.started_at, visits.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
   const rows = await q.orderBy('visits.started_at', 'desc').orderBy('visits.id', 'desc').limit(query.limit + 1).execute();
   const items = rows.slice(0, query.limit).map(toVisitDto);
@@ -188,8 +191,11 @@ async function openVisitForWriting(actor: Actor, visitId: string, trx: Db): Prom
   return visit;
 }
 
-async function entryContext(trx: Db, equipmentId: string): Promise<EntryContext & { systemId: string | null; application: string | null; fullChargeKg: number | null }> {
-  const row = await trx
+type EntryContextRow = EntryContext & { systemId: string | null; application: string | null; fullChargeKg: number | null };
+
+/** The context rows of many pieces of equipment; the visit form gets these so its live values match what is stored. */
+async function entryContextRows(trx: Db, scope: { equipmentId: string } | { siteId: string }): Promise<Map<string, EntryContextRow>> {
+  let q = trx
     .selectFrom('equipment')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
     .leftJoin('systems', 'systems.id', 'equipment.system_id')
@@ -209,9 +215,24 @@ async function entryContext(trx: Db, equipmentId: string): Promise<EntryContext 
         .select(sql<number | null>`(cu.nameplate->>'designPressureHighKpa')::float8`.as('p'))
         .limit(1)
         .as('design_high'),
-    ])
-    .where('equipment.id', '=', equipmentId)
-    .executeTakeFirstOrThrow();
+      'equipment.id',
+    ]);
+  q = 'equipmentId' in scope ? q.where('equipment.id', '=', scope.equipmentId) : q.where('equipment.site_id', '=', scope.siteId).where('equipment.deleted_at', 'is', null);
+  const out = new Map<string, EntryContextRow>();
+  for (const row of await q.execute()) out.set(row.id, toEntryContext(row));
+  return out;
+}
+
+function toEntryContext(row: {
+  system_id: string | null;
+  nameplate: unknown;
+  elevation_m: unknown;
+  refrigerant: string | null;
+  application: string | null;
+  full_charge_kg: unknown;
+  design_box_temp_c: unknown;
+  design_high: number | null;
+}): EntryContextRow {
   const plate = (row.nameplate ?? {}) as Record<string, unknown>;
   const num = (v: unknown) => (typeof v === 'number' ? v : null);
   return {
@@ -225,6 +246,35 @@ async function entryContext(trx: Db, equipmentId: string): Promise<EntryContext 
     controlVoltageNominal: num(plate.controlVoltage),
     designPressureHighKpaG: num(plate.designPressureHighKpa) ?? (row.design_high === null ? null : Number(row.design_high)),
   };
+}
+
+async function entryContext(trx: Db, equipmentId: string): Promise<EntryContextRow> {
+  const ctx = (await entryContextRows(trx, { equipmentId })).get(equipmentId);
+  if (!ctx) throw new AppError('not_found', 'Equipment not found.');
+  return ctx;
+}
+
+/**
+ * The calculation context of every piece of equipment on a site, keyed by equipment id: the same
+ * values addEntry computes with, so the form's live values equal the stored ones.
+ */
+export async function siteEntryContexts(actor: Actor, siteId: string, db: Db = defaultDb): Promise<Record<string, EntryContext>> {
+  assertCan(actor, 'entries.write');
+  await getSite(actor, siteId, db);
+  const rows = await entryContextRows(db, { siteId });
+  return Object.fromEntries(
+    [...rows].map(([id, c]) => [
+      id,
+      {
+        refrigerant: c.refrigerant,
+        elevationM: c.elevationM,
+        designBoxTempC: c.designBoxTempC,
+        nameplateVoltage: c.nameplateVoltage,
+        controlVoltageNominal: c.controlVoltageNominal,
+        designPressureHighKpaG: c.designPressureHighKpaG,
+      } satisfies EntryContext,
+    ]),
+  );
 }
 
 const settingKeys = {
@@ -527,7 +577,13 @@ async function historyPage(
   const rows = await q.orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1).execute();
   const items = rows.slice(0, query.limit).map((r) => ({
     ...toEntryDto(r),
-    visit: { reason: r.visit_reason as VisitReason, startedAt: r.visit_started_at.toISOString(), technicianName: r.technician_name, status: r.visit_status as 'open' | 'closed' },
+    visit: {
+      reason: r.visit_reason as VisitReason,
+      startedAt: r.visit_started_at.toISOString(),
+      technicianName: r.technician_name,
+      status: r.visit_status as 'open' | 'closed',
+      timeZone: r.visit_time_zone,
+    },
   }));
   const last = items.at(-1);
   return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.recordedAt, id: last.id }) : null };
@@ -537,7 +593,14 @@ function historyBase(db: Db) {
   return entryQuery(db)
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
-    .select(['visits.reason as visit_reason', 'visits.started_at as visit_started_at', 'visits.status as visit_status', 'tech.name as technician_name']);
+    .innerJoin('sites as visit_site', 'visit_site.id', 'visits.site_id')
+    .select([
+      'visits.reason as visit_reason',
+      'visits.started_at as visit_started_at',
+      'visits.status as visit_status',
+      'tech.name as technician_name',
+      'visit_site.time_zone as visit_time_zone',
+    ]);
 }
 
 /** One reading over time, for a chart. */
