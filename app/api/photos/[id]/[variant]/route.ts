@@ -1,0 +1,20 @@
+import { withApi } from '@/lib/api/handler';
+import { photoVariantParamsSchema, photoVariantQuerySchema } from '@/lib/photos/schemas';
+import { openPhotoFile } from '@/lib/photos/service';
+
+export const runtime = 'nodejs';
+
+// GET /api/photos/:id/thumb|display|original: the image bytes, after the photo's access check.
+export const GET = withApi({ permission: 'photos.read', params: photoVariantParamsSchema, query: photoVariantQuerySchema }, async ({ actor, params, query }) => {
+  const file = await openPhotoFile(actor, params.id, params.variant);
+  const headers = new Headers({
+    'Content-Type': file.contentType,
+    // Stored files never change under their address, but only this signed-in browser may keep them.
+    'Cache-Control': 'private, max-age=86400, immutable',
+    'X-Content-Type-Options': 'nosniff',
+    'Content-Security-Policy': "default-src 'none'; sandbox",
+    'Content-Disposition': `${query.download ? 'attachment' : 'inline'}; filename="${file.fileName.replace(/[^\x20-\x7e]|"/g, '_')}"; filename*=UTF-8''${encodeURIComponent(file.fileName)}`,
+  });
+  if (file.contentLength !== null) headers.set('Content-Length', String(file.contentLength));
+  return new Response(file.body, { status: 200, headers });
+});
