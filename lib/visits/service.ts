@@ -13,6 +13,7 @@ import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
 import { computeReading, computeSettingChange, type EntryContext } from '@/lib/visits/compute';
 import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
+import { buildHistoryQuery, entryQuery, type HistoryScope } from '@/lib/visits/queries';
 import type { CloseVisitInput, CreateEntryInput, EntryKind, HistoryQuery, ListVisitsQuery, StartVisitInput, VisitReason } from '@/lib/visits/schemas';
 
 type Db = Kysely<DB> | Transaction<DB>;
@@ -79,29 +80,6 @@ export async function getVisitSummary(actor: Actor, id: string, db: Db = default
   const row = await visibleVisits(actor, db).where('visits.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Visit not found.');
   return toVisitDto(row);
-}
-
-function entryQuery(db: Db) {
-  return db
-    .selectFrom('entries')
-    .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
-    .innerJoin('users as author', 'author.id', 'entries.created_by')
-    .select([
-      'entries.id',
-      'entries.visit_id',
-      'entries.equipment_id',
-      'equipment.name as equipment_name',
-      'equipment.type as equipment_type',
-      'entries.kind',
-      'entries.data',
-      'entries.computed',
-      'entries.recorded_at',
-      'entries.created_by',
-      'author.name as author_name',
-      'entries.voided_at',
-      'entries.void_reason',
-      'entries.client_entry_id',
-    ]);
 }
 
 type EntryRow = Awaited<ReturnType<ReturnType<typeof entryQuery>['executeTakeFirstOrThrow']>>;
@@ -551,30 +529,23 @@ export async function markReviewed(actor: Actor, visitId: string, db: Kysely<DB>
 export async function equipmentHistory(actor: Actor, equipmentId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
   assertCan(actor, 'visits.read');
   await getEquipment(actor, equipmentId, db);
-  return historyPage(actor, db, query, (q) => q.where('entries.equipment_id', '=', equipmentId));
+  return historyPage(actor, db, query, { equipmentId });
 }
 
 export async function systemHistory(actor: Actor, systemId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
   assertCan(actor, 'visits.read');
   const { getSystem } = await import('@/lib/systems/service');
   await getSystem(actor, systemId, db);
-  return historyPage(actor, db, query, (q) =>
-    q.where((eb) => eb.or([eb('entries.system_id', '=', systemId), eb('equipment.system_id', '=', systemId)])),
-  );
+  return historyPage(actor, db, query, { systemId });
 }
 
 async function historyPage(
   actor: Actor,
   db: Db,
   query: HistoryQuery,
-  scope: (q: ReturnType<typeof historyBase>) => ReturnType<typeof historyBase>,
+  scope: HistoryScope,
 ): Promise<Page<EntryDto>> {
-  const cursor = decodeCursor(query.cursor);
-  let q = scope(historyBase(db).where('entries.company_id', '=', actor.companyId));
-  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
-  if (query.kind?.length) q = q.where('entries.kind', 'in', query.kind);
-  if (cursor) q = q.where(sql<boolean>`(entries.recorded_at, entries.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
-  const rows = await q.orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1).execute();
+  const rows = await buildHistoryQuery(actor, db, query, scope).execute();
   const items = rows.slice(0, query.limit).map((r) => ({
     ...toEntryDto(r),
     visit: {
@@ -587,20 +558,6 @@ async function historyPage(
   }));
   const last = items.at(-1);
   return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.recordedAt, id: last.id }) : null };
-}
-
-function historyBase(db: Db) {
-  return entryQuery(db)
-    .innerJoin('visits', 'visits.id', 'entries.visit_id')
-    .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
-    .innerJoin('sites as visit_site', 'visit_site.id', 'visits.site_id')
-    .select([
-      'visits.reason as visit_reason',
-      'visits.started_at as visit_started_at',
-      'visits.status as visit_status',
-      'tech.name as technician_name',
-      'visit_site.time_zone as visit_time_zone',
-    ]);
 }
 
 /** One reading over time, for a chart. */

@@ -195,7 +195,7 @@ describe('visits', () => {
     await clearMail();
     await ensureBucket();
     const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling' });
-    await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'finding' as const, data: { text: 'Condenser coil plugged with grease', severity: 'down' as const } }));
+    await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'finding' as const, data: { text: 'Condenser coil plugged with grease', severity: 'down' as const, raiseFollowUp: false } }));
     await closeVisit(tech, visit.id, { summary: 'Cleaned condenser coil; box back to 36 °F.', confirmBypassRemoved: false });
     await deliverDueMail();
     const mail = await waitForMail('owner@client-one.test');

@@ -1,0 +1,61 @@
+import { sql, type Kysely, type Transaction } from 'kysely';
+import type { DB } from '@/db/schema.gen';
+import { decodeCursor } from '@/lib/api/cursor';
+import type { Actor } from '@/lib/auth/actor';
+import type { HistoryQuery } from '@/lib/visits/schemas';
+
+// Query builders only: the service runs them, and the benchmark times the very same SQL.
+type Db = Kysely<DB> | Transaction<DB>;
+
+export function entryQuery(db: Db) {
+  return db
+    .selectFrom('entries')
+    .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
+    .innerJoin('users as author', 'author.id', 'entries.created_by')
+    .select([
+      'entries.id',
+      'entries.visit_id',
+      'entries.equipment_id',
+      'equipment.name as equipment_name',
+      'equipment.type as equipment_type',
+      'entries.kind',
+      'entries.data',
+      'entries.computed',
+      'entries.recorded_at',
+      'entries.created_by',
+      'author.name as author_name',
+      'entries.voided_at',
+      'entries.void_reason',
+      'entries.client_entry_id',
+    ]);
+}
+
+function historyBase(db: Db) {
+  return entryQuery(db)
+    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
+    .innerJoin('sites as visit_site', 'visit_site.id', 'visits.site_id')
+    .select([
+      'visits.reason as visit_reason',
+      'visits.started_at as visit_started_at',
+      'visits.status as visit_status',
+      'tech.name as technician_name',
+      'visit_site.time_zone as visit_time_zone',
+    ]);
+}
+
+export type HistoryScope = { equipmentId: string } | { systemId: string };
+
+/** One history page, newest first, keyset on (recorded_at, id); owners see closed visits only. */
+export function buildHistoryQuery(actor: Actor, db: Db, query: HistoryQuery, scope: HistoryScope) {
+  const cursor = decodeCursor(query.cursor);
+  let q = historyBase(db).where('entries.company_id', '=', actor.companyId);
+  q =
+    'equipmentId' in scope
+      ? q.where('entries.equipment_id', '=', scope.equipmentId)
+      : q.where((eb) => eb.or([eb('entries.system_id', '=', scope.systemId), eb('equipment.system_id', '=', scope.systemId)]));
+  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
+  if (query.kind?.length) q = q.where('entries.kind', 'in', query.kind);
+  if (cursor) q = q.where(sql<boolean>`(entries.recorded_at, entries.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
+  return q.orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1);
+}
