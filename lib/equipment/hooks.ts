@@ -3,6 +3,7 @@
 import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import type { Page } from '@/lib/api/cursor';
+import type { RefrigerantId } from '@/lib/calc/refrigerants';
 import type { EquipmentDetailDto, EquipmentDto, RelationDto, SystemDto } from '@/lib/equipment/dto';
 import type { ImportPreview } from '@/lib/equipment/import';
 import type { CreateEquipmentInput, CreateRelationInput, CreateSystemInput, EquipmentSort, UpdateEquipmentInput, UpdateSystemInput } from '@/lib/equipment/schemas';
@@ -17,7 +18,7 @@ export interface EquipmentListFilters {
   systemId?: string;
   type: EquipmentType[];
   condition: number[];
-  refrigerant: string[];
+  refrigerant: RefrigerantId[];
   status: EquipmentStatus[];
   q?: string;
   sort: EquipmentSort;

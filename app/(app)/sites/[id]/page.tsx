@@ -7,9 +7,13 @@ import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
 import { formatElevation } from '@/lib/units/format';
 import { siteAddress } from '@/lib/sites/dto';
+import { listEquipment } from '@/lib/equipment/service';
 import { getSite, listAreas } from '@/lib/sites/service';
+import { listSystems } from '@/lib/systems/service';
 import { AreaManager } from '@/app/(app)/sites/[id]/_components/area-manager';
 import { ArchiveSiteButton } from '@/app/(app)/sites/[id]/_components/archive-site-button';
+import { SiteEquipment } from '@/app/(app)/sites/[id]/_components/site-equipment';
+import { SiteSystems } from '@/app/(app)/sites/[id]/_components/site-systems';
 
 export const metadata: Metadata = { title: 'Site' };
 
@@ -17,7 +21,11 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const { id } = await params;
   const actor = await requirePageActor(`/sites/${id}`);
   const site = await orNotFound(getSite(actor, id));
-  const areas = await listAreas(actor, id, can(actor, 'areas.write'));
+  const [areas, systems, equipment] = await Promise.all([
+    listAreas(actor, id, can(actor, 'areas.write')),
+    listSystems(actor, { siteId: id, limit: 200, archived: 'exclude' }),
+    listEquipment(actor, { siteId: id, limit: 200, sort: 'name', dir: 'asc' }),
+  ]);
   const canWrite = can(actor, 'sites.write');
 
   return (
@@ -75,6 +83,15 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
           <AreaManager siteId={site.id} areas={areas} canWrite={can(actor, 'areas.write')} />
         </section>
       </div>
+      <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />
+      <SiteEquipment
+        siteId={site.id}
+        items={equipment.items}
+        more={equipment.nextCursor !== null}
+        areas={areas}
+        canRegister={can(actor, 'equipment.write') && !site.archivedAt}
+        canImport={can(actor, 'equipment.import') && !site.archivedAt}
+      />
     </div>
   );
 }

@@ -1,0 +1,156 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { Unlink } from 'lucide-react';
+import Link from 'next/link';
+import { useState } from 'react';
+import { useForm, type Resolver, type ResolverResult } from 'react-hook-form';
+import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/card';
+import { Field, Select, describedBy } from '@/components/ui/field';
+import { ApiError } from '@/lib/api/client';
+import type { RelationDto } from '@/lib/equipment/dto';
+import { useAddRelation, useRemoveRelation, useSiteEquipment } from '@/lib/equipment/hooks';
+import { createRelationSchema, type CreateRelationInput } from '@/lib/equipment/schemas';
+import { equipmentTypeLabels, relationPhrases, type RelationKind } from '@/lib/equipment/types';
+
+// One choice covers both the kind and which end this equipment is, read as a sentence:
+// "This equipment controls …" / "This equipment is controlled by …".
+const ways: { value: string; kind: RelationKind; direction: 'from' | 'to'; text: string }[] = [
+  { value: 'controls:from', kind: 'controls', direction: 'from', text: 'controls' },
+  { value: 'controls:to', kind: 'controls', direction: 'to', text: 'is controlled by' },
+  { value: 'serves:from', kind: 'serves', direction: 'from', text: 'serves' },
+  { value: 'serves:to', kind: 'serves', direction: 'to', text: 'is served by' },
+];
+
+interface RelationFormValues {
+  way: string;
+  otherId: string;
+}
+
+const baseResolver = zodResolver(createRelationSchema);
+const relationResolver: Resolver<RelationFormValues, unknown, CreateRelationInput> = async (values, context, options) => {
+  const way = ways.find((w) => w.value === values.way);
+  const result = await baseResolver({ kind: way?.kind ?? '', direction: way?.direction ?? 'from', otherId: values.otherId } as never, context, options as never);
+  const errors = result.errors as Record<string, unknown>;
+  if (errors.kind) errors.way = errors.kind;
+  return result as unknown as ResolverResult<RelationFormValues, CreateRelationInput>;
+};
+
+function phrase(r: RelationDto): string {
+  return relationPhrases[r.kind][r.direction];
+}
+
+export function RelationManager({ equipmentId, siteId, relations: initial, canWrite }: { equipmentId: string; siteId: string; relations: RelationDto[]; canWrite: boolean }) {
+  const [relations, setRelations] = useState(initial);
+  const remove = useRemoveRelation(equipmentId);
+  const [removeError, setRemoveError] = useState<string>();
+
+  return (
+    <div className="space-y-3">
+      {relations.length === 0 ? (
+        <EmptyState title="Not related to other equipment yet.">
+          Relations say what controls or serves what, e.g. a thermostat controls a liquid-line solenoid; a condensing unit serves its evaporators.
+        </EmptyState>
+      ) : (
+        <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white" aria-label="Relations">
+          {relations.map((r) => (
+            <li key={r.id} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2">
+              <EquipmentTypeIcon type={r.other.type} />
+              <span className="min-w-0 flex-1">
+                <span className="font-semibold text-slate-700">{phrase(r)}:</span>{' '}
+                <Link href={`/equipment/${r.other.id}`} className="font-semibold text-ice-800 underline">
+                  {r.other.name}
+                </Link>
+                <span className="block text-sm text-slate-600">{equipmentTypeLabels[r.other.type]}</span>
+              </span>
+              {canWrite ? (
+                <Button
+                  variant="ghost"
+                  size="md"
+                  aria-label={`Remove relation: ${phrase(r)} ${r.other.name}`}
+                  disabled={remove.isPending}
+                  onClick={async () => {
+                    setRemoveError(undefined);
+                    try {
+                      await remove.mutateAsync(r.id);
+                      setRelations((rs) => rs.filter((x) => x.id !== r.id));
+                    } catch (e) {
+                      setRemoveError(e instanceof ApiError ? e.message : 'The relation was not removed. Try again.');
+                    }
+                  }}
+                >
+                  <Unlink aria-hidden className="size-4" /> Remove
+                </Button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      )}
+      {removeError ? <Alert tone="danger" title={removeError} /> : null}
+      {canWrite ? <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} /> : null}
+    </div>
+  );
+}
+
+function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string; siteId: string; onAdded: (relations: RelationDto[]) => void }) {
+  const add = useAddRelation(equipmentId);
+  const candidates = useSiteEquipment(siteId);
+  const [banner, setBanner] = useState<string>();
+  const form = useForm<RelationFormValues, unknown, CreateRelationInput>({ resolver: relationResolver, defaultValues: { way: 'controls:from', otherId: '' } });
+  const errors = form.formState.errors;
+  const others = (candidates.data?.items ?? []).filter((e) => e.id !== equipmentId);
+
+  const onSubmit = form.handleSubmit(async (input) => {
+    setBanner(undefined);
+    try {
+      const result = await add.mutateAsync(input);
+      onAdded(result.items);
+      form.reset({ way: form.getValues('way'), otherId: '' });
+    } catch (error) {
+      setBanner(
+        error instanceof ApiError && error.code === 'conflict'
+          ? 'These two are already related that way.'
+          : applyServerErrors(error, form.setError, ['otherId']),
+      );
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end">
+      <h3 className="text-base font-semibold sm:col-span-3">Add a relation</h3>
+      {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3" /> : null}
+      <Field id="relation-way" label="This equipment" error={errors.way?.message}>
+        <Select id="relation-way" {...describedBy('relation-way', errors.way?.message)} {...form.register('way')}>
+          {ways.map((w) => (
+            <option key={w.value} value={w.value}>
+              {w.text}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <Field
+        id="relation-other"
+        label="Other equipment on this site"
+        error={errors.otherId?.message}
+        hint={candidates.isPending ? 'Loading the site’s equipment…' : others.length === 0 ? 'No other equipment on this site yet.' : undefined}
+      >
+        <Select id="relation-other" disabled={candidates.isPending} {...describedBy('relation-other', errors.otherId?.message)} {...form.register('otherId')}>
+          <option value="">Choose…</option>
+          {others.map((e) => (
+            <option key={e.id} value={e.id}>
+              {`${e.name} (${equipmentTypeLabels[e.type]}${e.areaName ? `, ${e.areaName}` : ''})`}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <Button type="submit" disabled={form.formState.isSubmitting}>
+        {form.formState.isSubmitting ? 'Adding…' : 'Add relation'}
+      </Button>
+      {candidates.isError ? <p className="text-sm text-red-700 sm:col-span-3">The site’s equipment could not be loaded: {(candidates.error as Error).message}</p> : null}
+    </form>
+  );
+}

@@ -1,0 +1,347 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { useMemo, useState, type ReactNode } from 'react';
+import { useForm, type FieldErrors, type Resolver, type ResolverResult, type UseFormRegister } from 'react-hook-form';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { conditionLook } from '@/components/equipment/condition-badge';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
+import type { EquipmentDetailDto } from '@/lib/equipment/dto';
+import { useSaveEquipment } from '@/lib/equipment/hooks';
+import { nameplateFields, type NameplateField } from '@/lib/equipment/nameplate';
+import { createEquipmentSchema, type CreateEquipmentInput } from '@/lib/equipment/schemas';
+import { CONDITIONS, EQUIPMENT_STATUSES, EQUIPMENT_TYPES, equipmentTypeLabels, statusLabels, type EquipmentStatus, type EquipmentType } from '@/lib/equipment/types';
+import type { UnitPrefs } from '@/lib/units/quantities';
+import { cn } from '@/lib/utils';
+import { fieldLabel, nameplateFromForm, nameplateToForm, rangeText, type NameplateFormValues } from '@/app/(app)/equipment/_components/nameplate-values';
+
+/** Everything as the user typed it; numbers become SI only on their way to the schema. */
+export interface EquipmentFormValues {
+  type: EquipmentType | '';
+  name: string;
+  make: string;
+  model: string;
+  serial: string;
+  areaId: string;
+  systemId: string;
+  manufacturedOn: string;
+  installedOn: string;
+  condition: string;
+  conditionNote: string;
+  status: EquipmentStatus;
+  nameplate: NameplateFormValues;
+}
+
+const commonFields = ['type', 'name', 'make', 'model', 'serial', 'areaId', 'systemId', 'manufacturedOn', 'installedOn', 'condition', 'conditionNote', 'status'] as const;
+
+function toSchemaInput(values: EquipmentFormValues, siteId: string, prefs: UnitPrefs) {
+  return {
+    siteId,
+    type: values.type,
+    name: values.name,
+    make: values.make,
+    model: values.model,
+    serial: values.serial,
+    areaId: values.areaId || null,
+    systemId: values.systemId || null,
+    manufacturedOn: values.manufacturedOn,
+    installedOn: values.installedOn,
+    condition: values.condition === '' ? null : Number(values.condition),
+    conditionNote: values.conditionNote,
+    status: values.status,
+    nameplate: values.type ? nameplateFromForm(values.type, values.nameplate, prefs) : {},
+  };
+}
+
+/** The schema's limits are in SI; say them in the user's units instead. */
+function rangeMessagesInUserUnits(errors: FieldErrors<EquipmentFormValues>, type: EquipmentType, prefs: UnitPrefs) {
+  const nameplateErrors = errors.nameplate as Record<string, { type?: string; message?: string }> | undefined;
+  if (!nameplateErrors) return;
+  for (const field of nameplateFields[type]) {
+    const error = nameplateErrors[field.key];
+    const range = rangeText(field, prefs);
+    if (error && range && (error.type === 'too_small' || error.type === 'too_big')) error.message = `${field.label} must be ${range}.`;
+  }
+}
+
+function equipmentResolver(siteId: string, prefs: UnitPrefs): Resolver<EquipmentFormValues, unknown, CreateEquipmentInput> {
+  const base = zodResolver(createEquipmentSchema);
+  return async (values, context, options) => {
+    const result = await base(toSchemaInput(values, siteId, prefs) as never, context, options as never);
+    if (values.type && Object.keys(result.errors).length > 0) rangeMessagesInUserUnits(result.errors as FieldErrors<EquipmentFormValues>, values.type, prefs);
+    return result as unknown as ResolverResult<EquipmentFormValues, CreateEquipmentInput>;
+  };
+}
+
+function defaultsFrom(equipment: EquipmentDetailDto | undefined, preset: Partial<Pick<EquipmentFormValues, 'type' | 'areaId' | 'systemId'>>, prefs: UnitPrefs): EquipmentFormValues {
+  return {
+    type: equipment?.type ?? preset.type ?? '',
+    name: equipment?.name ?? '',
+    make: equipment?.make ?? '',
+    model: equipment?.model ?? '',
+    serial: equipment?.serial ?? '',
+    areaId: equipment ? (equipment.areaId ?? '') : (preset.areaId ?? ''),
+    systemId: equipment ? (equipment.systemId ?? '') : (preset.systemId ?? ''),
+    manufacturedOn: equipment?.manufacturedOn ?? '',
+    installedOn: equipment?.installedOn ?? '',
+    condition: equipment?.condition != null ? String(equipment.condition) : '',
+    conditionNote: equipment?.conditionNote ?? '',
+    status: equipment?.status ?? 'in_service',
+    nameplate: equipment ? nameplateToForm(equipment.type, equipment.nameplate, prefs) : {},
+  };
+}
+
+export function EquipmentForm({
+  equipment,
+  siteId,
+  areas,
+  systems,
+  preset = {},
+  prefs,
+}: {
+  equipment?: EquipmentDetailDto;
+  siteId: string;
+  areas: { id: string; name: string }[];
+  systems: { id: string; name: string; refrigerant: string }[];
+  preset?: Partial<Pick<EquipmentFormValues, 'type' | 'areaId' | 'systemId'>>;
+  prefs: UnitPrefs;
+}) {
+  const router = useRouter();
+  const save = useSaveEquipment(equipment?.id);
+  const [banner, setBanner] = useState<string>();
+  const resolver = useMemo(() => equipmentResolver(siteId, prefs), [siteId, prefs]);
+  const form = useForm<EquipmentFormValues, unknown, CreateEquipmentInput>({ resolver, defaultValues: defaultsFrom(equipment, preset, prefs) });
+  const errors = form.formState.errors;
+  const type = form.watch('type');
+
+  const onSubmit = form.handleSubmit(async (input) => {
+    setBanner(undefined);
+    try {
+      // The type and site of existing equipment are fixed; an edit sends the rest.
+      const { siteId: _site, type: _type, ...changes } = input;
+      const saved = await save.mutateAsync(equipment ? changes : input);
+      router.push(`/equipment/${saved.id}`);
+      router.refresh();
+    } catch (error) {
+      const fields = [...commonFields, ...(type ? nameplateFields[type].map((f) => `nameplate.${f.key}`) : [])];
+      setBanner(applyServerErrors(error, form.setError, fields));
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid max-w-3xl gap-6">
+      {banner ? <Alert tone="danger" title={banner}>Your entries are still here; fix the marked fields and save again.</Alert> : null}
+
+      {equipment ? (
+        <p className="flex items-center gap-2 text-base font-semibold">
+          <EquipmentTypeIcon type={equipment.type} />
+          {equipmentTypeLabels[equipment.type]}
+          <span className="font-normal text-slate-600">(the type of registered equipment cannot change)</span>
+        </p>
+      ) : (
+        <TypeChoice register={form.register} error={errors.type?.message} />
+      )}
+
+      {type ? (
+        <>
+          <Section title="Identity">
+            <Field id="name" label="Name" error={errors.name?.message} hint="What technicians call it on site, e.g. “Walk-in cooler evaporator 1”." className="sm:col-span-2">
+              <Input id="name" autoComplete="off" {...describedBy('name', errors.name?.message)} {...form.register('name')} />
+            </Field>
+            <Field id="make" label="Make" error={errors.make?.message}>
+              <Input id="make" autoComplete="off" {...describedBy('make', errors.make?.message)} {...form.register('make')} />
+            </Field>
+            <Field id="model" label="Model" error={errors.model?.message}>
+              <Input id="model" autoComplete="off" {...describedBy('model', errors.model?.message)} {...form.register('model')} />
+            </Field>
+            <Field id="serial" label="Serial number" error={errors.serial?.message} hint="As printed on the nameplate." className="sm:col-span-2">
+              <Input id="serial" autoComplete="off" autoCapitalize="characters" spellCheck={false} className="font-mono" {...describedBy('serial', errors.serial?.message)} {...form.register('serial')} />
+            </Field>
+          </Section>
+
+          <Section title="Where it is">
+            <Field id="areaId" label="Area" error={errors.areaId?.message} hint={areas.length === 0 ? 'This site has no areas yet; add them on the site page.' : undefined}>
+              <Select id="areaId" {...describedBy('areaId', errors.areaId?.message)} {...form.register('areaId')}>
+                <option value="">No area</option>
+                {areas.map((a) => (
+                  <option key={a.id} value={a.id}>
+                    {a.name}
+                  </option>
+                ))}
+              </Select>
+            </Field>
+            <Field id="systemId" label="System" error={errors.systemId?.message} hint={systems.length === 0 ? 'This site has no systems yet.' : 'The refrigeration circuit it belongs to.'}>
+              <Select id="systemId" {...describedBy('systemId', errors.systemId?.message)} {...form.register('systemId')}>
+                <option value="">Not part of a system</option>
+                {systems.map((s) => (
+                  <option key={s.id} value={s.id}>
+                    {s.name} ({s.refrigerant})
+                  </option>
+                ))}
+              </Select>
+            </Field>
+          </Section>
+
+          <Section title="Condition and status">
+            <ConditionChoice register={form.register} error={errors.condition?.message} />
+            <Field id="conditionNote" label="Condition note" error={errors.conditionNote?.message} hint="What you saw, e.g. “coil fins corroded on the left side”." className="sm:col-span-2">
+              <Textarea id="conditionNote" {...describedBy('conditionNote', errors.conditionNote?.message)} {...form.register('conditionNote')} />
+            </Field>
+            <Field id="status" label="Status" error={errors.status?.message}>
+              <Select id="status" {...describedBy('status', errors.status?.message)} {...form.register('status')}>
+                {EQUIPMENT_STATUSES.map((s) => (
+                  <option key={s} value={s}>
+                    {statusLabels[s]}
+                  </option>
+                ))}
+              </Select>
+            </Field>
+          </Section>
+
+          <Section title="Dates">
+            <Field id="manufacturedOn" label="Manufactured" error={errors.manufacturedOn?.message} hint="Often coded in the serial; leave empty if unknown.">
+              <Input id="manufacturedOn" type="date" {...describedBy('manufacturedOn', errors.manufacturedOn?.message)} {...form.register('manufacturedOn')} />
+            </Field>
+            <Field id="installedOn" label="Installed" error={errors.installedOn?.message}>
+              <Input id="installedOn" type="date" {...describedBy('installedOn', errors.installedOn?.message)} {...form.register('installedOn')} />
+            </Field>
+          </Section>
+
+          <Section title={`Nameplate: ${equipmentTypeLabels[type].toLowerCase()}`} note="Every field is optional: record what the nameplate shows.">
+            {nameplateFields[type].map((field) => (
+              <NameplateInput key={`${type}.${field.key}`} field={field} prefs={prefs} register={form.register} error={(errors.nameplate as Record<string, { message?: string }> | undefined)?.[field.key]?.message} />
+            ))}
+          </Section>
+
+          <div className="flex flex-wrap gap-2">
+            <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
+              {form.formState.isSubmitting ? 'Saving…' : equipment ? 'Save changes' : 'Register equipment'}
+            </Button>
+            <Button variant="secondary" size="lg" onClick={() => router.back()}>
+              Cancel
+            </Button>
+          </div>
+        </>
+      ) : null}
+    </form>
+  );
+}
+
+function Section({ title, note, children }: { title: string; note?: string; children: ReactNode }) {
+  return (
+    <fieldset className="grid gap-4 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2 sm:p-5">
+      <legend className="px-1 text-lg font-semibold text-slate-900">{title}</legend>
+      {note ? <p className="-mt-2 text-sm text-slate-600 sm:col-span-2">{note}</p> : null}
+      {children}
+    </fieldset>
+  );
+}
+
+// Large radio cards: a whole card is the target, and the native radio keeps keyboard and screen
+// reader behaviour intact.
+const choiceCard =
+  'flex min-h-14 cursor-pointer items-center gap-3 rounded-lg border-2 border-slate-300 bg-white px-3 py-2 font-semibold text-slate-900 has-[:checked]:border-ice-700 has-[:checked]:bg-ice-50 has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ice-500';
+
+function TypeChoice({ register, error }: { register: UseFormRegister<EquipmentFormValues>; error?: string }) {
+  // Two columns even at 360 px, so the whole choice fits about one phone screen.
+  return (
+    <fieldset aria-describedby={error ? 'type-error' : undefined}>
+      <legend className="mb-2 text-lg font-semibold text-slate-900">What are you registering?</legend>
+      <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
+        {EQUIPMENT_TYPES.map((t) => (
+          <label key={t} className={cn(choiceCard, 'gap-2 px-2 text-sm sm:gap-3 sm:px-3 sm:text-base')}>
+            <input type="radio" value={t} className="size-5 shrink-0 accent-ice-800" {...register('type')} />
+            <EquipmentTypeIcon type={t} className="hidden min-[400px]:block" />
+            <span className="min-w-0 break-words">{equipmentTypeLabels[t]}</span>
+          </label>
+        ))}
+      </div>
+      {error ? (
+        <p id="type-error" role="alert" className="mt-2 text-sm font-medium text-red-700">
+          {error}
+        </p>
+      ) : null}
+    </fieldset>
+  );
+}
+
+function ConditionChoice({ register, error }: { register: UseFormRegister<EquipmentFormValues>; error?: string }) {
+  const options: { value: string; rating: number | null }[] = [...CONDITIONS.map((c) => ({ value: String(c), rating: c as number | null })), { value: '', rating: null }];
+  return (
+    <fieldset className="sm:col-span-2" aria-describedby={error ? 'condition-error' : 'condition-hint'}>
+      <legend className="mb-1 block text-sm font-semibold text-slate-800">Condition</legend>
+      <p id="condition-hint" className="mb-2 text-sm text-slate-600">
+        5 is like new, 1 is failing.
+      </p>
+      <div className="grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-6">
+        {options.map(({ value, rating }) => {
+          const { Icon, word } = conditionLook(rating);
+          return (
+            <label key={value || 'none'} className={cn(choiceCard, 'flex-col items-start gap-1 sm:min-h-20')}>
+              <span className="flex items-center gap-2">
+                <input type="radio" value={value} className="size-5 accent-ice-800" {...register('condition')} />
+                <Icon aria-hidden className="size-5" />
+                {rating !== null ? <span className="text-lg">{rating}</span> : null}
+              </span>
+              <span className="text-sm">{word}</span>
+            </label>
+          );
+        })}
+      </div>
+      {error ? (
+        <p id="condition-error" role="alert" className="mt-2 text-sm font-medium text-red-700">
+          {error}
+        </p>
+      ) : null}
+    </fieldset>
+  );
+}
+
+function NameplateInput({ field, prefs, register, error }: { field: NameplateField; prefs: UnitPrefs; register: UseFormRegister<EquipmentFormValues>; error?: string }) {
+  const id = `np-${field.key}`;
+  const label = fieldLabel(field, prefs);
+  const reg = register(`nameplate.${field.key}`);
+  const aria = describedBy(id, error);
+  switch (field.kind) {
+    case 'number':
+      return (
+        <Field id={id} label={label} error={error} hint={field.hint}>
+          {/* Text with a numeric keypad: iOS's decimal pad has no minus sign, and vacuum and freezer values are negative. */}
+          <Input id={id} inputMode={field.min < 0 ? 'text' : 'decimal'} autoComplete="off" {...aria} {...reg} />
+        </Field>
+      );
+    case 'enum':
+      return (
+        <Field id={id} label={label} error={error} hint={field.hint}>
+          <Select id={id} {...aria} {...reg}>
+            <option value="">Not recorded</option>
+            {field.options.map(([value, text]) => (
+              <option key={value} value={value}>
+                {text}
+              </option>
+            ))}
+          </Select>
+        </Field>
+      );
+    case 'bool':
+      return (
+        <Field id={id} label={label} error={error} hint={field.hint}>
+          <Select id={id} {...aria} {...reg}>
+            <option value="">Not recorded</option>
+            <option value="true">Yes</option>
+            <option value="false">No</option>
+          </Select>
+        </Field>
+      );
+    case 'text':
+      return (
+        <Field id={id} label={label} error={error} hint={field.hint} className={field.max > 100 ? 'sm:col-span-2' : undefined}>
+          {field.max > 100 ? <Textarea id={id} {...aria} {...reg} /> : <Input id={id} autoComplete="off" {...aria} {...reg} />}
+        </Field>
+      );
+  }
+}

@@ -1,0 +1,91 @@
+import { Download, Plus, Upload } from 'lucide-react';
+import Link from 'next/link';
+import { EquipmentList } from '@/components/equipment/equipment-list';
+import { ButtonLink, buttonVariants } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/card';
+import type { EquipmentDto } from '@/lib/equipment/dto';
+import type { AreaDto } from '@/lib/sites/dto';
+
+interface Group {
+  key: string;
+  title: string;
+  items: EquipmentDto[];
+}
+
+/** Groups in the site's area order; equipment without an area comes last. */
+function groupByArea(items: EquipmentDto[], areas: AreaDto[]): Group[] {
+  const order = new Map(areas.map((a, i) => [a.id, i]));
+  const groups = new Map<string, Group>();
+  for (const e of items) {
+    const key = e.areaId ?? '';
+    const group = groups.get(key) ?? { key, title: e.areaName ?? 'No area', items: [] };
+    group.items.push(e);
+    groups.set(key, group);
+  }
+  const rank = (g: Group) => (g.key === '' ? Number.MAX_SAFE_INTEGER : (order.get(g.key) ?? areas.length));
+  return [...groups.values()].sort((a, b) => rank(a) - rank(b) || a.title.localeCompare(b.title));
+}
+
+export function SiteEquipment({
+  siteId,
+  items,
+  more,
+  areas,
+  canRegister,
+  canImport,
+}: {
+  siteId: string;
+  items: EquipmentDto[];
+  more: boolean;
+  areas: AreaDto[];
+  canRegister: boolean;
+  canImport: boolean;
+}) {
+  const groups = groupByArea(items, areas);
+  return (
+    <section aria-labelledby="equipment-h" className="space-y-3">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="equipment-h" className="text-lg font-semibold">
+          Equipment
+        </h2>
+        <div className="flex flex-wrap gap-2">
+          {canRegister ? (
+            <ButtonLink href={`/equipment/new?siteId=${siteId}`}>
+              <Plus aria-hidden className="size-4" /> Register equipment
+            </ButtonLink>
+          ) : null}
+          {canImport ? (
+            <ButtonLink href={`/sites/${siteId}/import`} variant="secondary">
+              <Upload aria-hidden className="size-4" /> Import CSV
+            </ButtonLink>
+          ) : null}
+          {/* A plain link: the browser downloads the file with the session cookie. */}
+          <a href={`/api/equipment/export?siteId=${siteId}`} download className={buttonVariants({ variant: 'secondary' })}>
+            <Download aria-hidden className="size-4" /> Export CSV
+          </a>
+        </div>
+      </div>
+      {groups.length === 0 ? (
+        <EmptyState title="No equipment registered at this site yet.">
+          {canRegister ? 'Register units one by one, or import a spreadsheet exported from another site.' : null}
+        </EmptyState>
+      ) : (
+        groups.map((g) => (
+          <div key={g.key} className="space-y-2">
+            <h3 className="text-base font-semibold text-slate-800">
+              {g.title} <span className="font-normal text-slate-600">({g.items.length})</span>
+            </h3>
+            <EquipmentList items={g.items} empty="" />
+          </div>
+        ))
+      )}
+      {more ? (
+        <p>
+          <Link href={`/equipment?siteId=${siteId}`} className="font-semibold text-ice-800 underline">
+            This site has more equipment than fits here: see it all in the equipment table
+          </Link>
+        </p>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,57 @@
+import { ChevronRight } from 'lucide-react';
+import Link from 'next/link';
+import { ConditionBadge } from '@/components/equipment/condition-badge';
+import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
+import { EmptyState } from '@/components/ui/card';
+import type { EquipmentDto } from '@/lib/equipment/dto';
+import { equipmentTypeLabels } from '@/lib/equipment/types';
+
+/** Equipment as tappable cards: the site drill-down, a system's members, the table on a phone. */
+export function EquipmentList({
+  items,
+  empty,
+  showSite = false,
+  showArea = false,
+}: {
+  items: EquipmentDto[];
+  empty: string;
+  showSite?: boolean;
+  showArea?: boolean;
+}) {
+  if (items.length === 0) return <EmptyState title={empty} />;
+  return (
+    <ul className="divide-y divide-slate-200 overflow-hidden rounded-lg border border-slate-200 bg-white">
+      {items.map((e) => {
+        const place = [showSite ? e.siteName : null, showArea ? e.areaName : null].filter(Boolean).join(' · ');
+        const makeModel = [e.make, e.model].filter(Boolean).join(' ');
+        return (
+          <li key={e.id}>
+            <Link href={`/equipment/${e.id}`} className="flex min-h-14 items-start gap-3 px-4 py-3 hover:bg-ice-50">
+              <EquipmentTypeIcon type={e.type} className="mt-0.5" />
+              <span className="min-w-0 flex-1">
+                <span className="block break-words font-semibold text-slate-900">{e.name}</span>
+                <span className="block text-sm text-slate-600">
+                  {equipmentTypeLabels[e.type]}
+                  {makeModel ? ` · ${makeModel}` : ''}
+                </span>
+                {e.serial || place ? (
+                  <span className="block text-sm text-slate-600">
+                    {e.serial ? <span className="font-mono text-slate-800">{e.serial}</span> : null}
+                    {e.serial && place ? ' · ' : ''}
+                    {place}
+                  </span>
+                ) : null}
+                <span className="mt-1.5 flex flex-wrap gap-1.5">
+                  <ConditionBadge condition={e.condition} />
+                  {e.status !== 'in_service' ? <EquipmentStatusBadge status={e.status} /> : null}
+                </span>
+              </span>
+              <ChevronRight aria-hidden className="mt-0.5 size-5 shrink-0 text-slate-400" />
+            </Link>
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
