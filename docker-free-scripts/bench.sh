@@ -51,6 +51,7 @@ stopped=0
 stop_all() {
   [ "$stopped" = 1 ] && return 0
   stopped=1
+  rl_stop_watcher
   rl_close_line
   if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 10; fi
   echo "Stopping the bench services …"
@@ -61,13 +62,15 @@ stop_all() {
 }
 cleanup() {
   local rc=$?
-  trap '' INT TERM
+  trap '' INT TERM HUP
   stop_all
   exit "$rc"
 }
 trap cleanup EXIT
 trap 'rl_close_line; echo; echo "Interrupted."; exit 130' INT
 trap 'rl_close_line; echo; echo "Terminated."; exit 143' TERM
+trap 'rl_close_line; echo; echo "Hang-up."; exit 129' HUP
+rl_watch_parent
 
 if holder="$(rl_lock_holder test)"; then
   rl_die "npm test is running (pid $holder); it uses the same ports as the benchmarks." "wait for it to finish, then run npm run bench again."

@@ -182,6 +182,25 @@ rl_run_shown() {
   return "$rc"
 }
 
+# rl_watch_parent → when the process that started this script goes away (npm killed with SIGTERM
+# does not pass the signal through its `sh -c`; a closed terminal), send ourselves SIGTERM so the
+# normal clean-up runs. rl_stop_watcher ends the watcher.
+RL_WATCHER=""
+rl_watch_parent() {
+  local parent="$PPID" self="$$"
+  (
+    trap - INT TERM EXIT HUP
+    while kill -0 "$parent" 2>/dev/null && [ "$(sed 's/.*) //' "/proc/$self/stat" 2>/dev/null | cut -d' ' -f2)" = "$parent" ]; do
+      sleep 2
+    done
+    kill -TERM "$self" 2>/dev/null
+  ) </dev/null >/dev/null 2>&1 &
+  RL_WATCHER=$!
+}
+rl_stop_watcher() {
+  if [ -n "$RL_WATCHER" ]; then kill "$RL_WATCHER" 2>/dev/null || true; RL_WATCHER=""; fi
+}
+
 rl_alive() {
   [ -n "${1:-}" ] && kill -0 "$1" 2>/dev/null
 }

@@ -40,9 +40,10 @@ stopping=0
 
 cleanup() {
   local rc=$?
-  trap '' INT TERM
+  trap '' INT TERM HUP
   [ "$stopping" = 1 ] && return
   stopping=1
+  rl_stop_watcher
   rl_close_line
   if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 10; fi
   if [ "${#RL_SERVICES[@]}" -gt 0 ] || [ "$pg_owned" = 1 ]; then
@@ -60,7 +61,7 @@ cleanup() {
   return 0
 }
 on_signal() {
-  trap '' INT TERM
+  trap '' INT TERM HUP
   rl_close_line
   echo
   echo "Received $1."
@@ -69,6 +70,8 @@ on_signal() {
 trap cleanup EXIT
 trap 'on_signal INT' INT
 trap 'on_signal TERM' TERM
+trap 'on_signal HUP' HUP
+rl_watch_parent
 
 rl_lock dev
 echo "Rimeline ($mode) — data in $(rl_rel "$RIMELINE_DATA"), logs in $(rl_rel "$LOGS")"

@@ -113,7 +113,8 @@ NODE
 
 on_exit() {
   local rc=$? out counts passed failed f
-  trap '' INT TERM
+  trap '' INT TERM HUP
+  rl_stop_watcher
   rl_close_line
   if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 15; fi
   if [ "$finished" = 0 ] && [ "$interrupted" = 0 ] && [ "$rc" != 0 ]; then
@@ -143,7 +144,7 @@ on_exit() {
   exit 0
 }
 on_signal() {
-  trap '' INT TERM
+  trap '' INT TERM HUP
   interrupted=1
   rl_close_line
   echo
@@ -154,6 +155,8 @@ on_signal() {
 trap on_exit EXIT
 trap 'on_signal INT' INT
 trap 'on_signal TERM' TERM
+trap 'on_signal HUP' HUP
+rl_watch_parent
 
 # ------------------------------------------------------------------------------------ set-up
 if holder="$(rl_lock_holder bench)"; then
