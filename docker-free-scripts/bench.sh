@@ -66,16 +66,16 @@ cleanup() {
   stop_all
   exit "$rc"
 }
+if holder="$(rl_lock_holder test)"; then
+  rl_die "npm test is running (pid $holder); it uses the same ports as the benchmarks." "wait for it to finish, then run npm run bench again."
+fi
+rl_lock bench
 trap cleanup EXIT
 trap 'rl_close_line; echo; echo "Interrupted."; exit 130' INT
 trap 'rl_close_line; echo; echo "Terminated."; exit 143' TERM
 trap 'rl_close_line; echo; echo "Hang-up."; exit 129' HUP
 rl_watch_parent
 
-if holder="$(rl_lock_holder test)"; then
-  rl_die "npm test is running (pid $holder); it uses the same ports as the benchmarks." "wait for it to finish, then run npm run bench again."
-fi
-rl_lock bench
 
 # ------------------------------------------------------------------------------------ set-up
 next_step "Preparing .data/bench"

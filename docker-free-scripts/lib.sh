@@ -267,13 +267,13 @@ rl_is_ours() {
   [ "$(readlink "/proc/$1/cwd" 2>/dev/null)" = "$RL_ROOT" ]
 }
 
-# rl_recorded PID → true when PID, or its process group, is recorded in one of our pid files
-# (.data/<profile>/run/*.pid) and runs from this checkout: a service of an earlier run.
+# rl_recorded PID → true when PID, or its process group, is recorded in one of this profile's pid
+# files ($RIMELINE_RUN/*.pid) and runs from this checkout: a service of an earlier run.
 rl_recorded() {
   local pid="$1" pgid
   rl_is_ours "$pid" || return 1
   pgid="$(sed 's/.*) //' "/proc/$pid/stat" 2>/dev/null | cut -d' ' -f3)"
-  cat "$RL_ROOT"/.data/*/run/*.pid 2>/dev/null | grep -qxE "$pid${pgid:+|$pgid}"
+  cat "$RIMELINE_RUN"/*.pid 2>/dev/null | grep -qxE "$pid${pgid:+|$pgid}"
 }
 
 # rl_free_port PORT LABEL → ok when the port is free. Stops what an earlier run of these scripts

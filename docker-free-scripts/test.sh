@@ -152,6 +152,17 @@ on_signal() {
   stage_failures+=("interrupted by $1")
   exit 130
 }
+if holder="$(rl_lock_holder bench)"; then
+  rl_fail "npm run bench is running (pid $holder); it uses the same ports as the tests." "wait for it to finish, or stop it (kill $holder)."
+  echo "0 passed, 1 failed"
+  exit 1
+fi
+if holder="$(rl_lock_holder test)"; then
+  rl_fail "npm test is already running in this checkout (pid $holder: $(rl_cmdline "$holder"))." "wait for it to finish, or stop it (kill $holder)."
+  echo "0 passed, 1 failed"
+  exit 1
+fi
+rl_lock test
 trap on_exit EXIT
 trap 'on_signal INT' INT
 trap 'on_signal TERM' TERM
@@ -159,10 +170,6 @@ trap 'on_signal HUP' HUP
 rl_watch_parent
 
 # ------------------------------------------------------------------------------------ set-up
-if holder="$(rl_lock_holder bench)"; then
-  rl_die "npm run bench is running (pid $holder); it uses the same ports as the tests." "wait for it to finish, or stop it (kill $holder)."
-fi
-rl_lock test
 
 next_step "Stopping leftovers and wiping .data/test"
 rl_stop_stale s3 "S3 fake"
