@@ -132,7 +132,7 @@ rl_apt_install() {
     rl_fail "apt-get update failed." "check the network access to the Debian mirrors, then run this again." "$log"
     return 1
   }
-  rl_run_logged "$log" "${sudo[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -q --no-install-recommends "$@" || {
+  rl_run_logged "$log" "${sudo[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -q "$@" || {
     rl_fail "apt-get install $* failed." "run 'apt-get install -y $*' by hand and look at its error." "$log"
     return 1
   }
