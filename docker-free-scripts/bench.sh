@@ -58,7 +58,9 @@ stop_all() {
   rl_stop_services
   printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
   if bash docker-free-scripts/db-stop.sh bench --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
+  rm -f "$RIMELINE_RUN/pg.owner"
   rl_unlock_all
+  rl_stop_reaper
 }
 cleanup() {
   local rc=$?
@@ -92,6 +94,7 @@ if [ "$keep" = 0 ]; then
   source docker-free-scripts/env.sh bench
 fi
 mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
+rl_start_reaper
 if [ "$keep" = 1 ]; then rl_ok "kept the previous data (--keep)"; else rl_ok "wiped"; fi
 
 next_step "Checking npm packages"
@@ -104,6 +107,7 @@ else
 fi
 
 next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
+echo "$$" >"$RIMELINE_RUN/pg.owner"
 rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh bench \
   || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
 rl_ok "database $PG_DB"
@@ -166,9 +170,9 @@ for f in "${selected[@]}"; do
   t0=$SECONDS
   rc=0
   setsid "$RL_TSX" "$f" </dev/null >"$out" 2>>"$log" &
-  RL_CHILD=$!
+  rl_child_started $!
   wait "$RL_CHILD" || rc=$?
-  RL_CHILD=""
+  rl_child_done
   cat "$out" >>"$log"
   found="$(grep -c $'^BENCH\t' "$out" || true)"
   grep $'^BENCH\t' "$out" | cut -f2- >>"$rows" || true

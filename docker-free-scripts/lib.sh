@@ -161,9 +161,9 @@ rl_run_logged() {
   mkdir -p "$(dirname "$log")"
   printf '\n===== %s: %s\n' "$(date '+%F %T')" "$*" >>"$log"
   setsid "$@" </dev/null >>"$log" 2>&1 &
-  RL_CHILD=$!
+  rl_child_started $!
   wait "$RL_CHILD" || rc=$?
-  RL_CHILD=""
+  rl_child_done
   return "$rc"
 }
 
@@ -176,10 +176,21 @@ rl_last_run() {
 rl_run_shown() {
   local rc=0
   setsid "$@" </dev/null &
-  RL_CHILD=$!
+  rl_child_started $!
   wait "$RL_CHILD" || rc=$?
-  RL_CHILD=""
+  rl_child_done
   return "$rc"
+}
+
+# The running child is also recorded in $RIMELINE_RUN/child-<script pid>.pid, so the reaper can
+# stop it if this script is killed outright.
+rl_child_started() {
+  RL_CHILD="$1"
+  if [ -n "${RIMELINE_RUN:-}" ] && [ -d "$RIMELINE_RUN" ]; then echo "$1" >"$RIMELINE_RUN/child-$$.pid"; fi
+}
+rl_child_done() {
+  RL_CHILD=""
+  if [ -n "${RIMELINE_RUN:-}" ]; then rm -f "$RIMELINE_RUN/child-$$.pid"; fi
 }
 
 # rl_watch_parent → when the process that started this script goes away (npm killed with SIGTERM
@@ -199,6 +210,40 @@ rl_watch_parent() {
 }
 rl_stop_watcher() {
   if [ -n "$RL_WATCHER" ]; then kill "$RL_WATCHER" 2>/dev/null || true; RL_WATCHER=""; fi
+}
+
+# The services run in their own sessions (setsid), so a SIGKILL to this script's process group
+# (a tool's time limit, say) would leave them running. rl_start_reaper starts a small detached
+# process that waits for this script to end and then stops whatever is still recorded in
+# $RIMELINE_RUN/*.pid, plus the profile's PostgreSQL when $RIMELINE_RUN/pg.owner names this
+# script. After a normal exit the clean-up has already done all that and the reaper just ends.
+RL_REAPER=""
+rl_start_reaper() {
+  mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
+  setsid bash -c 'source "$1/lib.sh"; source "$1/env.sh" "$2"; rl_reap "$3"' rimeline-reaper \
+    "$RL_SCRIPTS" "$RIMELINE_PROFILE" "$$" </dev/null >>"$RIMELINE_LOGS/reaper.log" 2>&1 &
+  RL_REAPER=$!
+}
+rl_stop_reaper() {
+  if [ -n "$RL_REAPER" ]; then kill "$RL_REAPER" 2>/dev/null || true; RL_REAPER=""; fi
+}
+rl_reap() {
+  local owner="$1" f pid
+  while kill -0 "$owner" 2>/dev/null; do sleep 2; done
+  for f in "$RIMELINE_RUN"/*.pid; do
+    [ -f "$f" ] || continue
+    pid="$(cat "$f" 2>/dev/null)"
+    if rl_alive "$pid" && rl_is_ours "$pid"; then
+      echo "$(date '+%F %T') script $owner is gone; stopping $(basename "$f" .pid) (pid $pid)"
+      rl_kill_tree "$pid" 10
+    fi
+    rm -f "$f"
+  done
+  if [ "$(cat "$RIMELINE_RUN/pg.owner" 2>/dev/null)" = "$owner" ]; then
+    echo "$(date '+%F %T') script $owner is gone; stopping PostgreSQL ($RIMELINE_PROFILE)"
+    bash "$RL_SCRIPTS/db-stop.sh" "$RIMELINE_PROFILE" --quiet || true
+    rm -f "$RIMELINE_RUN/pg.owner"
+  fi
 }
 
 rl_alive() {

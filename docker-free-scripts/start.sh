@@ -56,6 +56,7 @@ cleanup() {
     rm -f "$RIMELINE_RUN/pg.owner"
   fi
   rl_unlock_all
+  rl_stop_reaper
   [ "$rc" = 0 ] || [ "$rc" -ge 128 ] || echo "Rimeline did not start (see the message above)."
   [ "$rc" -ge 128 ] && echo "Stopped."
   return 0
@@ -74,6 +75,7 @@ trap 'on_signal HUP' HUP
 rl_watch_parent
 
 rl_lock dev
+rl_start_reaper
 echo "Rimeline ($mode) — data in $(rl_rel "$RIMELINE_DATA"), logs in $(rl_rel "$LOGS")"
 
 # ---------------------------------------------------------------------------------------- 1

@@ -125,8 +125,10 @@ on_exit() {
   # The Playwright web server is Playwright's to stop; make sure nothing is left on the port.
   if rl_port_busy "$APP_PORT"; then rl_free_port "$APP_PORT" "test app server" >/dev/null 2>&1 || true; fi
   printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
-  bash docker-free-scripts/db-stop.sh test --quiet && printf 'ok\n' || printf 'failed\n'
+  if bash docker-free-scripts/db-stop.sh test --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
+  rm -f "$RIMELINE_RUN/pg.owner"
   rl_unlock_all
+  rl_stop_reaper
   echo
   echo "Summary"
   out="$(summary 2>&1 || echo "0 1")"
@@ -183,6 +185,7 @@ rl_wipe_profile_data
 # shellcheck source=docker-free-scripts/env.sh
 source docker-free-scripts/env.sh test   # a fresh AUTH_SECRET for this run
 mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN" "$RIMELINE_DATA/screenshots"
+rl_start_reaper
 rl_ok
 
 next_step "Checking system packages"
@@ -209,6 +212,7 @@ else
 fi
 
 next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
+echo "$$" >"$RIMELINE_RUN/pg.owner"
 rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh test \
   || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
 rl_ok "database $PG_DB"
