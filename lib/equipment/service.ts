@@ -68,6 +68,13 @@ export async function getEquipment(actor: Actor, id: string, db: Db = defaultDb)
   };
 }
 
+/** A cheap scope check for reads that only need to know the caller may see this equipment. */
+export async function assertEquipmentVisible(actor: Actor, id: string, db: Db = defaultDb): Promise<void> {
+  assertCan(actor, 'equipment.read');
+  const row = await equipmentBaseQuery(actor, db).where('equipment.id', '=', id).where('equipment.deleted_at', 'is', null).select('equipment.id').executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Equipment not found.');
+}
+
 /** Area and system must sit on the equipment's own site. */
 async function assertPlacement(db: Db, siteId: string, areaId: string | null | undefined, systemId: string | null | undefined): Promise<void> {
   const issues = [];

@@ -8,7 +8,7 @@ import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { evaluateLeakEvent } from '@/lib/calc/leak-rate';
-import { getEquipment } from '@/lib/equipment/service';
+import { assertEquipmentVisible, getEquipment } from '@/lib/equipment/service';
 import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
 import { computeReading, computeSettingChange, type EntryContext } from '@/lib/visits/compute';
@@ -528,7 +528,7 @@ export async function markReviewed(actor: Actor, visitId: string, db: Kysely<DB>
 /** Newest first, keyset on (recorded_at, id); owners see entries of closed visits only. */
 export async function equipmentHistory(actor: Actor, equipmentId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
   assertCan(actor, 'visits.read');
-  await getEquipment(actor, equipmentId, db);
+  await assertEquipmentVisible(actor, equipmentId, db);
   return historyPage(actor, db, query, { equipmentId });
 }
 
@@ -563,7 +563,7 @@ async function historyPage(
 /** One reading over time, for a chart. */
 export async function readingSeries(actor: Actor, equipmentId: string, key: string, db: Db = defaultDb): Promise<{ recordedAt: string; value: number }[]> {
   assertCan(actor, 'visits.read');
-  await getEquipment(actor, equipmentId, db);
+  await assertEquipmentVisible(actor, equipmentId, db);
   const computedKeys = new Set(['superheatK', 'subcoolingK', 'evaporatorTdK', 'condenserSplitK', 'compressionRatio', 'unbalancePct', 'evaporatingC', 'condensingC']);
   const column = computedKeys.has(key) ? 'computed' : 'data';
   let q = db
