@@ -53,7 +53,7 @@ stop_all() {
   stopped=1
   rl_stop_watcher
   rl_close_line
-  if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 10; fi
+  rl_stop_child
   echo "Stopping the bench services …"
   rl_stop_services
   printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"

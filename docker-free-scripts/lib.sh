@@ -188,6 +188,10 @@ rl_child_started() {
   RL_CHILD="$1"
   if [ -n "${RIMELINE_RUN:-}" ] && [ -d "$RIMELINE_RUN" ]; then echo "$1" >"$RIMELINE_RUN/child-$$.pid"; fi
 }
+rl_stop_child() {
+  if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 15; fi
+  rl_child_done
+}
 rl_child_done() {
   RL_CHILD=""
   if [ -n "${RIMELINE_RUN:-}" ]; then rm -f "$RIMELINE_RUN/child-$$.pid"; fi

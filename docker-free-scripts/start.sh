@@ -45,7 +45,7 @@ cleanup() {
   stopping=1
   rl_stop_watcher
   rl_close_line
-  if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 10; fi
+  rl_stop_child
   if [ "${#RL_SERVICES[@]}" -gt 0 ] || [ "$pg_owned" = 1 ]; then
     echo "Stopping Rimeline …"
   fi

@@ -116,7 +116,7 @@ on_exit() {
   trap '' INT TERM HUP
   rl_stop_watcher
   rl_close_line
-  if [ -n "$RL_CHILD" ] && rl_alive "$RL_CHILD"; then rl_kill_tree "$RL_CHILD" 15; fi
+  rl_stop_child
   if [ "$finished" = 0 ] && [ "$interrupted" = 0 ] && [ "$rc" != 0 ]; then
     stage_failures+=("a set-up step failed (exit $rc)")
   fi
