@@ -160,13 +160,16 @@ export const listVisitsQuerySchema = z.object({
   limit: z.coerce.number().int().min(1).max(100).default(30),
 });
 
+/** One page of a unit's history: enough to fill a phone screen or two. */
+export const HISTORY_PAGE_SIZE = 25;
+
 export const historyQuerySchema = z.object({
   kind: z
     .union([z.enum(ENTRY_KINDS), z.array(z.enum(ENTRY_KINDS))])
     .transform((v) => (Array.isArray(v) ? v : [v]))
     .optional(),
   cursor: z.string().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(100).default(25),
+  limit: z.coerce.number().int().min(1).max(100).default(HISTORY_PAGE_SIZE),
 });
 
 export type CreateEntryInput = z.infer<typeof createEntrySchema>;

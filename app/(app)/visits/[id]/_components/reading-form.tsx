@@ -1,0 +1,223 @@
+'use client';
+
+import { useMemo, useState, type FormEvent } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { CERTIFIED_WORK_CAUTION, ENERGISED_WORK_CAUTION } from '@/lib/calc/cautions';
+import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
+import { computeReading, type EntryContext, type ReadingComputed } from '@/lib/visits/compute';
+import type { ReadingData, ReadingKey } from '@/lib/visits/schemas';
+import { Cautions, ComputedPanel, FormActions, NumberInput, parseTyped, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+
+type Unit = Quantity | 'V' | 'A';
+
+const groups: { title: string; fields: { key: ReadingKey; label: string; unit: Unit }[] }[] = [
+  {
+    title: 'Pressures',
+    fields: [
+      { key: 'suctionKpaG', label: 'Suction pressure', unit: 'pressureGauge' },
+      { key: 'dischargeKpaG', label: 'Discharge pressure', unit: 'pressureGauge' },
+    ],
+  },
+  {
+    title: 'Temperatures',
+    fields: [
+      { key: 'suctionLineC', label: 'Suction-line temperature', unit: 'temperature' },
+      { key: 'liquidLineC', label: 'Liquid-line temperature', unit: 'temperature' },
+      { key: 'boxC', label: 'Box (return air)', unit: 'temperature' },
+      { key: 'supplyAirC', label: 'Supply air', unit: 'temperature' },
+      { key: 'ambientC', label: 'Ambient', unit: 'temperature' },
+    ],
+  },
+  {
+    title: 'Electrical',
+    fields: [
+      { key: 'voltsL1L2', label: 'L1–L2', unit: 'V' },
+      { key: 'voltsL2L3', label: 'L2–L3', unit: 'V' },
+      { key: 'voltsL1L3', label: 'L1–L3', unit: 'V' },
+      { key: 'controlVolts', label: 'Control voltage', unit: 'V' },
+      { key: 'compressorAmps', label: 'Compressor current', unit: 'A' },
+      { key: 'fanAmps', label: 'Fan current', unit: 'A' },
+    ],
+  },
+];
+const allFields = groups.flatMap((g) => g.fields);
+const electricalKeys: readonly string[] = groups[2]!.fields.map((f) => f.key);
+const refrigerantKeys: readonly string[] = allFields.map((f) => f.key).filter((k) => !electricalKeys.includes(k));
+const electricalRows = ['unbalancePct', 'supplyVerdict', 'controlVoltageStatus'];
+
+/** Typed text → SI reading data (V and A need no conversion). */
+export function readingDataFrom(values: Partial<Record<ReadingKey, string>>, prefs: UnitPrefs): ReadingData {
+  const data: Partial<Record<ReadingKey, number>> = {};
+  for (const f of allFields) {
+    const text = values[f.key] ?? '';
+    const v = f.unit === 'V' || f.unit === 'A' ? parseTyped(text) : fromDisplayValue(text, f.unit, prefs);
+    if (v !== null) data[f.key] = v;
+  }
+  return data as ReadingData;
+}
+
+const statusWords: Record<string, string> = {
+  ok: 'Within limits',
+  caution: 'Caution',
+  derate: 'Derate the motor',
+  do_not_operate: 'Do not operate',
+  low: 'Low',
+  high: 'High',
+  range_a: 'Range A (normal)',
+  range_b: 'Range B (correct the supply)',
+  outside: 'Outside Range B',
+};
+
+/** Computed values as rows in the user's units; the same rounding the history and report use. */
+export function readingRows(c: ReadingComputed, prefs: UnitPrefs): ComputedRow[] {
+  const rows: ComputedRow[] = [];
+  const t = (key: keyof ReadingComputed, label: string, q: Quantity, note?: string) => {
+    const v = c[key];
+    if (typeof v === 'number') rows.push({ key, label, value: formatQuantity(v, q, prefs), ...(note ? { note } : {}) });
+  };
+  t('evaporatingC', 'Evaporating (saturation, dew point)', 'temperature');
+  t('condensingC', 'Condensing (saturation, bubble point)', 'temperature');
+  t('superheatK', 'Superheat', 'temperatureDiff');
+  t('subcoolingK', 'Subcooling', 'temperatureDiff');
+  t('evaporatorTdK', 'Evaporator TD', 'temperatureDiff');
+  t('condenserSplitK', 'Condenser split', 'temperatureDiff');
+  if (c.compressionRatio !== null) rows.push({ key: 'compressionRatio', label: 'Compression ratio', value: c.compressionRatio.toFixed(2) });
+  if (c.unbalancePct !== null) {
+    rows.push({
+      key: 'unbalancePct',
+      label: 'Voltage unbalance',
+      value: `${c.unbalancePct.toFixed(2)} %`,
+      note: `${statusWords[c.unbalanceStatus ?? ''] ?? c.unbalanceStatus ?? ''}${c.deratingFactor !== null && c.deratingFactor < 1 ? ` · derating factor ${c.deratingFactor.toFixed(2)}` : ''}`,
+      tone: c.doNotOperate ? 'danger' : c.unbalanceStatus === 'ok' ? 'plain' : 'warning',
+    });
+  }
+  if (c.supplyVerdict) {
+    rows.push({ key: 'supplyVerdict', label: 'Supply voltage', value: statusWords[c.supplyVerdict] ?? c.supplyVerdict, note: c.supplyMessage ?? undefined, tone: c.supplyVerdict === 'range_a' ? 'plain' : 'warning' });
+  }
+  if (c.controlVoltageStatus) {
+    rows.push({
+      key: 'controlVoltageStatus',
+      label: 'Control voltage',
+      value: statusWords[c.controlVoltageStatus] ?? c.controlVoltageStatus,
+      note: c.controlVoltageNotes.join(' ') || undefined,
+      tone: c.controlVoltageStatus === 'ok' ? 'plain' : 'warning',
+    });
+  }
+  return rows;
+}
+
+export function ReadingForm({
+  ctx,
+  prefs,
+  refrigerantCautions,
+  onSubmit,
+  onCancel,
+}: {
+  ctx: EntryContext;
+  prefs: UnitPrefs;
+  refrigerantCautions: string[];
+  onSubmit: (data: ReadingData) => Promise<SubmitResult>;
+  onCancel: () => void;
+}) {
+  const [values, setValues] = useState<Partial<Record<ReadingKey, string>>>({});
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const data = useMemo(() => readingDataFrom(values, prefs), [values, prefs]);
+  // Only finite numbers go to the calculations; a half-typed value is simply not used yet.
+  const { computed, refrigerantSide, electricalSide } = useMemo(() => {
+    const clean = Object.fromEntries(Object.entries(data).filter(([, v]) => Number.isFinite(v))) as ReadingData;
+    const only = (keys: readonly string[]) => Object.fromEntries(Object.entries(clean).filter(([k]) => keys.includes(k))) as ReadingData;
+    // The whole set is what gets stored; each side alone names the bases and problems under its own panel.
+    return {
+      computed: computeReading(clean, ctx),
+      refrigerantSide: computeReading(only(refrigerantKeys), ctx),
+      electricalSide: computeReading(only(electricalKeys), ctx),
+    };
+  }, [data, ctx]);
+  const rows = readingRows(computed, prefs);
+
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    setBusy(true);
+    setMessage(null);
+    const result = await onSubmit(data);
+    setBusy(false);
+    if (result.ok) {
+      setValues({});
+      setErrors({});
+    } else {
+      setErrors(result.errors);
+      setMessage(result.message ?? null);
+    }
+  }
+
+  const unitLabel = (u: Unit) => (u === 'V' || u === 'A' ? u : conversionFor(u, prefs).label);
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4" aria-label="New readings">
+      <Cautions items={[CERTIFIED_WORK_CAUTION, ...refrigerantCautions]} title="Gauges on a live refrigerant circuit" />
+      {!ctx.refrigerant ? (
+        <Alert tone="info" title="No refrigerant on record">
+          Pressures are saved as read, but cannot be turned into temperatures until the system’s refrigerant is recorded.
+        </Alert>
+      ) : (
+        <p className="text-sm text-slate-700">
+          Refrigerant <strong>{ctx.refrigerant}</strong>; gauge pressures read against the barometer at the site’s elevation ({Math.round(ctx.elevationM)} m).
+        </p>
+      )}
+      {groups.map((g) => (
+        <fieldset key={g.title} className="space-y-3">
+          <legend className="text-base font-bold text-slate-900">{g.title}</legend>
+          {g.title === 'Electrical' ? <Cautions items={[ENERGISED_WORK_CAUTION]} title="Energised equipment" /> : null}
+          <div className="grid grid-cols-1 gap-3 min-[400px]:grid-cols-2 lg:grid-cols-3">
+            {g.fields.map((f) => (
+              <NumberInput
+                key={f.key}
+                id={`reading-${f.key}`}
+                label={f.label}
+                unit={unitLabel(f.unit)}
+                value={values[f.key] ?? ''}
+                onChange={(v) => setValues((s) => ({ ...s, [f.key]: v }))}
+                error={errors[f.key]}
+                allowNegative={f.unit === 'temperature' || f.unit === 'pressureGauge'}
+              />
+            ))}
+          </div>
+          {g.title === 'Temperatures' ? (
+            <ComputedPanel
+              title="Computed refrigerant-side values"
+              rows={rows.filter((r) => !electricalRows.includes(r.key))}
+              bases={refrigerantSide.bases}
+              problems={refrigerantSide.problems}
+              empty="Enter pressures and line temperatures to see saturation temperatures, superheat and subcooling."
+            />
+          ) : null}
+          {g.title === 'Electrical' ? (
+            <>
+              <ComputedPanel
+                title="Computed electrical values"
+                rows={rows.filter((r) => electricalRows.includes(r.key))}
+                bases={electricalSide.bases}
+                problems={electricalSide.problems}
+                empty="Enter the three line voltages for unbalance and the supply check, or the control voltage."
+              />
+              {computed.doNotOperate ? (
+                <Alert tone="danger" title="Do not operate the motor at this unbalance">
+                  Have the supply corrected first; running a motor at this unbalance overheats its windings.
+                </Alert>
+              ) : null}
+            </>
+          ) : null}
+        </fieldset>
+      ))}
+      {message ? (
+        <Alert tone="danger" title="Not saved">
+          {message}
+        </Alert>
+      ) : null}
+      <FormActions busy={busy} onCancel={onCancel} label="Save readings" />
+    </form>
+  );
+}

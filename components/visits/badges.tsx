@@ -1,0 +1,135 @@
+import {
+  Ban,
+  CalendarClock,
+  Camera,
+  CheckCheck,
+  CircleCheck,
+  CircleDot,
+  ClipboardCheck,
+  CloudOff,
+  Droplets,
+  Eye,
+  Gauge,
+  Hammer,
+  HeartPulse,
+  LoaderCircle,
+  Lock,
+  NotebookPen,
+  OctagonAlert,
+  PowerOff,
+  Search,
+  SlidersHorizontal,
+  TriangleAlert,
+  Unlock,
+  Wrench,
+  type LucideIcon,
+} from 'lucide-react';
+import { followUpStatusLabels, type FollowUpStatus } from '@/lib/follow-ups/schemas';
+import { entryKindLabels, severityLabels, type EntryKind, type Severity } from '@/lib/visits/schemas';
+import { cn } from '@/lib/utils';
+
+// Status is never colour alone: every badge here has its word and an icon.
+const pill = 'inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2 py-0.5 text-sm font-semibold';
+
+export const severityLooks: Record<Severity, { Icon: LucideIcon; box: string; hint: string }> = {
+  safety: { Icon: OctagonAlert, box: 'border-red-400 bg-red-50 text-red-950', hint: 'A hazard to people or property' },
+  down: { Icon: PowerOff, box: 'border-red-300 bg-white text-red-900', hint: 'Not cooling or not running' },
+  degraded: { Icon: TriangleAlert, box: 'border-amber-400 bg-amber-50 text-amber-950', hint: 'Running, but not as it should' },
+  minor: { Icon: CircleDot, box: 'border-slate-300 bg-white text-slate-800', hint: 'Worth doing at a later visit' },
+};
+
+export function SeverityBadge({ severity, className }: { severity: Severity; className?: string }) {
+  const { Icon, box } = severityLooks[severity];
+  return (
+    <span className={cn(pill, box, className)}>
+      <Icon aria-hidden className="size-4" />
+      <span className="sr-only">Severity: </span>
+      {severityLabels[severity]}
+    </span>
+  );
+}
+
+const followUpLooks: Record<FollowUpStatus, { Icon: LucideIcon; box: string }> = {
+  open: { Icon: CircleDot, box: 'border-amber-400 bg-amber-50 text-amber-950' },
+  scheduled: { Icon: CalendarClock, box: 'border-ice-300 bg-ice-50 text-ice-950' },
+  resolved: { Icon: CircleCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
+  declined: { Icon: Ban, box: 'border-slate-300 bg-slate-100 text-slate-800' },
+};
+
+export function FollowUpStatusBadge({ status, className }: { status: FollowUpStatus; className?: string }) {
+  const { Icon, box } = followUpLooks[status];
+  return (
+    <span className={cn(pill, box, className)}>
+      <Icon aria-hidden className="size-4" />
+      <span className="sr-only">Status: </span>
+      {followUpStatusLabels[status]}
+    </span>
+  );
+}
+
+export function VisitStatusBadge({ status, reviewed, className }: { status: 'open' | 'closed'; reviewed?: boolean; className?: string }) {
+  const look =
+    status === 'open'
+      ? { Icon: Unlock, box: 'border-amber-400 bg-amber-50 text-amber-950', word: 'Open' }
+      : reviewed
+        ? { Icon: CheckCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950', word: 'Closed · reviewed' }
+        : { Icon: Lock, box: 'border-slate-300 bg-white text-slate-800', word: 'Closed' };
+  return (
+    <span className={cn(pill, look.box, className)}>
+      <look.Icon aria-hidden className="size-4" />
+      <span className="sr-only">Visit status: </span>
+      {look.word}
+    </span>
+  );
+}
+
+export function NeedsReviewBadge({ className }: { className?: string }) {
+  return (
+    <span className={cn(pill, 'border-ice-400 bg-white text-ice-950', className)}>
+      <Eye aria-hidden className="size-4" />
+      Needs review
+    </span>
+  );
+}
+
+export const entryKindIcons: Record<EntryKind, LucideIcon> = {
+  reading: Gauge,
+  finding: Search,
+  action: Wrench,
+  setting_change: SlidersHorizontal,
+  part: Hammer,
+  refrigerant: Droplets,
+  condition: HeartPulse,
+  note: NotebookPen,
+  photo: Camera,
+};
+
+export function EntryKindLabel({ kind, className }: { kind: EntryKind; className?: string }) {
+  const Icon = entryKindIcons[kind];
+  return (
+    <span className={cn('inline-flex items-center gap-1.5 font-semibold text-slate-900', className)}>
+      <Icon aria-hidden className="size-4 shrink-0 text-ice-700" />
+      {entryKindLabels[kind]}
+    </span>
+  );
+}
+
+export type SaveState = 'saved' | 'sending' | 'waiting' | 'refused';
+
+const saveLooks: Record<SaveState, { Icon: LucideIcon; box: string; word: string }> = {
+  saved: { Icon: ClipboardCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950', word: 'Saved' },
+  sending: { Icon: LoaderCircle, box: 'border-ice-300 bg-ice-50 text-ice-950', word: 'Saving…' },
+  waiting: { Icon: CloudOff, box: 'border-amber-400 bg-amber-50 text-amber-950', word: 'Waiting for signal — kept on this phone' },
+  refused: { Icon: OctagonAlert, box: 'border-red-400 bg-red-50 text-red-950', word: 'Not saved' },
+};
+
+/** Whether an entry has reached the server: the technician must be able to tell at a glance. */
+export function SaveStateBadge({ state, className }: { state: SaveState; className?: string }) {
+  const { Icon, box, word } = saveLooks[state];
+  return (
+    <span data-save-state={state} className={cn(pill, 'whitespace-normal', box, className)}>
+      <Icon aria-hidden className={cn('size-4 shrink-0', state === 'sending' && 'animate-spin motion-reduce:animate-none')} />
+      {word}
+    </span>
+  );
+}

@@ -1,0 +1,81 @@
+import { Alert } from '@/components/ui/alert';
+import { SeverityBadge } from '@/components/visits/badges';
+import type { UnitPrefs } from '@/lib/units/quantities';
+import type { EntryDto } from '@/lib/visits/dto';
+import { describeEntry } from '@/lib/visits/report-content';
+import type { Severity } from '@/lib/visits/schemas';
+
+interface LeakResult {
+  ratePct?: number;
+  thresholdPct?: number;
+  exceedsThreshold?: boolean;
+  regulated?: boolean;
+  repairDueDate?: string | null;
+  basis?: string;
+  cautions?: string[];
+}
+
+/** Drops the "Kind: " the shared one-line description starts with; the kind is shown beside it. */
+function withoutKindPrefix(text: string): string {
+  const i = text.indexOf(': ');
+  return i > 0 && i < 40 ? text.slice(i + 2) : text;
+}
+
+function formatDay(iso: string): string {
+  return new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+}
+
+/** The leak rate the server worked out on an addition, with the repair deadline when it is over the threshold. */
+export function LeakRateNotice({ computed }: { computed: Record<string, unknown> | null }) {
+  const leak = (computed?.leak ?? null) as LeakResult | null;
+  const problems = Array.isArray(computed?.problems) ? (computed.problems as string[]) : [];
+  if (!leak) {
+    return problems.length ? (
+      <Alert tone="info" title="Leak rate not computed" className="mt-2">
+        {problems.join(' ')}
+      </Alert>
+    ) : null;
+  }
+  const rate = typeof leak.ratePct === 'number' ? `${leak.ratePct.toFixed(1)} % per year` : '—';
+  if (leak.exceedsThreshold) {
+    return (
+      <Alert tone="danger" title={`Leak rate ${rate}: over the ${leak.thresholdPct} % threshold`} className="mt-2">
+        {leak.repairDueDate ? (
+          <p>
+            Repair due by <strong data-testid="leak-repair-due">{formatDay(leak.repairDueDate)}</strong>, then the verification tests.
+          </p>
+        ) : (
+          <p>Above the threshold for this application; no regime covers this appliance on this date, so no legal deadline is set.</p>
+        )}
+        {leak.basis ? <p className="mt-1 text-xs">Basis: {leak.basis}</p> : null}
+      </Alert>
+    );
+  }
+  return (
+    <Alert tone="info" title={`Leak rate ${rate}: within the ${leak.thresholdPct} % threshold`} className="mt-2">
+      {leak.basis ? <p className="text-xs">Basis: {leak.basis}</p> : null}
+    </Alert>
+  );
+}
+
+/** One entry in words, in the viewer's units; the same sentence the visit report uses. */
+export function EntrySummary({ entry, prefs }: { entry: Pick<EntryDto, 'kind' | 'data' | 'computed'> & Partial<EntryDto>; prefs: UnitPrefs }) {
+  const text = withoutKindPrefix(describeEntry(entry as EntryDto, prefs));
+  const d = entry.data;
+  return (
+    <div className="min-w-0 space-y-1">
+      {entry.kind === 'finding' ? (
+        <p className="flex flex-wrap items-center gap-2">
+          <SeverityBadge severity={d.severity as Severity} />
+          {d.raiseFollowUp ? <span className="text-sm font-medium text-slate-700">Follow-up raised</span> : null}
+        </p>
+      ) : null}
+      {entry.kind === 'photo' && typeof d.photoId === 'string' ? (
+        // A plain img: the bytes come through the access-checked API, not an image optimiser.
+        <img src={`/api/photos/${d.photoId}/thumb`} alt={typeof d.caption === 'string' ? d.caption : 'Photo'} className="h-24 w-auto rounded border border-slate-300" loading="lazy" />
+      ) : null}
+      <p className="break-words text-slate-900">{entry.kind === 'finding' ? String(d.text ?? '') : text}</p>
+      {entry.kind === 'refrigerant' && d.direction === 'added' && entry.computed !== undefined ? <LeakRateNotice computed={entry.computed} /> : null}
+    </div>
+  );
+}

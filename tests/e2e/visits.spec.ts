@@ -1,0 +1,208 @@
+import { expect, test, type Browser, type Page, type TestInfo } from '@playwright/test';
+import { computeReading, type EntryContext } from '../../lib/visits/compute';
+import type { VisitDetailDto } from '../../lib/visits/dto';
+import { formatQuantity, fromDisplayValue, type UnitPrefs } from '../../lib/units/quantities';
+import { firstLink } from '../helpers/mail';
+import { api, circuitFacts, createCircuit, waitForVisitReport } from '../helpers/visits';
+import { shot, signIn } from './helpers';
+
+// A whole no-cooling visit in the browser, as the technician does it on site, then the office's
+// side. The desktop and phone runs use different demo sites so each starts its own visit there.
+
+const imperial: UnitPrefs = { units: 'imperial', metricPressure: 'kPa' };
+
+async function officeSession(browser: Browser, info: TestInfo): Promise<Page> {
+  const context = await browser.newContext({ baseURL: info.project.use.baseURL, viewport: { width: 1280, height: 800 } });
+  const page = await context.newPage();
+  await signIn(page, 'office@rimeline.test');
+  return page;
+}
+
+async function visitDetail(page: Page, id: string): Promise<VisitDetailDto> {
+  return api<VisitDetailDto>(page.request, 'GET', `/api/visits/${id}`);
+}
+
+test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper that blocks closing, the report e-mail @phone', async ({ page, browser }, info) => {
+  test.setTimeout(240_000);
+  const phone = info.project.name === 'phone';
+  const label = `${phone ? 'P' : 'D'}${String(Date.now()).slice(-5)}`;
+  const siteName = phone ? 'Commissary' : 'Orchard Row Bistro';
+  const office = await officeSession(browser, info);
+  const circuit = await createCircuit(office.request, siteName, label);
+
+  // The technician starts the visit from the site page.
+  await signIn(page, 'tech@rimeline.test');
+  await page.goto(`/sites/${circuit.site.id}`);
+  await page.getByRole('link', { name: 'Start visit' }).click();
+  await page.getByRole('radio', { name: 'No-cooling call' }).check();
+  await page.getByRole('button', { name: 'Start visit' }).click();
+  await page.waitForURL(/\/visits\/[0-9a-f-]{36}$/);
+  const visitId = page.url().split('/visits/')[1]!;
+  await expect(page.getByText('Service visit · No-cooling call')).toBeVisible();
+
+  // Readings on the condensing unit, with the computed values shown as they are typed.
+  await page.getByRole('button', { name: new RegExp(`Condensing unit ${label}`) }).click();
+  await page.getByRole('button', { name: 'Readings' }).click();
+  const typed = { suction: '20', discharge: '250', suctionLine: '30', liquidLine: '95', box: '41', ambient: '90' };
+  await page.getByLabel('Suction pressure (psig)', { exact: true }).fill(typed.suction);
+  await page.getByLabel('Discharge pressure (psig)', { exact: true }).fill(typed.discharge);
+  await page.getByLabel('Suction-line temperature (°F)', { exact: true }).fill(typed.suctionLine);
+  await page.getByLabel('Liquid-line temperature (°F)', { exact: true }).fill(typed.liquidLine);
+  await page.getByLabel('Box (return air) (°F)', { exact: true }).fill(typed.box);
+  await page.getByLabel('Ambient (°F)', { exact: true }).fill(typed.ambient);
+
+  const ctx: EntryContext = {
+    refrigerant: circuitFacts.refrigerant,
+    elevationM: circuit.site.elevationM,
+    designBoxTempC: circuitFacts.designBoxTempC,
+    nameplateVoltage: circuitFacts.nameplateVoltage,
+    controlVoltageNominal: null,
+    designPressureHighKpaG: circuitFacts.designPressureHighKpa,
+  };
+  const data = {
+    suctionKpaG: fromDisplayValue(typed.suction, 'pressureGauge', imperial)!,
+    dischargeKpaG: fromDisplayValue(typed.discharge, 'pressureGauge', imperial)!,
+    suctionLineC: fromDisplayValue(typed.suctionLine, 'temperature', imperial)!,
+    liquidLineC: fromDisplayValue(typed.liquidLine, 'temperature', imperial)!,
+    boxC: fromDisplayValue(typed.box, 'temperature', imperial)!,
+    ambientC: fromDisplayValue(typed.ambient, 'temperature', imperial)!,
+  };
+  const expected = computeReading(data, ctx);
+  expect(expected.superheatK).not.toBeNull();
+  await expect(page.getByTestId('computed-superheatK')).toHaveText(formatQuantity(expected.superheatK, 'temperatureDiff', imperial));
+  await expect(page.getByTestId('computed-subcoolingK')).toHaveText(formatQuantity(expected.subcoolingK, 'temperatureDiff', imperial));
+  await expect(page.getByTestId('computed-evaporatingC')).toHaveText(formatQuantity(expected.evaporatingC, 'temperature', imperial));
+  await expect(page.getByText('Gauges on a live refrigerant circuit')).toBeVisible();
+  await expect(page.getByText('Caution: Energised equipment')).toBeVisible();
+  await shot(page, `visit-readings-${info.project.name}`);
+  await page.getByRole('button', { name: 'Save readings' }).click();
+  const saved = page.getByTestId('just-saved');
+  await expect(saved.getByText('Saved', { exact: true })).toBeVisible();
+
+  // What the server stored equals what the form showed.
+  const afterReading = await visitDetail(page, visitId);
+  const reading = afterReading.entries.find((e) => e.kind === 'reading')!;
+  expect((reading.computed as { superheatK: number }).superheatK).toBe(expected.superheatK);
+
+  // A finding that raises a follow-up for the office.
+  await page.getByRole('button', { name: 'Finding' }).click();
+  await page.getByLabel('What was found').fill(`Condenser fan motor seized, unit tripping on high head pressure (${label})`);
+  await page.getByRole('radio', { name: /^Down/ }).check();
+  await page.getByRole('checkbox', { name: /Raise a follow-up/ }).check();
+  await page.getByLabel('Follow-up title (optional)').fill(`Replace condenser fan motor ${label}`);
+  await page.getByRole('button', { name: 'Save finding' }).click();
+  await expect(saved.getByText('Saved', { exact: true })).toBeVisible();
+  await expect(saved.getByText('Follow-up raised')).toBeVisible();
+
+  // An action with a jumper across a safety control.
+  await page.getByRole('button', { name: 'Action' }).click();
+  await page.getByLabel('What was done').fill('Jumpered the high-pressure control to confirm the fan fault');
+  await page.getByRole('checkbox', { name: /I bypassed a safety or operating control/ }).check();
+  await expect(page.getByText('This visit cannot be closed until you confirm the bypass was removed.')).toBeVisible();
+  await page.getByLabel('Which control was bypassed, and how').fill('jumper across the high-pressure control');
+  await page.getByRole('button', { name: 'Save action' }).click();
+  await expect(saved.getByText('Saved', { exact: true })).toBeVisible();
+  await expect(page.getByRole('alert').filter({ hasText: 'A safety or operating control is bypassed' })).toBeVisible();
+
+  // Closing is refused until the jumper is confirmed removed.
+  await page.getByRole('button', { name: 'All equipment' }).click();
+  await page.getByLabel('Summary for the client').fill('Condenser fan motor seized; the box warmed to 41 °F. Follow-up raised to replace the motor.');
+  await page.getByRole('button', { name: 'Close visit' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'The visit is still open' })).toContainText('Confirm the jumper or bypass was removed');
+  expect((await visitDetail(page, visitId)).status).toBe('open');
+  await shot(page, `visit-close-blocked-${info.project.name}`);
+  await page.getByRole('checkbox', { name: /I removed every jumper or bypass/ }).check();
+  await page.getByRole('button', { name: 'Close visit' }).click();
+  await expect(page.getByText('Download report (PDF)')).toBeVisible();
+  const closed = await visitDetail(page, visitId);
+  expect(closed.status).toBe('closed');
+  expect(closed.openBypasses).toEqual([]);
+  expect(closed.entries.some((e) => e.kind === 'action' && e.data.bypassRemovalOf)).toBe(true);
+
+  // The client's report contact gets the e-mail with the site's name and a link to the visit.
+  const mail = await waitForVisitReport('owner@client-one.test', visitId);
+  expect(mail.subject).toContain(siteName);
+  expect(mail.text).toContain('No-cooling call');
+  expect(firstLink(mail.text ?? '', `/visits/${visitId}`)).toBe(`${info.project.use.baseURL}/visits/${visitId}`);
+  expect(mail.html ?? '').toContain(`/visits/${visitId}`);
+
+  // The office: the visit waits for review, the follow-up is in the list with its age.
+  await office.goto('/visits');
+  const row = office.getByRole('link', { name: new RegExp(`${siteName} · No-cooling call`) }).filter({ hasText: 'Needs review' }).first();
+  await expect(row).toBeVisible();
+  await office.goto(`/visits/${visitId}`);
+  await expect(office.getByText('Needs review')).toBeVisible();
+  await expect(office.getByText(/Superheat|superheat/).first()).toBeVisible();
+  const pdf = await office.request.get(`/api/visits/${visitId}/report`);
+  expect(pdf.headers()['content-type']).toBe('application/pdf');
+  expect((await pdf.body()).subarray(0, 5).toString()).toBe('%PDF-');
+  await office.getByRole('button', { name: 'Mark reviewed' }).click();
+  await expect(office.getByText('Closed · reviewed')).toBeVisible();
+  await shot(office, `visit-reviewed-${info.project.name}`);
+
+  await office.goto('/follow-ups');
+  const followUp = office.getByRole('listitem').filter({ hasText: `Replace condenser fan motor ${label}` });
+  await expect(followUp).toBeVisible();
+  await expect(followUp.getByText('Down')).toBeVisible();
+  await expect(followUp.getByTestId('follow-up-age')).toHaveText('Open less than a day');
+  await followUp.getByRole('button', { name: 'Schedule' }).click();
+  await followUp.getByLabel('Planned for').fill('2030-01-15');
+  await followUp.getByRole('button', { name: 'Schedule', exact: true }).click();
+  await expect(followUp.getByText('Planned for Jan 15, 2030')).toBeVisible();
+  await expect(followUp.getByText('Status: Scheduled', { exact: true })).toBeVisible();
+  await office.context().close();
+});
+
+test('an entry saved without signal waits on the phone and reaches the server once @phone', async ({ page, context, browser }, info) => {
+  test.setTimeout(180_000);
+  const phone = info.project.name === 'phone';
+  const label = `${phone ? 'P' : 'D'}${String(Date.now()).slice(-5)}`;
+  const office = await officeSession(browser, info);
+  const circuit = await createCircuit(office.request, phone ? 'Pell Street Kitchen' : 'Linden Avenue Market', label);
+  await office.context().close();
+
+  await signIn(page, 'tech@rimeline.test');
+  const visit = await api<{ id: string }>(page.request, 'POST', '/api/visits', { siteId: circuit.site.id, reason: 'maintenance' });
+  await page.goto(`/visits/${visit.id}?equipment=${circuit.evaporator.id}`);
+  await page.getByRole('button', { name: 'Note' }).click();
+
+  // No signal while saving: the entry stays on the phone and says so.
+  await context.setOffline(true);
+  await page.getByLabel('Note', { exact: true }).fill(`Drain line cleared, kept while offline ${label}`);
+  await page.getByRole('button', { name: 'Save note' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
+  const kept = await page.evaluate((id) => window.localStorage.getItem(`rimeline:pending-entries:${id}`), visit.id);
+  expect(kept).toContain('kept while offline');
+  await shot(page, `visit-offline-${info.project.name}`);
+
+  // Signal back: it is sent, and the server holds it exactly once.
+  await context.setOffline(false);
+  await expect(page.getByTestId('just-saved').getByText('Saved', { exact: true })).toBeVisible({ timeout: 30_000 });
+  let detail = await visitDetail(page, visit.id);
+  expect(detail.entries.filter((e) => e.kind === 'note' && String(e.data.text).includes(label))).toHaveLength(1);
+  expect(await page.evaluate((id) => window.localStorage.getItem(`rimeline:pending-entries:${id}`), visit.id)).toBeNull();
+
+  // The server saves it but the answer is lost: the retry gets the first save back, no duplicate.
+  let lost = 0;
+  await page.route(`**/api/visits/${visit.id}/entries`, async (route) => {
+    if (lost === 0) {
+      lost += 1;
+      await route.fetch();
+      await route.abort('connectionreset');
+    } else {
+      await route.continue();
+    }
+  });
+  await page.getByRole('button', { name: 'Note' }).click();
+  await page.getByLabel('Note', { exact: true }).fill(`Answer lost on the way back ${label}`);
+  await page.getByRole('button', { name: 'Save note' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
+  await page.getByRole('button', { name: 'Try sending now' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Saved', { exact: true })).toBeVisible({ timeout: 30_000 });
+  expect(lost).toBe(1);
+  detail = await visitDetail(page, visit.id);
+  expect(detail.entries.filter((e) => e.kind === 'note' && String(e.data.text).includes('Answer lost'))).toHaveLength(1);
+  await page.unroute(`**/api/visits/${visit.id}/entries`);
+
+  await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Routine maintenance.' });
+});
