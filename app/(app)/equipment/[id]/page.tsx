@@ -5,13 +5,17 @@ import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import { ButtonLink } from '@/components/ui/button';
-import { Card, EmptyState } from '@/components/ui/card';
+import { Card } from '@/components/ui/card';
+import { EquipmentHistory } from '@/components/visits/equipment-history';
+import { ReadingChart } from '@/components/visits/reading-chart';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
 import { nameplateFields } from '@/lib/equipment/nameplate';
 import { getEquipment } from '@/lib/equipment/service';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
+import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
+import { equipmentHistory } from '@/lib/visits/service';
 import { DeleteEquipmentButton } from '@/app/(app)/equipment/[id]/_components/delete-equipment-button';
 import { RelationManager } from '@/app/(app)/equipment/[id]/_components/relation-manager';
 import { formatNameplateValue } from '@/app/(app)/equipment/_components/nameplate-values';
@@ -135,10 +139,24 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
       </section>
 
       <section aria-labelledby="history-h" className="space-y-3">
-        <h2 id="history-h" className="text-lg font-semibold">
-          History
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="history-h" className="text-lg font-semibold">
+            History
+          </h2>
+          {can(actor, 'visits.start') ? (
+            <ButtonLink href={`/visits/new?siteId=${equipment.siteId}&equipmentId=${equipment.id}`} size="lg">
+              Log a visit on this unit
+            </ButtonLink>
+          ) : null}
+        </div>
+        <EquipmentHistory scope="equipment" id={equipment.id} prefs={prefs} initialPage={await equipmentHistory(actor, equipment.id, { limit: HISTORY_PAGE_SIZE })} />
+      </section>
+
+      <section aria-labelledby="trend-h" className="space-y-3">
+        <h2 id="trend-h" className="text-lg font-semibold">
+          Readings over time
         </h2>
-        <EmptyState title="No history yet.">Visit entries will appear here once visits are recorded.</EmptyState>
+        <ReadingChart equipmentId={equipment.id} prefs={prefs} />
       </section>
     </div>
   );

@@ -2,14 +2,17 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
+import { FollowUpList } from '@/components/visits/follow-up-list';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
 import { formatElevation } from '@/lib/units/format';
 import { siteAddress } from '@/lib/sites/dto';
 import { listEquipment } from '@/lib/equipment/service';
+import { listFollowUps } from '@/lib/follow-ups/service';
 import { getSite, listAreas } from '@/lib/sites/service';
 import { listSystems } from '@/lib/systems/service';
+import { listVisits } from '@/lib/visits/service';
 import { AreaManager } from '@/app/(app)/sites/[id]/_components/area-manager';
 import { ArchiveSiteButton } from '@/app/(app)/sites/[id]/_components/archive-site-button';
 import { SiteEquipment } from '@/app/(app)/sites/[id]/_components/site-equipment';
@@ -27,6 +30,11 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
     listEquipment(actor, { siteId: id, limit: 200, sort: 'name', dir: 'asc' }),
   ]);
   const canWrite = can(actor, 'sites.write');
+  const canVisit = can(actor, 'visits.start') && !site.archivedAt;
+  const [followUps, myOpenVisit] = await Promise.all([
+    listFollowUps(actor, { siteId: id, status: ['open', 'scheduled'], limit: 50 }),
+    canVisit ? listVisits(actor, { siteId: id, status: 'open', technicianId: actor.id, limit: 1 }).then((p) => p.items[0]) : undefined,
+  ]);
 
   return (
     <div className="space-y-6">
@@ -45,12 +53,21 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
           )
         }
         actions={
-          canWrite ? (
+          canWrite || canVisit ? (
             <>
-              <ButtonLink href={`/sites/${site.id}/edit`} variant="secondary">
-                Edit site
-              </ButtonLink>
-              <ArchiveSiteButton siteId={site.id} archived={Boolean(site.archivedAt)} />
+              {canVisit ? (
+                <ButtonLink href={myOpenVisit ? `/visits/${myOpenVisit.id}` : `/visits/new?siteId=${site.id}`} size="lg">
+                  {myOpenVisit ? 'Continue your visit' : 'Start visit'}
+                </ButtonLink>
+              ) : null}
+              {canWrite ? (
+                <>
+                  <ButtonLink href={`/sites/${site.id}/edit`} variant="secondary">
+                    Edit site
+                  </ButtonLink>
+                  <ArchiveSiteButton siteId={site.id} archived={Boolean(site.archivedAt)} />
+                </>
+              ) : null}
             </>
           ) : null
         }
@@ -83,6 +100,18 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
           <AreaManager siteId={site.id} areas={areas} canWrite={can(actor, 'areas.write')} />
         </section>
       </div>
+      <section aria-labelledby="follow-ups-h" className="space-y-3">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="follow-ups-h" className="text-lg font-semibold">
+            Open follow-ups ({followUps.items.length}
+            {followUps.nextCursor ? '+' : ''})
+          </h2>
+          <Link href={`/follow-ups?siteId=${site.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
+            All follow-ups at this site
+          </Link>
+        </div>
+        <FollowUpList items={followUps.items} canWrite={can(actor, 'followups.write')} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
+      </section>
       <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />
       <SiteEquipment
         siteId={site.id}

@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import { EquipmentList } from '@/components/equipment/equipment-list';
 import { ButtonLink } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { EquipmentHistory } from '@/components/visits/equipment-history';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
@@ -11,6 +12,8 @@ import { listEquipment } from '@/lib/equipment/service';
 import { applicationLabels } from '@/lib/equipment/types';
 import { getSystem } from '@/lib/systems/service';
 import { formatQuantity } from '@/lib/units/quantities';
+import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
+import { systemHistory } from '@/lib/visits/service';
 import { ArchiveSystemButton } from '@/app/(app)/systems/[id]/_components/archive-system-button';
 
 export const metadata: Metadata = { title: 'System' };
@@ -90,6 +93,14 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
             See all {system.equipmentCount} in the equipment table
           </Link>
         ) : null}
+      </section>
+
+      <section aria-labelledby="history-h" className="space-y-3">
+        <h2 id="history-h" className="text-lg font-semibold">
+          History of the whole system
+        </h2>
+        <p className="text-sm text-slate-700">Every entry on this system’s equipment, newest first.</p>
+        <EquipmentHistory scope="system" id={system.id} prefs={prefs} showEquipment initialPage={await systemHistory(actor, system.id, { limit: HISTORY_PAGE_SIZE })} />
       </section>
     </div>
   );
