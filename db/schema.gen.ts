@@ -249,6 +249,22 @@ export interface PrintRuns {
   start_position: Generated<number>;
 }
 
+export interface ServiceRequests {
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  description: string;
+  equipment_id: string | null;
+  id: Generated<string>;
+  office_note: string | null;
+  photo_id: string | null;
+  requested_by: string;
+  site_id: string;
+  status: Generated<string>;
+  updated_at: Generated<Timestamp>;
+  urgency: string;
+  visit_id: string | null;
+}
+
 export interface SignInThrottles {
   failures: Generated<number>;
   first_failure_at: Generated<Timestamp>;
@@ -374,6 +390,7 @@ export interface DB {
   mail_outbox: MailOutbox;
   photos: Photos;
   print_runs: PrintRuns;
+  service_requests: ServiceRequests;
   sign_in_throttles: SignInThrottles;
   sites: Sites;
   systems: Systems;

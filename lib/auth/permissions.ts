@@ -49,6 +49,12 @@ export const permissions = {
   'entries.write': staff,
   'followups.read': everyone,
   'followups.write': staff,
+  'requests.create': ['admin', 'office', 'client'],
+  'requests.read': everyone,
+  'requests.manage': officeUp,
+  'reports.read': everyone,
+  'overview.read': everyone,
+  'due.read': officeUp,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

@@ -1,0 +1,196 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
+import type { Severity } from '@/lib/visits/schemas';
+
+type Db = Kysely<DB> | Transaction<DB>;
+const YEAR_MS = 365.25 * 86_400_000;
+
+export interface SiteSummary {
+  siteId: string;
+  siteName: string;
+  clientName: string;
+  equipmentCount: number;
+  /** Count per condition rating 1–5, and units not yet rated. */
+  byCondition: { 1: number; 2: number; 3: number; 4: number; 5: number; unrated: number };
+  openFollowUps: Record<Severity, number>;
+  systemsOverLeakThreshold: number;
+  pastExpectedLife: number;
+  lastVisitAt: string | null;
+}
+
+/** One row per visible site, from a handful of grouped queries (no per-site round trips). */
+export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = new Date()): Promise<SiteSummary[]> {
+  assertCan(actor, 'overview.read');
+  const sites = await db
+    .selectFrom('sites')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .where(siteVisibleTo(actor))
+    .where('sites.archived_at', 'is', null)
+    .select(['sites.id', 'sites.name', 'clients.name as client_name'])
+    .orderBy('clients.name')
+    .orderBy('sites.name')
+    .execute();
+  const out = new Map<string, SiteSummary>(
+    sites.map((s) => [
+      s.id,
+      {
+        siteId: s.id,
+        siteName: s.name,
+        clientName: s.client_name,
+        equipmentCount: 0,
+        byCondition: { 1: 0, 2: 0, 3: 0, 4: 0, 5: 0, unrated: 0 },
+        openFollowUps: { safety: 0, down: 0, degraded: 0, minor: 0 },
+        systemsOverLeakThreshold: 0,
+        pastExpectedLife: 0,
+        lastVisitAt: null,
+      },
+    ]),
+  );
+  if (sites.length === 0) return [];
+
+  const equipment = await db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.deleted_at', 'is', null)
+    .where('equipment.status', '<>', 'removed')
+    .select(['equipment.site_id', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
+    .execute();
+  for (const e of equipment) {
+    const s = out.get(e.site_id);
+    if (!s) continue;
+    s.equipmentCount++;
+    if (e.condition && e.condition >= 1 && e.condition <= 5) s.byCondition[e.condition as 1 | 2 | 3 | 4 | 5]++;
+    else s.byCondition.unrated++;
+    const life = e.installed_on ? medianServiceLife(e.type as EquipmentType) : null;
+    if (life && e.installed_on && (today.getTime() - Date.parse(`${e.installed_on}T00:00:00Z`)) / YEAR_MS > life.medianYears) s.pastExpectedLife++;
+  }
+
+  const follow = await db
+    .selectFrom('follow_ups')
+    .innerJoin('sites', 'sites.id', 'follow_ups.site_id')
+    .where(siteVisibleTo(actor))
+    .where('follow_ups.status', 'in', ['open', 'scheduled'])
+    .select(['follow_ups.site_id', 'follow_ups.severity', (eb) => eb.fn.countAll<number>().as('n')])
+    .groupBy(['follow_ups.site_id', 'follow_ups.severity'])
+    .execute();
+  for (const f of follow) {
+    const s = out.get(f.site_id);
+    if (s) s.openFollowUps[f.severity as Severity] = Number(f.n);
+  }
+
+  const leaks = await db
+    .selectFrom('entries')
+    .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .where(siteVisibleTo(actor))
+    .where('entries.kind', '=', 'refrigerant')
+    .where('entries.voided_at', 'is', null)
+    .where('entries.recorded_at', '>', new Date(today.getTime() - YEAR_MS))
+    .where(sql<boolean>`(entries.computed->'leak'->>'exceedsThreshold')::boolean`)
+    .select(['equipment.site_id', sql<number>`count(distinct coalesce(entries.system_id, entries.equipment_id))`.as('n')])
+    .groupBy('equipment.site_id')
+    .execute();
+  for (const l of leaks) {
+    const s = out.get(l.site_id);
+    if (s) s.systemsOverLeakThreshold = Number(l.n);
+  }
+
+  const visits = await db
+    .selectFrom('visits')
+    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .where(siteVisibleTo(actor))
+    .where('visits.status', '=', 'closed')
+    .select(['visits.site_id', sql<Date>`max(visits.started_at)`.as('last')])
+    .groupBy('visits.site_id')
+    .execute();
+  for (const v of visits) {
+    const s = out.get(v.site_id);
+    if (s) s.lastVisitAt = new Date(v.last).toISOString();
+  }
+  return [...out.values()];
+}
+
+export interface ChartData {
+  conditionDistribution: { rating: string; count: number }[];
+  ageVsLife: { name: string; ageYears: number; medianYears: number }[];
+  refrigerantAddedByYear: { year: number; system: string; kg: number }[];
+  visitsPerMonth: { month: string; visits: number }[];
+}
+
+/** What the owner's charts plot, for all visible sites or one. */
+export async function chartData(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<ChartData> {
+  assertCan(actor, 'overview.read');
+  const equipment = await db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.deleted_at', 'is', null)
+    .where('equipment.status', '<>', 'removed')
+    .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+    .select(['equipment.name', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
+    .execute();
+  const labels: Record<string, string> = { '5': '5 like new', '4': '4 good', '3': '3 fair', '2': '2 poor', '1': '1 failing', unrated: 'not rated' };
+  const counts = new Map<string, number>(Object.keys(labels).map((k) => [k, 0]));
+  for (const e of equipment) {
+    const key = e.condition ? String(e.condition) : 'unrated';
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  const ageVsLife = equipment
+    .filter((e) => e.installed_on && medianServiceLife(e.type as EquipmentType))
+    .map((e) => ({
+      name: e.name,
+      ageYears: Math.round(((today.getTime() - Date.parse(`${e.installed_on}T00:00:00Z`)) / YEAR_MS) * 10) / 10,
+      medianYears: medianServiceLife(e.type as EquipmentType)!.medianYears,
+    }))
+    .sort((a, b) => b.ageYears / b.medianYears - a.ageYears / a.medianYears)
+    .slice(0, 40);
+  const added = await db
+    .selectFrom('entries')
+    .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .leftJoin('systems', 'systems.id', 'entries.system_id')
+    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .where(siteVisibleTo(actor))
+    .where('entries.kind', '=', 'refrigerant')
+    .where('entries.voided_at', 'is', null)
+    .where(sql<boolean>`entries.data->>'direction' = 'added'`)
+    .$if(actor.role === 'client', (q) => q.where('visits.status', '=', 'closed'))
+    .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+    .select([
+      sql<number>`extract(year from entries.recorded_at)::int`.as('year'),
+      sql<string>`coalesce(systems.name, equipment.name)`.as('system'),
+      sql<number>`sum((entries.data->>'amountKg')::float8)`.as('kg'),
+    ])
+    .groupBy([sql`1`, sql`2`])
+    .orderBy(sql`1`)
+    .execute();
+  const since = new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth() - 11, 1));
+  const visits = await db
+    .selectFrom('visits')
+    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .where(siteVisibleTo(actor))
+    .where('visits.status', '=', 'closed')
+    .where('visits.started_at', '>=', since)
+    .$if(Boolean(siteId), (q) => q.where('visits.site_id', '=', siteId!))
+    .select([sql<string>`to_char(date_trunc('month', visits.started_at), 'YYYY-MM')`.as('month'), (eb) => eb.fn.countAll<number>().as('n')])
+    .groupBy(sql`1`)
+    .execute();
+  const perMonth = new Map(visits.map((v) => [v.month, Number(v.n)]));
+  const months = Array.from({ length: 12 }, (_, i) => {
+    const d = new Date(Date.UTC(since.getUTCFullYear(), since.getUTCMonth() + i, 1));
+    return d.toISOString().slice(0, 7);
+  });
+  return {
+    conditionDistribution: [...counts].map(([k, n]) => ({ rating: labels[k]!, count: n })),
+    ageVsLife,
+    refrigerantAddedByYear: added.map((a) => ({ year: Number(a.year), system: a.system, kg: Math.round(Number(a.kg) * 100) / 100 })),
+    visitsPerMonth: months.map((m) => ({ month: m, visits: perMonth.get(m) ?? 0 })),
+  };
+}

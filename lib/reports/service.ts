@@ -1,0 +1,207 @@
+import 'server-only';
+import Papa from 'papaparse';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { yearlyTotals } from '@/lib/calc/leak-rate';
+import { serviceLifeOutlook, SERVICE_LIFE_SOURCE, type EquipmentType } from '@/lib/calc/service-life';
+import { equipmentTypeLabels, conditionLabels, type Condition } from '@/lib/equipment/types';
+import { AppError } from '@/lib/errors';
+import { renderTablePdf, type TableReport } from '@/lib/reports/table-pdf';
+import { getSite } from '@/lib/sites/service';
+import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+export interface ReportFile {
+  filename: string;
+  contentType: string;
+  body: Uint8Array | string;
+}
+
+/** The site equipment report: every unit with its age, expected life, condition and open follow-ups. */
+export async function siteEquipmentReport(actor: Actor, siteId: string, db: Db = defaultDb, today = new Date()): Promise<TableReport> {
+  assertCan(actor, 'reports.read');
+  const site = await getSite(actor, siteId, db);
+  const rows = await db
+    .selectFrom('equipment')
+    .leftJoin('areas', 'areas.id', 'equipment.area_id')
+    .leftJoin('systems', 'systems.id', 'equipment.system_id')
+    .where('equipment.site_id', '=', site.id)
+    .where('equipment.company_id', '=', actor.companyId)
+    .where('equipment.deleted_at', 'is', null)
+    .select((eb) => [
+      'equipment.id',
+      'equipment.name',
+      'equipment.type',
+      'equipment.make',
+      'equipment.model',
+      'equipment.serial',
+      'equipment.installed_on',
+      'equipment.condition',
+      'equipment.status',
+      'areas.name as area_name',
+      'systems.name as system_name',
+      eb.selectFrom('follow_ups').whereRef('follow_ups.equipment_id', '=', 'equipment.id').where('follow_ups.status', 'in', ['open', 'scheduled']).select(eb.fn.countAll<number>().as('n')).as('open_follow_ups'),
+      eb
+        .selectFrom('entries')
+        .innerJoin('visits', 'visits.id', 'entries.visit_id')
+        .whereRef('entries.equipment_id', '=', 'equipment.id')
+        .where('visits.status', '=', 'closed')
+        .select(sql<Date>`max(visits.started_at)`.as('m'))
+        .as('last_service'),
+    ])
+    .orderBy('areas.name')
+    .orderBy('equipment.name')
+    .execute();
+  const asOf = today.toISOString().slice(0, 10);
+  return {
+    title: `Site equipment report — ${site.name}`,
+    facts: [
+      ['Client', site.clientName],
+      ['Site', site.name],
+      ['As of', asOf],
+      ['Units', String(rows.length)],
+    ],
+    columns: [
+      { label: 'Unit', width: 16 },
+      { label: 'Type', width: 12 },
+      { label: 'Area', width: 10 },
+      { label: 'System', width: 11 },
+      { label: 'Make / model', width: 13 },
+      { label: 'Serial', width: 10 },
+      { label: 'Installed', width: 8 },
+      { label: 'Age (y)', width: 5 },
+      { label: 'Expected life (y)', width: 7 },
+      { label: 'Outlook', width: 9 },
+      { label: 'Condition', width: 8 },
+      { label: 'Open follow-ups', width: 6 },
+      { label: 'Last service', width: 8 },
+    ],
+    rows: rows.map((r) => {
+      const outlook = r.installed_on
+        ? serviceLifeOutlook({ equipmentType: r.type as EquipmentType, installedOn: r.installed_on, asOf, condition: (r.condition ?? undefined) as 1 | 2 | 3 | 4 | 5 | undefined })
+        : null;
+      return [
+        r.name + (r.status === 'removed' ? ' (removed)' : ''),
+        equipmentTypeLabels[r.type as EquipmentType] ?? r.type,
+        r.area_name ?? '',
+        r.system_name ?? '',
+        [r.make, r.model].filter(Boolean).join(' '),
+        r.serial ?? '',
+        r.installed_on ?? '',
+        outlook ? outlook.ageYears.toFixed(1) : '',
+        outlook?.medianYears ? String(outlook.medianYears) : '',
+        outlook ? outlook.outlook.replace(/_/g, ' ') : 'unknown',
+        r.condition ? `${r.condition} ${conditionLabels[r.condition as Condition]}` : 'not rated',
+        String(Number(r.open_follow_ups ?? 0)),
+        r.last_service ? new Date(r.last_service).toISOString().slice(0, 10) : '',
+      ];
+    }),
+    notes: [
+      `Expected service life: median years from ${SERVICE_LIFE_SOURCE}. Guidance, not a prediction.`,
+      'Condition is rated by the technician from 1 (failing) to 5 (like new).',
+    ],
+  };
+}
+
+/** The yearly refrigerant report of one system: every addition and recovery, leak rates, totals. */
+export async function refrigerantReport(actor: Actor, systemId: string, year: number, prefs: UnitPrefs, db: Db = defaultDb): Promise<TableReport> {
+  assertCan(actor, 'reports.read');
+  const system = await db
+    .selectFrom('systems')
+    .innerJoin('sites', 'sites.id', 'systems.site_id')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .where(siteVisibleTo(actor))
+    .where('systems.id', '=', systemId)
+    .select(['systems.id', 'systems.name', 'systems.refrigerant', 'systems.full_charge_kg', 'systems.application', 'sites.name as site_name', 'clients.name as client_name'])
+    .executeTakeFirst();
+  if (!system) throw new AppError('not_found', 'System not found.');
+  const from = new Date(Date.UTC(year, 0, 1));
+  const to = new Date(Date.UTC(year + 1, 0, 1));
+  let q = db
+    .selectFrom('entries')
+    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .innerJoin('users as tech', 'tech.id', 'entries.created_by')
+    .where('entries.system_id', '=', systemId)
+    .where('entries.kind', '=', 'refrigerant')
+    .where('entries.voided_at', 'is', null)
+    .where('entries.recorded_at', '>=', from)
+    .where('entries.recorded_at', '<', to)
+    .select(['entries.id', 'entries.recorded_at', 'entries.data', 'entries.computed', 'visits.id as visit_id', 'visits.reason', 'tech.name as tech_name'])
+    .orderBy('entries.recorded_at');
+  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
+  const entries = await q.execute();
+  const leakChecks = await db
+    .selectFrom('visits')
+    .innerJoin('entries', 'entries.visit_id', 'visits.id')
+    .where('entries.system_id', '=', systemId)
+    .where('visits.reason', '=', 'leak_check')
+    .where('visits.status', '=', 'closed')
+    .where('visits.started_at', '>=', from)
+    .where('visits.started_at', '<', to)
+    .select([sql<Date>`min(visits.started_at)`.as('at'), 'visits.id'])
+    .groupBy('visits.id')
+    .execute();
+  const tx = entries.map((e) => {
+    const d = e.data as { direction: 'added' | 'recovered'; amountKg: number; refrigerant: string; cylinderId?: string | null; technicianCert?: string | null };
+    return { e, d, leak: (e.computed as { leak?: { ratePct: number; thresholdPct: number; exceedsThreshold: boolean; repairDueDate: string | null } } | null)?.leak ?? null };
+  });
+  const totals = yearlyTotals(
+    tx.map(({ e, d }) => ({ systemId, refrigerant: d.refrigerant, date: e.recorded_at.toISOString().slice(0, 10), kind: d.direction, amount: d.amountKg, unit: 'kg' as const })),
+    system.full_charge_kg ? { [systemId]: Number(system.full_charge_kg) } : {},
+  ).bySystem.find((t) => t.year === year);
+  return {
+    title: `Refrigerant report ${year} — ${system.name}`,
+    facts: [
+      ['Client', system.client_name],
+      ['Site', system.site_name],
+      ['System', `${system.name} (${system.refrigerant}, ${system.application.replace(/_/g, ' ')})`],
+      ['Full charge', system.full_charge_kg ? formatQuantity(Number(system.full_charge_kg), 'mass', prefs) : 'not recorded'],
+      ['Added in the year', formatQuantity(totals?.addedKg ?? 0, 'mass', prefs)],
+      ['Recovered in the year', formatQuantity(totals?.recoveredKg ?? 0, 'mass', prefs)],
+      ['Added as share of full charge', totals?.addedPctOfCharge != null ? `${totals.addedPctOfCharge.toFixed(1)} %${totals.chronicLeaker ? ' — at or over 125 %: chronic leaker reporting applies' : ''}` : 'needs the full charge'],
+      ['Leak checks and verification visits', leakChecks.length ? leakChecks.map((v) => new Date(v.at).toISOString().slice(0, 10)).join(', ') : 'none recorded'],
+    ],
+    columns: [
+      { label: 'Date', width: 9 },
+      { label: 'Added / recovered', width: 9 },
+      { label: 'Amount', width: 8 },
+      { label: 'Refrigerant', width: 8 },
+      { label: 'Cylinder', width: 9 },
+      { label: 'Technician', width: 12 },
+      { label: 'Certification', width: 10 },
+      { label: 'Leak rate (annualized)', width: 10 },
+      { label: 'Threshold', width: 7 },
+      { label: 'Repair due', width: 9 },
+    ],
+    rows: tx.map(({ e, d, leak }) => [
+      e.recorded_at.toISOString().slice(0, 10),
+      d.direction,
+      formatQuantity(d.amountKg, 'mass', prefs),
+      d.refrigerant,
+      d.cylinderId ?? '',
+      e.tech_name,
+      d.technicianCert ?? '',
+      leak ? `${leak.ratePct.toFixed(1)} %${leak.exceedsThreshold ? ' OVER' : ''}` : '',
+      leak ? `${leak.thresholdPct} %` : '',
+      leak?.repairDueDate ?? '',
+    ]),
+    notes: [
+      'Leak rate: annualizing method of 40 CFR 82.152, computed on each addition; thresholds by application (82.157 / 84.106).',
+      'Federal US rules only, summarised for guidance; state and local rules may be stricter. Records are kept without deletion.',
+    ],
+  };
+}
+
+export async function reportFile(report: TableReport, format: 'csv' | 'pdf', basename: string): Promise<ReportFile> {
+  if (format === 'csv') {
+    const csv = Papa.unparse({ fields: report.columns.map((c) => c.label), data: report.rows }, { newline: '\r\n' });
+    const header = report.facts.map(([k, v]) => Papa.unparse([[`# ${k}`, v]])).join('\r\n');
+    return { filename: `${basename}.csv`, contentType: 'text/csv; charset=utf-8', body: `${header}\r\n${csv}\r\n` };
+  }
+  return { filename: `${basename}.pdf`, contentType: 'application/pdf', body: await renderTablePdf(report) };
+}

@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import { optionalText, requiredText } from '@/lib/api/schemas';
+
+export const URGENCIES = ['emergency', 'soon', 'routine'] as const;
+export type Urgency = (typeof URGENCIES)[number];
+export const urgencyLabels: Record<Urgency, string> = {
+  emergency: 'Emergency — product at risk now',
+  soon: 'Soon — within a day or two',
+  routine: 'Routine — next convenient visit',
+};
+
+export const REQUEST_STATUSES = ['new', 'acknowledged', 'scheduled', 'done', 'declined'] as const;
+export type RequestStatus = (typeof REQUEST_STATUSES)[number];
+export const requestStatusLabels: Record<RequestStatus, string> = {
+  new: 'New',
+  acknowledged: 'Seen by the office',
+  scheduled: 'Visit planned',
+  done: 'Done',
+  declined: 'Declined',
+};
+
+export const createRequestSchema = z.object({
+  siteId: z.uuid('Choose a site.'),
+  equipmentId: z.uuid().nullable().optional(),
+  description: requiredText('What is wrong', 2000),
+  urgency: z.enum(URGENCIES, { message: 'Choose how urgent it is.' }),
+  photoId: z.uuid().nullable().optional(),
+});
+
+export const updateRequestSchema = z.object({
+  status: z.enum(REQUEST_STATUSES),
+  officeNote: optionalText(2000),
+  visitId: z.uuid().nullable().optional(),
+});
+
+export const listRequestsQuerySchema = z.object({
+  siteId: z.uuid().optional(),
+  status: z
+    .union([z.enum(REQUEST_STATUSES), z.array(z.enum(REQUEST_STATUSES))])
+    .transform((v) => (Array.isArray(v) ? v : [v]))
+    .optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(100),
+});
+
+export type CreateRequestInput = z.infer<typeof createRequestSchema>;
+export type UpdateRequestInput = z.infer<typeof updateRequestSchema>;
+export type ListRequestsQuery = z.infer<typeof listRequestsQuerySchema>;
+
+export interface ServiceRequestDto {
+  id: string;
+  siteId: string;
+  siteName: string;
+  clientName: string;
+  equipmentId: string | null;
+  equipmentName: string | null;
+  requestedByName: string;
+  description: string;
+  urgency: Urgency;
+  photoId: string | null;
+  status: RequestStatus;
+  officeNote: string | null;
+  visitId: string | null;
+  createdAt: string;
+  updatedAt: string;
+}

@@ -1,0 +1,171 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import { siteVisibleTo } from '@/db/helpers';
+import type { DB } from '@/db/schema.gen';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+import { getEquipment } from '@/lib/equipment/service';
+import { env } from '@/lib/env';
+import { AppError } from '@/lib/errors';
+import { escapeHtml } from '@/lib/mail/escape';
+import { enqueueMail, kickMailDelivery } from '@/lib/mail/outbox';
+import {
+  urgencyLabels,
+  type CreateRequestInput,
+  type ListRequestsQuery,
+  type RequestStatus,
+  type ServiceRequestDto,
+  type UpdateRequestInput,
+  type Urgency,
+} from '@/lib/requests/schemas';
+import { getSite } from '@/lib/sites/service';
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+function requestQuery(actor: Actor, db: Db) {
+  return db
+    .selectFrom('service_requests as r')
+    .innerJoin('sites', 'sites.id', 'r.site_id')
+    .innerJoin('clients', 'clients.id', 'sites.client_id')
+    .leftJoin('equipment', 'equipment.id', 'r.equipment_id')
+    .innerJoin('users as requester', 'requester.id', 'r.requested_by')
+    .where(siteVisibleTo(actor))
+    .where('r.company_id', '=', actor.companyId)
+    .select([
+      'r.id',
+      'r.site_id',
+      'sites.name as site_name',
+      'clients.name as client_name',
+      'r.equipment_id',
+      'equipment.name as equipment_name',
+      'requester.name as requester_name',
+      'r.description',
+      'r.urgency',
+      'r.photo_id',
+      'r.status',
+      'r.office_note',
+      'r.visit_id',
+      'r.created_at',
+      'r.updated_at',
+    ]);
+}
+
+type Row = Awaited<ReturnType<ReturnType<typeof requestQuery>['executeTakeFirstOrThrow']>>;
+
+function toDto(r: Row): ServiceRequestDto {
+  return {
+    id: r.id,
+    siteId: r.site_id,
+    siteName: r.site_name,
+    clientName: r.client_name,
+    equipmentId: r.equipment_id,
+    equipmentName: r.equipment_name,
+    requestedByName: r.requester_name,
+    description: r.description,
+    urgency: r.urgency as Urgency,
+    photoId: r.photo_id,
+    status: r.status as RequestStatus,
+    officeNote: r.office_note,
+    visitId: r.visit_id,
+    createdAt: r.created_at.toISOString(),
+    updatedAt: r.updated_at.toISOString(),
+  };
+}
+
+const urgencyRank = sql<number>`case r.urgency when 'emergency' then 0 when 'soon' then 1 else 2 end`;
+
+export async function listRequests(actor: Actor, query: ListRequestsQuery, db: Db = defaultDb): Promise<ServiceRequestDto[]> {
+  assertCan(actor, 'requests.read');
+  let q = requestQuery(actor, db);
+  if (query.siteId) q = q.where('r.site_id', '=', query.siteId);
+  if (query.status?.length) q = q.where('r.status', 'in', query.status);
+  const rows = await q.orderBy(urgencyRank).orderBy('r.created_at', 'desc').limit(query.limit).execute();
+  return rows.map(toDto);
+}
+
+export async function getRequest(actor: Actor, id: string, db: Db = defaultDb): Promise<ServiceRequestDto> {
+  assertCan(actor, 'requests.read');
+  const row = await requestQuery(actor, db).where('r.id', '=', id).executeTakeFirst();
+  if (!row) throw new AppError('not_found', 'Service request not found.');
+  return toDto(row);
+}
+
+/** Records the request and queues an e-mail to the office in the same transaction. */
+export async function createRequest(actor: Actor, input: CreateRequestInput, db: Kysely<DB> = defaultDb): Promise<ServiceRequestDto> {
+  assertCan(actor, 'requests.create');
+  const dto = await db.transaction().execute(async (trx) => {
+    const site = await getSite(actor, input.siteId, trx);
+    if (input.equipmentId) {
+      const e = await getEquipment(actor, input.equipmentId, trx);
+      if (e.siteId !== site.id) throw new AppError('validation_failed', 'That unit is on another site.', [{ path: 'equipmentId', message: 'Choose a unit on this site.' }]);
+    }
+    if (input.photoId) {
+      const photo = await trx.selectFrom('photos').select('id').where('id', '=', input.photoId).where('company_id', '=', actor.companyId).where('uploaded_by', '=', actor.id).executeTakeFirst();
+      if (!photo) throw new AppError('validation_failed', 'That photo was not found.', [{ path: 'photoId', message: 'Upload the photo again.' }]);
+    }
+    const row = await trx
+      .insertInto('service_requests')
+      .values({
+        company_id: actor.companyId,
+        site_id: site.id,
+        equipment_id: input.equipmentId ?? null,
+        requested_by: actor.id,
+        description: input.description,
+        urgency: input.urgency,
+        photo_id: input.photoId ?? null,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const created = await getRequest(actor, row.id, trx);
+    const office = await trx
+      .selectFrom('users')
+      .select('email')
+      .where('company_id', '=', actor.companyId)
+      .where('role', 'in', ['office', 'admin'])
+      .where('deactivated_at', 'is', null)
+      .execute();
+    const url = `${env.APP_URL}/requests/${row.id}`;
+    const what = created.equipmentName ? `${created.equipmentName} at ${created.siteName}` : created.siteName;
+    await enqueueMail(
+      {
+        companyId: actor.companyId,
+        kind: 'service_request',
+        to: office.map((u) => u.email),
+        subject: `${input.urgency === 'emergency' ? 'EMERGENCY — ' : ''}Service request: ${what}`,
+        text: `${created.requestedByName} (${created.clientName}) asks for service.\n\nWhere: ${what}\nUrgency: ${urgencyLabels[input.urgency]}\n\n${input.description}\n\nOpen the request: ${url}\n`,
+        html: `<p><strong>${escapeHtml(created.requestedByName)}</strong> (${escapeHtml(created.clientName)}) asks for service.</p><p>Where: ${escapeHtml(what)}<br>Urgency: ${escapeHtml(urgencyLabels[input.urgency])}</p><p>${escapeHtml(input.description)}</p><p><a href="${escapeHtml(url)}">Open the request in Rimeline</a></p>`,
+      },
+      trx,
+    );
+    await recordAudit(trx, actor, { action: 'create', entityType: 'service_request', entityId: row.id, after: created });
+    return created;
+  });
+  kickMailDelivery();
+  return dto;
+}
+
+export async function updateRequest(actor: Actor, id: string, input: UpdateRequestInput, db: Kysely<DB> = defaultDb): Promise<ServiceRequestDto> {
+  assertCan(actor, 'requests.manage');
+  return db.transaction().execute(async (trx) => {
+    const before = await getRequest(actor, id, trx);
+    if (input.visitId) {
+      const visit = await trx.selectFrom('visits').select('site_id').where('id', '=', input.visitId).where('company_id', '=', actor.companyId).executeTakeFirst();
+      if (!visit || visit.site_id !== before.siteId) throw new AppError('validation_failed', 'Choose a visit at this site.', [{ path: 'visitId', message: 'That visit is not at this site.' }]);
+    }
+    await trx
+      .updateTable('service_requests')
+      .set({
+        status: input.status,
+        ...(input.officeNote !== undefined ? { office_note: input.officeNote } : {}),
+        ...(input.visitId !== undefined ? { visit_id: input.visitId } : {}),
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', id)
+      .execute();
+    const after = await getRequest(actor, id, trx);
+    await recordAudit(trx, actor, { action: 'update', entityType: 'service_request', entityId: id, before, after });
+    return after;
+  });
+}
