@@ -1,0 +1,156 @@
+// Owner view: summaries and attention from real records, report contents against the data,
+// service requests reaching the office's inbox, and every owner route scoped to the owner's sites.
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { needsAttention } from '@/lib/attention/service';
+import { deliverDueMail } from '@/lib/mail/outbox';
+import { siteSummaries } from '@/lib/overview/service';
+import { createRequest, listRequests } from '@/lib/requests/service';
+import { refrigerantReport, reportFile, siteEquipmentReport } from '@/lib/reports/service';
+import { addEntry, closeVisit, startVisit } from '@/lib/visits/service';
+import type { Actor } from '@/lib/auth/actor';
+import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { clearMail, waitForMail } from '@/tests/helpers/mail';
+import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { call, mockAuthModule, session } from '@/tests/helpers/session';
+
+vi.mock('@/lib/auth', () => mockAuthModule());
+
+const db = createTestDb();
+let tech: Actor;
+let office: Actor;
+let owner: Actor;
+let stranger: Actor;
+let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+const lb = 0.45359237;
+const entry = <T extends object>(equipmentId: string, body: T) => ({ equipmentId, clientEntryId: randomUUID(), ...body });
+
+beforeAll(async () => {
+  await resetToDemo(db);
+  tech = await actorFor(db, demoEmails.technician);
+  office = await actorFor(db, demoEmails.office);
+  owner = await actorFor(db, demoEmails.client);
+  stranger = await actorFor(db, demoEmails.clientTwo);
+  circuit = await createCoolerCircuit(db);
+  await db.updateTable('equipment').set({ installed_on: '2001-05-01', condition: 2 }).where('id', '=', circuit.condensingUnitId).execute();
+  const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: new Date(Date.now() - 20 * 86_400_000).toISOString() });
+  await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'refrigerant' as const, recordedAt: new Date(Date.now() - 20 * 86_400_000).toISOString(), data: { direction: 'added' as const, amountKg: 2 * lb, refrigerant: 'R-404A' as const, cylinderId: 'CYL-0007', technicianCert: 'UNIV-5531' } }));
+  await addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'finding' as const, data: { text: 'Heater wire exposed at drain line', severity: 'safety' as const, raiseFollowUp: true } }));
+  await addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'condition' as const, data: { rating: 4 } }));
+  await closeVisit(tech, visit.id, { summary: 'Added charge, found heater wire.', confirmBypassRemoved: false });
+  const second = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: new Date(Date.now() - 2 * 86_400_000).toISOString() });
+  // 30 lb into a 100 lb charge 18 days after the last addition: far over the 20 % threshold.
+  await addEntry(tech, second.id, entry(circuit.condensingUnitId, { kind: 'refrigerant' as const, recordedAt: new Date(Date.now() - 2 * 86_400_000).toISOString(), data: { direction: 'added' as const, amountKg: 30 * lb, refrigerant: 'R-404A' as const } }));
+  await addEntry(tech, second.id, entry(circuit.evaporatorId, { kind: 'condition' as const, data: { rating: 2 } }));
+  await closeVisit(tech, second.id, { summary: 'Leak search booked.', confirmBypassRemoved: false });
+});
+afterAll(async () => {
+  await db.destroy();
+});
+
+describe('owner view', () => {
+  it('summarises each site from its records', async () => {
+    const summaries = await siteSummaries(owner);
+    expect(summaries.map((s) => s.siteName).sort()).toEqual(['Commissary', 'Orchard Row Bistro', 'Pell Street Kitchen']);
+    const pell = summaries.find((s) => s.siteName === 'Pell Street Kitchen')!;
+    expect(pell.equipmentCount).toBe(4);
+    expect(pell.byCondition[2]).toBe(2);
+    expect(pell.byCondition.unrated).toBe(2);
+    expect(pell.openFollowUps.safety).toBe(1);
+    expect(pell.systemsOverLeakThreshold).toBe(1);
+    expect(pell.pastExpectedLife).toBe(1);
+    expect(pell.lastVisitAt).not.toBeNull();
+  });
+
+  it('ranks the units that need attention with their evidence', async () => {
+    const ranked = await needsAttention(owner);
+    expect(ranked.map((u) => u.equipmentName)).toEqual(['Cooler evaporator', 'Cooler condensing unit']);
+    const evaporator = ranked[0]!;
+    expect(evaporator.reasons.map((r) => r.kind)).toEqual(['open_safety_finding', 'repeat_no_cooling', 'condition_worsening']);
+    const unit = ranked[1]!;
+    expect(unit.reasons.map((r) => r.kind)).toEqual(['leak_over_threshold', 'repeat_no_cooling', 'past_expected_life']);
+    expect(unit.reasons[0]!.href).toMatch(/^\/visits\//);
+    expect(await needsAttention(stranger)).toEqual([]);
+  });
+
+  it('the refrigerant report lists each transaction with its leak rate, and its PDF says the same', async () => {
+    const year = new Date(Date.now() - 2 * 86_400_000).getUTCFullYear();
+    const report = await refrigerantReport(owner, circuit.systemId, year, { units: 'imperial', metricPressure: 'kPa' });
+    const firstYear = new Date(Date.now() - 20 * 86_400_000).getUTCFullYear();
+    const expectedRows = firstYear === year ? 2 : 1;
+    expect(report.rows).toHaveLength(expectedRows);
+    const last = report.rows.at(-1)!;
+    expect(last[1]).toBe('added');
+    expect(last[2]).toBe('30 lb');
+    expect(last[7]).toMatch(/OVER/);
+    expect(report.facts.find(([k]) => k === 'Full charge')![1]).toBe('100 lb');
+    const csv = (await reportFile(report, 'csv', 'r')).body as string;
+    expect(csv).toContain('# Full charge,100 lb');
+    const pdf = (await reportFile(report, 'pdf', 'r')).body as Uint8Array;
+    const dir = mkdtempSync(path.join(tmpdir(), 'rl-report-'));
+    writeFileSync(path.join(dir, 'r.pdf'), pdf);
+    const text = execFileSync('pdftotext', ['-layout', path.join(dir, 'r.pdf'), '-']).toString();
+    expect(text).toContain('Refrigerant report');
+    expect(text).toContain('30 lb');
+  });
+
+  it('the site equipment report holds every unit with age, expected life and condition', async () => {
+    const report = await siteEquipmentReport(owner, circuit.siteId, undefined, new Date('2026-12-01T00:00:00Z'));
+    expect(report.rows).toHaveLength(4);
+    const unit = report.rows.find((r) => r[0] === 'Cooler condensing unit')!;
+    // ASHRAE median for reciprocating compressors/condensing units: 20 years; installed 2001-05-01.
+    expect(unit[7]).toBe('25.6');
+    expect(unit[8]).toBe('20');
+    expect(unit[10]).toBe('2 Poor');
+    await expect(siteEquipmentReport(stranger, circuit.siteId)).rejects.toMatchObject({ code: 'not_found' });
+  });
+
+  it('a service request reaches the office by e-mail and the queue; the owner sees its status', async () => {
+    await clearMail();
+    const request = await createRequest(owner, { siteId: circuit.siteId, equipmentId: circuit.evaporatorId, description: 'Box reads 48 °F since this morning', urgency: 'emergency' });
+    await deliverDueMail();
+    const mail = await waitForMail('office@rimeline.test');
+    expect(mail.subject).toBe('EMERGENCY — Service request: Cooler evaporator at Pell Street Kitchen');
+    expect(mail.text).toContain('Box reads 48 °F since this morning');
+    expect((await listRequests(office, { limit: 10 })).map((r) => r.id)).toContain(request.id);
+    expect((await listRequests(owner, { limit: 10 })).map((r) => r.status)).toEqual(['new']);
+    expect(await listRequests(stranger, { limit: 10 })).toEqual([]);
+    await expect(createRequest(stranger, { siteId: circuit.siteId, description: 'x', urgency: 'routine' })).rejects.toMatchObject({ code: 'not_found' });
+  });
+});
+
+describe('owner routes are scoped', () => {
+  it('another client’s owner gets nothing of this site on every owner route', async () => {
+    session.actor = stranger;
+    const q = `siteId=${circuit.siteId}`;
+    const attention = await import('@/app/api/overview/attention/route');
+    const charts = await import('@/app/api/overview/charts/route');
+    const sites = await import('@/app/api/overview/sites/route');
+    const siteReport = await import('@/app/api/reports/site-equipment/route');
+    const refrigerant = await import('@/app/api/reports/refrigerant/route');
+    const requests = await import('@/app/api/requests/route');
+    const due = await import('@/app/api/overview/due/route');
+    expect((await call(attention.GET as never, { path: `/api/overview/attention?${q}` })).body).toMatchObject({ items: [] });
+    const chartBody = (await call(charts.GET as never, { path: `/api/overview/charts?${q}` })).body as { conditionDistribution: { count: number }[]; refrigerantAddedByYear: unknown[] };
+    expect(chartBody.conditionDistribution.every((c) => c.count === 0)).toBe(true);
+    expect(chartBody.refrigerantAddedByYear).toEqual([]);
+    const siteNames = ((await call(sites.GET as never)).body as { items: { siteName: string }[] }).items.map((s) => s.siteName);
+    expect(siteNames.sort()).toEqual(['Linden Avenue Market', 'Quarry Road Market']);
+    expect((await call(siteReport.GET as never, { path: `/api/reports/site-equipment?${q}&format=csv` })).status).toBe(404);
+    expect((await call(refrigerant.GET as never, { path: `/api/reports/refrigerant?systemId=${circuit.systemId}&year=2026&format=pdf` })).status).toBe(404);
+    expect((await call(requests.POST as never, { method: 'POST', json: { siteId: circuit.siteId, description: 'x', urgency: 'soon' } })).status).toBe(404);
+    expect((await call(due.GET as never)).status).toBe(403);
+  });
+
+  it('the owner gets their own site’s reports as files', async () => {
+    session.actor = owner;
+    const siteReport = await import('@/app/api/reports/site-equipment/route');
+    const res = await call(siteReport.GET as never, { path: `/api/reports/site-equipment?siteId=${circuit.siteId}&format=csv` });
+    expect(res.status).toBe(200);
+    expect(String(res.body)).toContain('Cooler condensing unit');
+  });
+});
