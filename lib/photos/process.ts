@@ -1,8 +1,8 @@
 import { TZDate } from '@date-fns/tz';
-import exifr from 'exifr';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp, { type Metadata, type Sharp } from 'sharp';
 import { AppError } from '@/lib/errors';
+import { readExifFacts } from '@/lib/photos/exif';
 import { removeLocation } from '@/lib/photos/location';
 import {
   acceptedPhotoTypes,
@@ -124,34 +124,10 @@ export function parseExifTime(value: unknown, offset: unknown, timeZone: string,
   return date;
 }
 
-interface ExifFacts {
-  takenAt: Date | null;
-  hasGps: boolean;
-}
-
-async function readExif(exif: Buffer | undefined, timeZone: string): Promise<ExifFacts> {
+function readExif(exif: Buffer | undefined, timeZone: string): { takenAt: Date | null; hasGps: boolean } {
   if (!exif || exif.length < 8) return { takenAt: null, hasGps: false };
-  // sharp hands over the EXIF block with or without its "Exif\0\0" header, depending on the format.
-  const tiff = exif.toString('latin1', 0, 6) === 'Exif\0\0' ? exif.subarray(6) : exif;
-  try {
-    const tags = (await exifr.parse(tiff, {
-      tiff: true,
-      exif: true,
-      gps: true,
-      interop: false,
-      ifd1: false,
-      reviveValues: false,
-      translateValues: false,
-      pick: ['DateTimeOriginal', 'OffsetTimeOriginal', 'CreateDate', 'GPSLatitude', 'GPSLongitude'],
-    })) as Record<string, unknown> | undefined;
-    if (!tags) return { takenAt: null, hasGps: false };
-    return {
-      takenAt: parseExifTime(tags.DateTimeOriginal ?? tags.CreateDate, tags.OffsetTimeOriginal, timeZone),
-      hasGps: tags.GPSLatitude !== undefined || tags.GPSLongitude !== undefined,
-    };
-  } catch {
-    return { takenAt: null, hasGps: false };
-  }
+  const facts = readExifFacts(exif);
+  return { takenAt: parseExifTime(facts.dateTimeOriginal ?? facts.createDate, facts.offsetTimeOriginal, timeZone), hasGps: facts.hasGps };
 }
 
 /**
@@ -186,7 +162,7 @@ export async function processPhoto(input: Uint8Array, options: ProcessOptions): 
     throw unreadable(error);
   }
 
-  const facts = await readExif(meta.exif, options.timeZone);
+  const facts = readExif(meta.exif, options.timeZone);
   let original = bytes;
   let locationRemoved = false;
   if (!options.keepLocation) {

@@ -3,6 +3,7 @@
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { AppError } from '@/lib/errors';
+import { readExifFacts } from '@/lib/photos/exif';
 import { removeLocation } from '@/lib/photos/location';
 import { parseExifTime, processPhoto, sniffPhotoType } from '@/lib/photos/process';
 import { DISPLAY_MAX_SIDE, MAX_PHOTO_BYTES, THUMB_SIDE } from '@/lib/photos/schemas';
@@ -42,7 +43,7 @@ describe('processing', () => {
   it('refuses an empty file (422) and one over the size limit (413) before decoding', async () => {
     expect(await refusal(processPhoto(Buffer.alloc(0), opts))).toMatchObject({ status: 422 });
     const big = Buffer.alloc(MAX_PHOTO_BYTES + 1);
-    expect(await refusal(processPhoto(big, opts))).toMatchObject({ status: 413, message: expect.stringMatching(/limit is 25\.0 MB/) });
+    expect(await refusal(processPhoto(big, opts))).toMatchObject({ status: 413, message: expect.stringMatching(/limit is 25 MB/) });
   });
 
   it('refuses a decompression bomb by its pixel count (422)', async () => {
@@ -91,6 +92,19 @@ describe('processing', () => {
     expect(local.takenAt?.toISOString()).toBe('2024-01-10T14:00:00.000Z'); // Chicago is UTC−6 in January
     const none = await processPhoto(await cameraImage(), opts);
     expect(none.takenAt).toBeNull();
+  });
+
+  it('reads the same capture time and GPS presence as exifr does', async () => {
+    const { default: exifr } = await import('exifr');
+    for (const input of [await cameraImage({ gps: true, takenAt: '2025:02:03 04:05:06', offset: '+01:00' }), await cameraImage({ format: 'png', takenAt: '2021:12:31 23:59:58' }), await cameraImage()]) {
+      const exif = (await sharp(input).metadata()).exif!;
+      const ours = readExifFacts(exif);
+      const theirs = ((await exifr.parse(input, { gps: true, reviveValues: false, translateValues: false })) ?? {}) as Record<string, unknown>;
+      expect(ours.dateTimeOriginal).toBe(theirs.DateTimeOriginal);
+      expect(ours.offsetTimeOriginal).toBe(theirs.OffsetTimeOriginal);
+      expect(ours.hasGps).toBe(theirs.GPSLatitude !== undefined);
+    }
+    expect(readExifFacts(Buffer.from('Exif\0\0garbage that is not TIFF'))).toEqual({ hasGps: false });
   });
 
   it('ignores unset or impossible camera clocks', () => {
