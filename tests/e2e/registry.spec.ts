@@ -117,7 +117,9 @@ test('the office registers a system with related equipment and finds the unit by
   await expect(relation(page, 'Serves', 'Evaporator 1')).toBeVisible();
   await expect(relation(page, 'Serves', 'Evaporator 2')).toBeVisible();
   await expect(page.getByText(serial)).toBeVisible();
-  await expect(page.getByText('Visit entries will appear here once visits are recorded')).toBeVisible();
+  // A new unit has no history yet, and the page says so rather than showing an empty box.
+  await expect(page.getByRole('heading', { name: 'History', exact: true })).toBeVisible();
+  await expect(page.getByText('No history yet.')).toBeVisible();
   await shot(page, 'registry-equipment-page-desktop');
 
   // The system lists its members and names its condensing unit.
