@@ -7,7 +7,15 @@ import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { roleLabels } from '@/lib/auth/permissions';
 import { getHomeCounts } from '@/lib/home/service';
+import { needsAttention } from '@/lib/attention/service';
+import { dueWork } from '@/lib/overview/due';
+import { chartData, siteSummaries } from '@/lib/overview/service';
+import { listRequests } from '@/lib/requests/service';
 import { listSites } from '@/lib/sites/service';
+import { AttentionList } from '@/components/overview/attention-list';
+import { OverviewCharts } from '@/components/overview/overview-charts';
+import { SiteSummaryCard } from '@/components/overview/site-summary-card';
+import { DueList } from '@/components/overview/due-list';
 
 export const metadata: Metadata = { title: 'Home' };
 
@@ -30,7 +38,11 @@ function Stat({ label, value, href }: { label: string; value: number; href?: str
 export default async function HomePage({ searchParams }: { searchParams: Promise<{ denied?: string }> }) {
   const actor = await requirePageActor('/');
   const { denied } = await searchParams;
-  const [counts, sites] = await Promise.all([getHomeCounts(actor), listSites(actor, { limit: 8, archived: 'exclude' })]);
+  // The owner home reads its own summaries; the staff homes need the counts and a few sites.
+  const [counts, sites] =
+    actor.role === 'client'
+      ? [{ clients: 0, sites: 0, areas: 0, activeUsers: 0, openInvitations: 0 }, { items: [], nextCursor: null }]
+      : await Promise.all([getHomeCounts(actor), listSites(actor, { limit: 8, archived: 'exclude' })]);
   const first = actor.name.split(' ')[0];
 
   return (
@@ -78,23 +90,123 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
         </Card>
       ) : null}
 
-      {actor.role === 'client' ? (
-        <Card>
-          <h2 className="text-lg font-semibold">Your equipment, your sites</h2>
-          <p className="mt-1 text-slate-700">
-            You can see {counts.sites} {counts.sites === 1 ? 'site' : 'sites'} with {counts.areas} {counts.areas === 1 ? 'area' : 'areas'}. Equipment condition,
-            visit reports and follow-ups will show here as your service company records them.
-          </p>
-        </Card>
-      ) : null}
+      {actor.role === 'client' ? <OwnerHome actor={actor} /> : null}
+      {actor.role === 'office' || actor.role === 'admin' ? <OfficeOverview actor={actor} /> : null}
 
-      <section aria-labelledby="sites-h" className="space-y-3">
+      {actor.role === 'client' ? null : (
+        <section aria-labelledby="sites-h" className="space-y-3">
+          <div className="flex items-end justify-between">
+            <h2 id="sites-h" className="text-lg font-semibold">Sites</h2>
+            <Link href="/sites" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">All sites</Link>
+          </div>
+          <SiteList sites={sites.items} showClient empty="No sites yet." />
+        </section>
+      )}
+    </div>
+  );
+}
+
+async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
+  const [summaries, attention, charts, requests] = await Promise.all([
+    siteSummaries(actor),
+    needsAttention(actor),
+    chartData(actor, null),
+    listRequests(actor, { status: ['new', 'acknowledged', 'scheduled'], limit: 5 }),
+  ]);
+  return (
+    <>
+      <div className="flex flex-wrap gap-2">
+        <ButtonLink href="/requests/new" size="lg">
+          Ask for service
+        </ButtonLink>
+        <ButtonLink href="/reports" variant="secondary" size="lg">
+          Reports
+        </ButtonLink>
+        {requests.length > 0 ? (
+          <ButtonLink href="/requests" variant="secondary" size="lg">
+            {requests.length} open {requests.length === 1 ? 'request' : 'requests'}
+          </ButtonLink>
+        ) : null}
+      </div>
+      <section aria-labelledby="attention-h" className="space-y-3">
         <div className="flex items-end justify-between">
-          <h2 id="sites-h" className="text-lg font-semibold">{actor.role === 'client' ? 'Your sites' : 'Sites'}</h2>
-          <Link href="/sites" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">All sites</Link>
+          <h2 id="attention-h" className="text-lg font-semibold">
+            Needs attention
+          </h2>
+          <Link href="/attention" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+            How this is ranked · all
+          </Link>
         </div>
-        <SiteList sites={sites.items} showClient={actor.role !== 'client'} empty="No sites yet." />
+        <AttentionList units={attention.slice(0, 5)} />
       </section>
+      <section aria-labelledby="sites-summary-h" className="space-y-3">
+        <h2 id="sites-summary-h" className="text-lg font-semibold">
+          Your sites
+        </h2>
+        {summaries.length === 0 ? <p className="text-slate-700">No sites are shared with your account yet.</p> : null}
+        <div className="grid gap-3 md:grid-cols-2">
+          {summaries.map((s) => (
+            <SiteSummaryCard key={s.siteId} summary={s} showClient={false} />
+          ))}
+        </div>
+      </section>
+      <section aria-labelledby="charts-h" className="space-y-3">
+        <h2 id="charts-h" className="text-lg font-semibold">
+          At a glance
+        </h2>
+        <OverviewCharts data={charts} />
+      </section>
+    </>
+  );
+}
+
+async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
+  const [attention, due, requests] = await Promise.all([needsAttention(actor), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
+  return (
+    <div className="grid gap-6 lg:grid-cols-2">
+      <section aria-labelledby="office-attention-h" className="space-y-3">
+        <div className="flex items-end justify-between">
+          <h2 id="office-attention-h" className="text-lg font-semibold">
+            Needs attention
+          </h2>
+          <Link href="/attention" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+            All, with the ranking rule
+          </Link>
+        </div>
+        <AttentionList units={attention.slice(0, 6)} />
+      </section>
+      <div className="space-y-6">
+        <section aria-labelledby="requests-h" className="space-y-3">
+          <div className="flex items-end justify-between">
+            <h2 id="requests-h" className="text-lg font-semibold">
+              New service requests
+            </h2>
+            <Link href="/requests" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+              Queue
+            </Link>
+          </div>
+          {requests.length === 0 ? (
+            <p className="text-sm text-slate-700">No new requests.</p>
+          ) : (
+            <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
+              {requests.map((r) => (
+                <li key={r.id}>
+                  <Link href={`/requests/${r.id}`} className="block px-3 py-2 hover:bg-ice-50">
+                    <span className="font-semibold">{r.urgency === 'emergency' ? 'Emergency: ' : ''}{r.equipmentName ?? r.siteName}</span>
+                    <span className="block truncate text-sm text-slate-700">{r.description}</span>
+                  </Link>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+        <section aria-labelledby="due-h" className="space-y-3">
+          <h2 id="due-h" className="text-lg font-semibold">
+            Due in the next 30 days or overdue
+          </h2>
+          <DueList items={due} />
+        </section>
+      </div>
     </div>
   );
 }

@@ -1,0 +1,67 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { Alert } from '@/components/ui/alert';
+import { Card, PageHeader } from '@/components/ui/card';
+import { orNotFound } from '@/lib/api/page';
+import { requirePageActor } from '@/lib/auth';
+import { can } from '@/lib/auth/access';
+import { getRequest } from '@/lib/requests/service';
+import { urgencyLabels } from '@/lib/requests/schemas';
+import { RequestStatusBadge, UrgencyBadge } from '@/app/(app)/requests/_components/badges';
+import { RequestUpdate } from '@/app/(app)/requests/_components/request-update';
+
+export const metadata: Metadata = { title: 'Service request' };
+
+export default async function RequestPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ sent?: string }> }) {
+  const { id } = await params;
+  const actor = await requirePageActor(`/requests/${id}`, 'requests.read');
+  const request = await orNotFound(getRequest(actor, id));
+  const { sent } = await searchParams;
+  return (
+    <div className="space-y-4">
+      <PageHeader title="Service request" subtitle={`${request.siteName} · ${request.clientName}`} />
+      {sent ? <Alert tone="success" title="Request sent. The office has been e-mailed." /> : null}
+      <Card className="space-y-2">
+        <div className="flex flex-wrap gap-2">
+          <UrgencyBadge urgency={request.urgency} title={urgencyLabels[request.urgency]} />
+          <RequestStatusBadge status={request.status} />
+        </div>
+        <p className="whitespace-pre-line text-base">{request.description}</p>
+        <p className="text-sm text-slate-600">
+          From {request.requestedByName}, {request.createdAt.slice(0, 16).replace('T', ' ')} UTC ·{' '}
+          <Link className="underline" href={`/sites/${request.siteId}`}>
+            {request.siteName}
+          </Link>
+          {request.equipmentId ? (
+            <>
+              {' · '}
+              <Link className="underline" href={`/equipment/${request.equipmentId}`}>
+                {request.equipmentName}
+              </Link>
+            </>
+          ) : null}
+        </p>
+        {request.officeNote ? (
+          <p className="rounded-md bg-ice-50 p-2 text-sm">
+            <strong>Office:</strong> {request.officeNote}
+          </p>
+        ) : null}
+        {request.visitId ? (
+          <p className="text-sm">
+            <Link className="underline" href={`/visits/${request.visitId}`}>
+              The visit for this request
+            </Link>
+          </p>
+        ) : null}
+      </Card>
+      {can(actor, 'requests.manage') ? (
+        <section aria-labelledby="update-h">
+          <h2 id="update-h" className="mb-2 text-lg font-semibold">
+            Update
+          </h2>
+          <RequestUpdate id={request.id} status={request.status} note={request.officeNote} />
+        </section>
+      ) : null}
+    </div>
+  );
+}

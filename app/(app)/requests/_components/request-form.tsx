@@ -1,0 +1,86 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { applyServerErrors } from '@/components/forms/server-errors';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Field, Select, Textarea, describedBy } from '@/components/ui/field';
+import { useCreateRequest, useSiteEquipmentChoices } from '@/lib/requests/hooks';
+import { createRequestSchema, URGENCIES, urgencyLabels } from '@/lib/requests/schemas';
+
+type Values = z.input<typeof createRequestSchema>;
+type Output = z.output<typeof createRequestSchema>;
+
+export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: string; name: string }[]; siteId?: string; equipmentId?: string }) {
+  const router = useRouter();
+  const create = useCreateRequest();
+  const [banner, setBanner] = useState<string>();
+  const form = useForm<Values, unknown, Output>({
+    resolver: zodResolver(createRequestSchema),
+    defaultValues: { siteId: siteId ?? (sites.length === 1 ? sites[0]!.id : ''), equipmentId: equipmentId ?? null, description: '', urgency: 'soon' },
+  });
+  const chosenSite = form.watch('siteId');
+  const equipment = useSiteEquipmentChoices(chosenSite);
+  const errors = form.formState.errors;
+  const onSubmit = form.handleSubmit(async (values) => {
+    setBanner(undefined);
+    try {
+      const saved = await create.mutateAsync({ ...values, equipmentId: values.equipmentId || null });
+      router.push(`/requests/${saved.id}?sent=1`);
+      router.refresh();
+    } catch (error) {
+      setBanner(applyServerErrors(error, form.setError, ['siteId', 'equipmentId', 'description', 'urgency']));
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
+      {banner ? <Alert tone="danger" title={banner} /> : null}
+      <Field id="req-site" label="Site" error={errors.siteId?.message}>
+        <Select id="req-site" {...describedBy('req-site', errors.siteId?.message)} {...form.register('siteId', { onChange: () => form.setValue('equipmentId', null) })}>
+          <option value="">Choose a site…</option>
+          {sites.map((s) => (
+            <option key={s.id} value={s.id}>
+              {s.name}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <Field id="req-unit" label="Which unit (if you know)" error={errors.equipmentId?.message} hint={equipment.isLoading ? 'Loading the units of this site…' : undefined}>
+        <Select id="req-unit" disabled={!chosenSite} {...describedBy('req-unit', errors.equipmentId?.message)} {...form.register('equipmentId', { setValueAs: (v) => v || null })}>
+          <option value="">Not sure / the whole site</option>
+          {(equipment.data?.items ?? []).map((e) => (
+            <option key={e.id} value={e.id}>
+              {e.name}
+              {e.areaName ? ` — ${e.areaName}` : ''}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <Field id="req-desc" label="What is wrong" error={errors.description?.message} hint="What you see or hear, the box temperature if you know it, since when.">
+        <Textarea id="req-desc" rows={5} {...describedBy('req-desc', errors.description?.message)} {...form.register('description')} />
+      </Field>
+      <fieldset className="space-y-2">
+        <legend className="text-sm font-semibold">How urgent</legend>
+        {URGENCIES.map((u) => (
+          <label key={u} className="flex min-h-12 items-center gap-3 rounded-md border border-slate-300 bg-white px-3">
+            <input type="radio" value={u} className="size-5" {...form.register('urgency')} />
+            {urgencyLabels[u]}
+          </label>
+        ))}
+        {errors.urgency?.message ? <p role="alert" className="text-sm font-medium text-red-700">{errors.urgency.message}</p> : null}
+      </fieldset>
+      <Alert tone="warning" title="If food safety is at risk right now">
+        Move product to another cold box and call the service number as well; a request is read by the office during business hours.
+      </Alert>
+      <div>
+        <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
+          {form.formState.isSubmitting ? 'Sending…' : 'Send the request'}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,42 @@
+import { ArrowRight } from 'lucide-react';
+import Link from 'next/link';
+import { EmptyState } from '@/components/ui/card';
+import type { RankedUnit } from '@/lib/attention/rank';
+
+/** The ranked units, each reason with a link to its evidence. */
+export function AttentionList({ units, showSite = true }: { units: RankedUnit[]; showSite?: boolean }) {
+  if (units.length === 0) return <EmptyState title="Nothing needs attention right now.">No open safety findings, leaks over threshold, repeat no-cooling calls, worsening condition or units past their expected life.</EmptyState>;
+  return (
+    <ol className="space-y-2">
+      {units.map((u, i) => (
+        <li key={u.equipmentId} className="rounded-lg border border-slate-200 bg-white p-3">
+          <div className="flex items-baseline gap-2">
+            <span className="text-sm font-bold text-slate-600">#{i + 1}</span>
+            <Link href={`/equipment/${u.equipmentId}`} className="font-semibold underline-offset-2 hover:underline">
+              {u.equipmentName}
+            </Link>
+            {showSite ? <span className="text-sm text-slate-600">· {u.siteName}</span> : null}
+            <span className="ml-auto text-sm text-slate-700">
+              {u.score} <span className="sr-only">points</span>
+              <span aria-hidden>pts</span>
+            </span>
+          </div>
+          <ul className="mt-1 space-y-1 text-sm">
+            {u.reasons.map((r) => (
+              <li key={r.kind} className="flex items-start gap-1">
+                <ArrowRight aria-hidden className="mt-0.5 size-4 shrink-0 text-slate-500" />
+                {r.href ? (
+                  <Link href={r.href} className="underline underline-offset-2">
+                    {r.text}
+                  </Link>
+                ) : (
+                  <span>{r.text}</span>
+                )}
+              </li>
+            ))}
+          </ul>
+        </li>
+      ))}
+    </ol>
+  );
+}
