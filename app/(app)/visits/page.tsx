@@ -1,4 +1,4 @@
-import { ChevronRight, Plus } from 'lucide-react';
+import { Check, ChevronRight, Plus } from 'lucide-react';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { z } from 'zod';
@@ -92,7 +92,12 @@ export default async function VisitsPage({ searchParams }: { searchParams: Promi
               v === view ? 'border-ice-900 bg-ice-900 text-white' : 'border-slate-300 bg-white text-slate-900 hover:bg-slate-100',
             )}
           >
-            {v === view ? <span className="sr-only">Showing: </span> : null}
+            {v === view ? (
+              <>
+                <Check aria-hidden className="mr-1 size-4" />
+                <span className="sr-only">Showing: </span>
+              </>
+            ) : null}
             {viewLabels[v]}
           </Link>
         ))}

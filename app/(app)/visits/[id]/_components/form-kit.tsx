@@ -1,7 +1,7 @@
 'use client';
 
 import type { LucideIcon } from 'lucide-react';
-import { Minus, Plus } from 'lucide-react';
+import { Minus, OctagonAlert, Plus, TriangleAlert } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { describedBy, Field, Input } from '@/components/ui/field';
@@ -188,8 +188,9 @@ export function ComputedPanel({ title, rows, bases, problems, empty }: { title: 
           {rows.map((r) => (
             <div key={r.key} data-computed={r.key} className={cn(r.tone === 'danger' && 'text-red-900', r.tone === 'warning' && 'text-amber-950')}>
               <dt className="text-sm font-medium text-slate-700">{r.label}</dt>
-              <dd className="text-xl font-bold tabular-nums" data-testid={`computed-${r.key}`}>
-                {r.value}
+              <dd className="flex items-center gap-1.5 text-xl font-bold tabular-nums">
+                {r.tone === 'danger' ? <OctagonAlert aria-hidden className="size-5 shrink-0" /> : r.tone === 'warning' ? <TriangleAlert aria-hidden className="size-5 shrink-0" /> : null}
+                <span data-testid={`computed-${r.key}`}>{r.value}</span>
               </dd>
               {r.note ? <dd className="text-sm">{r.note}</dd> : null}
             </div>
