@@ -5,8 +5,10 @@
 #   npm run bench                     all benchmarks
 #   npm run bench -- pricing          only files whose name contains "pricing"
 #   npm run bench -- --keep           reuse .data/bench from the previous run (no wipe)
-#   npm run bench -- --with-app       also build the app and run it on 127.0.0.1:3100 for benches
-#                                     that need HTTP (BENCH_APP_URL=http://localhost:3100 is exported)
+#   npm run bench -- --no-app         skip building and starting the app (benches that measure the
+#                                     HTTP API then print an error row); by default the app is built
+#                                     and run on 127.0.0.1:3100 and BENCH_APP_URL=http://localhost:3100
+#                                     is exported
 #
 # The bench profile has its own data (.data/bench, database rimeline_bench, bucket rimeline-bench)
 # but the test ports (PostgreSQL 54339, S3 4571, SMTP 1026, mail API 1081, app 3100), so it refuses
@@ -26,12 +28,13 @@ cd "$(dirname "$0")/.."
 source docker-free-scripts/lib.sh
 
 keep=0
-with_app=0
+with_app=1
 filters=()
 for arg in "$@"; do
   case "$arg" in
     --keep) keep=1 ;;
     --with-app) with_app=1 ;;
+    --no-app) with_app=0 ;;
     -h|--help) sed -n '2,25p' "$0"; exit 0 ;;
     -*) echo "bench.sh: unknown option $arg" >&2; exit 2 ;;
     *) filters+=("$arg") ;;
@@ -125,7 +128,7 @@ rl_run_logged "$RIMELINE_LOGS/migrate.log" "$RL_TSX" db/migrate.ts latest \
   || rl_die "The migrations failed." "fix the failing migration shown above." "$RIMELINE_LOGS/migrate.log"
 rl_ok
 
-# Hook for benches that need the app over HTTP (off by default).
+# Benches that time the JSON API need the app over HTTP.
 if [ "$with_app" = 1 ]; then
   next_step "Building the app for the bench profile (next build)"
   rm -f "$RL_DIST/rimeline-profile"
