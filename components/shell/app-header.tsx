@@ -1,6 +1,6 @@
 'use client';
 
-import { Building2, ClipboardList, Gauge, Home, ListTodo, MapPin, Refrigerator, Settings, Snowflake, Sun, LogOut } from 'lucide-react';
+import { Building2, ClipboardList, Gauge, Home, ListTodo, MapPin, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut } from 'lucide-react';
 import { signOut } from 'next-auth/react';
 import Link from 'next/link';
 import { usePathname, useRouter } from 'next/navigation';
@@ -8,7 +8,7 @@ import { roleLabels, type Role } from '@/lib/auth/permissions';
 import type { NavItem } from '@/lib/navigation';
 import { cn } from '@/lib/utils';
 
-const icons = { home: Home, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, clients: Building2, settings: Settings, gauge: Gauge } as const;
+const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge } as const;
 
 function isActive(pathname: string, href: string): boolean {
   return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);

@@ -25,11 +25,16 @@ const tables = [
   'companies',
 ];
 
+const migrationDataTables = ['label_layouts'];
+
 /** Empties every app table (TRUNCATE skips the audit table's no-delete row trigger) and loads the demo. */
 export async function resetToDemo(db: Kysely<DB>): Promise<void> {
   const existing = await sql<{ tablename: string }>`select tablename from pg_tables where schemaname = 'public'`.execute(db);
   const present = new Set(existing.rows.map((r) => r.tablename));
-  const list = tables.filter((t) => present.has(t)).concat([...present].filter((t) => !tables.includes(t) && !t.startsWith('kysely_')));
+  // Reference rows that the migrations themselves insert (label layouts) stay: they are not test data.
+  const list = tables
+    .filter((t) => present.has(t))
+    .concat([...present].filter((t) => !tables.includes(t) && !t.startsWith('kysely_') && !migrationDataTables.includes(t)));
   if (list.length === 0) throw new Error('The test database has no tables: run the migrations first (npm test does).');
   await sql.raw(`truncate ${list.map((t) => `"${t}"`).join(', ')} restart identity cascade`).execute(db);
   await seedDemo(db);

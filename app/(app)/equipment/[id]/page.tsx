@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
+import { EquipmentTagPanel } from '@/components/tags/equipment-tag-panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { EquipmentHistory } from '@/components/visits/equipment-history';
@@ -130,6 +131,8 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
           <DetailList rows={fields.map((f) => ({ label: f.label, value: formatNameplateValue(f, equipment.nameplate[f.key], prefs) }))} />
         </Card>
       </div>
+
+      <EquipmentTagPanel equipmentId={equipment.id} actor={actor} />
 
       <section aria-labelledby="relations-h" className="space-y-3">
         <h2 id="relations-h" className="text-lg font-semibold">

@@ -1,0 +1,199 @@
+'use client';
+
+import { Link2, PlusCircle, Search } from 'lucide-react';
+import { useRouter } from 'next/navigation';
+import { useMemo, useState, type FormEvent } from 'react';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Field, Input, Select } from '@/components/ui/field';
+import { ApiError } from '@/lib/api/client';
+import { EQUIPMENT_TYPES, equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
+import { formatCode } from '@/lib/tags/code';
+import { useAttachTag } from '@/lib/tags/hooks';
+
+export interface ClaimEquipment {
+  id: string;
+  name: string;
+  type: EquipmentType;
+  areaName: string | null;
+  /** The tag it carries now, if any: attaching replaces it. */
+  tagCode: string | null;
+}
+
+/** Claiming a blank tag on site: pick the unit it goes on, or register the unit here and attach. */
+export function ClaimFlow({
+  code,
+  siteName,
+  equipment,
+  areas,
+  canCreate,
+}: {
+  code: string;
+  siteName: string;
+  equipment: ClaimEquipment[];
+  areas: { id: string; name: string }[];
+  canCreate: boolean;
+}) {
+  const router = useRouter();
+  const attach = useAttachTag();
+  const [q, setQ] = useState('');
+  const [chosen, setChosen] = useState<string>('');
+  const [error, setError] = useState<string>();
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
+  const [form, setForm] = useState({ type: '', name: '', areaId: '', make: '', model: '', serial: '' });
+
+  const shown = useMemo(() => {
+    const needle = q.trim().toLowerCase();
+    const list = needle ? equipment.filter((e) => `${e.name} ${e.areaName ?? ''} ${equipmentTypeLabels[e.type]}`.toLowerCase().includes(needle)) : equipment;
+    // Untagged units first: they are the ones waiting for this tag.
+    return [...list].sort((a, b) => Number(a.tagCode !== null) - Number(b.tagCode !== null) || a.name.localeCompare(b.name));
+  }, [equipment, q]);
+  const chosenUnit = equipment.find((e) => e.id === chosen);
+
+  function fail(e: unknown) {
+    if (e instanceof ApiError) {
+      setError(e.message);
+      setFieldErrors(Object.fromEntries(e.issues.map((i) => [i.path.replace(/^newEquipment\./, ''), i.message])));
+    } else setError('Something went wrong. Nothing was saved.');
+  }
+
+  async function attachExisting(e: FormEvent) {
+    e.preventDefault();
+    if (!chosen) {
+      setError('Choose the equipment this tag goes on.');
+      return;
+    }
+    setError(undefined);
+    try {
+      const result = await attach.mutateAsync({ code, input: { equipmentId: chosen } });
+      router.push(`/equipment/${result.equipmentId}?tag=attached`);
+      router.refresh();
+    } catch (err) {
+      fail(err);
+    }
+  }
+
+  async function createAndAttach(e: FormEvent) {
+    e.preventDefault();
+    setError(undefined);
+    setFieldErrors({});
+    try {
+      const result = await attach.mutateAsync({
+        code,
+        input: {
+          newEquipment: {
+            type: form.type,
+            name: form.name,
+            areaId: form.areaId || null,
+            make: form.make || null,
+            model: form.model || null,
+            serial: form.serial || null,
+          },
+        },
+      });
+      router.push(`/equipment/${result.equipmentId}?tag=attached`);
+      router.refresh();
+    } catch (err) {
+      fail(err);
+    }
+  }
+
+  return (
+    <div className="space-y-6">
+      {error ? <Alert tone="danger" title={error} /> : null}
+      <section aria-labelledby="existing-h" className="space-y-3 rounded-lg border border-slate-200 bg-white p-4">
+        <h2 id="existing-h" className="flex items-center gap-2 text-lg font-semibold">
+          <Link2 aria-hidden className="size-5" /> Put it on equipment at {siteName}
+        </h2>
+        {equipment.length === 0 ? (
+          <p className="text-slate-700">No equipment is registered on this site yet. Register the unit below.</p>
+        ) : (
+          <form onSubmit={attachExisting} className="space-y-3">
+            <div className="relative">
+              <label htmlFor="claim-q" className="sr-only">
+                Find equipment
+              </label>
+              <Search aria-hidden className="pointer-events-none absolute left-3 top-1/2 size-5 -translate-y-1/2 text-slate-500" />
+              <Input id="claim-q" type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Find by name, type or area" className="min-h-12 pl-10" />
+            </div>
+            <fieldset>
+              <legend className="sr-only">Equipment on this site</legend>
+              <ul className="max-h-[28rem] divide-y divide-slate-200 overflow-y-auto rounded-md border border-slate-200">
+                {shown.map((e) => (
+                  <li key={e.id}>
+                    <label className="flex min-h-14 cursor-pointer items-center gap-3 px-3 py-2 has-[:checked]:bg-ice-50">
+                      <input type="radio" name="equipmentId" value={e.id} checked={chosen === e.id} onChange={() => setChosen(e.id)} className="size-6 shrink-0" />
+                      <span className="min-w-0 flex-1">
+                        <span className="block font-semibold">{e.name}</span>
+                        <span className="block text-sm text-slate-600">
+                          {equipmentTypeLabels[e.type]}
+                          {e.areaName ? ` · ${e.areaName}` : ''}
+                          {e.tagCode ? ` · tagged ${formatCode(e.tagCode)}` : ' · no tag'}
+                        </span>
+                      </span>
+                    </label>
+                  </li>
+                ))}
+              </ul>
+            </fieldset>
+            {chosenUnit?.tagCode ? (
+              <Alert tone="warning" title={`${chosenUnit.name} already carries tag ${formatCode(chosenUnit.tagCode)}.`}>
+                Attaching this tag replaces it: the old tag is retired, and scanning it still leads to this unit.
+              </Alert>
+            ) : null}
+            <Button type="submit" size="lg" className="min-h-14 w-full text-lg sm:w-auto" disabled={attach.isPending || !chosen}>
+              {attach.isPending ? 'Attaching…' : chosenUnit ? `Attach tag to ${chosenUnit.name}` : 'Attach tag'}
+            </Button>
+          </form>
+        )}
+      </section>
+
+      {canCreate ? (
+        <section aria-labelledby="new-h" className="space-y-3 rounded-lg border border-slate-200 bg-white p-4">
+          <h2 id="new-h" className="flex items-center gap-2 text-lg font-semibold">
+            <PlusCircle aria-hidden className="size-5" /> Or register the unit and attach the tag
+          </h2>
+          <form onSubmit={createAndAttach} noValidate className="grid gap-3 sm:grid-cols-2">
+            <Field id="new-type" label="Type" error={fieldErrors.type}>
+              <Select id="new-type" value={form.type} onChange={(e) => setForm({ ...form, type: e.target.value })} className="min-h-12">
+                <option value="">Choose a type</option>
+                {EQUIPMENT_TYPES.map((t) => (
+                  <option key={t} value={t}>
+                    {equipmentTypeLabels[t]}
+                  </option>
+                ))}
+              </Select>
+            </Field>
+            <Field id="new-name" label="Name" error={fieldErrors.name} hint="As people on site call it, e.g. Walk-in cooler condensing unit.">
+              <Input id="new-name" value={form.name} onChange={(e) => setForm({ ...form, name: e.target.value })} className="min-h-12" />
+            </Field>
+            <Field id="new-area" label="Area" error={fieldErrors.areaId}>
+              <Select id="new-area" value={form.areaId} onChange={(e) => setForm({ ...form, areaId: e.target.value })} className="min-h-12">
+                <option value="">No area</option>
+                {areas.map((a) => (
+                  <option key={a.id} value={a.id}>
+                    {a.name}
+                  </option>
+                ))}
+              </Select>
+            </Field>
+            <Field id="new-make" label="Make" error={fieldErrors.make}>
+              <Input id="new-make" value={form.make} onChange={(e) => setForm({ ...form, make: e.target.value })} className="min-h-12" />
+            </Field>
+            <Field id="new-model" label="Model" error={fieldErrors.model}>
+              <Input id="new-model" value={form.model} onChange={(e) => setForm({ ...form, model: e.target.value })} className="min-h-12" />
+            </Field>
+            <Field id="new-serial" label="Serial" error={fieldErrors.serial}>
+              <Input id="new-serial" value={form.serial} onChange={(e) => setForm({ ...form, serial: e.target.value })} className="min-h-12" />
+            </Field>
+            <div className="sm:col-span-2">
+              <Button type="submit" size="lg" className="min-h-14 w-full text-lg sm:w-auto" disabled={attach.isPending}>
+                {attach.isPending ? 'Saving…' : 'Register and attach tag'}
+              </Button>
+            </div>
+          </form>
+        </section>
+      ) : null}
+    </div>
+  );
+}

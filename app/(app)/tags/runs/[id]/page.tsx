@@ -1,0 +1,86 @@
+import { FileDown } from 'lucide-react';
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { Card, PageHeader } from '@/components/ui/card';
+import { TagStateBadge } from '@/components/tags/tag-state-badge';
+import { orNotFound } from '@/lib/api/page';
+import { requirePageActor } from '@/lib/auth';
+import { getPrintRun } from '@/lib/tags/service';
+import { idParamsSchema } from '@/lib/api/schemas';
+import { notFound } from 'next/navigation';
+
+export const metadata: Metadata = { title: 'Print run' };
+
+export default async function PrintRunPage({ params }: { params: Promise<{ id: string }> }) {
+  const parsed = idParamsSchema.safeParse(await params);
+  if (!parsed.success) notFound();
+  const { id } = parsed.data;
+  const actor = await requirePageActor(`/tags/runs/${id}`, 'tags.print');
+  const run = await orNotFound(getPrintRun(actor, id));
+  const created = new Date(run.createdAt).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
+  return (
+    <>
+      <PageHeader
+        title={`${run.labelCount} ${run.kind === 'blank' ? 'blank' : 'equipment'} ${run.labelCount === 1 ? 'tag' : 'tags'}`}
+        subtitle={`${run.siteName ?? 'Several sites'} · printed ${created} UTC${run.createdByName ? ` by ${run.createdByName}` : ''}`}
+        actions={
+          <a
+            href={`/api/print-runs/${run.id}/pdf`}
+            className="inline-flex min-h-12 items-center gap-2 rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800"
+            data-testid="download-pdf"
+          >
+            <FileDown aria-hidden className="size-5" /> Download label PDF
+          </a>
+        }
+      />
+      <div className="mb-5 grid gap-3 sm:grid-cols-3">
+        <Card>
+          <p className="text-sm text-slate-600">Claimed</p>
+          <p className="text-2xl font-bold" data-testid="claimed-count">
+            {run.claimedCount} of {run.labelCount}
+          </p>
+        </Card>
+        <Card>
+          <p className="text-sm text-slate-600">Layout</p>
+          <p className="font-semibold">{run.layoutName}</p>
+          <p className="text-sm text-slate-600">Started at label {run.startPosition}</p>
+        </Card>
+        <Card>
+          <p className="text-sm text-slate-600">QR error correction</p>
+          <p className="font-semibold">Level {run.errorCorrection}</p>
+          <p className="text-sm text-slate-600">{run.pdfBytes ? `${Math.ceil(run.pdfBytes / 1024)} KB PDF kept` : 'No PDF stored'}</p>
+        </Card>
+      </div>
+      <div className="overflow-x-auto rounded-lg border border-slate-200 bg-white">
+        <table className="w-full text-left text-sm">
+          <thead className="bg-slate-50 text-slate-700">
+            <tr>
+              <th scope="col" className="px-3 py-2">Code</th>
+              <th scope="col" className="px-3 py-2">State</th>
+              <th scope="col" className="px-3 py-2">Equipment</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-slate-100">
+            {run.tags.map((t) => (
+              <tr key={t.id}>
+                <td className="px-3 py-2 font-mono text-base font-semibold tracking-wider">{t.displayCode}</td>
+                <td className="px-3 py-2">
+                  <TagStateBadge state={t.state} />
+                </td>
+                <td className="px-3 py-2">
+                  {t.equipmentId ? (
+                    <Link href={`/equipment/${t.equipmentId}`} className="text-ice-800 underline">
+                      {t.equipmentName}
+                    </Link>
+                  ) : (
+                    <span className="text-slate-500">Not claimed</span>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,84 @@
+import { History, Printer, QrCode, ScanLine } from 'lucide-react';
+import Link from 'next/link';
+import { Card } from '@/components/ui/card';
+import { TagStateBadge } from '@/components/tags/tag-state-badge';
+import { TagActions } from '@/components/tags/tag-actions';
+import { can } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { formatCode } from '@/lib/tags/code';
+import { retireReasonLabels } from '@/lib/tags/schemas';
+import { getEquipmentTagInfo } from '@/lib/tags/service';
+
+const viaWords = { link: 'phone camera link', camera: 'Scan page', typed: 'typed code' } as const;
+
+function when(iso: string, timeZone: string): string {
+  return new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short', timeZone });
+}
+
+/** The equipment page's tag box: the tag on the unit, when it was last scanned, earlier tags, and "Replace tag". */
+export async function EquipmentTagPanel({ equipmentId, actor }: { equipmentId: string; actor: Actor }) {
+  const info = await getEquipmentTagInfo(actor, equipmentId);
+  const tz = info.timeZone;
+  return (
+    <Card aria-labelledby="tag-h" role="region" data-testid="equipment-tag-panel">
+      <h2 id="tag-h" className="flex items-center gap-2 text-lg font-semibold">
+        <QrCode aria-hidden className="size-5" /> Tag
+      </h2>
+      {info.current ? (
+        <div className="mt-2 flex flex-wrap items-center gap-3">
+          <span className="font-mono text-2xl font-bold tracking-widest" data-testid="current-tag-code">
+            {info.current.displayCode}
+          </span>
+          <TagStateBadge state="attached" />
+          {info.current.attachedAt ? (
+            <span className="text-sm text-slate-600">
+              since {when(info.current.attachedAt, tz)}
+              {info.current.attachedByName ? ` (${info.current.attachedByName})` : ''}
+            </span>
+          ) : null}
+        </div>
+      ) : (
+        <p className="mt-2 text-slate-700">No tag on this unit.</p>
+      )}
+      <p className="mt-3 flex items-center gap-2 text-sm text-slate-700" data-testid="last-scanned">
+        <ScanLine aria-hidden className="size-4" />
+        {info.lastScan ? (
+          <span>
+            Last scanned {when(info.lastScan.at, tz)} by {info.lastScan.byName} ({viaWords[info.lastScan.via]}, tag {formatCode(info.lastScan.code)}) ·{' '}
+            {info.scanCount} {info.scanCount === 1 ? 'scan' : 'scans'} in all
+          </span>
+        ) : (
+          <span>Never scanned.</span>
+        )}
+      </p>
+      {info.previous.length > 0 ? (
+        <details className="mt-3">
+          <summary className="flex min-h-11 cursor-pointer items-center gap-2 text-sm font-semibold text-slate-800">
+            <History aria-hidden className="size-4" /> Earlier tags ({info.previous.length})
+          </summary>
+          <ul className="mt-1 space-y-1 text-sm text-slate-700">
+            {info.previous.map((t) => (
+              <li key={t.id} className="flex flex-wrap items-center gap-2">
+                <span className="font-mono font-semibold tracking-wider">{t.displayCode}</span>
+                <TagStateBadge state={t.state} />
+                {t.retiredAt ? `${when(t.retiredAt, tz)}: ` : ''}
+                {t.retiredReason ? retireReasonLabels[t.retiredReason] : ''}
+                {t.replacedByCode ? ` by ${formatCode(t.replacedByCode)}` : ''}
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
+      {can(actor, 'tags.claim') ? (
+        <div className="mt-4 space-y-2">
+          <TagActions equipmentId={equipmentId} currentCode={info.current?.code ?? null} />
+          {can(actor, 'tags.print') ? (
+            <Link href={`/tags/new?equipment=${equipmentId}`} className="inline-flex min-h-11 items-center gap-2 text-sm font-semibold text-ice-800 underline">
+              <Printer aria-hidden className="size-4" /> Print a new tag for this unit
+            </Link>
+          ) : null}
+        </div>
+      ) : null}
+    </Card>
+  );
+}

@@ -1,0 +1,82 @@
+import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+import { randomUUID } from 'node:crypto';
+import { clearMail, waitForMail } from '../helpers/mail';
+import { shot, signIn } from './helpers';
+
+const base = 'http://localhost:3100';
+
+/** An API client signed in as a demo user, for setting up records the way the app would. */
+async function apiAs(email: string): Promise<APIRequestContext> {
+  const api = await playwrightRequest.newContext({ baseURL: test.info().project.use.baseURL ?? base });
+  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: 'rimeline-demo', json: 'true' } });
+  expect((await api.get('/api/me')).ok()).toBe(true);
+  return api;
+}
+
+test('an owner opens a site and a unit’s history, downloads the refrigerant report and asks for service; the office sees it @phone', async ({ page }, info) => {
+  const office = await apiAs('office@rimeline.test');
+  const tech = await apiAs('tech@rimeline.test');
+  const sites = (await (await office.get('/api/sites?q=Orchard')).json()) as { items: { id: string }[] };
+  const siteId = sites.items[0]!.id;
+  const system = (await (await office.post('/api/systems', { data: { siteId, name: `Bar cooler circuit ${info.project.name}`, refrigerant: 'R-134a', fullChargeKg: 2.5, application: 'commercial_refrigeration', designBoxTempC: 3 } })).json()) as { id: string };
+  const unit = (await (await office.post('/api/equipment', { data: { siteId, systemId: system.id, type: 'condensing_unit', name: `Bar condensing unit ${info.project.name}`, installedOn: '2004-06-01', condition: 2 } })).json()) as { id: string };
+  const visit = (await (await tech.post('/api/visits', { data: { siteId, reason: 'no_cooling' } })).json()) as { id: string };
+  const saved = await tech.post(`/api/visits/${visit.id}/entries`, { data: { kind: 'refrigerant', equipmentId: unit.id, clientEntryId: randomUUID(), data: { direction: 'added', amountKg: 0.6, refrigerant: 'R-134a', cylinderId: 'CYL-0101' } } });
+  expect(saved.status()).toBe(201);
+  expect((await tech.post(`/api/visits/${visit.id}/close`, { data: { summary: 'Topped up after a flare leak was repaired.' } })).ok()).toBe(true);
+
+  await clearMail();
+  await signIn(page, 'owner@client-one.test');
+  await expect(page.getByRole('heading', { name: 'Needs attention' })).toBeVisible();
+  await shot(page, `owner-home-${info.project.name}`);
+  await page.getByRole('link', { name: 'Orchard Row Bistro' }).first().click();
+  await expect(page.getByRole('heading', { name: 'Orchard Row Bistro' })).toBeVisible();
+  await page.getByRole('link', { name: `Bar condensing unit ${info.project.name}` }).first().click();
+  await expect(page.getByRole('heading', { name: `Bar condensing unit ${info.project.name}` })).toBeVisible();
+  await expect(page.getByText('CYL-0101').first()).toBeVisible();
+
+  await page.goto('/reports');
+  await page.getByLabel('System').selectOption({ label: `Bar cooler circuit ${info.project.name} — Orchard Row Bistro (R-134a)` });
+  await page.getByLabel('Year').fill(String(new Date().getFullYear()));
+  const download = page.waitForEvent('download');
+  await page.getByRole('link', { name: 'CSV' }).last().click();
+  const file = await download;
+  const csv = await (await import('node:fs/promises')).readFile((await file.path())!, 'utf8');
+  expect(csv).toContain('CYL-0101');
+  expect(csv).toContain('added');
+
+  await page.goto(`/requests/new?siteId=${siteId}&equipmentId=${unit.id}`);
+  await page.getByLabel('What is wrong').fill('Bar cooler reads 47 °F and the fan is loud');
+  await page.getByLabel('Emergency — product at risk now').check();
+  await page.getByRole('button', { name: 'Send the request' }).click();
+  await expect(page.getByText('Request sent. The office has been e-mailed.')).toBeVisible();
+  const mail = await waitForMail('office@rimeline.test');
+  expect(mail.subject).toContain('EMERGENCY');
+
+  const officeView = (await (await office.get('/api/requests?status=new')).json()) as { items: { description: string }[] };
+  expect(officeView.items.map((r) => r.description)).toContain('Bar cooler reads 47 °F and the fan is loud');
+  await office.dispose();
+  await tech.dispose();
+});
+
+test('the office sees the request in its queue and marks it seen; the owner sees the new status', async ({ page, browser }) => {
+  const owner = await apiAs('owner@client-one.test');
+  const sites = (await (await owner.get('/api/sites')).json()) as { items: { id: string; name: string }[] };
+  const created = await owner.post('/api/requests', { data: { siteId: sites.items[0]!.id, description: 'Ice on the evaporator coil', urgency: 'soon' } });
+  expect(created.status()).toBe(201);
+  const { id } = (await created.json()) as { id: string };
+  await signIn(page, 'office@rimeline.test');
+  await page.goto('/requests');
+  await page.getByRole('link', { name: /Ice on the evaporator coil/ }).click();
+  await page.getByLabel('Status').selectOption('acknowledged');
+  await page.getByLabel('Note to the owner').fill('Technician booked for tomorrow morning.');
+  await page.getByRole('button', { name: 'Save' }).click();
+  await expect(page.getByText('Saved. The owner sees the new status.')).toBeVisible();
+  const ownerPage = await (await browser.newContext()).newPage();
+  await signIn(ownerPage, 'owner@client-one.test');
+  await ownerPage.goto(`/requests/${id}`);
+  await expect(ownerPage.getByText('Seen by the office')).toBeVisible();
+  await expect(ownerPage.getByText('Technician booked for tomorrow morning.')).toBeVisible();
+  await owner.dispose();
+});
