@@ -67,7 +67,10 @@ export interface SheetResult {
 /** The company's two short lines: its name, then its label line (or its service phone). */
 export function companyLines(company: CompanyLine): string[] {
   const name = company.name.trim();
-  const line = company.labelLine?.trim() || (company.servicePhone?.trim() ? `Service: ${company.servicePhone.trim()}` : '');
+  const phone = company.servicePhone?.trim() ?? '';
+  let line = company.labelLine?.trim() ?? '';
+  // The service phone is on every label: added to the label line unless the line already carries it.
+  if (phone && !line.includes(phone)) line = line ? `${line} · ${phone}` : `Service: ${phone}`;
   return [name, line].filter((l) => l.length > 0);
 }
 
@@ -179,8 +182,11 @@ function drawLabel(page: PDFPage, layout: LabelLayout, box: LabelBox, label: Lab
   let cy = bottom + (company.length - 1) * lineGap + small * 0.2;
   company.forEach((line, i) => {
     const font = i === 0 ? fonts.bold : fonts.regular;
-    const text = fitText(printable(line, fonts.charset), font, small, textW);
-    if (text) page.drawText(text, { x: textX, y: cy, size: small, font, color: black });
+    const clean = printable(line, fonts.charset);
+    // Shrink a long company line a little before cutting it short.
+    const size = largestSize(clean, font, small, Math.min(small, 4.6), textW);
+    const text = fitText(clean, font, size, textW);
+    if (text) page.drawText(text, { x: textX, y: cy, size, font, color: black });
     cy -= lineGap;
   });
   page.pushOperators(popGraphicsState());

@@ -66,3 +66,16 @@ describe('vector drawing', () => {
     expect(covered.size).toBe(dark);
   });
 });
+
+describe('company line on labels', () => {
+  it('always carries the name and the service phone', async () => {
+    const { companyLines } = await import('@/lib/tags/pdf');
+    expect(companyLines({ name: 'Brackenfield Refrigeration Service', servicePhone: '555-0100', labelLine: 'Service: 555-0100 · call before opening' })).toEqual([
+      'Brackenfield Refrigeration Service',
+      'Service: 555-0100 · call before opening',
+    ]);
+    expect(companyLines({ name: 'Brackenfield', servicePhone: '555-0100', labelLine: 'Call before opening' })).toEqual(['Brackenfield', 'Call before opening · 555-0100']);
+    expect(companyLines({ name: 'Brackenfield', servicePhone: '555-0100', labelLine: null })).toEqual(['Brackenfield', 'Service: 555-0100']);
+    expect(companyLines({ name: 'Brackenfield', servicePhone: null, labelLine: '' })).toEqual(['Brackenfield']);
+  });
+});
