@@ -15,10 +15,21 @@ interface LeakResult {
   cautions?: string[];
 }
 
-/** Drops the "Kind: " the shared one-line description starts with; the kind is shown beside it. */
-function withoutKindPrefix(text: string): string {
-  const i = text.indexOf(': ');
-  return i > 0 && i < 40 ? text.slice(i + 2) : text;
+/** The shared one-line description starts with the kind, which is shown beside it: drop only that. */
+const kindPrefixes: Partial<Record<EntryDto['kind'], string>> = {
+  reading: 'Readings: ',
+  action: 'Action: ',
+  part: 'Part replaced: ',
+  note: 'Note: ',
+  photo: 'Photo: ',
+  refrigerant: 'Refrigerant ',
+};
+
+function withoutKindPrefix(kind: EntryDto['kind'], text: string): string {
+  const prefix = kindPrefixes[kind];
+  if (!prefix || !text.startsWith(prefix)) return text;
+  const rest = text.slice(prefix.length);
+  return rest.charAt(0).toUpperCase() + rest.slice(1);
 }
 
 function formatDay(iso: string): string {
@@ -60,7 +71,9 @@ export function LeakRateNotice({ computed }: { computed: Record<string, unknown>
 
 /** One entry in words, in the viewer's units; the same sentence the visit report uses. */
 export function EntrySummary({ entry, prefs }: { entry: Pick<EntryDto, 'kind' | 'data' | 'computed'> & Partial<EntryDto>; prefs: UnitPrefs }) {
-  const text = withoutKindPrefix(describeEntry(entry as EntryDto, prefs));
+  let text = withoutKindPrefix(entry.kind, describeEntry(entry as EntryDto, prefs));
+  // The leak rate gets its own notice below; the report's one-line form of it would repeat it.
+  if (entry.kind === 'refrigerant') text = text.split('; leak rate')[0]!;
   const d = entry.data;
   return (
     <div className="min-w-0 space-y-1">

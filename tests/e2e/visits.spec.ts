@@ -1,13 +1,17 @@
 import { expect, test, type Browser, type Page, type TestInfo } from '@playwright/test';
+import sharp from 'sharp';
+import { evaluateLeakEvent } from '../../lib/calc/leak-rate';
 import { computeReading, type EntryContext } from '../../lib/visits/compute';
 import type { VisitDetailDto } from '../../lib/visits/dto';
 import { formatQuantity, fromDisplayValue, type UnitPrefs } from '../../lib/units/quantities';
 import { firstLink } from '../helpers/mail';
+import { nameplateImage } from '../helpers/photo-images';
 import { api, circuitFacts, createCircuit, waitForVisitReport } from '../helpers/visits';
 import { shot, signIn } from './helpers';
 
-// A whole no-cooling visit in the browser, as the technician does it on site, then the office's
-// side. The desktop and phone runs use different demo sites so each starts its own visit there.
+// A whole no-cooling visit in the browser, as the technician does it on site — from the unit's tag
+// (desktop run) or from the site page (phone run) — then the office's side. The two runs use
+// different demo sites so each starts its own visit there.
 
 const imperial: UnitPrefs = { units: 'imperial', metricPressure: 'kPa' };
 
@@ -30,18 +34,32 @@ test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper t
   const office = await officeSession(browser, info);
   const circuit = await createCircuit(office.request, siteName, label);
 
-  // The technician starts the visit from the site page.
   await signIn(page, 'tech@rimeline.test');
-  await page.goto(`/sites/${circuit.site.id}`);
-  await page.getByRole('link', { name: 'Start visit' }).click();
-  await page.getByRole('radio', { name: 'No-cooling call' }).check();
-  await page.getByRole('button', { name: 'Start visit' }).click();
-  await page.waitForURL(/\/visits\/[0-9a-f-]{36}$/);
-  const visitId = page.url().split('/visits/')[1]!;
+  if (phone) {
+    // On the phone run the technician starts from the site page and picks the unit.
+    await page.goto(`/sites/${circuit.site.id}`);
+    await page.getByRole('link', { name: 'Start visit' }).click();
+    await page.getByRole('radio', { name: 'No-cooling call' }).check();
+    await page.getByRole('button', { name: 'Start visit' }).click();
+    await page.waitForURL(/\/visits\/[0-9a-f-]{36}$/);
+    await page.getByRole('button', { name: new RegExp(`Condensing unit ${label}`) }).click();
+  } else {
+    // On the desktop run the visit starts from the unit's tag: /T/<code> is what its QR symbol holds.
+    const created = await office.request.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [circuit.condensingUnit.id], layoutId: 'thermal-2x1' } });
+    expect(created.status()).toBe(201);
+    const printRun = await api<{ tags: { code: string }[] }>(office.request, 'GET', `/api/print-runs/${((await created.json()) as { id: string }).id}`);
+    await page.goto(`/T/${printRun.tags[0]!.code}`);
+    await expect(page.getByRole('heading', { level: 1, name: circuit.condensingUnit.name })).toBeVisible();
+    await page.getByRole('link', { name: 'Log a visit on this unit' }).click();
+    await page.getByRole('radio', { name: 'No-cooling call' }).check();
+    await page.getByRole('button', { name: 'Start visit' }).click();
+    await page.waitForURL(new RegExp(`/visits/[0-9a-f-]{36}\\?equipment=${circuit.condensingUnit.id}$`));
+    await expect(page.getByRole('heading', { level: 2, name: circuit.condensingUnit.name, exact: true })).toBeVisible();
+  }
+  const visitId = new URL(page.url()).pathname.split('/visits/')[1]!;
   await expect(page.getByText('Service visit · No-cooling call')).toBeVisible();
 
   // Readings on the condensing unit, with the computed values shown as they are typed.
-  await page.getByRole('button', { name: new RegExp(`Condensing unit ${label}`) }).click();
   await page.getByRole('button', { name: 'Readings' }).click();
   const typed = { suction: '20', discharge: '250', suctionLine: '30', liquidLine: '95', box: '41', ambient: '90' };
   await page.getByLabel('Suction pressure (psig)', { exact: true }).fill(typed.suction);
@@ -83,6 +101,15 @@ test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper t
   const afterReading = await visitDetail(page, visitId);
   const reading = afterReading.entries.find((e) => e.kind === 'reading')!;
   expect((reading.computed as { superheatK: number }).superheatK).toBe(expected.superheatK);
+
+  // A nameplate photo through the shared uploader becomes a photo entry of the visit.
+  await page.getByRole('button', { name: 'Photo' }).click();
+  await page.getByTestId('photo-file-input').setInputFiles({ name: 'nameplate.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('KELVRIN KCU-210')).jpeg().toBuffer() });
+  await page.getByRole('button', { name: 'Upload 1 photo' }).click();
+  await expect(page.getByText('1 photo added to this visit.')).toBeVisible({ timeout: 30_000 });
+  await page.getByRole('button', { name: 'Done with photos' }).click();
+  const photoEntry = (await visitDetail(page, visitId)).entries.find((e) => e.kind === 'photo');
+  expect(typeof photoEntry?.data.photoId).toBe('string');
 
   // A finding that raises a follow-up for the office.
   await page.getByRole('button', { name: 'Finding' }).click();
@@ -205,4 +232,46 @@ test('an entry saved without signal waits on the phone and reaches the server on
   await page.unroute(`**/api/visits/${visit.id}/entries`);
 
   await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Routine maintenance.' });
+});
+
+test('a refrigerant addition shows the leak rate and the repair deadline the calculations give', async ({ page, browser }, info) => {
+  test.setTimeout(120_000);
+  const label = `R${String(Date.now()).slice(-5)}`;
+  const office = await officeSession(browser, info);
+  const circuit = await createCircuit(office.request, 'Quarry Road Market', label);
+  await office.context().close();
+
+  await signIn(page, 'tech@rimeline.test');
+  const visit = await api<{ id: string }>(page.request, 'POST', '/api/visits', { siteId: circuit.site.id, reason: 'leak_check' });
+  await page.goto(`/visits/${visit.id}?equipment=${circuit.condensingUnit.id}&kind=refrigerant`);
+  await expect(page.getByText('Refrigerant handling')).toBeVisible();
+  await page.getByRole('radio', { name: /^Added/ }).check();
+  await page.getByLabel('Amount (lb)').fill('8');
+  await page.getByLabel('Cylinder id').fill('CYL-0042');
+  await page.getByLabel('Your certification number').fill('TC-55120');
+  await page.getByRole('button', { name: 'Save refrigerant' }).click();
+
+  // First addition on record: the annualised rate uses 365 days (40 CFR 82.152).
+  const today = new Date().toISOString().slice(0, 10);
+  const expected = evaluateLeakEvent({
+    refrigerant: circuitFacts.refrigerant,
+    application: 'commercial_refrigeration',
+    fullCharge: circuitFacts.fullChargeKg,
+    added: fromDisplayValue('8', 'mass', imperial)!,
+    massUnit: 'kg',
+    additionDate: today,
+    previousAdditionDate: null,
+  });
+  expect(expected.exceedsThreshold).toBe(true);
+  expect(expected.repairDueDate).not.toBeNull();
+  const saved = page.getByTestId('just-saved');
+  await expect(saved.getByText('Saved', { exact: true })).toBeVisible();
+  await expect(saved.getByRole('alert')).toContainText(`Leak rate ${expected.ratePct.toFixed(1)} % per year: over the ${expected.thresholdPct} % threshold`);
+  const due = new Date(`${expected.repairDueDate}T00:00:00Z`).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+  await expect(saved.getByTestId('leak-repair-due')).toHaveText(due);
+  await shot(page, 'visit-leak-rate');
+  // The certification number is remembered on this phone for the next entry.
+  await page.getByRole('button', { name: 'Refrigerant' }).click();
+  await expect(page.getByLabel('Your certification number')).toHaveValue('TC-55120');
+  await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Leak check; refrigerant added.' });
 });

@@ -23,12 +23,12 @@ import { newClientEntryId, type PendingEntry } from '@/lib/visits/pending';
 import { createEntrySchema, entryKindLabels, type CreateEntryInput, type EntryKind } from '@/lib/visits/schemas';
 import { CloseVisitPanel } from '@/app/(app)/visits/[id]/_components/close-visit-panel';
 import type { FieldErrors, SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { PhotoForm } from '@/app/(app)/visits/[id]/_components/photo-form';
 import { ActionForm, ConditionForm, FindingForm, NoteForm, PartForm, RefrigerantForm } from '@/app/(app)/visits/[id]/_components/other-forms';
 import { ReadingForm } from '@/app/(app)/visits/[id]/_components/reading-form';
 import { SettingForm } from '@/app/(app)/visits/[id]/_components/setting-form';
 
-/** Photos join the list once the photo uploader exists; until then they are not offered. */
-const FORM_KINDS: EntryKind[] = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'condition', 'note'];
+const FORM_KINDS: EntryKind[] = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'condition', 'note', 'photo'];
 
 const NO_CONTEXT: EntryContext = { refrigerant: null, elevationM: 0, designBoxTempC: null, nameplateVoltage: null, controlVoltageNominal: null, designPressureHighKpaG: null };
 
@@ -96,9 +96,10 @@ export function VisitWorkspace({
   useEffect(() => {
     if (selected) panelHeading.current?.focus();
   }, [selected, kind]);
+  // Focus moves to the saved entry once its form has closed, never while a form is still in use.
   useEffect(() => {
-    if (justSaved) savedNote.current?.focus();
-  }, [justSaved]);
+    if (justSaved && !kind) savedNote.current?.focus();
+  }, [justSaved, kind]);
 
   // A pending entry the server already has (its answer was lost on the way back) is done.
   const savedIds = useMemo(() => new Set(visit.entries.map((e) => e.clientEntryId)), [visit.entries]);
@@ -138,7 +139,8 @@ export function VisitWorkspace({
     return m;
   }, [rows]);
 
-  async function submit(k: EntryKind, data: unknown): Promise<SubmitResult> {
+  /** `stay`: keep the form open (the photo form links several uploads one after another). */
+  async function submit(k: EntryKind, data: unknown, stay = false): Promise<SubmitResult> {
     if (!selected) return { ok: false, errors: {}, message: 'Choose the equipment first.' };
     const candidate = { equipmentId: selected.id, clientEntryId: newClientEntryId(), recordedAt: new Date().toISOString(), kind: k, data };
     const parsed = createEntrySchema.safeParse(candidate);
@@ -147,7 +149,7 @@ export function VisitWorkspace({
     const result = await save(input);
     if (result.outcome === 'refused') return { ok: false, errors: toFieldErrors(result.error.issues as ErrorIssue[]), message: result.error.message };
     setJustSaved({ clientEntryId: input.clientEntryId, outcome: result.outcome, kind: k });
-    go(selected.id, null);
+    if (!stay) go(selected.id, null);
     // A replaced component has a new record now: reload the list of equipment.
     if (result.outcome === 'saved' && input.kind === 'part' && input.data.replacesEquipment) router.refresh();
     return { ok: true };
@@ -270,6 +272,7 @@ export function VisitWorkspace({
               {kind === 'refrigerant' ? <RefrigerantForm ctx={ctx} prefs={prefs} refrigerantCautions={handling} onSubmit={(d) => submit('refrigerant', d)} onCancel={cancel} /> : null}
               {kind === 'condition' ? <ConditionForm current={selected.condition} onSubmit={(d) => submit('condition', d)} onCancel={cancel} /> : null}
               {kind === 'note' ? <NoteForm onSubmit={(d) => submit('note', d)} onCancel={cancel} /> : null}
+              {kind === 'photo' ? <PhotoForm equipmentId={selected.id} onSubmit={(d) => submit('photo', d, true)} onDone={cancel} /> : null}
             </Card>
           )}
         </section>
