@@ -43,7 +43,7 @@ export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary;
           </ul>
         </>
       ) : null}
-      <h4 className="mt-3 text-xs font-semibold uppercase tracking-wide text-slate-600">Needs attention</h4>
+      <h4 className="mt-3 text-xs font-semibold uppercase tracking-wide text-slate-600">Open items</h4>
       <ul className="mt-1 flex flex-wrap gap-1.5">
         {openTotal === 0 ? <li className="text-sm text-slate-700">No open follow-ups</li> : null}
         {SEVERITIES.filter((s) => summary.openFollowUps[s] > 0).map((s) => (

@@ -28,7 +28,7 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
 
   await clearMail();
   await signIn(page, 'owner@client-one.test');
-  await expect(page.getByRole('heading', { name: 'Needs attention' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Needs attention', level: 2 })).toBeVisible();
   await shot(page, `owner-home-${info.project.name}`);
   await page.getByRole('link', { name: 'Orchard Row Bistro' }).first().click();
   await expect(page.getByRole('heading', { name: 'Orchard Row Bistro' })).toBeVisible();
@@ -37,8 +37,8 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
   await expect(page.getByText('CYL-0101').first()).toBeVisible();
 
   await page.goto('/reports');
-  await page.getByLabel('System').selectOption({ label: `Bar cooler circuit ${info.project.name} — Orchard Row Bistro (R-134a)` });
-  await page.getByLabel('Year').fill(String(new Date().getFullYear()));
+  await page.getByLabel('System', { exact: true }).selectOption({ label: `Bar cooler circuit ${info.project.name} — Orchard Row Bistro (R-134a)` });
+  await page.getByLabel('Year', { exact: true }).fill(String(new Date().getFullYear()));
   const download = page.waitForEvent('download');
   await page.getByRole('link', { name: 'CSV' }).last().click();
   const file = await download;
@@ -69,7 +69,7 @@ test('the office sees the request in its queue and marks it seen; the owner sees
   await signIn(page, 'office@rimeline.test');
   await page.goto('/requests');
   await page.getByRole('link', { name: /Ice on the evaporator coil/ }).click();
-  await page.getByLabel('Status').selectOption('acknowledged');
+  await page.getByLabel('Status', { exact: true }).selectOption('acknowledged');
   await page.getByLabel('Note to the owner').fill('Technician booked for tomorrow morning.');
   await page.getByRole('button', { name: 'Save' }).click();
   await expect(page.getByText('Saved. The owner sees the new status.')).toBeVisible();
