@@ -144,10 +144,16 @@ function drawLabel(page: PDFPage, layout: LabelLayout, box: LabelBox, label: Lab
   const qrTop = H - mmToPt(parts.qrY);
 
   page.pushOperators(pushGraphicsState(), concatTransformationMatrix(1, 0, 0, 1, originX, originY), setFillingGrayscaleColor(0));
-  const rects = darkRuns(symbol).map((r) =>
-    rectangle(qrLeft + (QUIET_ZONE_MODULES + r.col) * m, qrTop - (QUIET_ZONE_MODULES + r.row + 1) * m, r.length * m, m),
+  // The symbol is drawn in module units (x right, y down from the first module), so every rectangle
+  // is a few small integers: short to write, quick to compress.
+  const rects = darkRuns(symbol).map((r) => rectangle(r.col, r.row, r.length, r.height));
+  page.pushOperators(
+    pushGraphicsState(),
+    concatTransformationMatrix(m, 0, 0, -m, qrLeft + QUIET_ZONE_MODULES * m, qrTop - QUIET_ZONE_MODULES * m),
+    ...rects,
+    fill(),
+    popGraphicsState(),
   );
-  page.pushOperators(...rects, fill());
 
   const scale = clamp(layout.labelHeightMm / 25.4, 1, 1.4);
   const textX = mmToPt(parts.textX);

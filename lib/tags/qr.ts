@@ -69,21 +69,39 @@ export interface ModuleRun {
   row: number;
   col: number;
   length: number;
+  /** Rows covered (identical runs in consecutive rows are merged into one rectangle). */
+  height: number;
 }
 
-/** Dark modules merged into horizontal runs: far fewer rectangles to draw than one per module. */
+/**
+ * Dark modules as rectangles: horizontal runs, then identical runs in the rows below merged into
+ * the same rectangle. Far fewer rectangles to draw (and numbers to write) than one per module.
+ */
 export function darkRuns(symbol: QrSymbol): ModuleRun[] {
   const runs: ModuleRun[] = [];
+  // Open rectangles by "col:length", extended while the next row has the same run.
+  let open = new Map<string, ModuleRun>();
   for (let row = 0; row < symbol.size; row++) {
+    const next = new Map<string, ModuleRun>();
     let start = -1;
     for (let col = 0; col <= symbol.size; col++) {
       const isDark = col < symbol.size && symbol.dark(row, col);
       if (isDark && start < 0) start = col;
       if (!isDark && start >= 0) {
-        runs.push({ row, col: start, length: col - start });
+        const key = `${start}:${col - start}`;
+        const above = open.get(key);
+        if (above) {
+          above.height++;
+          next.set(key, above);
+        } else {
+          const run = { row, col: start, length: col - start, height: 1 };
+          runs.push(run);
+          next.set(key, run);
+        }
         start = -1;
       }
     }
+    open = next;
   }
   return runs;
 }

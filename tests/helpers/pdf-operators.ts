@@ -4,7 +4,7 @@
 import { PDFArray, PDFDocument, PDFName, PDFRawStream, PDFStream, decodePDFRawStream } from 'pdf-lib';
 
 export interface DrawnBlock {
-  /** Translation of the block, in points from the page's bottom-left corner. */
+  /** Translation of the block, in points from the page's bottom-left corner; rects and texts are relative to it, in points. */
   x: number;
   y: number;
   rects: { x: number; y: number; w: number; h: number }[];
@@ -37,7 +37,11 @@ export async function readDrawnPages(bytes: Uint8Array): Promise<DrawnPage[]> {
     // Strings and names never hold the operators we look for in our own output; hex strings are skipped.
     const tokens = text.replace(/<[0-9A-Fa-f\s]*>/g, ' ').replace(/\([^)]*\)/g, ' ').split(/\s+/).filter(Boolean);
     const blocks: DrawnBlock[] = [];
-    let depth = 0;
+    // Current transformation matrix [a b c d e f], saved and restored with q / Q.
+    type M = [number, number, number, number, number, number];
+    let ctm: M = [1, 0, 0, 1, 0, 0];
+    const stack: M[] = [];
+    const apply = (m: M, x: number, y: number): [number, number] => [m[0] * x + m[2] * y + m[4], m[1] * x + m[3] * y + m[5]];
     let current: DrawnBlock | null = null;
     let blockDepth = -1;
     const nums: number[] = [];
@@ -48,27 +52,40 @@ export async function readDrawnPages(bytes: Uint8Array): Promise<DrawnPage[]> {
         continue;
       }
       if (t === 'q') {
-        depth++;
-        pendingQ = depth === 1;
+        stack.push([...ctm]);
+        pendingQ = stack.length === 1;
       } else if (t === 'Q') {
-        if (current && depth === blockDepth) {
+        if (current && stack.length === blockDepth) {
           blocks.push(current);
           current = null;
           blockDepth = -1;
         }
-        depth--;
+        ctm = stack.pop() ?? [1, 0, 0, 1, 0, 0];
       } else if (t === 'cm') {
-        const [a, b, c, d, e, f] = nums.slice(-6);
-        if (pendingQ && depth === 1 && a === 1 && b === 0 && c === 0 && d === 1) {
-          current = { x: e!, y: f!, rects: [], texts: [] };
-          blockDepth = depth;
+        const [a, b, c, d, e, f] = nums.slice(-6) as M;
+        if (pendingQ && a === 1 && b === 0 && c === 0 && d === 1) {
+          current = { x: e, y: f, rects: [], texts: [] };
+          blockDepth = stack.length;
         }
+        // CTM' = M × CTM
+        ctm = [
+          a * ctm[0] + b * ctm[2],
+          a * ctm[1] + b * ctm[3],
+          c * ctm[0] + d * ctm[2],
+          c * ctm[1] + d * ctm[3],
+          e * ctm[0] + f * ctm[2] + ctm[4],
+          e * ctm[1] + f * ctm[3] + ctm[5],
+        ];
       } else if (t === 're' && current) {
-        const [x, y, w, h] = nums.slice(-4);
-        current.rects.push({ x: x!, y: y!, w: w!, h: h! });
+        const [x, y, w, h] = nums.slice(-4) as [number, number, number, number];
+        const corners = [apply(ctm, x, y), apply(ctm, x + w, y + h)];
+        const xs = corners.map((p) => p[0] - current!.x);
+        const ys = corners.map((p) => p[1] - current!.y);
+        current.rects.push({ x: Math.min(...xs), y: Math.min(...ys), w: Math.abs(xs[1]! - xs[0]!), h: Math.abs(ys[1]! - ys[0]!) });
       } else if (t === 'Tm' && current) {
-        const [, , , , e, f] = nums.slice(-6);
-        current.texts.push({ x: e!, y: f! });
+        const [, , , , e, f] = nums.slice(-6) as M;
+        const [x, y] = apply(ctm, e, f);
+        current.texts.push({ x: x - current.x, y: y - current.y });
       }
       // Only a `cm` straight after a top-level `q` opens a label block.
       if (t !== 'q') pendingQ = false;

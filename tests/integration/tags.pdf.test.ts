@@ -103,19 +103,21 @@ describe.each(['letter-30', 'a4-24', 'thermal-2x1'])('label sheet %s', (layoutId
         expect(Math.abs(drawnLeft - expectedLeft), `label ${n + 1} left edge`).toBeLessThan(TOLERANCE_MM);
         expect(Math.abs(drawnTop - expectedTop), `label ${n + 1} top edge`).toBeLessThan(TOLERANCE_MM);
 
-        // The QR symbol (every rectangle) lies inside the label's padding, with modules of at least 0.4 mm.
-        expect(block.rects.length).toBeGreaterThan(50);
+        // The QR symbol: dark modules of at least 0.4 mm, with a 4-module quiet zone inside the label's
+        // padding on every side and before the text.
+        expect(block.rects.length).toBeGreaterThan(30);
+        const module = Math.min(...block.rects.flatMap((r) => [ptToMm(r.w), ptToMm(r.h)]));
+        expect(module).toBeGreaterThanOrEqual(0.4);
+        const quiet = 4 * module - 0.01;
         const xs = block.rects.flatMap((r) => [r.x, r.x + r.w]).map(ptToMm);
         const ys = block.rects.flatMap((r) => [r.y, r.y + r.h]).map(ptToMm);
-        expect(Math.min(...xs)).toBeGreaterThanOrEqual(layout.paddingMm - 0.01);
-        expect(Math.max(...xs)).toBeLessThanOrEqual(layout.labelWidthMm - layout.paddingMm + 0.01);
-        expect(Math.min(...ys)).toBeGreaterThanOrEqual(layout.paddingMm - 0.01);
-        expect(Math.max(...ys)).toBeLessThanOrEqual(layout.labelHeightMm - layout.paddingMm + 0.01);
-        expect(Math.min(...block.rects.map((r) => ptToMm(r.h)))).toBeGreaterThanOrEqual(0.4);
-        // Text starts right of the symbol and inside the label.
+        expect(Math.min(...xs) - layout.paddingMm).toBeGreaterThanOrEqual(quiet);
+        expect(Math.min(...ys) - layout.paddingMm).toBeGreaterThanOrEqual(quiet);
+        expect(layout.labelHeightMm - layout.paddingMm - Math.max(...ys)).toBeGreaterThanOrEqual(quiet);
+        // Text starts after the symbol's quiet zone and inside the label.
         expect(block.texts.length).toBeGreaterThanOrEqual(3);
         for (const t of block.texts) {
-          expect(ptToMm(t.x)).toBeGreaterThan(Math.max(...xs));
+          expect(ptToMm(t.x) - Math.max(...xs)).toBeGreaterThanOrEqual(quiet);
           expect(ptToMm(t.x)).toBeLessThan(layout.labelWidthMm - layout.paddingMm);
           expect(ptToMm(t.y)).toBeGreaterThanOrEqual(layout.paddingMm - 0.5);
           expect(ptToMm(t.y)).toBeLessThanOrEqual(layout.labelHeightMm - layout.paddingMm);

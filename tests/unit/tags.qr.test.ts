@@ -44,16 +44,21 @@ describe('error correction for dirty labels', () => {
 });
 
 describe('vector drawing', () => {
-  it('covers every dark module exactly once with horizontal runs', () => {
+  it('covers every dark module exactly once with merged rectangles', () => {
     const symbol = qrSymbol(tagUrl('http://localhost:3100', generateCode()), 'H');
     const covered = new Set<string>();
-    for (const r of darkRuns(symbol)) {
-      for (let c = r.col; c < r.col + r.length; c++) {
-        const key = `${r.row},${c}`;
-        expect(covered.has(key)).toBe(false);
-        covered.add(key);
+    const runs = darkRuns(symbol);
+    for (const r of runs) {
+      for (let row = r.row; row < r.row + r.height; row++) {
+        for (let c = r.col; c < r.col + r.length; c++) {
+          const key = `${row},${c}`;
+          expect(covered.has(key)).toBe(false);
+          covered.add(key);
+        }
       }
     }
+    // Merging rows pays: the three finder patterns alone save rectangles.
+    expect(runs.some((r) => r.height > 1)).toBe(true);
     let dark = 0;
     for (let row = 0; row < symbol.size; row++) {
       for (let col = 0; col < symbol.size; col++) {
