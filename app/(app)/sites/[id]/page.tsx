@@ -17,6 +17,7 @@ import { AreaManager } from '@/app/(app)/sites/[id]/_components/area-manager';
 import { ArchiveSiteButton } from '@/app/(app)/sites/[id]/_components/archive-site-button';
 import { SiteEquipment } from '@/app/(app)/sites/[id]/_components/site-equipment';
 import { SiteSystems } from '@/app/(app)/sites/[id]/_components/site-systems';
+import { SiteAttention } from '@/app/(app)/sites/[id]/_components/site-attention';
 
 export const metadata: Metadata = { title: 'Site' };
 
@@ -31,6 +32,8 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   ]);
   const canWrite = can(actor, 'sites.write');
   const canVisit = can(actor, 'visits.start') && !site.archivedAt;
+  // Owners ask for service here; the office records requests it takes by phone the same way.
+  const canRequest = actor.role === 'client' && can(actor, 'requests.create') && !site.archivedAt;
   const [followUps, myOpenVisit] = await Promise.all([
     listFollowUps(actor, { siteId: id, status: ['open', 'scheduled'], limit: 50 }),
     canVisit ? listVisits(actor, { siteId: id, status: 'open', technicianId: actor.id, limit: 1 }).then((p) => p.items[0]) : undefined,
@@ -53,8 +56,13 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
           )
         }
         actions={
-          canWrite || canVisit ? (
+          canWrite || canVisit || canRequest ? (
             <>
+              {canRequest ? (
+                <ButtonLink href={`/requests/new?siteId=${site.id}`} size="lg">
+                  Ask for service
+                </ButtonLink>
+              ) : null}
               {canVisit ? (
                 <ButtonLink href={myOpenVisit ? `/visits/${myOpenVisit.id}` : `/visits/new?siteId=${site.id}`} size="lg">
                   {myOpenVisit ? 'Continue your visit' : 'Start visit'}
@@ -73,6 +81,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         }
       />
       {site.archivedAt ? <p className="rounded bg-slate-200 px-3 py-2 text-sm font-medium">Archived site: hidden from lists, kept with its history.</p> : null}
+      <SiteAttention actor={actor} siteId={site.id} />
       <div className="grid gap-4 md:grid-cols-3">
         <Card className="md:col-span-1">
           <h2 className="text-base font-semibold">Site details</h2>

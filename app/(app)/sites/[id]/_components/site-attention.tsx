@@ -1,0 +1,31 @@
+import { FileDown, FileSpreadsheet } from 'lucide-react';
+import Link from 'next/link';
+import { AttentionList } from '@/components/overview/attention-list';
+import type { Actor } from '@/lib/auth/actor';
+import { needsAttention } from '@/lib/attention/service';
+
+/** What needs attention on this site and its equipment report, for everyone who can see the site. */
+export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: string }) {
+  const units = await needsAttention(actor, siteId);
+  return (
+    <section aria-labelledby="site-attention-h" className="space-y-3">
+      <div className="flex flex-wrap items-end justify-between gap-2">
+        <h2 id="site-attention-h" className="text-lg font-semibold">
+          Needs attention
+        </h2>
+        <div className="flex flex-wrap gap-2 text-sm">
+          <Link href={`/attention?siteId=${siteId}`} className="flex min-h-11 items-center font-semibold text-ice-800 underline">
+            How this is ranked
+          </Link>
+          <a href={`/api/reports/site-equipment?siteId=${siteId}&format=pdf`} className="inline-flex min-h-11 items-center gap-1 rounded-md border border-slate-300 bg-white px-3 font-semibold" download>
+            <FileDown aria-hidden className="size-4" /> Equipment report PDF
+          </a>
+          <a href={`/api/reports/site-equipment?siteId=${siteId}&format=csv`} className="inline-flex min-h-11 items-center gap-1 rounded-md border border-slate-300 bg-white px-3 font-semibold" download>
+            <FileSpreadsheet aria-hidden className="size-4" /> CSV
+          </a>
+        </div>
+      </div>
+      <AttentionList units={units.slice(0, 5)} showSite={false} />
+    </section>
+  );
+}
