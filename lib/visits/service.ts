@@ -268,116 +268,140 @@ const settingKeys = {
  */
 export async function addEntry(actor: Actor, visitId: string, input: CreateEntryInput, db: Kysely<DB> = defaultDb): Promise<EntryDto> {
   assertCan(actor, 'entries.write');
-  return db.transaction().execute(async (trx) => {
-    const existing = await trx.selectFrom('entries').select(['id', 'visit_id']).where('company_id', '=', actor.companyId).where('client_entry_id', '=', input.clientEntryId).executeTakeFirst();
-    if (existing) {
-      if (existing.visit_id !== visitId) throw new AppError('conflict', 'This entry was already saved on another visit.');
-      return toEntryDto(await entryQuery(trx).where('entries.id', '=', existing.id).executeTakeFirstOrThrow());
-    }
-    const visit = await openVisitForWriting(actor, visitId, trx);
-    const equipment = await getEquipment(actor, input.equipmentId, trx).catch(() => {
-      throw new AppError('validation_failed', 'Choose equipment on this site.', [{ path: 'equipmentId', message: 'This equipment was not found.' }]);
+  try {
+    return await db.transaction().execute(async (trx) => {
+      const earlier = await firstSave(actor, visitId, input.clientEntryId, trx);
+      return earlier ?? insertEntry(actor, visitId, input, trx);
     });
-    if (equipment.siteId !== visit.siteId) throw new AppError('validation_failed', 'Choose equipment on this site.', [{ path: 'equipmentId', message: 'That equipment is on another site.' }]);
-    const ctx = await entryContext(trx, equipment.id);
-    const recordedAt = input.recordedAt ? new Date(input.recordedAt) : new Date();
-    let computed: Record<string, unknown> | null = null;
-    const data: Record<string, unknown> = { ...input.data };
-
-    if (input.kind === 'reading') computed = { ...computeReading(input.data, ctx) };
-    if (input.kind === 'setting_change') computed = { ...computeSettingChange(input.data, ctx) };
-    if (input.kind === 'refrigerant') {
-      if (ctx.refrigerant && input.data.refrigerant !== ctx.refrigerant) {
-        throw new AppError('validation_failed', `This system holds ${ctx.refrigerant}. Never add a different refrigerant; record a retrofit on the system first.`, [
-          { path: 'data.refrigerant', message: `The system holds ${ctx.refrigerant}.` },
-        ]);
-      }
-      if (input.data.direction === 'added' && ctx.systemId && ctx.fullChargeKg && ctx.application) {
-        const previous = await trx
-          .selectFrom('entries')
-          .select('recorded_at')
-          .where('system_id', '=', ctx.systemId)
-          .where('kind', '=', 'refrigerant')
-          .where('voided_at', 'is', null)
-          .where(sql<boolean>`data->>'direction' = 'added'`)
-          .where('recorded_at', '<', recordedAt)
-          .orderBy('recorded_at', 'desc')
-          .limit(1)
-          .executeTakeFirst();
-        const leak = evaluateLeakEvent({
-          refrigerant: input.data.refrigerant,
-          application: ctx.application === 'industrial_process' ? 'industrial_process_refrigeration' : (ctx.application as 'commercial_refrigeration' | 'comfort_cooling'),
-          fullCharge: ctx.fullChargeKg,
-          added: input.data.amountKg,
-          massUnit: 'kg',
-          additionDate: recordedAt.toISOString().slice(0, 10),
-          previousAdditionDate: previous ? previous.recorded_at.toISOString().slice(0, 10) : null,
-        });
-        computed = { leak };
-      } else if (input.data.direction === 'added') {
-        computed = { leak: null, problems: ['The leak rate needs the system’s full charge and application on record.'] };
-      }
+  } catch (error) {
+    // Two sends of one entry at once (a retry while the first is still being saved): the second
+    // waits on the unique key and fails when the first commits. It gets the first save, as any
+    // later retry would.
+    if (isDuplicateClientEntry(error)) {
+      const earlier = await firstSave(actor, visitId, input.clientEntryId, db);
+      if (earlier) return earlier;
     }
+    throw error;
+  }
+}
 
-    const row = await trx
-      .insertInto('entries')
+function isDuplicateClientEntry(error: unknown): boolean {
+  const pg = error as { code?: string; constraint?: string } | null;
+  return pg?.code === '23505' && pg.constraint === 'entries_client_entry_key';
+}
+
+/** The entry already saved under this clientEntryId, if any; on another visit it is a conflict. */
+async function firstSave(actor: Actor, visitId: string, clientEntryId: string, db: Db): Promise<EntryDto | null> {
+  const existing = await db.selectFrom('entries').select(['id', 'visit_id']).where('company_id', '=', actor.companyId).where('client_entry_id', '=', clientEntryId).executeTakeFirst();
+  if (!existing) return null;
+  if (existing.visit_id !== visitId) throw new AppError('conflict', 'This entry was already saved on another visit.');
+  return toEntryDto(await entryQuery(db).where('entries.id', '=', existing.id).executeTakeFirstOrThrow());
+}
+
+async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInput, trx: Transaction<DB>): Promise<EntryDto> {
+  const visit = await openVisitForWriting(actor, visitId, trx);
+  const equipment = await getEquipment(actor, input.equipmentId, trx).catch(() => {
+    throw new AppError('validation_failed', 'Choose equipment on this site.', [{ path: 'equipmentId', message: 'This equipment was not found.' }]);
+  });
+  if (equipment.siteId !== visit.siteId) throw new AppError('validation_failed', 'Choose equipment on this site.', [{ path: 'equipmentId', message: 'That equipment is on another site.' }]);
+  const ctx = await entryContext(trx, equipment.id);
+  const recordedAt = input.recordedAt ? new Date(input.recordedAt) : new Date();
+  let computed: Record<string, unknown> | null = null;
+  const data: Record<string, unknown> = { ...input.data };
+
+  if (input.kind === 'reading') computed = { ...computeReading(input.data, ctx) };
+  if (input.kind === 'setting_change') computed = { ...computeSettingChange(input.data, ctx) };
+  if (input.kind === 'refrigerant') {
+    if (ctx.refrigerant && input.data.refrigerant !== ctx.refrigerant) {
+      throw new AppError('validation_failed', `This system holds ${ctx.refrigerant}. Never add a different refrigerant; record a retrofit on the system first.`, [
+        { path: 'data.refrigerant', message: `The system holds ${ctx.refrigerant}.` },
+      ]);
+    }
+    if (input.data.direction === 'added' && ctx.systemId && ctx.fullChargeKg && ctx.application) {
+      const previous = await trx
+        .selectFrom('entries')
+        .select('recorded_at')
+        .where('system_id', '=', ctx.systemId)
+        .where('kind', '=', 'refrigerant')
+        .where('voided_at', 'is', null)
+        .where(sql<boolean>`data->>'direction' = 'added'`)
+        .where('recorded_at', '<', recordedAt)
+        .orderBy('recorded_at', 'desc')
+        .limit(1)
+        .executeTakeFirst();
+      const leak = evaluateLeakEvent({
+        refrigerant: input.data.refrigerant,
+        application: ctx.application === 'industrial_process' ? 'industrial_process_refrigeration' : (ctx.application as 'commercial_refrigeration' | 'comfort_cooling'),
+        fullCharge: ctx.fullChargeKg,
+        added: input.data.amountKg,
+        massUnit: 'kg',
+        additionDate: recordedAt.toISOString().slice(0, 10),
+        previousAdditionDate: previous ? previous.recorded_at.toISOString().slice(0, 10) : null,
+      });
+      computed = { leak };
+    } else if (input.data.direction === 'added') {
+      computed = { leak: null, problems: ['The leak rate needs the system’s full charge and application on record.'] };
+    }
+  }
+
+  const row = await trx
+    .insertInto('entries')
+    .values({
+      company_id: actor.companyId,
+      visit_id: visitId,
+      equipment_id: equipment.id,
+      system_id: ctx.systemId,
+      kind: input.kind,
+      data: JSON.stringify(data),
+      computed: computed ? JSON.stringify(computed) : null,
+      recorded_at: recordedAt,
+      created_by: actor.id,
+      client_entry_id: input.clientEntryId,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+
+  if (input.kind === 'condition') {
+    await trx
+      .updateTable('equipment')
+      .set({ condition: input.data.rating, condition_note: input.data.note ?? null, updated_at: sql`now()` })
+      .where('id', '=', equipment.id)
+      .execute();
+  }
+  if (input.kind === 'setting_change') {
+    const keys = settingKeys[input.data.control];
+    const left = input.data.asLeft as Record<string, number>;
+    const [settingValue, diffValue] = Object.values(left);
+    await trx
+      .updateTable('equipment')
+      .set({
+        nameplate: sql`nameplate || ${JSON.stringify({ [keys.setting]: settingValue, [keys.diff]: diffValue })}::jsonb`,
+        updated_at: sql`now()`,
+      })
+      .where('id', '=', equipment.id)
+      .execute();
+  }
+  if (input.kind === 'finding' && input.data.raiseFollowUp) {
+    await trx
+      .insertInto('follow_ups')
       .values({
         company_id: actor.companyId,
-        visit_id: visitId,
+        site_id: visit.siteId,
         equipment_id: equipment.id,
-        system_id: ctx.systemId,
-        kind: input.kind,
-        data: JSON.stringify(data),
-        computed: computed ? JSON.stringify(computed) : null,
-        recorded_at: recordedAt,
+        entry_id: row.id,
+        raised_visit_id: visitId,
+        title: input.data.followUpTitle ?? input.data.text.slice(0, 200),
+        severity: input.data.severity,
         created_by: actor.id,
-        client_entry_id: input.clientEntryId,
       })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-
-    if (input.kind === 'condition') {
-      await trx
-        .updateTable('equipment')
-        .set({ condition: input.data.rating, condition_note: input.data.note ?? null, updated_at: sql`now()` })
-        .where('id', '=', equipment.id)
-        .execute();
-    }
-    if (input.kind === 'setting_change') {
-      const keys = settingKeys[input.data.control];
-      const left = input.data.asLeft as Record<string, number>;
-      const [settingValue, diffValue] = Object.values(left);
-      await trx
-        .updateTable('equipment')
-        .set({
-          nameplate: sql`nameplate || ${JSON.stringify({ [keys.setting]: settingValue, [keys.diff]: diffValue })}::jsonb`,
-          updated_at: sql`now()`,
-        })
-        .where('id', '=', equipment.id)
-        .execute();
-    }
-    if (input.kind === 'finding' && input.data.raiseFollowUp) {
-      await trx
-        .insertInto('follow_ups')
-        .values({
-          company_id: actor.companyId,
-          site_id: visit.siteId,
-          equipment_id: equipment.id,
-          entry_id: row.id,
-          raised_visit_id: visitId,
-          title: input.data.followUpTitle ?? input.data.text.slice(0, 200),
-          severity: input.data.severity,
-          created_by: actor.id,
-        })
-        .execute();
-    }
-    if (input.kind === 'part' && input.data.replacesEquipment) {
-      await replaceComponent(actor, equipment.id, input.data.newSerial ?? null, trx);
-    }
-    const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
-    await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
-    return dto;
-  });
+      .execute();
+  }
+  if (input.kind === 'part' && input.data.replacesEquipment) {
+    await replaceComponent(actor, equipment.id, input.data.newSerial ?? null, trx);
+  }
+  const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
+  await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
+  return dto;
 }
 
 /**
