@@ -3,18 +3,22 @@ import type { Role } from '@/lib/auth/permissions';
 export interface NavItem {
   href: string;
   label: string;
-  icon: 'home' | 'scan' | 'sites' | 'equipment' | 'visits' | 'followUps' | 'tags' | 'clients' | 'settings' | 'gauge';
+  icon: 'home' | 'scan' | 'sites' | 'equipment' | 'visits' | 'followUps' | 'tags' | 'clients' | 'settings' | 'gauge' | 'requests' | 'reports';
+  /** Shown in the phone's always-visible row; the rest sit behind "More". */
+  primary?: boolean;
   roles: readonly Role[];
 }
 
 // Places are added here as they are built; nothing links to a page that does not exist yet.
 export const navItems: NavItem[] = [
-  { href: '/', label: 'Home', icon: 'home', roles: ['admin', 'office', 'technician', 'client'] },
-  { href: '/scan', label: 'Scan', icon: 'scan', roles: ['admin', 'office', 'technician', 'client'] },
-  { href: '/sites', label: 'Sites', icon: 'sites', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/', label: 'Home', icon: 'home', roles: ['admin', 'office', 'technician', 'client'], primary: true },
+  { href: '/scan', label: 'Scan', icon: 'scan', roles: ['admin', 'office', 'technician', 'client'], primary: true },
+  { href: '/sites', label: 'Sites', icon: 'sites', roles: ['admin', 'office', 'technician', 'client'], primary: true },
   { href: '/equipment', label: 'Equipment', icon: 'equipment', roles: ['admin', 'office', 'technician', 'client'] },
-  { href: '/visits', label: 'Visits', icon: 'visits', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/visits', label: 'Visits', icon: 'visits', roles: ['admin', 'office', 'technician', 'client'], primary: true },
   { href: '/follow-ups', label: 'Follow-ups', icon: 'followUps', roles: ['admin', 'office', 'technician', 'client'] },
+  { href: '/requests', label: 'Requests', icon: 'requests', roles: ['admin', 'office', 'client'] },
+  { href: '/reports', label: 'Reports', icon: 'reports', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/tools/pt-chart', label: 'P-T chart', icon: 'gauge', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/tags', label: 'Tags', icon: 'tags', roles: ['admin', 'office'] },
   { href: '/clients', label: 'Clients', icon: 'clients', roles: ['admin', 'office'] },

@@ -1,14 +1,15 @@
 'use client';
 
-import { Building2, ClipboardList, Gauge, Home, ListTodo, MapPin, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut } from 'lucide-react';
+import { BellRing, Building2, ClipboardList, FileText, Gauge, Home, ListTodo, MapPin, Menu, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut, X } from 'lucide-react';
 import { signOut } from 'next-auth/react';
 import Link from 'next/link';
 import { usePathname, useRouter } from 'next/navigation';
+import { useState } from 'react';
 import { roleLabels, type Role } from '@/lib/auth/permissions';
 import type { NavItem } from '@/lib/navigation';
 import { cn } from '@/lib/utils';
 
-const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge } as const;
+const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge, requests: BellRing, reports: FileText } as const;
 
 function isActive(pathname: string, href: string): boolean {
   return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);
@@ -17,6 +18,7 @@ function isActive(pathname: string, href: string): boolean {
 export function AppHeader({ items, name, role, highContrast }: { items: NavItem[]; name: string; role: Role; highContrast: boolean }) {
   const pathname = usePathname();
   const router = useRouter();
+  const [moreOpen, setMoreOpen] = useState(false);
 
   function toggleContrast() {
     document.cookie = `rl-contrast=${highContrast ? 'normal' : 'high'}; path=/; max-age=31536000; samesite=lax`;
@@ -58,25 +60,42 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
             Sign out
           </button>
         </div>
-        <nav aria-label="Main" className="-mx-1 flex w-full gap-1 overflow-x-auto pb-1">
-          {items.map((item) => {
-            const Icon = icons[item.icon];
-            const active = isActive(pathname, item.href);
-            return (
-              <Link
-                key={item.href}
-                href={item.href}
-                aria-current={active ? 'page' : undefined}
-                className={cn(
-                  'flex min-h-11 shrink-0 items-center gap-2 rounded-md px-3 text-sm font-semibold',
-                  active ? 'bg-ice-100 text-ice-950' : 'text-slate-200 hover:bg-slate-800',
-                )}
+        <nav aria-label="Main" className="w-full pb-1">
+          {/* Phones: the everyday places in one row of big targets, the rest behind "More". */}
+          <ul className="-mx-1 flex flex-wrap gap-1">
+            {items.map((item) => {
+              const Icon = icons[item.icon];
+              const active = isActive(pathname, item.href);
+              const hiddenOnPhone = !item.primary && !active && !moreOpen;
+              return (
+                <li key={item.href} className={cn(hiddenOnPhone ? 'hidden md:block' : '')}>
+                  <Link
+                    href={item.href}
+                    aria-current={active ? 'page' : undefined}
+                    onClick={() => setMoreOpen(false)}
+                    className={cn(
+                      'flex min-h-11 shrink-0 items-center gap-2 rounded-md px-3 text-sm font-semibold',
+                      active ? 'bg-ice-100 text-ice-950' : 'text-slate-200 hover:bg-slate-800',
+                    )}
+                  >
+                    <Icon aria-hidden className="size-5" />
+                    {item.label}
+                  </Link>
+                </li>
+              );
+            })}
+            <li className="md:hidden">
+              <button
+                type="button"
+                aria-expanded={moreOpen}
+                onClick={() => setMoreOpen((v) => !v)}
+                className="flex min-h-11 items-center gap-2 rounded-md px-3 text-sm font-semibold text-slate-200 hover:bg-slate-800"
               >
-                <Icon aria-hidden className="size-5" />
-                {item.label}
-              </Link>
-            );
-          })}
+                {moreOpen ? <X aria-hidden className="size-5" /> : <Menu aria-hidden className="size-5" />}
+                {moreOpen ? 'Less' : 'More'}
+              </button>
+            </li>
+          </ul>
         </nav>
       </div>
     </header>
