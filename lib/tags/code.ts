@@ -104,10 +104,19 @@ export function generateCode(randomBytes: RandomBytes = cryptoBytes): string {
   }
 }
 
+/** The canonical code from a URL path segment (percent-encoded or not); null when it is not a valid code. */
+export function codeFromPathSegment(segment: string): string | null {
+  try {
+    return parseCode(decodeURIComponent(segment));
+  } catch {
+    return null;
+  }
+}
+
 /** The code in a scanned QR text: our tag URL (…/T/CODE, any case, any host) or a bare code. */
 export function codeFromScan(text: string): string | null {
   const trimmed = text.trim();
   const match = /\/(?:T|TAG)\/([0-9A-Za-z*~$=-]{9,15})\/?(?:[?#].*)?$/i.exec(trimmed);
-  if (match) return parseCode(decodeURIComponent(match[1]!));
+  if (match) return codeFromPathSegment(match[1]!);
   return parseCode(trimmed);
 }

@@ -158,3 +158,14 @@ describe('issuing codes', () => {
     expect(code).toBe('000000011');
   });
 });
+
+describe('codes in URL paths', () => {
+  it('reads percent-encoded segments and refuses malformed ones without throwing', async () => {
+    const { codeFromPathSegment } = await import('@/lib/tags/code');
+    const code = generateCode();
+    expect(codeFromPathSegment(code)).toBe(code);
+    expect(codeFromPathSegment(encodeURIComponent(formatCode(code).toLowerCase()))).toBe(code);
+    expect(codeFromPathSegment('%E0%A4%A')).toBeNull();
+    expect(codeFromPathSegment('')).toBeNull();
+  });
+});

@@ -4,7 +4,7 @@ import { notFound, redirect } from 'next/navigation';
 import { ButtonLink } from '@/components/ui/button';
 import { getActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
-import { formatCode, parseCode } from '@/lib/tags/code';
+import { codeFromPathSegment, formatCode } from '@/lib/tags/code';
 import { SCAN_VIA, type ScanVia } from '@/lib/tags/schemas';
 import { isRegisteredCode, resolveTag } from '@/lib/tags/service';
 
@@ -23,7 +23,7 @@ export default async function TagLinkPage({
   params: Promise<{ code: string }>;
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  const code = parseCode(decodeURIComponent((await params).code));
+  const code = codeFromPathSegment((await params).code);
   if (!code) notFound();
   const actor = await getActor();
   if (!actor) {

@@ -1,5 +1,5 @@
 import { notFound, redirect } from 'next/navigation';
-import { parseCode } from '@/lib/tags/code';
+import { codeFromPathSegment } from '@/lib/tags/code';
 
 // Lower-case alias of the tag route: /tag/k7q-m3x-9pa → /T/K7QM3X9PA (keeps ?via=).
 export const dynamic = 'force-dynamic';
@@ -11,7 +11,7 @@ export default async function TagAliasPage({
   params: Promise<{ code: string }>;
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  const code = parseCode(decodeURIComponent((await params).code));
+  const code = codeFromPathSegment((await params).code);
   if (!code) notFound();
   const via = (await searchParams).via;
   redirect(`/T/${code}${typeof via === 'string' ? `?via=${encodeURIComponent(via)}` : ''}`);

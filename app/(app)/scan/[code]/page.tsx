@@ -10,7 +10,7 @@ import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
 import { listEquipment } from '@/lib/equipment/service';
 import { listAreas } from '@/lib/sites/service';
-import { formatCode, parseCode } from '@/lib/tags/code';
+import { codeFromPathSegment, formatCode } from '@/lib/tags/code';
 import { retireReasonLabels } from '@/lib/tags/schemas';
 import { resolveTag, siteTagCodes } from '@/lib/tags/service';
 import { ClaimFlow } from '@/app/(app)/scan/[code]/_components/claim-flow';
@@ -24,8 +24,7 @@ function formatWhen(iso: string | null): string {
 
 /** What a scanned tag opens when it is not simply equipment: the claim flow, or a retired tag's story. */
 export default async function TagStatePage({ params }: { params: Promise<{ code: string }> }) {
-  const raw = decodeURIComponent((await params).code);
-  const code = parseCode(raw);
+  const code = codeFromPathSegment((await params).code);
   if (!code) notFound();
   const actor = await requirePageActor(`/scan/${code}`, 'tags.scan');
   const resolution = await orNotFound(resolveTag(actor, code));
