@@ -87,7 +87,7 @@ export function EntrySummary({ entry, prefs }: { entry: Pick<EntryDto, 'kind' | 
         // A plain img: the bytes come through the access-checked API, not an image optimiser.
         <img src={`/api/photos/${d.photoId}/thumb`} alt={typeof d.caption === 'string' ? d.caption : 'Photo'} className="h-24 w-auto rounded border border-slate-300" loading="lazy" />
       ) : null}
-      <p className="break-words text-slate-900">{entry.kind === 'finding' ? String(d.text ?? '') : text}</p>
+      {entry.kind === 'photo' && !d.caption ? null : <p className="break-words text-slate-900">{entry.kind === 'finding' ? String(d.text ?? '') : text}</p>}
       {entry.kind === 'refrigerant' && d.direction === 'added' && entry.computed !== undefined ? <LeakRateNotice computed={entry.computed} /> : null}
     </div>
   );
