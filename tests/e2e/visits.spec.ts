@@ -155,8 +155,9 @@ test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper t
 
   // The office: the visit waits for review, the follow-up is in the list with its age.
   await office.goto('/visits');
-  const row = office.getByRole('link', { name: new RegExp(`${siteName} · No-cooling call`) }).filter({ hasText: 'Needs review' }).first();
-  await expect(row).toBeVisible();
+  const row = office.locator(`a[href="/visits/${visitId}"]`);
+  await expect(row).toContainText(`${siteName} · No-cooling call`);
+  await expect(row).toContainText('Needs review');
   await office.goto(`/visits/${visitId}`);
   await expect(office.getByText('Needs review')).toBeVisible();
   await expect(office.getByText(/Superheat|superheat/).first()).toBeVisible();
