@@ -48,34 +48,36 @@ export function PhotoCompare({ photos, timeZone, onClose }: { photos: PhotoDto[]
   return (
     <FullScreenDialog labelledBy={titleId} onClose={onClose}>
       <header className="flex flex-wrap items-center gap-2 border-b border-slate-800 px-3 py-2">
-        <h2 id={titleId} className="mr-auto text-base font-semibold">
+        <h2 id={titleId} className="order-1 min-w-0 flex-1 text-base font-semibold">
           Compare photos
           {left && right ? <span className="font-normal text-slate-300"> · {timeApart(left.sortAt, right.sortAt, timeZone)}</span> : null}
         </h2>
-        <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out both">
-          <ZoomOut aria-hidden className="size-5" />
-        </button>
-        <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
-          {Math.round(zoom.view.scale * 100)}%
-        </span>
-        <button type="button" className={dark} onClick={zoom.zoomIn} aria-label="Zoom in both">
-          <ZoomIn aria-hidden className="size-5" />
-        </button>
-        <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit both">
-          <Maximize2 aria-hidden className="size-5" />
-        </button>
-        <button
-          type="button"
-          className={dark}
-          onClick={() => {
-            setLeftId(rightId);
-            setRightId(leftId);
-          }}
-          aria-label="Swap sides"
-        >
-          <ArrowLeftRight aria-hidden className="size-5" />
-        </button>
-        <button type="button" className={dark} onClick={onClose} aria-label="Close">
+        <div className="order-3 flex w-full flex-wrap items-center gap-2 sm:order-2 sm:w-auto">
+          <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out both">
+            <ZoomOut aria-hidden className="size-5" />
+          </button>
+          <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
+            {Math.round(zoom.view.scale * 100)}%
+          </span>
+          <button type="button" className={dark} onClick={zoom.zoomIn} aria-label="Zoom in both">
+            <ZoomIn aria-hidden className="size-5" />
+          </button>
+          <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit both">
+            <Maximize2 aria-hidden className="size-5" />
+          </button>
+          <button
+            type="button"
+            className={dark}
+            onClick={() => {
+              setLeftId(rightId);
+              setRightId(leftId);
+            }}
+            aria-label="Swap sides"
+          >
+            <ArrowLeftRight aria-hidden className="size-5" />
+          </button>
+        </div>
+        <button type="button" className={`${dark} order-2 sm:order-3`} onClick={onClose} aria-label="Close">
           <X aria-hidden className="size-5" />
         </button>
       </header>

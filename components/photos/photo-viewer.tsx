@@ -60,31 +60,34 @@ export function PhotoViewer({
   return (
     <FullScreenDialog labelledBy={titleId} onClose={onClose} initialFocus="[data-photo-stage]">
       <header className="flex flex-wrap items-center gap-2 border-b border-slate-800 px-3 py-2">
-        <h2 id={titleId} className="mr-auto min-w-0 text-base font-semibold">
+        <h2 id={titleId} className="order-1 min-w-0 flex-1 text-base font-semibold">
           <PhotoKindLabel kind={photo.kind} /> <span className="font-normal text-slate-300">· {when}</span>
           <span className="sr-only">
             , photo {index + 1} of {photos.length}
           </span>
         </h2>
-        <span className="text-sm text-slate-300" aria-hidden>
-          {index + 1} / {photos.length}
-        </span>
-        <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out">
-          <ZoomOut aria-hidden className="size-5" />
-        </button>
-        <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
-          {Math.round(zoom.view.scale * 100)}%
-        </span>
-        <button type="button" className={dark} onClick={zoom.zoomIn} disabled={zoom.view.scale >= 8} aria-label="Zoom in">
-          <ZoomIn aria-hidden className="size-5" />
-        </button>
-        <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit to screen">
-          <Maximize2 aria-hidden className="size-5" />
-        </button>
-        <a className={dark} href={photo.urls.download} aria-label="Download the original">
-          <Download aria-hidden className="size-5" />
-        </a>
-        <button type="button" className={dark} onClick={onClose} aria-label="Close">
+        {/* On a phone the controls take their own row under the title; the Close button stays top right. */}
+        <div className="order-3 flex w-full flex-wrap items-center gap-2 sm:order-2 sm:w-auto">
+          <span className="text-sm text-slate-300" aria-hidden>
+            {index + 1} / {photos.length}
+          </span>
+          <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out">
+            <ZoomOut aria-hidden className="size-5" />
+          </button>
+          <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
+            {Math.round(zoom.view.scale * 100)}%
+          </span>
+          <button type="button" className={dark} onClick={zoom.zoomIn} disabled={zoom.view.scale >= 8} aria-label="Zoom in">
+            <ZoomIn aria-hidden className="size-5" />
+          </button>
+          <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit to screen">
+            <Maximize2 aria-hidden className="size-5" />
+          </button>
+          <a className={dark} href={photo.urls.download} aria-label="Download the original">
+            <Download aria-hidden className="size-5" />
+          </a>
+        </div>
+        <button type="button" className={cn(dark, 'order-2 sm:order-3')} onClick={onClose} aria-label="Close">
           <X aria-hidden className="size-5" />
         </button>
       </header>

@@ -130,12 +130,18 @@ function readExif(exif: Buffer | undefined, timeZone: string): { takenAt: Date |
   return { takenAt: parseExifTime(facts.dateTimeOriginal ?? facts.createDate, facts.offsetTimeOriginal, timeZone), hasGps: facts.hasGps };
 }
 
+export interface CheckedPhoto extends Omit<ProcessedPhoto, 'display'> {
+  /** Still being made when the checks are done; rejects (as a 422) if the image fails late. */
+  display: Promise<Buffer>;
+}
+
 /**
- * Checks and processes one upload: type from the bytes (415), size (413), pixel limit and decoding
- * (422), then the upright display copy and thumbnail in WebP and the original with location
- * removed unless kept. Throws AppError before anything could be stored.
+ * Checks one upload: type from the bytes (415), size (413), pixel limit and decoding (422). The
+ * thumbnail is made first: making it decodes the whole file, so once it exists every check has
+ * passed, and the caller may start storing while the larger display copy is still being made.
+ * Throws AppError before anything could be stored.
  */
-export async function processPhoto(input: Uint8Array, options: ProcessOptions): Promise<ProcessedPhoto> {
+export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Promise<CheckedPhoto> {
   assertPhotoSize(input.byteLength);
   const bytes = Buffer.isBuffer(input) ? input : Buffer.from(input.buffer, input.byteOffset, input.byteLength);
   const contentType = await sniffPhotoType(bytes);
@@ -154,10 +160,16 @@ export async function processPhoto(input: Uint8Array, options: ProcessOptions): 
   }
 
   const image = sharp(bytes, sharpInputOptions).rotate();
-  let display: Buffer;
+  // Both start at once; the display copy's failure is reported when it is awaited.
+  const display = displayPipeline(image)
+    .toBuffer()
+    .catch((error: unknown) => {
+      throw unreadable(error);
+    });
+  display.catch(() => undefined);
   let thumb: Buffer;
   try {
-    [display, thumb] = await Promise.all([displayPipeline(image).toBuffer(), thumbPipeline(image).toBuffer()]);
+    thumb = await thumbPipeline(image).toBuffer();
   } catch (error) {
     throw unreadable(error);
   }
@@ -182,4 +194,10 @@ export async function processPhoto(input: Uint8Array, options: ProcessOptions): 
     hadLocation: facts.hasGps || locationRemoved,
     locationKept: options.keepLocation && facts.hasGps,
   };
+}
+
+/** checkPhoto, waiting for the display copy too: every output in hand. */
+export async function processPhoto(input: Uint8Array, options: ProcessOptions): Promise<ProcessedPhoto> {
+  const checked = await checkPhoto(input, options);
+  return { ...checked, display: await checked.display };
 }

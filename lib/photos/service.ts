@@ -12,7 +12,7 @@ import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
 import { inspectPhotoStorage, repairPhotoStorage } from '@/lib/photos/consistency';
 import { toPhotoDto, type PhotoDto, type PhotoListDto, type StorageReportDto, type StorageRepairDto } from '@/lib/photos/dto';
-import { processPhoto } from '@/lib/photos/process';
+import { checkPhoto } from '@/lib/photos/process';
 import { photoKinds, type ListPhotosQuery, type PhotoKind, type PhotoVariant, type UpdatePhotoInput } from '@/lib/photos/schemas';
 import { deleteObject, getObjectStream, objectKey, putObject, storageErrorKind } from '@/storage/objects';
 
@@ -156,7 +156,7 @@ export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kys
     const earlier = await existingUpload(actor, input.uploadKey, equipment.id, db);
     if (earlier) return earlier;
   }
-  const processed = await processPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone });
+  const processed = await checkPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone });
 
   const id = randomUUID();
   const keys = {
@@ -164,15 +164,16 @@ export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kys
     display: objectKey(actor.companyId, 'photos', equipment.id, id, 'display'),
     thumb: objectKey(actor.companyId, 'photos', equipment.id, id, 'thumb'),
   };
-  const puts = await Promise.allSettled([
-    putObject(keys.original, processed.original, processed.contentType),
-    putObject(keys.display, processed.display, 'image/webp'),
-    putObject(keys.thumb, processed.thumb, 'image/webp'),
-  ]);
-  const failedPut = puts.find((p) => p.status === 'rejected');
-  if (failedPut) {
+  // Every check has passed: the original and thumbnail are stored while the display copy is
+  // still being made, so most of the storage time hides behind the image work.
+  const puts = [putObject(keys.original, processed.original, processed.contentType), putObject(keys.thumb, processed.thumb, 'image/webp')];
+  const displayDone = processed.display.then((display) => putObject(keys.display, display, 'image/webp'));
+  const results = await Promise.allSettled([...puts, displayDone]);
+  const failed = results.find((r) => r.status === 'rejected');
+  if (failed) {
     await removeObjects(Object.values(keys));
-    const reason = (failedPut as PromiseRejectedResult).reason;
+    const reason = (failed as PromiseRejectedResult).reason;
+    if (reason instanceof AppError) throw reason;
     logger.warn({ err: reason }, 'photo upload could not write to the object store');
     throw storageErrorKind(reason) === 'other' ? new AppError('internal') : storeDown();
   }

@@ -1,10 +1,12 @@
 // Photos in the browser: upload two at once with a progress bar each and see both thumbnails;
 // a refused file and a dropped connection each said plainly, the second retried alone; the
 // full-screen viewer (zoom by keyboard, Escape), the kind filter and the comparison.
+import { DeleteObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
+import { createTestDb } from '../helpers/db';
 import { cameraImage, nameplateImage } from '../helpers/photo-images';
 import { screenshotDir, shot, signIn } from './helpers';
 
@@ -183,3 +185,49 @@ test('an owner sees photos of their equipment but no uploader', async ({ page, b
   await owner.close();
   await other.close();
 });
+
+test('an admin finds a photo whose thumbnail went missing and repairs it @phone', async ({ page }, info) => {
+  await signIn(page, 'tech@rimeline.test');
+  const id = await newEquipment(page, `Freezer evaporator ${Date.now() % 100000}`);
+  const up = await page.request.post(`/api/equipment/${id}/photos`, { multipart: { kind: 'wiring', file: { name: 'wiring.jpg', mimeType: 'image/jpeg', buffer: await cameraImage() } } });
+  expect(up.status()).toBe(201);
+  const photoId = (await up.json()).id as string;
+  // Lose the thumbnail behind the app's back, as a half-finished bucket copy might.
+  const db = createTestDb();
+  try {
+    const row = await db.selectFrom('photos').select('thumb_key').where('id', '=', photoId).executeTakeFirstOrThrow();
+    await storeClient().send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET, Key: row.thumb_key }));
+  } finally {
+    await db.destroy();
+  }
+  expect((await page.request.get(`/api/photos/${photoId}/thumb`)).status()).toBe(404);
+  // Technicians are not shown the page.
+  await page.goto('/settings/storage');
+  await expect(page).toHaveURL(/denied=1/);
+
+  await page.context().clearCookies();
+  await signIn(page, 'admin@rimeline.test', undefined, '/settings/storage');
+  await expect(page.getByRole('heading', { name: 'Photo storage' })).toBeVisible();
+  const problem = page.getByRole('listitem').filter({ hasText: 'Freezer evaporator' });
+  await expect(problem).toContainText('Missing: thumb');
+  await expect(problem).toContainText('Make the display copy and thumbnail again from the original');
+  await shot(page, `photos-storage-check-${info.project.name}`);
+  page.once('dialog', (d) => d.accept());
+  await page.getByRole('button', { name: 'Repair' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Repaired.' })).toContainText('1 photo(s) given new small copies');
+  await expect(page.getByText('Photo storage is consistent.')).toBeVisible();
+  await shot(page, `photos-storage-repaired-${info.project.name}`);
+  expect((await page.request.get(`/api/photos/${photoId}/thumb`)).status()).toBe(200);
+});
+
+/** A plain S3 client from the test environment (the app's storage module is server-only). */
+function storeClient(): S3Client {
+  return new S3Client({
+    region: process.env.S3_REGION ?? 'us-east-1',
+    endpoint: process.env.S3_ENDPOINT,
+    forcePathStyle: true,
+    credentials: { accessKeyId: process.env.S3_ACCESS_KEY_ID ?? 'S3RVER', secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? 'S3RVER' },
+    requestChecksumCalculation: 'WHEN_REQUIRED',
+    responseChecksumValidation: 'WHEN_REQUIRED',
+  });
+}

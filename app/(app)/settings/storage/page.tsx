@@ -20,7 +20,7 @@ const repairWords = {
 } as const;
 
 function when(iso: string | null): string {
-  return iso ? new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' }) : 'unknown time';
+  return iso ? new Date(iso).toLocaleString('en-US', { year: 'numeric', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }) : 'unknown time';
 }
 
 export default async function StorageSettingsPage() {
@@ -52,7 +52,13 @@ export default async function StorageSettingsPage() {
             </Alert>
           ) : (
             <Alert tone="warning" title="The check found problems.">
-              {report.orphanObjects.length} file(s) with no record and {report.missing.length} record(s) with missing files. Repair fixes both; details below.
+              {[
+                report.orphanObjects.length ? `${report.orphanObjects.length} file(s) with no record` : null,
+                report.missing.length ? `${report.missing.length} record(s) with missing files` : null,
+              ]
+                .filter(Boolean)
+                .join(' and ')}
+              . Repair fixes {report.orphanObjects.length && report.missing.length ? 'both' : 'this'}; details below.
             </Alert>
           )}
           <Card>
