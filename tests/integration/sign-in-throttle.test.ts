@@ -13,7 +13,7 @@ afterAll(async () => {
 
 describe('sign-in throttle', () => {
   it('allows four failures, then locks for 30 s, doubling after each further failure', async () => {
-    expect([1, 4, 5, 6, 7].map(lockSecondsAfter)).toEqual([0, 0, 30, 60, 120]);
+    expect([1, 4, 5, 6, 7].map((n) => lockSecondsAfter(n))).toEqual([0, 0, 30, 60, 120]);
     expect(lockSecondsAfter(50)).toBe(900);
     const keys = throttleKeys('Tech@Rimeline.test', '10.1.2.3');
     expect(keys).toEqual(['email:tech@rimeline.test', 'ip:10.1.2.3']);
