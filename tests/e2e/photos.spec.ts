@@ -47,7 +47,7 @@ async function slowUploads(page: Page): Promise<void> {
   await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 1024 * 1024 });
 }
 
-test('uploads two photos with progress, shows both thumbnails, views, filters and compares them', async ({ page }, info) => {
+test('uploads two photos with progress, shows both thumbnails, views, filters and compares them @phone', async ({ page }, info) => {
   await signIn(page, 'tech@rimeline.test');
   const id = await newEquipment(page, `Roof condensing unit ${Date.now() % 100000}`);
   const plate = info.outputPath('nameplate.jpg');
@@ -95,6 +95,13 @@ test('uploads two photos with progress, shows both thumbnails, views, filters an
   await expect(viewer).toBeVisible();
   await expect(viewer.getByRole('heading')).toContainText('Corrosion');
   await expect(viewer.locator('[data-photo-stage]')).toBeFocused();
+  // Tab stays inside the viewer, and each control shows where focus is.
+  for (let i = 0; i < 14; i++) {
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => Boolean(document.activeElement?.closest('[role=dialog]')))).toBe(true);
+  }
+  expect(await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle)).toBe('solid');
+  await viewer.locator('[data-photo-stage]').focus();
   for (let i = 0; i < 4; i++) await page.keyboard.press('+');
   await expect(viewer.getByText('244%')).toBeVisible();
   await page.keyboard.press('ArrowLeft');
