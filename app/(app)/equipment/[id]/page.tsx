@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
+import { EquipmentPhotos } from '@/components/photos/equipment-photos';
 import { EquipmentTagPanel } from '@/components/tags/equipment-tag-panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -140,6 +141,8 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
         </h2>
         <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={can(actor, 'equipment.write')} />
       </section>
+
+      <EquipmentPhotos equipmentId={equipment.id} />
 
       <section aria-labelledby="history-h" className="space-y-3">
         <div className="flex flex-wrap items-center justify-between gap-2">
