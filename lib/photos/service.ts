@@ -261,11 +261,22 @@ export async function updatePhoto(actor: Actor, id: string, input: UpdatePhotoIn
   });
 }
 
-/** Removes the row (with an audit event) and then its three objects. */
+/** Removes the row (with an audit event) and then its three objects; refused while a visit entry shows it. */
 export async function deletePhoto(actor: Actor, id: string, db: Kysely<DB> = defaultDb): Promise<void> {
   assertCan(actor, 'photos.read');
   const keys = await db.transaction().execute(async (trx) => {
     const row = await photoForChange(actor, id, trx);
+    // A photo recorded on a visit is part of a record that must last; it goes only once that
+    // entry has been voided (with its reason) on the visit.
+    const entry = await trx
+      .selectFrom('entries')
+      .select('id')
+      .where('company_id', '=', actor.companyId)
+      .where('kind', '=', 'photo')
+      .where('voided_at', 'is', null)
+      .where(sql<string>`data->>'photoId'`, '=', id)
+      .executeTakeFirst();
+    if (entry) throw new AppError('conflict', 'This photo is part of a visit record. Void its entry on the visit first; then the photo can be deleted.');
     await trx.deleteFrom('photos').where('id', '=', id).execute();
     await recordAudit(trx, actor, {
       action: 'delete',

@@ -344,6 +344,41 @@ describe('deleting', () => {
   });
 });
 
+describe('a photo on a visit record', () => {
+  it('cannot be deleted while a visit entry shows it, and can once that entry is voided', async () => {
+    const res = await upload(equipmentOne, form({ kind: 'after' }, { bytes: await cameraImage() }));
+    const id = (res.body as PhotoBody).id;
+    const equipment = await db.selectFrom('equipment').select(['site_id', 'company_id']).where('id', '=', equipmentOne).executeTakeFirstOrThrow();
+    const visit = await db
+      .insertInto('visits')
+      .values({ company_id: equipment.company_id, site_id: equipment.site_id, technician_id: tech.id, reason: 'maintenance', started_at: new Date() })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const entry = await db
+      .insertInto('entries')
+      .values({
+        company_id: equipment.company_id,
+        visit_id: visit.id,
+        equipment_id: equipmentOne,
+        kind: 'photo',
+        data: JSON.stringify({ photoId: id, caption: null }),
+        recorded_at: new Date(),
+        created_by: tech.id,
+        client_entry_id: '3c9e2f1a-7b6d-4e5f-8a9b-0c1d2e3f4a5b',
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    const refused = await send(deleteRoute, `/api/photos/${id}`, { id }, { method: 'DELETE' });
+    expect(refused.status).toBe(409);
+    expect(refused.body).toMatchObject({ error: { code: 'conflict', message: expect.stringMatching(/visit record/) } });
+    expect(await storedKeys()).toHaveLength(3);
+    expect(await photoAudits()).toEqual(['create']);
+    await db.updateTable('entries').set({ voided_at: new Date(), voided_by: tech.id, void_reason: 'Wrong unit' }).where('id', '=', entry.id).execute();
+    expect((await send(deleteRoute, `/api/photos/${id}`, { id }, { method: 'DELETE' })).status).toBe(204);
+    expect(await storedKeys()).toEqual([]);
+  });
+});
+
 describe('object store outage', () => {
   it('an upload while the store is down fails cleanly (503, nothing written) and succeeds once it is back', async () => {
     const bytes = await cameraImage({ gps: true });
