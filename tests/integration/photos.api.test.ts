@@ -14,10 +14,10 @@ import { cameraImage, gifImage, hasLocation, heicHeader, isRed, pixelAt, pngBomb
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
 // A private object store on its own port, set before any app module reads the environment.
-const S3_PORT = 45917;
+const S3_PORT = 47917;
 const previousEnv = vi.hoisted(() => {
   const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = 'http://127.0.0.1:45917';
+  process.env.S3_ENDPOINT = 'http://127.0.0.1:47917';
   process.env.S3_BUCKET = 'photos-api-test';
   process.env.S3_FORCE_PATH_STYLE = 'true';
   delete (globalThis as { rimelineS3?: unknown }).rimelineS3;

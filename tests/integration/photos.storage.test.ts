@@ -16,10 +16,10 @@ import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers
 import { cameraImage } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const S3_PORT = 45918;
+const S3_PORT = 47918;
 const previousEnv = vi.hoisted(() => {
   const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = 'http://127.0.0.1:45918';
+  process.env.S3_ENDPOINT = 'http://127.0.0.1:47918';
   process.env.S3_BUCKET = 'photos-storage-test';
   process.env.S3_FORCE_PATH_STYLE = 'true';
   delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
