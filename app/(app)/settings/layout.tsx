@@ -11,6 +11,7 @@ export default async function SettingsLayout({ children }: { children: ReactNode
     { href: '/settings/company', label: 'Company', show: can(actor, 'company.settings') },
     { href: '/settings/users', label: 'Users', show: can(actor, 'users.manage') },
     { href: '/settings/mail', label: 'Mail inbox (local)', show: can(actor, 'mail.inbox') && mailCatcherEnabled() },
+    { href: '/settings/storage', label: 'Photo storage', show: can(actor, 'photos.maintain') },
   ].filter((l) => l.show);
   return (
     <div className="grid gap-6 md:grid-cols-[12rem_1fr]">
