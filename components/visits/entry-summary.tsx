@@ -70,8 +70,15 @@ export function LeakRateNotice({ computed }: { computed: Record<string, unknown>
 }
 
 /** One entry in words, in the viewer's units; the same sentence the visit report uses. */
-export function EntrySummary({ entry, prefs }: { entry: Pick<EntryDto, 'kind' | 'data' | 'computed'> & Partial<EntryDto>; prefs: UnitPrefs }) {
-  let text = withoutKindPrefix(entry.kind, describeEntry(entry as EntryDto, prefs));
+/** An entry to describe; `computed` is undefined while the entry is still on the phone (the server has not worked it out yet). */
+export interface SummaryEntry {
+  kind: EntryDto['kind'];
+  data: Record<string, unknown>;
+  computed?: Record<string, unknown> | null;
+}
+
+export function EntrySummary({ entry, prefs }: { entry: SummaryEntry; prefs: UnitPrefs }) {
+  let text = withoutKindPrefix(entry.kind, describeEntry({ ...entry, computed: entry.computed ?? null } as EntryDto, prefs));
   // The leak rate gets its own notice below; the report's one-line form of it would repeat it.
   if (entry.kind === 'refrigerant') text = text.split('; leak rate')[0]!;
   const d = entry.data;

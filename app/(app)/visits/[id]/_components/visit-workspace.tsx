@@ -8,7 +8,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { EntryKindLabel, entryKindIcons, SaveStateBadge, type SaveState } from '@/components/visits/badges';
-import { EntrySummary } from '@/components/visits/entry-summary';
+import { EntrySummary, type SummaryEntry } from '@/components/visits/entry-summary';
 import type { ErrorIssue } from '@/lib/errors';
 import { refrigerantCautions as cautionsFor } from '@/lib/calc/cautions';
 import { findRefrigerant } from '@/lib/calc/refrigerants';
@@ -49,7 +49,7 @@ interface Row {
   equipmentName: string;
   recordedAt: string;
   state: SaveState;
-  entry: Pick<EntryDto, 'kind' | 'data' | 'computed'> & Partial<EntryDto>;
+  entry: SummaryEntry;
   saved?: EntryDto;
   pending?: PendingEntry;
 }
@@ -127,7 +127,7 @@ export function VisitWorkspace({
         equipmentName: names.get(p.input.equipmentId) ?? 'Equipment',
         recordedAt: p.savedAt,
         state: p.state,
-        entry: { kind: p.input.kind, data: p.input.data as Record<string, unknown>, computed: undefined as unknown as null },
+        entry: { kind: p.input.kind, data: p.input.data as Record<string, unknown> },
         pending: p,
       }));
     return [...fromServer, ...waiting].sort((a, b) => b.recordedAt.localeCompare(a.recordedAt));
