@@ -199,6 +199,11 @@ const cases: Case[] = [
   { name: 'POST /api/follow-ups', route: () => import('@/app/api/follow-ups/route'), method: 'POST', body: () => ({ siteId: ids.siteOne, title: 'Matrix raised', severity: 'minor' }), expect: staffWrite(201) },
   { name: 'GET /api/follow-ups/:id', route: () => import('@/app/api/follow-ups/[id]/route'), method: 'GET', params: async () => ({ id: ids.followUp }), expect: all(200) },
   { name: 'PATCH /api/follow-ups/:id', route: () => import('@/app/api/follow-ups/[id]/route'), method: 'PATCH', params: async () => ({ id: await newFollowUp() }), body: () => ({ status: 'scheduled', scheduledFor: '2027-01-15' }), expect: staffWrite(200) },
+  { name: 'GET /api/tags/layouts', route: () => import('@/app/api/tags/layouts/route'), method: 'GET', expect: officeUp(200) },
+  { name: 'GET /api/print-runs', route: () => import('@/app/api/print-runs/route'), method: 'GET', expect: officeUp(200) },
+  { name: 'GET /api/tags?equipmentId=', route: () => import('@/app/api/tags/route'), method: 'GET', path: '/api/x?equipmentId=EQUIPMENT', expect: all(200) },
+  { name: 'GET /api/equipment/:id/photos', route: () => import('@/app/api/equipment/[id]/photos/route'), method: 'GET', params: async () => ({ id: ids.equipment }), expect: all(200) },
+  { name: 'GET /api/photos/consistency', route: () => import('@/app/api/photos/consistency/route'), method: 'GET', expect: adminOnly(200) },
   { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: all(200) },
   { name: 'PATCH /api/company', route: () => import('@/app/api/company/route'), method: 'PATCH', body: () => ({ servicePhone: '555-0100' }), expect: adminOnly(200) },
 ];
@@ -212,7 +217,7 @@ describe('access matrix', () => {
       session.actor = null;
       if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
       const mod = await c.route();
-      const res = await call(mod[c.method] as never, { method: c.method, path: c.path, params: c.params ? await c.params() : {}, json: c.body?.() });
+      const res = await call(mod[c.method] as never, { method: c.method, path: c.path?.replace('EQUIPMENT', ids.equipment), params: c.params ? await c.params() : {}, json: c.body?.() });
       expect(res.status).toBe(401);
       expect(res.body).toMatchObject({ error: { code: 'unauthorized' } });
     });
@@ -221,7 +226,7 @@ describe('access matrix', () => {
         session.actor = await actorFor(db, demoEmails[role]);
         if (c.name === 'POST /api/equipment/:id/relations') pendingOther.push(await newEquipment());
         const mod = await c.route();
-        const res = await call(mod[c.method] as never, { method: c.method, path: c.path, params: c.params ? await c.params() : {}, json: c.body?.() });
+        const res = await call(mod[c.method] as never, { method: c.method, path: c.path?.replace('EQUIPMENT', ids.equipment), params: c.params ? await c.params() : {}, json: c.body?.() });
         expect(res.status, JSON.stringify(res.body)).toBe(c.expect[role]);
         if (res.status >= 400) expect(res.body).toMatchObject({ error: { code: expect.any(String), message: expect.any(String) } });
       });
