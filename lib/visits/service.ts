@@ -309,6 +309,16 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
   let computed: Record<string, unknown> | null = null;
   const data: Record<string, unknown> = { ...input.data };
 
+  if (input.kind === 'photo') {
+    const photo = await trx
+      .selectFrom('photos')
+      .select('id')
+      .where('id', '=', input.data.photoId)
+      .where('company_id', '=', actor.companyId)
+      .where('equipment_id', '=', equipment.id)
+      .executeTakeFirst();
+    if (!photo) throw new AppError('validation_failed', 'That photo does not belong to this equipment.', [{ path: 'data.photoId', message: 'Upload the photo on this unit first.' }]);
+  }
   if (input.kind === 'reading') computed = { ...computeReading(input.data, ctx) };
   if (input.kind === 'setting_change') computed = { ...computeSettingChange(input.data, ctx) };
   if (input.kind === 'refrigerant') {
@@ -335,8 +345,9 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
         fullCharge: ctx.fullChargeKg,
         added: input.data.amountKg,
         massUnit: 'kg',
-        additionDate: recordedAt.toISOString().slice(0, 10),
-        previousAdditionDate: previous ? previous.recorded_at.toISOString().slice(0, 10) : null,
+        // Calendar days are the site's: an addition late in the evening counts on that local day.
+        additionDate: localDate(recordedAt, visit.timeZone),
+        previousAdditionDate: previous ? localDate(previous.recorded_at, visit.timeZone) : null,
       });
       computed = { leak };
     } else if (input.data.direction === 'added') {
@@ -430,6 +441,8 @@ async function replaceComponent(actor: Actor, equipmentId: string, newSerial: st
     .returning('id')
     .executeTakeFirstOrThrow();
   await trx.updateTable('equipment').set({ status: 'removed', updated_at: sql`now()` }).where('id', '=', equipmentId).execute();
+  // The tag on the unit now identifies its replacement: scanning it opens the new record.
+  await trx.updateTable('tags').set({ equipment_id: created.id, updated_at: sql`now()` }).where('equipment_id', '=', equipmentId).where('state', '=', 'attached').execute();
   await trx.updateTable('equipment_relations').set({ from_equipment_id: created.id }).where('from_equipment_id', '=', equipmentId).execute();
   await trx.updateTable('equipment_relations').set({ to_equipment_id: created.id }).where('to_equipment_id', '=', equipmentId).execute();
   await recordAudit(trx, actor, { action: 'replace', entityType: 'equipment', entityId: equipmentId, after: { replacedBy: created.id } });
@@ -629,4 +642,9 @@ export async function ensureVisitReport(actor: Actor, visitId: string, db: Kysel
     return (await db.selectFrom('visits').select('report_key').where('id', '=', visitId).executeTakeFirstOrThrow()).report_key!;
   }
   return key;
+}
+
+/** 'YYYY-MM-DD' of an instant in a time zone. */
+function localDate(at: Date, timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at);
 }

@@ -19,7 +19,11 @@ function chartRow(page: Page, temperature: string): Locator {
 
 test('a technician reads R-404A from the P-T chart and uses the converter @phone', async ({ page }, info) => {
   await signIn(page, 'tech@rimeline.test');
-  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'P-T chart' }).click();
+  const nav = page.getByRole('navigation', { name: 'Main' });
+  // On a phone the less-used places sit behind "More".
+  const more = nav.getByRole('button', { name: 'More' });
+  if (await more.isVisible()) await more.click();
+  await nav.getByRole('link', { name: 'P-T chart' }).click();
   await expect(page.getByRole('heading', { name: 'Pressure–temperature chart', level: 1 })).toBeVisible();
 
   // A flammable refrigerant shows its class in words with a handling caution.

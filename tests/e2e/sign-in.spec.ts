@@ -6,7 +6,7 @@ const homes = [
   ['admin@rimeline.test', 'admin', 'People and settings'],
   ['office@rimeline.test', 'office', 'Customers'],
   ['tech@rimeline.test', 'technician', 'Your work'],
-  ['owner@client-one.test', 'client', 'Your equipment, your sites'],
+  ['owner@client-one.test', 'client', 'Your sites'],
 ] as const;
 
 test.describe('sign-in', () => {

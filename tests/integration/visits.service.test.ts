@@ -211,3 +211,33 @@ describe('visits', () => {
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
   });
 });
+
+describe('visit entries that touch other records', () => {
+  it('a replaced component keeps its history on the old record; the new record takes the tag and relations', async () => {
+    const { generateCode } = await import('@/lib/tags/code');
+    const code = generateCode();
+    await db
+      .insertInto('tags')
+      .values({ company_id: circuit.companyId, code, state: 'attached', site_id: circuit.siteId, equipment_id: circuit.evaporatorId, attached_at: new Date() })
+      .execute();
+    await db.insertInto('equipment_relations').values({ company_id: circuit.companyId, from_equipment_id: circuit.condensingUnitId, to_equipment_id: circuit.evaporatorId, kind: 'serves' }).execute();
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling' });
+    await addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'part' as const, data: { part: 'Unit cooler', quantity: 1, newSerial: 'UC-88120', replacesEquipment: true } }));
+    const old = await db.selectFrom('equipment').select(['status']).where('id', '=', circuit.evaporatorId).executeTakeFirstOrThrow();
+    expect(old.status).toBe('removed');
+    const replacement = await db.selectFrom('equipment').select(['id', 'serial']).where('serial', '=', 'UC-88120').executeTakeFirstOrThrow();
+    const tag = await db.selectFrom('tags').select(['equipment_id', 'state']).where('code', '=', code).executeTakeFirstOrThrow();
+    expect(tag).toEqual({ equipment_id: replacement.id, state: 'attached' });
+    const unit = await getEquipment(tech, circuit.condensingUnitId);
+    expect(unit.relations.map((r) => r.other.id)).toEqual([replacement.id]);
+    expect((await equipmentHistory(tech, circuit.evaporatorId, { limit: 10 })).items.map((e) => e.kind)).toEqual(['part']);
+  });
+
+  it('a photo entry must name a photo of that equipment', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'inspection' });
+    await expect(
+      addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'photo' as const, data: { photoId: randomUUID() } })),
+    ).rejects.toMatchObject({ code: 'validation_failed' });
+    expect((await getVisit(tech, visit.id)).entries).toHaveLength(0);
+  });
+});
