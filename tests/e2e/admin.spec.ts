@@ -12,8 +12,11 @@ test('an admin invites a technician, who follows the link from the mail inbox an
   await page.getByRole('button', { name: 'Send invitation' }).click();
   await expect(page.getByText('Invitation sent to rhea@example.test.')).toBeVisible();
 
-  await page.goto('/settings/mail');
-  await expect(page.getByRole('link', { name: /invited you to Brackenfield/ }).first()).toBeVisible();
+  // The outbox sends in the background; the inbox shows the mail once it has arrived.
+  await expect(async () => {
+    await page.goto('/settings/mail');
+    await expect(page.getByRole('link', { name: /invited you to Brackenfield/ }).first()).toBeVisible({ timeout: 1_000 });
+  }).toPass({ timeout: 30_000 });
   await page.getByText('Plain text').click();
   const text = await page.getByTestId('mail-text').innerText();
   const link = text.match(/https?:\/\/[^/\s]+\/invitation\/\S+/)![0];
