@@ -11,6 +11,9 @@ import { needsAttention } from '@/lib/attention/service';
 import { dueWork } from '@/lib/overview/due';
 import { chartData, siteSummaries } from '@/lib/overview/service';
 import { listRequests } from '@/lib/requests/service';
+import { listVisits } from '@/lib/visits/service';
+import { listFollowUps } from '@/lib/follow-ups/service';
+import { visitReasonLabels } from '@/lib/visits/schemas';
 import { listSites } from '@/lib/sites/service';
 import { AttentionList } from '@/components/overview/attention-list';
 import { OverviewCharts } from '@/components/overview/overview-charts';
@@ -81,14 +84,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
         </section>
       ) : null}
 
-      {actor.role === 'technician' ? (
-        <Card>
-          <h2 className="text-lg font-semibold">Your work</h2>
-          <p className="mt-1 text-slate-700">
-            Open a site to see its areas. Scanning tags and logging visits arrive in later releases; until then nothing here is invented.
-          </p>
-        </Card>
-      ) : null}
+      {actor.role === 'technician' ? <TechnicianHome actor={actor} /> : null}
 
       {actor.role === 'client' ? <OwnerHome actor={actor} /> : null}
       {actor.role === 'office' || actor.role === 'admin' ? <OfficeOverview actor={actor} /> : null}
@@ -208,5 +204,61 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
         </section>
       </div>
     </div>
+  );
+}
+
+async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
+  const [open, followUps] = await Promise.all([
+    listVisits(actor, { status: 'open', technicianId: actor.id, limit: 10 }),
+    listFollowUps(actor, { limit: 5, severity: ['safety', 'down'] }),
+  ]);
+  return (
+    <section aria-labelledby="work-h" className="space-y-3">
+      <h2 id="work-h" className="text-lg font-semibold">
+        Your work
+      </h2>
+      <div className="flex flex-wrap gap-2">
+        <ButtonLink href="/scan" size="lg">
+          Scan a tag
+        </ButtonLink>
+        <ButtonLink href="/visits/new" size="lg" variant="secondary">
+          Start a visit
+        </ButtonLink>
+      </div>
+      {open.items.length > 0 ? (
+        <Card>
+          <h3 className="font-semibold">Your open visits</h3>
+          <ul className="mt-2 divide-y divide-slate-200">
+            {open.items.map((v) => (
+              <li key={v.id}>
+                <Link href={`/visits/${v.id}`} className="flex min-h-12 items-center justify-between gap-2 py-2 font-medium underline-offset-2 hover:underline">
+                  <span>
+                    {v.siteName} · {visitReasonLabels[v.reason]}
+                  </span>
+                  <span className="text-sm text-slate-600">{v.entryCount} entries</span>
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </Card>
+      ) : (
+        <p className="text-slate-700">No open visits. Scan a unit's tag or start a visit from a site.</p>
+      )}
+      {followUps.items.length > 0 ? (
+        <Card>
+          <h3 className="font-semibold">Open safety and down follow-ups</h3>
+          <ul className="mt-2 space-y-1 text-sm">
+            {followUps.items.map((f) => (
+              <li key={f.id}>
+                <Link className="underline" href={f.equipmentId ? `/equipment/${f.equipmentId}` : `/sites/${f.siteId}`}>
+                  {f.title}
+                </Link>{' '}
+                · {f.siteName} · open {f.ageDays} days
+              </li>
+            ))}
+          </ul>
+        </Card>
+      ) : null}
+    </section>
   );
 }
