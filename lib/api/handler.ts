@@ -5,7 +5,8 @@ import { requireActor, type Actor } from '@/lib/auth';
 import { assertCan } from '@/lib/auth/access';
 import type { Permission } from '@/lib/auth/permissions';
 import { isCalcError } from '@/lib/calc/errors';
-import { AppError, type ErrorIssue } from '@/lib/errors';
+import { zodIssues } from '@/lib/api/issues';
+import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
 
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
@@ -30,10 +31,6 @@ interface HandlerInput<P, Q, B> {
 }
 
 const DEFAULT_MAX_BODY = 1_000_000;
-
-export function zodIssues(error: z.ZodError): ErrorIssue[] {
-  return error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message }));
-}
 
 function validationError(error: z.ZodError): AppError {
   return new AppError('validation_failed', 'Some fields need attention.', zodIssues(error));

@@ -1,7 +1,7 @@
 'use server';
 
 import { redirect } from 'next/navigation';
-import { zodIssues } from '@/lib/api/handler';
+import { zodIssues } from '@/lib/api/issues';
 import { isAppError } from '@/lib/errors';
 import { acceptInvitationSchema } from '@/lib/users/schemas';
 import { acceptInvitation } from '@/lib/users/service';
