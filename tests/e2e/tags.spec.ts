@@ -215,8 +215,10 @@ test.describe('fake camera', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     // The fake camera repeats one still frame; if the decoder misses it, a fresh start of the
     // Scan page (as a person would re-aim) gets a new go. Two tries at most within the limit.
+    await page.waitForURL(/\/scan$|\/equipment\//);
+    let attempt = 0;
     await expect(async () => {
-      if (!/\/equipment\//.test(page.url())) await page.goto('/scan');
+      if (attempt++ > 0 && !/\/equipment\//.test(page.url())) await page.goto('/scan');
       await expect(page).toHaveURL(new RegExp(`/equipment/${unitId}$`), { timeout: 15_000 });
     }).toPass({ timeout: 45_000 });
     await expect(page.getByRole('heading', { name: unitName })).toBeVisible();
