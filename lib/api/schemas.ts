@@ -21,3 +21,10 @@ export const optionalText = (max: number) =>
 
 export const requiredText = (label: string, max: number) =>
   z.string().trim().min(1, `${label} is required.`).max(max, `Use at most ${max} characters.`);
+
+/** A query parameter that may repeat (`?type=a&type=b`) read as an array either way. */
+export const repeatedParam = <T extends z.ZodType>(item: T) =>
+  z
+    .union([item, z.array(item)])
+    .transform((v) => (Array.isArray(v) ? v : [v]))
+    .optional();

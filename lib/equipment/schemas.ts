@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { listQueryBase, optionalText, requiredText } from '@/lib/api/schemas';
+import { listQueryBase, optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import { nameplateSchemaFor } from '@/lib/equipment/nameplate';
 import { EQUIPMENT_STATUSES, EQUIPMENT_TYPES, RELATION_KINDS, type EquipmentType } from '@/lib/equipment/types';
@@ -64,11 +64,6 @@ export const updateEquipmentSchema = commonFields
   .extend({ nameplate: z.record(z.string(), z.unknown()).optional() })
   .superRefine(datesInOrder);
 
-const multi = <T extends z.ZodType>(item: T) =>
-  z
-    .union([item, z.array(item)])
-    .transform((v) => (Array.isArray(v) ? v : [v]))
-    .optional();
 
 export const EQUIPMENT_SORTS = ['name', 'type', 'make', 'model', 'serial', 'condition', 'installedOn', 'updatedAt'] as const;
 export type EquipmentSort = (typeof EQUIPMENT_SORTS)[number];
@@ -77,10 +72,10 @@ export const listEquipmentQuerySchema = listQueryBase.omit({ archived: true }).e
   siteId: z.uuid().optional(),
   areaId: z.uuid().optional(),
   systemId: z.uuid().optional(),
-  type: multi(z.enum(EQUIPMENT_TYPES)),
-  condition: multi(z.coerce.number().int().min(1).max(5)),
-  refrigerant: multi(z.enum(REFRIGERANT_IDS)),
-  status: multi(z.enum(EQUIPMENT_STATUSES)),
+  type: repeatedParam(z.enum(EQUIPMENT_TYPES)),
+  condition: repeatedParam(z.coerce.number().int().min(1).max(5)),
+  refrigerant: repeatedParam(z.enum(REFRIGERANT_IDS)),
+  status: repeatedParam(z.enum(EQUIPMENT_STATUSES)),
   sort: z.enum(EQUIPMENT_SORTS).default('name'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, requiredText } from '@/lib/api/schemas';
+import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { SEVERITIES } from '@/lib/visits/schemas';
 
 export const FOLLOW_UP_STATUSES = ['open', 'scheduled', 'resolved', 'declined'] as const;
@@ -11,17 +11,12 @@ export const followUpStatusLabels: Record<FollowUpStatus, string> = {
   declined: 'Declined',
 };
 
-const multi = <T extends z.ZodType>(item: T) =>
-  z
-    .union([item, z.array(item)])
-    .transform((v) => (Array.isArray(v) ? v : [v]))
-    .optional();
 
 export const listFollowUpsQuerySchema = z.object({
   siteId: z.uuid().optional(),
   equipmentId: z.uuid().optional(),
-  status: multi(z.enum(FOLLOW_UP_STATUSES)),
-  severity: multi(z.enum(SEVERITIES)),
+  status: repeatedParam(z.enum(FOLLOW_UP_STATUSES)),
+  severity: repeatedParam(z.enum(SEVERITIES)),
   cursor: z.string().max(500).optional(),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });

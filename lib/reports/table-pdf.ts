@@ -1,4 +1,5 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
+import { pdfSafeText } from '@/lib/reports/pdf-text';
 
 // A landscape table report for printing: title, facts, one table that pages as needed, notes.
 
@@ -8,21 +9,6 @@ export interface TableReport {
   columns: { label: string; width: number }[];
   rows: string[][];
   notes: string[];
-}
-
-const replacements: Record<string, string> = { '→': '->', '≥': '>=', '≤': '<=', '−': '-' };
-
-function safe(text: string, font: PDFFont): string {
-  let out = '';
-  for (const ch of text.replace(/[→≥≤−]/g, (c) => replacements[c] ?? c)) {
-    try {
-      font.encodeText(ch);
-      out += ch;
-    } catch {
-      out += '?';
-    }
-  }
-  return out;
 }
 
 function fit(text: string, font: PDFFont, size: number, width: number): string {
@@ -44,7 +30,7 @@ export async function renderTablePdf(report: TableReport): Promise<Uint8Array> {
   let page = pdf.addPage(size);
   let y = size[1] - margin;
   const line = (text: string, font: PDFFont, fontSize: number) => {
-    page.drawText(safe(text, font), { x: margin, y: y - fontSize, size: fontSize, font, color: rgb(0.06, 0.09, 0.16) });
+    page.drawText(pdfSafeText(text, font), { x: margin, y: y - fontSize, size: fontSize, font, color: rgb(0.06, 0.09, 0.16) });
     y -= fontSize * 1.4;
   };
   line(report.title, bold, 15);
@@ -53,7 +39,7 @@ export async function renderTablePdf(report: TableReport): Promise<Uint8Array> {
   const header = () => {
     let x = margin;
     for (const c of report.columns) {
-      page.drawText(fit(safe(c.label, bold), bold, 8, c.width * scale - 4), { x, y: y - 8, size: 8, font: bold });
+      page.drawText(fit(pdfSafeText(c.label, bold), bold, 8, c.width * scale - 4), { x, y: y - 8, size: 8, font: bold });
       x += c.width * scale;
     }
     y -= 13;
@@ -68,7 +54,7 @@ export async function renderTablePdf(report: TableReport): Promise<Uint8Array> {
     }
     let x = margin;
     report.columns.forEach((c, i) => {
-      page.drawText(fit(safe(row[i] ?? '', regular), regular, 8, c.width * scale - 4), { x, y: y - 8, size: 8, font: regular });
+      page.drawText(fit(pdfSafeText(row[i] ?? '', regular), regular, 8, c.width * scale - 4), { x, y: y - 8, size: 8, font: regular });
       x += c.width * scale;
     });
     y -= 12;

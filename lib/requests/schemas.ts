@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, requiredText } from '@/lib/api/schemas';
+import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
 
 export const URGENCIES = ['emergency', 'soon', 'routine'] as const;
 export type Urgency = (typeof URGENCIES)[number];
@@ -35,10 +35,7 @@ export const updateRequestSchema = z.object({
 
 export const listRequestsQuerySchema = z.object({
   siteId: z.uuid().optional(),
-  status: z
-    .union([z.enum(REQUEST_STATUSES), z.array(z.enum(REQUEST_STATUSES))])
-    .transform((v) => (Array.isArray(v) ? v : [v]))
-    .optional(),
+  status: repeatedParam(z.enum(REQUEST_STATUSES)),
   limit: z.coerce.number().int().min(1).max(200).default(100),
 });
 

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { escapeLike, siteVisibleTo } from '@/db/helpers';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -83,7 +83,7 @@ export async function listSystems(actor: Actor, query: ListSystemsQuery, db: Db 
   if (query.siteId) q = q.where('systems.site_id', '=', query.siteId);
   if (query.archived === 'exclude') q = q.where('systems.archived_at', 'is', null);
   if (query.archived === 'only') q = q.where('systems.archived_at', 'is not', null);
-  if (query.q) q = q.where('systems.name', 'ilike', `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  if (query.q) q = q.where('systems.name', 'ilike', `%${escapeLike(query.q)}%`);
   const rows = await q.orderBy('sites.name').orderBy('systems.name').limit(query.limit).execute();
   return rows.map(toSystemDto);
 }

@@ -1,21 +1,6 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
+import { pdfSafeText } from '@/lib/reports/pdf-text';
 import type { VisitReport } from '@/lib/visits/report-content';
-
-// The standard PDF fonts cover WinAnsi only; a few symbols the report uses are spelled out.
-const replacements: Record<string, string> = { '→': '->', '≥': '>=', '≤': '<=', '−': '-', '×': 'x' };
-
-function pdfSafe(text: string, font: PDFFont): string {
-  let out = '';
-  for (const ch of text.replace(/[→≥≤−×]/g, (c) => replacements[c] ?? c)) {
-    try {
-      font.encodeText(ch);
-      out += ch;
-    } catch {
-      out += '?';
-    }
-  }
-  return out;
-}
 
 function wrap(text: string, font: PDFFont, size: number, width: number): string[] {
   const lines: string[] = [];
@@ -49,7 +34,7 @@ export async function renderVisitReportPdf(report: VisitReport): Promise<Uint8Ar
   const write = (text: string, opts: { font?: PDFFont; size?: number; gap?: number; color?: [number, number, number] } = {}) => {
     const font = opts.font ?? regular;
     const size = opts.size ?? 10;
-    for (const line of wrap(pdfSafe(text, font), font, size, width)) {
+    for (const line of wrap(pdfSafeText(text, font), font, size, width)) {
       if (y < margin + size) {
         page = pdf.addPage(pageSize);
         y = pageSize[1] - margin;

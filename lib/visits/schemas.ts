@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, requiredText } from '@/lib/api/schemas';
+import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 
 export const VISIT_REASONS = ['no_cooling', 'maintenance', 'install', 'inspection', 'leak_check', 'follow_up'] as const;
@@ -164,10 +164,7 @@ export const listVisitsQuerySchema = z.object({
 export const HISTORY_PAGE_SIZE = 25;
 
 export const historyQuerySchema = z.object({
-  kind: z
-    .union([z.enum(ENTRY_KINDS), z.array(z.enum(ENTRY_KINDS))])
-    .transform((v) => (Array.isArray(v) ? v : [v]))
-    .optional(),
+  kind: repeatedParam(z.enum(ENTRY_KINDS)),
   cursor: z.string().max(500).optional(),
   limit: z.coerce.number().int().min(1).max(100).default(HISTORY_PAGE_SIZE),
 });
