@@ -8,7 +8,7 @@ import { Input, Select } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { photoKeys, uploadPhotoFile } from '@/lib/photos/hooks';
-import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
+import { formatBytes, MAX_PHOTO_BYTES, photoFileProblem, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
 import { cn } from '@/lib/utils';
 
 // Several photos at once, from the camera or from files; each with its kind, an optional caption,
@@ -40,12 +40,6 @@ function newId(): string {
     : '10000000-1000-4000-8000-100000000000'.replace(/[018]/g, (c) => (Number(c) ^ (Math.random() * 16) >> (Number(c) / 4)).toString(16));
 }
 
-function precheck(file: File): string | undefined {
-  if (file.size === 0) return 'This file is empty. Choose the photo again.';
-  if (file.size > MAX_PHOTO_BYTES) return `This file is ${formatBytes(file.size)}; the limit is ${formatBytes(MAX_PHOTO_BYTES)} per photo.`;
-  return undefined;
-}
-
 export interface PhotoUploaderProps {
   equipmentId: string;
   /** Kind preselected for new photos (a scan of a nameplate might start with "nameplate"). */
@@ -73,7 +67,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
   function add(list: FileList | null) {
     if (!list || list.length === 0) return;
     const added: Item[] = [...list].map((file) => {
-      const problem = precheck(file);
+      const problem = photoFileProblem(file);
       return {
         id: newId(),
         file,

@@ -6,6 +6,7 @@ import { assertCan } from '@/lib/auth/access';
 import type { Permission } from '@/lib/auth/permissions';
 import { isCalcError } from '@/lib/calc/errors';
 import { zodIssues } from '@/lib/api/issues';
+import { formFields, isMultipart, readMultipart } from '@/lib/api/multipart';
 import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
 
@@ -20,6 +21,11 @@ interface Options<P, Q, B> {
   /** Status on success when the handler returns a value (201 for creates). */
   status?: 200 | 201 | 202;
   maxBodyBytes?: number;
+  /**
+   * Also take the body as multipart/form-data (for a record sent with a file): its text fields
+   * are validated by `body` as JSON would be, and the form reaches the handler for its files.
+   */
+  multipart?: { maxBytes: number; tooLarge: () => AppError };
 }
 
 interface HandlerInput<P, Q, B> {
@@ -27,6 +33,8 @@ interface HandlerInput<P, Q, B> {
   params: P;
   query: Q;
   body: B;
+  /** The multipart form when the body came as one (see `multipart`), else null. */
+  form: FormData | null;
   req: NextRequest;
 }
 
@@ -110,13 +118,15 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
         query = parsed.data;
       }
       let body = undefined as B;
+      let form: FormData | null = null;
       if (options.body) {
-        const raw = await readJson(req, options.maxBodyBytes ?? DEFAULT_MAX_BODY);
+        if (options.multipart && isMultipart(req)) form = await readMultipart(req, options.multipart.maxBytes, options.multipart.tooLarge);
+        const raw = form ? formFields(form) : await readJson(req, options.maxBodyBytes ?? DEFAULT_MAX_BODY);
         const parsed = options.body.safeParse(raw);
         if (!parsed.success) throw validationError(parsed.error);
         body = parsed.data;
       }
-      const result = await handler({ actor, params, query, body, req });
+      const result = await handler({ actor, params, query, body, form, req });
       if (result instanceof Response) return result;
       if (result === undefined || result === null) return new Response(null, { status: 204 });
       return NextResponse.json(result, { status: options.status ?? 200 });

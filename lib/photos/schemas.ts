@@ -26,6 +26,13 @@ export const DISPLAY_MAX_SIDE = 2048;
 /** Square thumbnail edge: sharp on a 3× phone screen at about 130 CSS px. */
 export const THUMB_SIDE = 400;
 
+/** Checked in the browser before sending, so an empty or oversized file is refused at once. */
+export function photoFileProblem(file: { size: number }): string | undefined {
+  if (file.size === 0) return 'This file is empty. Choose the photo again.';
+  if (file.size > MAX_PHOTO_BYTES) return `This file is ${formatBytes(file.size)}; the limit is ${formatBytes(MAX_PHOTO_BYTES)} per photo.`;
+  return undefined;
+}
+
 /** What the server stores: sniffed from the bytes, whatever the browser claimed. */
 export const acceptedPhotoTypes = ['image/jpeg', 'image/png', 'image/webp'] as const;
 export type PhotoContentType = (typeof acceptedPhotoTypes)[number];

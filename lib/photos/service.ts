@@ -151,11 +151,38 @@ async function removeObjects(keys: string[]): Promise<void> {
  */
 export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kysely<DB> = defaultDb): Promise<PhotoDto> {
   assertCan(actor, 'photos.upload');
-  const equipment = await equipmentForPhotos(actor, input.equipmentId, db);
   if (input.uploadKey) {
+    const equipment = await equipmentForPhotos(actor, input.equipmentId, db);
     const earlier = await existingUpload(actor, input.uploadKey, equipment.id, db);
     if (earlier) return earlier;
   }
+  try {
+    const { photoId } = await storePhoto(actor, input, db);
+    return await getPhoto(actor, photoId, db);
+  } catch (error) {
+    // Two tries of the same file at once: the first one's photo is the answer to both.
+    const pg = error as { code?: string; constraint?: string };
+    if (input.uploadKey && pg.code === '23505' && pg.constraint === 'photos_upload_key_unique') {
+      const earlier = await existingUpload(actor, input.uploadKey, input.equipmentId, db);
+      if (earlier) return earlier;
+    }
+    throw error;
+  }
+}
+
+/**
+ * The storage half of an upload, for the services that take a photo with something else (a
+ * service request): `alongside` runs in the same transaction as the photo's row, so the record
+ * and its photo are stored together or not at all. The caller checks the permission; the
+ * equipment must be in the actor's scope.
+ */
+export async function storePhoto<T = undefined>(
+  actor: Actor,
+  input: UploadPhotoInput,
+  db: Kysely<DB>,
+  alongside?: (trx: Transaction<DB>, photoId: string) => Promise<T>,
+): Promise<{ photoId: string; result: T | undefined }> {
+  const equipment = await equipmentForPhotos(actor, input.equipmentId, db);
   const processed = await checkPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone });
 
   const id = randomUUID();
@@ -179,7 +206,7 @@ export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kys
   }
 
   try {
-    await db.transaction().execute(async (trx) => {
+    const result = await db.transaction().execute(async (trx) => {
       await trx
         .insertInto('photos')
         .values({
@@ -216,18 +243,13 @@ export async function uploadPhoto(actor: Actor, input: UploadPhotoInput, db: Kys
           locationRemoved: processed.hadLocation && !processed.locationKept,
         },
       });
+      return alongside ? await alongside(trx, id) : undefined;
     });
+    return { photoId: id, result };
   } catch (error) {
     await removeObjects(Object.values(keys));
-    // Two tries of the same file at once: the first one's photo is the answer to both.
-    const pg = error as { code?: string; constraint?: string };
-    if (input.uploadKey && pg.code === '23505' && pg.constraint === 'photos_upload_key_unique') {
-      const earlier = await existingUpload(actor, input.uploadKey, equipment.id, db);
-      if (earlier) return earlier;
-    }
     throw error;
   }
-  return getPhoto(actor, id, db);
 }
 
 async function photoForChange(actor: Actor, id: string, db: Db) {

@@ -16,8 +16,17 @@ export function useSiteEquipmentChoices(siteId: string) {
   });
 }
 
+/** Sends the request as JSON, or as multipart/form-data when a photo goes with it. */
 export function useCreateRequest() {
-  return useMutation({ mutationFn: (input: CreateRequestInput) => apiFetch<ServiceRequestDto>('/api/requests', { method: 'POST', json: input }) });
+  return useMutation({
+    mutationFn: ({ photo, ...input }: CreateRequestInput & { photo?: File | null }) => {
+      if (!photo) return apiFetch<ServiceRequestDto>('/api/requests', { method: 'POST', json: input });
+      const form = new FormData();
+      for (const [key, value] of Object.entries(input)) if (value !== null && value !== undefined) form.set(key, String(value));
+      form.set('file', photo, photo.name);
+      return apiFetch<ServiceRequestDto>('/api/requests', { method: 'POST', body: form });
+    },
+  });
 }
 
 export function useUpdateRequest(id: string) {

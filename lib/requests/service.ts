@@ -7,6 +7,7 @@ import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { getEquipment } from '@/lib/equipment/service';
+import { storePhoto } from '@/lib/photos/service';
 import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { escapeHtml } from '@/lib/mail/escape';
@@ -92,58 +93,98 @@ export async function getRequest(actor: Actor, id: string, db: Db = defaultDb): 
   return toDto(row);
 }
 
-/** Records the request and queues an e-mail to the office in the same transaction. */
-export async function createRequest(actor: Actor, input: CreateRequestInput, db: Kysely<DB> = defaultDb): Promise<ServiceRequestDto> {
+/** A photo sent with a request: the bytes as uploaded, checked and stored like any unit photo. */
+export interface RequestPhoto {
+  fileName: string | null;
+  bytes: Uint8Array;
+}
+
+/**
+ * Records the request and queues an e-mail to the office in the same transaction. A photo sent
+ * with it is stored in that transaction too (it joins the unit's photos), so a refused photo or
+ * a store outage leaves neither a request without its photo nor a photo without its request.
+ */
+export async function createRequest(actor: Actor, input: CreateRequestInput, db: Kysely<DB> = defaultDb, photo?: RequestPhoto): Promise<ServiceRequestDto> {
   assertCan(actor, 'requests.create');
-  const dto = await db.transaction().execute(async (trx) => {
-    const site = await getSite(actor, input.siteId, trx);
-    if (input.equipmentId) {
-      const e = await getEquipment(actor, input.equipmentId, trx);
-      if (e.siteId !== site.id) throw new AppError('validation_failed', 'That unit is on another site.', [{ path: 'equipmentId', message: 'Choose a unit on this site.' }]);
-    }
-    if (input.photoId) {
-      const photo = await trx.selectFrom('photos').select('id').where('id', '=', input.photoId).where('company_id', '=', actor.companyId).where('uploaded_by', '=', actor.id).executeTakeFirst();
-      if (!photo) throw new AppError('validation_failed', 'That photo was not found.', [{ path: 'photoId', message: 'Upload the photo again.' }]);
-    }
-    const row = await trx
-      .insertInto('service_requests')
-      .values({
-        company_id: actor.companyId,
-        site_id: site.id,
-        equipment_id: input.equipmentId ?? null,
-        requested_by: actor.id,
-        description: input.description,
-        urgency: input.urgency,
-        photo_id: input.photoId ?? null,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const created = await getRequest(actor, row.id, trx);
-    const office = await trx
-      .selectFrom('users')
-      .select('email')
-      .where('company_id', '=', actor.companyId)
-      .where('role', 'in', ['office', 'admin'])
-      .where('deactivated_at', 'is', null)
-      .execute();
-    const url = `${env.APP_URL}/requests/${row.id}`;
-    const what = created.equipmentName ? `${created.equipmentName} at ${created.siteName}` : created.siteName;
-    await enqueueMail(
-      {
-        companyId: actor.companyId,
-        kind: 'service_request',
-        to: office.map((u) => u.email),
-        subject: `${input.urgency === 'emergency' ? 'EMERGENCY — ' : ''}Service request: ${what}`,
-        text: `${created.requestedByName} (${created.clientName}) asks for service.\n\nWhere: ${what}\nUrgency: ${urgencyLabels[input.urgency]}\n\n${input.description}\n\nOpen the request: ${url}\n`,
-        html: `<p><strong>${escapeHtml(created.requestedByName)}</strong> (${escapeHtml(created.clientName)}) asks for service.</p><p>Where: ${escapeHtml(what)}<br>Urgency: ${escapeHtml(urgencyLabels[input.urgency])}</p><p>${escapeHtml(input.description)}</p><p><a href="${escapeHtml(url)}">Open the request in Rimeline</a></p>`,
-      },
-      trx,
-    );
-    await recordAudit(trx, actor, { action: 'create', entityType: 'service_request', entityId: row.id, after: created });
-    return created;
-  });
+  if (photo && !input.equipmentId) {
+    throw new AppError('validation_failed', 'A photo belongs to a unit.', [{ path: 'equipmentId', message: 'Choose the unit the photo shows, or send the request without a photo.' }]);
+  }
+  if (photo && input.photoId) throw new AppError('validation_failed', 'Send either a new photo or an uploaded one, not both.', [{ path: 'photoId', message: 'Leave this out when sending a file.' }]);
+  const record = (trx: Transaction<DB>, photoId: string | null) => insertRequest(actor, input, photoId, trx);
+  let dto: ServiceRequestDto;
+  if (photo) {
+    // Cheap checks first: a wrong site or unit is refused before any image work or storage.
+    await db.transaction().execute((trx) => checkPlace(actor, input, trx));
+    const caption = `Sent with a service request: ${input.description.length > 200 ? `${input.description.slice(0, 199)}…` : input.description}`;
+    const stored = await storePhoto(actor, { equipmentId: input.equipmentId!, kind: 'damage', caption, fileName: photo.fileName, bytes: photo.bytes }, db, record);
+    dto = stored.result!;
+  } else {
+    dto = await db.transaction().execute((trx) => record(trx, input.photoId ?? null));
+  }
   kickMailDelivery();
   return dto;
+}
+
+async function checkPlace(actor: Actor, input: CreateRequestInput, trx: Transaction<DB>) {
+  const site = await getSite(actor, input.siteId, trx);
+  if (input.equipmentId) {
+    const e = await getEquipment(actor, input.equipmentId, trx);
+    if (e.siteId !== site.id) throw new AppError('validation_failed', 'That unit is on another site.', [{ path: 'equipmentId', message: 'Choose a unit on this site.' }]);
+  }
+  return site;
+}
+
+async function insertRequest(actor: Actor, input: CreateRequestInput, photoId: string | null, trx: Transaction<DB>): Promise<ServiceRequestDto> {
+  const site = await checkPlace(actor, input, trx);
+  if (photoId && photoId === input.photoId) {
+    // An earlier upload named by id: the requester's own photo of this unit.
+    const photo = await trx
+      .selectFrom('photos')
+      .select('id')
+      .where('id', '=', photoId)
+      .where('company_id', '=', actor.companyId)
+      .where('uploaded_by', '=', actor.id)
+      .$if(Boolean(input.equipmentId), (q) => q.where('equipment_id', '=', input.equipmentId!))
+      .executeTakeFirst();
+    if (!photo) throw new AppError('validation_failed', 'That photo was not found.', [{ path: 'photoId', message: 'Upload the photo again.' }]);
+  }
+  const row = await trx
+    .insertInto('service_requests')
+    .values({
+      company_id: actor.companyId,
+      site_id: site.id,
+      equipment_id: input.equipmentId ?? null,
+      requested_by: actor.id,
+      description: input.description,
+      urgency: input.urgency,
+      photo_id: photoId,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const created = await getRequest(actor, row.id, trx);
+  const office = await trx
+    .selectFrom('users')
+    .select('email')
+    .where('company_id', '=', actor.companyId)
+    .where('role', 'in', ['office', 'admin'])
+    .where('deactivated_at', 'is', null)
+    .execute();
+  const url = `${env.APP_URL}/requests/${row.id}`;
+  const what = created.equipmentName ? `${created.equipmentName} at ${created.siteName}` : created.siteName;
+  const photoLine = photoId ? 'A photo came with it; open the request to see it.' : '';
+  await enqueueMail(
+    {
+      companyId: actor.companyId,
+      kind: 'service_request',
+      to: office.map((u) => u.email),
+      subject: `${input.urgency === 'emergency' ? 'EMERGENCY — ' : ''}Service request: ${what}`,
+      text: `${created.requestedByName} (${created.clientName}) asks for service.\n\nWhere: ${what}\nUrgency: ${urgencyLabels[input.urgency]}\n\n${input.description}\n\n${photoLine ? `${photoLine}\n` : ''}Open the request: ${url}\n`,
+      html: `<p><strong>${escapeHtml(created.requestedByName)}</strong> (${escapeHtml(created.clientName)}) asks for service.</p><p>Where: ${escapeHtml(what)}<br>Urgency: ${escapeHtml(urgencyLabels[input.urgency])}</p><p>${escapeHtml(input.description)}</p>${photoLine ? `<p>${photoLine}</p>` : ''}<p><a href="${escapeHtml(url)}">Open the request in Rimeline</a></p>`,
+    },
+    trx,
+  );
+  await recordAudit(trx, actor, { action: 'create', entityType: 'service_request', entityId: row.id, after: created });
+  return created;
 }
 
 export async function updateRequest(actor: Actor, id: string, input: UpdateRequestInput, db: Kysely<DB> = defaultDb): Promise<ServiceRequestDto> {

@@ -1,6 +1,7 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
 import { clearMail, waitForMail } from '../helpers/mail';
+import { cameraImage } from '../helpers/photo-images';
 import { shot, signIn } from './helpers';
 
 const base = 'http://localhost:3100';
@@ -14,7 +15,7 @@ async function apiAs(email: string): Promise<APIRequestContext> {
   return api;
 }
 
-test('an owner opens a site and a unit’s history, downloads the refrigerant report and asks for service; the office sees it @phone', async ({ page }, info) => {
+test('an owner opens a site and a unit’s history, downloads the refrigerant report and asks for service with a photo; the office sees it @phone', async ({ page }, info) => {
   const office = await apiAs('office@rimeline.test');
   const tech = await apiAs('tech@rimeline.test');
   const sites = (await (await office.get('/api/sites?q=Orchard')).json()) as { items: { id: string }[] };
@@ -44,18 +45,32 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
   const file = await download;
   const csv = await (await import('node:fs/promises')).readFile((await file.path())!, 'utf8');
   expect(csv).toContain('CYL-0101');
-  expect(csv).toContain('added');
+  expect(csv).toMatch(/added/i);
 
-  await page.goto(`/requests/new?siteId=${siteId}&equipmentId=${unit.id}`);
+  // The owner scans the unit's tag (its QR link) and asks for service from where it lands.
+  const run = (await (await office.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [unit.id], layoutId: 'thermal-2x1' } })).json()) as { id: string };
+  const code = ((await (await office.get(`/api/print-runs/${run.id}`)).json()) as { tags: { code: string }[] }).tags[0]!.code;
+  await page.goto(`/T/${code}`);
+  await expect(page).toHaveURL(new RegExp(`/equipment/${unit.id}$`));
+  await page.getByRole('link', { name: 'Ask for service' }).click();
+  await expect(page.getByLabel('Which unit (if you know)')).toHaveValue(unit.id);
   await page.getByLabel('What is wrong').fill('Bar cooler reads 47 °F and the fan is loud');
   await page.getByLabel('Emergency — product at risk now').check();
+  await page.getByLabel('Photo (optional)').setInputFiles({ name: 'bar-cooler.jpg', mimeType: 'image/jpeg', buffer: await cameraImage() });
+  await expect(page.getByRole('img', { name: 'The photo to send' })).toBeVisible();
+  await shot(page, `owner-request-photo-${info.project.name}`);
   await page.getByRole('button', { name: 'Send the request' }).click();
   await expect(page.getByText('Request sent. The office has been e-mailed.')).toBeVisible();
+  await expect(page.getByRole('img', { name: 'Photo sent with the request' })).toBeVisible();
+  await expect.poll(() => page.getByRole('img', { name: 'Photo sent with the request' }).evaluate((img: HTMLImageElement) => img.naturalWidth)).toBeGreaterThan(0);
   const mail = await waitForMail('office@rimeline.test');
   expect(mail.subject).toContain('EMERGENCY');
 
-  const officeView = (await (await office.get('/api/requests?status=new')).json()) as { items: { description: string }[] };
-  expect(officeView.items.map((r) => r.description)).toContain('Bar cooler reads 47 °F and the fan is loud');
+  expect(mail.text).toContain('A photo came with it');
+  const officeView = (await (await office.get('/api/requests?status=new')).json()) as { items: { description: string; photoId: string | null }[] };
+  const sent = officeView.items.find((r) => r.description === 'Bar cooler reads 47 °F and the fan is loud');
+  expect(sent?.photoId).toBeTruthy();
+  expect((await office.get(`/api/photos/${sent!.photoId}/thumb`)).status()).toBe(200);
   await office.dispose();
   await tech.dispose();
 });

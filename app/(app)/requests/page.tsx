@@ -42,7 +42,7 @@ export default async function RequestsPage({ searchParams }: { searchParams: Pro
                   <span className="block font-semibold">{r.equipmentName ? `${r.equipmentName} · ${r.siteName}` : r.siteName}</span>
                   <span className="block truncate text-sm text-slate-700">{r.description}</span>
                   <span className="block text-xs text-slate-600">
-                    {r.requestedByName} · {r.clientName} · {r.createdAt.slice(0, 16).replace('T', ' ')} UTC
+                    {r.requestedByName} · {r.clientName} · {r.createdAt.slice(0, 16).replace('T', ' ')} UTC{r.photoId ? ' · with a photo' : ''}
                   </span>
                 </span>
                 <span className="flex flex-wrap gap-1.5">

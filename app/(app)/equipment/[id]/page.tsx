@@ -1,3 +1,4 @@
+import { BellRing } from 'lucide-react';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import type { ReactNode } from 'react';
@@ -89,6 +90,13 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
             </p>
           </div>
           <div className="flex flex-wrap gap-2">
+            {can(actor, 'requests.create') ? (
+              // Where a scan lands an owner: what to do when the unit is not right.
+              <ButtonLink href={`/requests/new?siteId=${equipment.siteId}&equipmentId=${equipment.id}`} size={actor.role === 'client' ? 'lg' : undefined} variant={actor.role === 'client' ? 'primary' : 'secondary'}>
+                <BellRing aria-hidden className="size-5" />
+                {actor.role === 'client' ? 'Ask for service' : 'Log a service request'}
+              </ButtonLink>
+            ) : null}
             {can(actor, 'equipment.write') ? (
               <ButtonLink href={`/equipment/${equipment.id}/edit`} variant="secondary">
                 Edit

@@ -5,6 +5,7 @@ import { Card, PageHeader } from '@/components/ui/card';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
+import { photoUrls } from '@/lib/photos/dto';
 import { getRequest } from '@/lib/requests/service';
 import { urgencyLabels } from '@/lib/requests/schemas';
 import { RequestStatusBadge, UrgencyBadge } from '@/app/(app)/requests/_components/badges';
@@ -41,6 +42,7 @@ export default async function RequestPage({ params, searchParams }: { params: Pr
             </>
           ) : null}
         </p>
+        {request.photoId ? <RequestPhoto photoId={request.photoId} /> : null}
         {request.officeNote ? (
           <p className="rounded-md bg-ice-50 p-2 text-sm">
             <strong>Office:</strong> {request.officeNote}
@@ -63,5 +65,19 @@ export default async function RequestPage({ params, searchParams }: { params: Pr
         </section>
       ) : null}
     </div>
+  );
+}
+
+/** The photo sent with the request; it also sits in the unit's photos. */
+function RequestPhoto({ photoId }: { photoId: string }) {
+  const urls = photoUrls(photoId);
+  return (
+    <figure className="space-y-1">
+      <a href={urls.display} className="inline-block rounded-md focus-visible:outline-3 focus-visible:outline-offset-2" target="_blank" rel="noopener">
+        {/* eslint-disable-next-line @next/next/no-img-element -- served by the access-checked photo route */}
+        <img src={urls.thumb} alt="Photo sent with the request" width={160} height={160} className="size-40 rounded-md border border-slate-300 object-cover" />
+      </a>
+      <figcaption className="text-sm text-slate-600">Photo sent with the request (opens full size)</figcaption>
+    </figure>
   );
 }

@@ -6,11 +6,14 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { applyServerErrors } from '@/components/forms/server-errors';
+import { ApiError } from '@/lib/api/client';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field, Select, Textarea, describedBy } from '@/components/ui/field';
 import { useCreateRequest, useSiteEquipmentChoices } from '@/lib/requests/hooks';
+import { photoFileProblem } from '@/lib/photos/schemas';
 import { createRequestSchema, URGENCIES, urgencyLabels } from '@/lib/requests/schemas';
+import { RequestPhotoField } from '@/app/(app)/requests/_components/request-photo';
 
 type Values = z.input<typeof createRequestSchema>;
 type Output = z.output<typeof createRequestSchema>;
@@ -19,21 +22,33 @@ export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: strin
   const router = useRouter();
   const create = useCreateRequest();
   const [banner, setBanner] = useState<string>();
+  const [photo, setPhoto] = useState<File | null>(null);
+  const [photoError, setPhotoError] = useState<string>();
   const form = useForm<Values, unknown, Output>({
     resolver: zodResolver(createRequestSchema),
     defaultValues: { siteId: siteId ?? (sites.length === 1 ? sites[0]!.id : ''), equipmentId: equipmentId ?? null, description: '', urgency: 'soon' },
   });
   const chosenSite = form.watch('siteId');
+  const chosenUnit = form.watch('equipmentId');
   const equipment = useSiteEquipmentChoices(chosenSite);
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (values) => {
     setBanner(undefined);
+    setPhotoError(undefined);
+    const sendPhoto = values.equipmentId ? photo : null;
     try {
-      const saved = await create.mutateAsync({ ...values, equipmentId: values.equipmentId || null });
+      const saved = await create.mutateAsync({ ...values, equipmentId: values.equipmentId || null, photo: sendPhoto });
       router.push(`/requests/${saved.id}?sent=1`);
       router.refresh();
     } catch (error) {
-      setBanner(applyServerErrors(error, form.setError, ['siteId', 'equipmentId', 'description', 'urgency']));
+      // A refused image (type, size, unreadable) is the photo's problem, not the whole form's.
+      const photoRefused = error instanceof ApiError && (['unsupported_media_type', 'payload_too_large'].includes(error.code) || error.issues.some((i) => i.path === 'file'));
+      if (sendPhoto && photoRefused) {
+        setPhotoError(`${error.issues.find((i) => i.path === 'file')?.message ?? error.message} Nothing was sent; choose another photo or remove it.`);
+        setBanner('The photo could not be used. Nothing was sent.');
+      } else {
+        setBanner(applyServerErrors(error, form.setError, ['siteId', 'equipmentId', 'description', 'urgency']));
+      }
     }
   });
   return (
@@ -63,6 +78,15 @@ export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: strin
       <Field id="req-desc" label="What is wrong" error={errors.description?.message} hint="What you see or hear, the box temperature if you know it, since when.">
         <Textarea id="req-desc" rows={5} {...describedBy('req-desc', errors.description?.message)} {...form.register('description')} />
       </Field>
+      <RequestPhotoField
+        file={photo}
+        error={photoError}
+        disabledReason={chosenUnit ? undefined : 'Choose the unit above to add a photo of it.'}
+        onChange={(file) => {
+          setPhotoError(file ? photoFileProblem(file) : undefined);
+          setPhoto(file && !photoFileProblem(file) ? file : null);
+        }}
+      />
       <fieldset className="space-y-2">
         <legend className="text-sm font-semibold">How urgent</legend>
         {URGENCIES.map((u) => (
