@@ -1,9 +1,10 @@
+import { CircleCheck, CircleX, TriangleAlert, type LucideIcon } from 'lucide-react';
 import { Alert } from '@/components/ui/alert';
 import { SeverityBadge } from '@/components/visits/badges';
 import type { UnitPrefs } from '@/lib/units/quantities';
 import type { EntryDto } from '@/lib/visits/dto';
 import { describeEntry } from '@/lib/visits/report-content';
-import type { Severity } from '@/lib/visits/schemas';
+import { leakResultLabels, type LeakResult as LeakWorkOutcome, type Severity } from '@/lib/visits/schemas';
 
 interface LeakResult {
   ratePct?: number;
@@ -69,6 +70,28 @@ export function LeakRateNotice({ computed }: { computed: Record<string, unknown>
   );
 }
 
+const leakResultLooks: Partial<Record<LeakWorkOutcome, { Icon: LucideIcon; box: string }>> = {
+  leak_found: { Icon: TriangleAlert, box: 'border-amber-400 bg-amber-50 text-amber-950' },
+  no_leak_found: { Icon: CircleCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
+  passed: { Icon: CircleCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
+  failed: { Icon: CircleX, box: 'border-red-400 bg-red-50 text-red-950' },
+};
+
+/** The outcome of a leak inspection or verification test as a word with an icon, never colour alone. */
+function LeakWorkResult({ data }: { data: Record<string, unknown> }) {
+  const look = leakResultLooks[data.result as LeakWorkOutcome];
+  if (!look) return null;
+  return (
+    <p>
+      <span className={`inline-flex items-center gap-1.5 rounded-full border px-2 py-0.5 text-sm font-semibold ${look.box}`}>
+        <look.Icon aria-hidden className="size-4" />
+        <span className="sr-only">Result: </span>
+        {leakResultLabels[data.result as LeakWorkOutcome]}
+      </span>
+    </p>
+  );
+}
+
 /** One entry in words, in the viewer's units; the same sentence the visit report uses. */
 /** An entry to describe; `computed` is undefined while the entry is still on the phone (the server has not worked it out yet). */
 export interface SummaryEntry {
@@ -96,6 +119,7 @@ export function EntrySummary({ entry, prefs }: { entry: SummaryEntry; prefs: Uni
       ) : null}
       {entry.kind === 'photo' && !d.caption ? null : <p className="break-words text-slate-900">{entry.kind === 'finding' ? String(d.text ?? '') : text}</p>}
       {entry.kind === 'refrigerant' && d.direction === 'added' && entry.computed !== undefined ? <LeakRateNotice computed={entry.computed} /> : null}
+      {entry.kind === 'leak' ? <LeakWorkResult data={d} /> : null}
     </div>
   );
 }

@@ -19,6 +19,14 @@ export const ENERGISED_WORK_CAUTION =
 export const SAFETY_CONTROL_CAUTION =
   'Never leave a safety control jumpered or set outside the nameplate limits; a jumper is for momentary diagnosis with the technician present.';
 
+/** Leak searching on flammable refrigerants (EPA SNAP Appendix Y citing UL 60335-2-89 and ASHRAE 15; TRADE-REFERENCE §10). */
+export const FLAMMABLE_LEAK_SEARCH_CAUTION =
+  'On A2L and A3 (flammable) refrigerants use a leak detector rated for that refrigerant, ventilate, and keep open flames and other ignition sources away: never use a flame-type leak detector.';
+
+/** Standing pressure tests: common trade practice (TRADE-REFERENCE §10, not from a standard). */
+export const PRESSURE_TEST_CAUTION =
+  'Pressure-test with dry nitrogen through a regulator and relief valve, never oxygen or compressed air, and stay within the nameplate test pressures.';
+
 /** ASHRAE 34 safety classes in words, so the class is never a bare code. */
 export const SAFETY_CLASS_WORDS: Readonly<Record<SafetyClass, string>> = {
   A1: 'lower toxicity, no flame propagation',

@@ -6,6 +6,7 @@ import { siteVisibleTo } from '@/db/helpers';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { getComplianceRules } from '@/lib/calc/compliance-rules';
 import { yearlyTotals } from '@/lib/calc/leak-rate';
 import { serviceLifeOutlook, SERVICE_LIFE_SOURCE, type EquipmentType } from '@/lib/calc/service-life';
 import { equipmentTypeLabels, conditionLabels, type Condition } from '@/lib/equipment/types';
@@ -13,6 +14,7 @@ import { AppError } from '@/lib/errors';
 import { renderTablePdf, type TableReport } from '@/lib/reports/table-pdf';
 import { getSite } from '@/lib/sites/service';
 import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
+import { leakActivityLabels, leakMethodLabels, leakResultLabels, type LeakData } from '@/lib/visits/schemas';
 
 type Db = Kysely<DB> | Transaction<DB>;
 
@@ -108,7 +110,7 @@ export async function siteEquipmentReport(actor: Actor, siteId: string, db: Db =
   };
 }
 
-/** The yearly refrigerant report of one system: every addition and recovery, leak rates, totals. */
+/** The yearly refrigerant report of one system: additions, recoveries, leak rates, leak work and totals. */
 export async function refrigerantReport(actor: Actor, systemId: string, year: number, prefs: UnitPrefs, db: Db = defaultDb): Promise<TableReport> {
   assertCan(actor, 'reports.read');
   const system = await db
@@ -127,12 +129,13 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .innerJoin('users as tech', 'tech.id', 'entries.created_by')
     .where('entries.system_id', '=', systemId)
-    .where('entries.kind', '=', 'refrigerant')
+    .where('entries.kind', 'in', ['refrigerant', 'leak'])
     .where('entries.voided_at', 'is', null)
     .where('entries.recorded_at', '>=', from)
     .where('entries.recorded_at', '<', to)
-    .select(['entries.id', 'entries.recorded_at', 'entries.data', 'entries.computed', 'visits.id as visit_id', 'visits.reason', 'tech.name as tech_name'])
-    .orderBy('entries.recorded_at');
+    .select(['entries.id', 'entries.kind', 'entries.recorded_at', 'entries.data', 'entries.computed', 'visits.id as visit_id', 'visits.reason', 'tech.name as tech_name'])
+    .orderBy('entries.recorded_at')
+    .orderBy('entries.id');
   if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
   const entries = await q.execute();
   const leakChecks = await db
@@ -146,14 +149,15 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .select([sql<Date>`min(visits.started_at)`.as('at'), 'visits.id'])
     .groupBy('visits.id')
     .execute();
-  const tx = entries.map((e) => {
-    const d = e.data as { direction: 'added' | 'recovered'; amountKg: number; refrigerant: string; cylinderId?: string | null; technicianCert?: string | null };
-    return { e, d, leak: (e.computed as { leak?: { ratePct: number; thresholdPct: number; exceedsThreshold: boolean; repairDueDate: string | null } } | null)?.leak ?? null };
-  });
+  const tx = entries
+    .filter((e) => e.kind === 'refrigerant')
+    .map((e) => ({ e, d: e.data as unknown as RefrigerantRecord }));
+  const work = entries.filter((e) => e.kind === 'leak').map((e) => e.data as unknown as LeakRecord);
   const totals = yearlyTotals(
     tx.map(({ e, d }) => ({ systemId, refrigerant: d.refrigerant, date: e.recorded_at.toISOString().slice(0, 10), kind: d.direction, amount: d.amountKg, unit: 'kg' as const })),
     system.full_charge_kg ? { [systemId]: Number(system.full_charge_kg) } : {},
   ).bySystem.find((t) => t.year === year);
+  const rules = getComplianceRules();
   return {
     title: `Refrigerant report ${year} — ${system.name}`,
     facts: [
@@ -164,37 +168,91 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
       ['Added in the year', formatQuantity(totals?.addedKg ?? 0, 'mass', prefs)],
       ['Recovered in the year', formatQuantity(totals?.recoveredKg ?? 0, 'mass', prefs)],
       ['Added as share of full charge', totals?.addedPctOfCharge != null ? `${totals.addedPctOfCharge.toFixed(1)} %${totals.chronicLeaker ? ' — at or over 125 %: chronic leaker reporting applies' : ''}` : 'needs the full charge'],
-      ['Leak checks and verification visits', leakChecks.length ? leakChecks.map((v) => new Date(v.at).toISOString().slice(0, 10)).join(', ') : 'none recorded'],
+      ['Leak work in the year', leakWorkCounts(work)],
+      ['Leak-check visits', leakChecks.length ? leakChecks.map((v) => new Date(v.at).toISOString().slice(0, 10)).join(', ') : 'none recorded'],
     ],
     columns: [
-      { label: 'Date', width: 9 },
-      { label: 'Added / recovered', width: 9 },
-      { label: 'Amount', width: 8 },
-      { label: 'Refrigerant', width: 8 },
-      { label: 'Cylinder', width: 9 },
-      { label: 'Technician', width: 12 },
-      { label: 'Certification', width: 10 },
-      { label: 'Leak rate (annualized)', width: 10 },
+      { label: 'Date', width: 8 },
+      { label: 'Event', width: 11 },
+      { label: 'Amount', width: 6 },
+      { label: 'Refrigerant', width: 7 },
+      { label: 'Cylinder', width: 7 },
+      { label: 'Technician', width: 10 },
+      { label: 'Certification', width: 8 },
+      { label: 'Leak rate (annualized)', width: 8 },
       { label: 'Threshold', width: 7 },
-      { label: 'Repair due', width: 9 },
+      { label: 'Repair due', width: 8 },
+      { label: 'Details', width: 25 },
     ],
-    rows: tx.map(({ e, d, leak }) => [
-      e.recorded_at.toISOString().slice(0, 10),
-      d.direction,
-      formatQuantity(d.amountKg, 'mass', prefs),
-      d.refrigerant,
-      d.cylinderId ?? '',
-      e.tech_name,
-      d.technicianCert ?? '',
-      leak ? `${leak.ratePct.toFixed(1)} %${leak.exceedsThreshold ? ' OVER' : ''}` : '',
-      leak ? `${leak.thresholdPct} %` : '',
-      leak?.repairDueDate ?? '',
-    ]),
+    rows: entries.map((e) => {
+      const day = e.recorded_at.toISOString().slice(0, 10);
+      if (e.kind === 'leak') {
+        const d = e.data as unknown as LeakRecord;
+        return [day, leakActivityLabels[d.activity] ?? d.activity, '', '', '', e.tech_name, '', '', '', '', leakDetails(d, e.computed as RepairDeadline | null)];
+      }
+      const d = e.data as unknown as RefrigerantRecord;
+      const leak = (e.computed as { leak?: LeakComputed | null } | null)?.leak ?? null;
+      return [
+        day,
+        d.direction === 'added' ? 'Added' : 'Recovered',
+        formatQuantity(d.amountKg, 'mass', prefs),
+        d.refrigerant,
+        d.cylinderId ?? '',
+        e.tech_name,
+        d.technicianCert ?? '',
+        leak ? `${leak.ratePct.toFixed(1)} %${leak.exceedsThreshold ? ' OVER' : ''}` : '',
+        leak ? `${leak.thresholdPct} %` : '',
+        leak?.repairDueDate ?? '',
+        '',
+      ];
+    }),
     notes: [
       'Leak rate: annualizing method of 40 CFR 82.152, computed on each addition; thresholds by application (82.157 / 84.106).',
+      `Over the threshold, 40 CFR 82.157 asks for the leak to be repaired within ${rules.repairDays} days of the addition (${rules.repairDaysIprShutdown} with an industrial process shutdown), then an initial and a follow-up verification test; 40 CFR 84 Subpart C has parallel rules (from memory).`,
+      `${rules.verification.initial} ${rules.verification.followUp} (The ${rules.verification.followUpDays}-day timing sometimes quoted for the follow-up test is from memory.)`,
       'Federal US rules only, summarised for guidance; state and local rules may be stricter. Records are kept without deletion.',
     ],
   };
+}
+
+interface RefrigerantRecord {
+  direction: 'added' | 'recovered';
+  amountKg: number;
+  refrigerant: string;
+  cylinderId?: string | null;
+  technicianCert?: string | null;
+}
+interface LeakComputed {
+  ratePct: number;
+  thresholdPct: number;
+  exceedsThreshold: boolean;
+  repairDueDate: string | null;
+}
+type LeakRecord = Pick<LeakData, 'activity' | 'method' | 'result' | 'location' | 'note'>;
+interface RepairDeadline {
+  repairDueDate?: string;
+  onTime?: boolean;
+}
+
+function leakWorkCounts(work: LeakRecord[]): string {
+  const n = (f: (d: LeakRecord) => boolean) => work.filter(f).length;
+  const failed = n((d) => d.activity !== 'inspection' && d.activity !== 'repair' && d.result === 'failed');
+  return [
+    `${n((d) => d.activity === 'inspection')} inspection(s), ${n((d) => d.activity === 'inspection' && d.result === 'leak_found')} finding a leak`,
+    `${n((d) => d.activity === 'repair')} repair(s)`,
+    `${n((d) => d.activity === 'initial_verification')} initial and ${n((d) => d.activity === 'follow_up_verification')} follow-up verification test(s)${failed ? `, ${failed} failed` : ''}`,
+  ].join('; ');
+}
+
+function leakDetails(d: LeakRecord, c: RepairDeadline | null): string {
+  const parts = [
+    d.method ? leakMethodLabels[d.method] : null,
+    d.result ? leakResultLabels[d.result] : null,
+    d.location ? `at ${d.location}` : null,
+    c?.repairDueDate ? `${c.onTime ? 'within' : 'AFTER'} the repair deadline ${c.repairDueDate}` : null,
+    d.note ?? null,
+  ];
+  return parts.filter(Boolean).join('; ');
 }
 
 export async function reportFile(report: TableReport, format: 'csv' | 'pdf', basename: string): Promise<ReportFile> {

@@ -1,7 +1,17 @@
 import { formatQuantity, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
 import type { EntryDto, VisitDetailDto } from '@/lib/visits/dto';
-import { severityLabels, visitReasonLabels, type Severity } from '@/lib/visits/schemas';
+import {
+  leakActivityLabels,
+  leakMethodLabels,
+  leakResultLabels,
+  severityLabels,
+  visitReasonLabels,
+  type LeakActivity,
+  type LeakMethod,
+  type LeakResult,
+  type Severity,
+} from '@/lib/visits/schemas';
 
 // The visit report as plain sections of text, shared by the e-mail and the PDF so both say the same.
 
@@ -52,6 +62,20 @@ function value(v: unknown, q: Quantity | 'V' | 'A', prefs: UnitPrefs): string {
   return formatQuantity(v, q, prefs);
 }
 
+/** Leak work in one line: what, how, the outcome and where; a repair says whether it met its deadline. */
+export function describeLeakWork(d: Record<string, unknown>, c: Record<string, unknown> | null): string {
+  const activity = leakActivityLabels[d.activity as LeakActivity] ?? String(d.activity);
+  const method = d.method ? (leakMethodLabels[d.method as LeakMethod] ?? String(d.method)).toLowerCase() : null;
+  const result = d.result ? (leakResultLabels[d.result as LeakResult] ?? String(d.result)).toLowerCase() : null;
+  const where = typeof d.location === 'string' && d.location ? `at ${d.location}` : null;
+  const deadline =
+    c && typeof c.repairDueDate === 'string' ? (c.onTime ? `within the repair deadline of ${c.repairDueDate}` : `AFTER the repair deadline of ${c.repairDueDate}`) : null;
+  const note = d.note ? `. ${d.note}` : '';
+  if (d.activity === 'repair') return `${activity}${where ? ` ${where}` : ''}${deadline ? `, ${deadline}` : ''}${note}`;
+  const outcome = [result, where].filter(Boolean).join(' ');
+  return `${activity}${method ? ` (${method})` : ''}${outcome ? `: ${outcome}` : ''}${note}`;
+}
+
 export function describeEntry(e: EntryDto, prefs: UnitPrefs): string {
   const d = e.data;
   const c = (e.computed ?? {}) as Record<string, unknown>;
@@ -92,6 +116,8 @@ export function describeEntry(e: EntryDto, prefs: UnitPrefs): string {
       const due = leak?.exceedsThreshold && leak.repairDueDate ? `; OVER THRESHOLD — repair due by ${leak.repairDueDate}` : '';
       return `Refrigerant ${d.direction}: ${formatQuantity(d.amountKg as number, 'mass', prefs)} of ${d.refrigerant}${d.cylinderId ? `, cylinder ${d.cylinderId}` : ''}${rate}${due}`;
     }
+    case 'leak':
+      return describeLeakWork(d, e.computed);
     case 'condition':
       return `Condition rated ${d.rating} of 5${d.note ? `: ${d.note}` : ''}`;
     case 'note':

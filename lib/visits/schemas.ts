@@ -22,7 +22,7 @@ export const severityLabels: Record<Severity, string> = {
   minor: 'Minor',
 };
 
-export const ENTRY_KINDS = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'condition', 'note', 'photo'] as const;
+export const ENTRY_KINDS = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'leak', 'condition', 'note', 'photo'] as const;
 export type EntryKind = (typeof ENTRY_KINDS)[number];
 export const entryKindLabels: Record<EntryKind, string> = {
   reading: 'Readings',
@@ -31,6 +31,7 @@ export const entryKindLabels: Record<EntryKind, string> = {
   setting_change: 'Setting change',
   part: 'Part replaced',
   refrigerant: 'Refrigerant',
+  leak: 'Leak work',
   condition: 'Condition',
   note: 'Note',
   photo: 'Photo',
@@ -110,6 +111,71 @@ export const refrigerantDataSchema = z.object({
   technicianCert: optionalText(60),
 });
 
+// Leak work as records: the inspection, the repair and the two verification tests that
+// 40 CFR 82.157 asks for after a leak-rate exceedance (names of the tests are the regulation's).
+export const LEAK_ACTIVITIES = ['inspection', 'repair', 'initial_verification', 'follow_up_verification'] as const;
+export type LeakActivity = (typeof LEAK_ACTIVITIES)[number];
+export const leakActivityLabels: Record<LeakActivity, string> = {
+  inspection: 'Leak inspection',
+  repair: 'Leak repair',
+  initial_verification: 'Initial verification test',
+  follow_up_verification: 'Follow-up verification test',
+};
+
+/** Generic ways of finding or ruling out a leak; no open-flame (halide) method, since A2L/A3 refrigerants are flammable. */
+export const LEAK_METHODS = ['electronic_detector', 'ultrasonic', 'bubble_solution', 'fluorescent_dye', 'pressure_test', 'vacuum_test'] as const;
+export type LeakMethod = (typeof LEAK_METHODS)[number];
+export const leakMethodLabels: Record<LeakMethod, string> = {
+  electronic_detector: 'Electronic leak detector',
+  ultrasonic: 'Ultrasonic detector',
+  bubble_solution: 'Bubble solution',
+  fluorescent_dye: 'Fluorescent dye and UV lamp',
+  pressure_test: 'Standing pressure test (dry nitrogen)',
+  vacuum_test: 'Vacuum decay test',
+};
+
+export const LEAK_RESULTS = ['leak_found', 'no_leak_found', 'passed', 'failed'] as const;
+export type LeakResult = (typeof LEAK_RESULTS)[number];
+export const leakResultLabels: Record<LeakResult, string> = {
+  leak_found: 'Leak found',
+  no_leak_found: 'No leak found',
+  passed: 'Passed',
+  failed: 'Failed',
+};
+
+/** The results each activity can have; a repair has none (its test is a verification entry). */
+export const leakResultsFor: Record<LeakActivity, readonly LeakResult[]> = {
+  inspection: ['leak_found', 'no_leak_found'],
+  repair: [],
+  initial_verification: ['passed', 'failed'],
+  follow_up_verification: ['passed', 'failed'],
+};
+
+export const leakDataSchema = z
+  .object({
+    activity: z.enum(LEAK_ACTIVITIES, { message: 'Choose the leak work: an inspection, a repair or a verification test.' }),
+    method: z.enum(LEAK_METHODS, { message: 'Choose the test method from the list.' }).nullable().optional(),
+    result: z.enum(LEAK_RESULTS, { message: 'Choose the result from the list.' }).nullable().optional(),
+    location: optionalText(200),
+    note: optionalText(1000),
+  })
+  .superRefine((d, ctx) => {
+    const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+    const activity = leakActivityLabels[d.activity].toLowerCase();
+    if (d.activity === 'repair') {
+      if (d.method) issue('method', 'A repair has no test method: record the test as a verification test entry.');
+      if (d.result) issue('result', 'A repair has no result: record the outcome as a verification test entry.');
+      if (!d.location) issue('location', 'Say where on the system the leak was repaired.');
+      return;
+    }
+    if (!d.method) issue('method', `Choose how the ${activity} was done.`);
+    const allowed = leakResultsFor[d.activity];
+    const inspection = d.activity === 'inspection';
+    if (!d.result) issue('result', inspection ? 'Was a leak found?' : 'Did the test pass or fail?');
+    else if (!allowed.includes(d.result)) issue('result', inspection ? 'An inspection finds a leak or finds none.' : 'A verification test passes or fails.');
+    if (inspection && d.result === 'leak_found' && !d.location) issue('location', 'Say where on the system the leak was found.');
+  });
+
 export const conditionDataSchema = z.object({
   rating: z.number().int().min(1, 'Rate from 1 (failing) to 5 (like new).').max(5, 'Rate from 1 (failing) to 5 (like new).'),
   note: optionalText(1000),
@@ -129,6 +195,7 @@ export const createEntrySchema = z.discriminatedUnion(
     z.object({ ...entryBase, kind: z.literal('setting_change'), data: settingChangeDataSchema }),
     z.object({ ...entryBase, kind: z.literal('part'), data: partDataSchema }),
     z.object({ ...entryBase, kind: z.literal('refrigerant'), data: refrigerantDataSchema }),
+    z.object({ ...entryBase, kind: z.literal('leak'), data: leakDataSchema }),
     z.object({ ...entryBase, kind: z.literal('condition'), data: conditionDataSchema }),
     z.object({ ...entryBase, kind: z.literal('note'), data: noteDataSchema }),
     z.object({ ...entryBase, kind: z.literal('photo'), data: photoDataSchema }),
@@ -177,3 +244,4 @@ export type HistoryQuery = z.infer<typeof historyQuerySchema>;
 export type ReadingData = z.infer<typeof readingDataSchema>;
 export type SettingChangeData = z.infer<typeof settingChangeDataSchema>;
 export type RefrigerantData = z.infer<typeof refrigerantDataSchema>;
+export type LeakData = z.infer<typeof leakDataSchema>;

@@ -354,6 +354,9 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
       computed = { leak: null, problems: ['The leak rate needs the system’s full charge and application on record.'] };
     }
   }
+  if (input.kind === 'leak' && input.data.activity === 'repair' && ctx.systemId) {
+    computed = await repairDeadline(trx, ctx.systemId, recordedAt, visit.timeZone);
+  }
 
   const row = await trx
     .insertInto('entries')
@@ -413,6 +416,28 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
   const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
   await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
   return dto;
+}
+
+/**
+ * Whether a repair met the deadline set by the system's last addition before it, when that
+ * addition was over the leak-rate threshold (repair due date from lib/calc/leak-rate).
+ */
+async function repairDeadline(trx: Db, systemId: string, recordedAt: Date, timeZone: string): Promise<Record<string, unknown> | null> {
+  const addition = await trx
+    .selectFrom('entries')
+    .select(['id', 'computed'])
+    .where('system_id', '=', systemId)
+    .where('kind', '=', 'refrigerant')
+    .where('voided_at', 'is', null)
+    .where(sql<boolean>`data->>'direction' = 'added'`)
+    .where('recorded_at', '<=', recordedAt)
+    .orderBy('recorded_at', 'desc')
+    .limit(1)
+    .executeTakeFirst();
+  const due = (addition?.computed as { leak?: { exceedsThreshold?: boolean; repairDueDate?: string | null } | null } | null)?.leak;
+  if (!addition || !due?.exceedsThreshold || !due.repairDueDate) return null;
+  const repairedOn = localDate(recordedAt, timeZone);
+  return { repairDueDate: due.repairDueDate, repairedOn, onTime: repairedOn <= due.repairDueDate, additionEntryId: addition.id };
 }
 
 /**

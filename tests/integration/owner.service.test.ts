@@ -84,7 +84,7 @@ describe('owner view', () => {
     const expectedRows = firstYear === year ? 2 : 1;
     expect(report.rows).toHaveLength(expectedRows);
     const last = report.rows.at(-1)!;
-    expect(last[1]).toBe('added');
+    expect(last[1]).toBe('Added');
     expect(last[2]).toBe('30 lb');
     expect(last[7]).toMatch(/OVER/);
     expect(report.facts.find(([k]) => k === 'Full charge')![1]).toBe('100 lb');

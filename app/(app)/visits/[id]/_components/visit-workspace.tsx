@@ -24,11 +24,11 @@ import { createEntrySchema, entryKindLabels, type CreateEntryInput, type EntryKi
 import { CloseVisitPanel } from '@/app/(app)/visits/[id]/_components/close-visit-panel';
 import type { FieldErrors, SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 import { PhotoForm } from '@/app/(app)/visits/[id]/_components/photo-form';
-import { ActionForm, ConditionForm, FindingForm, NoteForm, PartForm, RefrigerantForm } from '@/app/(app)/visits/[id]/_components/other-forms';
+import { ActionForm, ConditionForm, FindingForm, LeakForm, NoteForm, PartForm, RefrigerantForm } from '@/app/(app)/visits/[id]/_components/other-forms';
 import { ReadingForm } from '@/app/(app)/visits/[id]/_components/reading-form';
 import { SettingForm } from '@/app/(app)/visits/[id]/_components/setting-form';
 
-const FORM_KINDS: EntryKind[] = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'condition', 'note', 'photo'];
+const FORM_KINDS: EntryKind[] = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'leak', 'condition', 'note', 'photo'];
 
 const NO_CONTEXT: EntryContext = { refrigerant: null, elevationM: 0, designBoxTempC: null, nameplateVoltage: null, controlVoltageNominal: null, designPressureHighKpaG: null };
 
@@ -270,6 +270,7 @@ export function VisitWorkspace({
               {kind === 'action' ? <ActionForm onSubmit={(d) => submit('action', d)} onCancel={cancel} /> : null}
               {kind === 'part' ? <PartForm equipmentName={selected.name} onSubmit={(d) => submit('part', d)} onCancel={cancel} /> : null}
               {kind === 'refrigerant' ? <RefrigerantForm ctx={ctx} prefs={prefs} refrigerantCautions={handling} onSubmit={(d) => submit('refrigerant', d)} onCancel={cancel} /> : null}
+              {kind === 'leak' ? <LeakForm refrigerantCautions={handling} onSubmit={(d) => submit('leak', d)} onCancel={cancel} /> : null}
               {kind === 'condition' ? <ConditionForm current={selected.condition} onSubmit={(d) => submit('condition', d)} onCancel={cancel} /> : null}
               {kind === 'note' ? <NoteForm onSubmit={(d) => submit('note', d)} onCancel={cancel} /> : null}
               {kind === 'photo' ? <PhotoForm equipmentId={selected.id} onSubmit={(d) => submit('photo', d, true)} onDone={cancel} /> : null}
