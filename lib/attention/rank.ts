@@ -3,7 +3,18 @@
 
 export type Signal =
   | { kind: 'open_safety_finding'; followUpId: string; title: string; since: string }
-  | { kind: 'leak_over_threshold'; visitId: string; ratePct: number; thresholdPct: number; repairDueDate: string | null; on: string }
+  | {
+      kind: 'leak_over_threshold';
+      visitId: string;
+      ratePct: number;
+      thresholdPct: number;
+      repairDueDate: string | null;
+      on: string;
+      /** Set once a repair is recorded after the addition; a repaired and verified leak raises no signal. */
+      repairedOn?: string | null;
+      /** A verification test failed after the repair. */
+      verificationFailed?: boolean;
+    }
   | { kind: 'repeat_no_cooling'; visitIds: string[] }
   | { kind: 'condition_worsening'; from: number; to: number; visitId: string }
   | { kind: 'past_expected_life'; ageYears: number; medianYears: number };
@@ -24,7 +35,8 @@ export interface RankedUnit extends UnitSignals {
 
 export const rankingRule = [
   'Each unit gets points for what is wrong with it, and the list is sorted by points, highest first:',
-  'an open safety finding 100; a refrigerant addition over the legal leak-rate threshold in the last 12 months 80;',
+  'an open safety finding 100; a refrigerant addition over the legal leak-rate threshold in the last 12 months 80,',
+  'or 40 once the repair is recorded, until its initial and follow-up verification tests have passed (then nothing);',
   'two or more no-cooling visits within 90 days 60, plus 10 for each further one;',
   'condition worse at the last rating than at the one before 20 per step down;',
   'past its expected service life 15, plus 2 per year past it (at most 40).',
@@ -36,7 +48,7 @@ export function scoreSignal(s: Signal): number {
     case 'open_safety_finding':
       return 100;
     case 'leak_over_threshold':
-      return 80;
+      return s.repairedOn && !s.verificationFailed ? 40 : 80;
     case 'repeat_no_cooling':
       return 60 + 10 * Math.max(0, s.visitIds.length - 2);
     case 'condition_worsening':
@@ -52,7 +64,7 @@ export function describeSignal(s: Signal): { text: string; href: string | null }
       return { text: `Open safety finding: ${s.title}`, href: `/follow-ups?focus=${s.followUpId}` };
     case 'leak_over_threshold':
       return {
-        text: `Leak rate ${s.ratePct.toFixed(1)} % per year on ${s.on}, over the ${s.thresholdPct} % threshold${s.repairDueDate ? `; repair due by ${s.repairDueDate}` : ''}`,
+        text: `Leak rate ${s.ratePct.toFixed(1)} % per year on ${s.on}, over the ${s.thresholdPct} % threshold${leakProgress(s)}`,
         href: `/visits/${s.visitId}`,
       };
     case 'repeat_no_cooling':
@@ -62,6 +74,12 @@ export function describeSignal(s: Signal): { text: string; href: string | null }
     case 'past_expected_life':
       return { text: `${s.ageYears.toFixed(1)} years old; expected service life ${s.medianYears} years`, href: null };
   }
+}
+
+function leakProgress(s: Extract<Signal, { kind: 'leak_over_threshold' }>): string {
+  if (s.repairedOn && s.verificationFailed) return `; repaired on ${s.repairedOn} but a verification test failed — repair again`;
+  if (s.repairedOn) return `; repaired on ${s.repairedOn}, verification tests still to pass`;
+  return s.repairDueDate ? `; repair due by ${s.repairDueDate}` : '';
 }
 
 function oldest(u: UnitSignals): string {

@@ -73,6 +73,17 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
         .where('visits.status', '=', 'closed')
         .select(sql<Date>`max(visits.started_at)`.as('m'))
         .as('last_leak_check'),
+      // A leak inspection or verification test recorded on any visit counts as a check too.
+      eb
+        .selectFrom('entries')
+        .innerJoin('visits', 'visits.id', 'entries.visit_id')
+        .whereRef('entries.system_id', '=', 'systems.id')
+        .where('entries.kind', '=', 'leak')
+        .where('entries.voided_at', 'is', null)
+        .where(sql<string>`entries.data->>'activity'`, 'in', ['inspection', 'initial_verification', 'follow_up_verification'])
+        .where('visits.status', '=', 'closed')
+        .select(sql<Date>`max(entries.recorded_at)`.as('m'))
+        .as('last_leak_work'),
     ])
     .execute();
   const items: DueItem[] = [];
@@ -101,7 +112,8 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
       const months = leakCheckIntervalMonths(Number(s.full_charge_kg), gwp);
       if (months) {
         const tonnes = ((Number(s.full_charge_kg) * gwp) / 1000).toFixed(1);
-        push(s, 'leak_inspection', s.last_leak_check ? new Date(s.last_leak_check) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP AR4), per the F-gas rule table — confirm the rule that applies locally`);
+        const checks = [s.last_leak_check, s.last_leak_work].filter(Boolean).map((d) => new Date(d!).getTime());
+        push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP AR4), per the F-gas rule table — confirm the rule that applies locally`);
       }
     }
   }

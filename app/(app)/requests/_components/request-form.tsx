@@ -2,7 +2,7 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { applyServerErrors } from '@/components/forms/server-errors';
@@ -32,6 +32,13 @@ export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: strin
   const chosenUnit = form.watch('equipmentId');
   const equipment = useSiteEquipmentChoices(chosenSite);
   const errors = form.formState.errors;
+  // The unit's option exists only once the site's units have loaded: select the unit then, so
+  // the page opened from a unit (or a scanned tag) shows that unit rather than "Not sure".
+  const loadedUnits = equipment.data;
+  useEffect(() => {
+    const current = form.getValues('equipmentId');
+    if (loadedUnits && current) form.setValue('equipmentId', current);
+  }, [loadedUnits, form]);
   const onSubmit = form.handleSubmit(async (values) => {
     setBanner(undefined);
     setPhotoError(undefined);

@@ -28,9 +28,14 @@ export function RequestPhotoField({
   const errorId = `${id}-error`;
   return (
     <div className="space-y-2">
-      <label htmlFor={id} className="block text-sm font-semibold text-slate-800">
-        Photo (optional)
-      </label>
+      {/* A label only while there is an input to label; otherwise the same words as a heading line. */}
+      {!disabledReason && !file ? (
+        <label htmlFor={id} className="block text-sm font-semibold text-slate-800">
+          Photo (optional)
+        </label>
+      ) : (
+        <p className="text-sm font-semibold text-slate-800">Photo (optional)</p>
+      )}
       {disabledReason ? (
         <p id={hintId} className="text-sm text-slate-600">
           {disabledReason}
