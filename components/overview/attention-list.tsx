@@ -9,7 +9,7 @@ export function AttentionList({ units, showSite = true }: { units: RankedUnit[];
   return (
     <ol className="space-y-2">
       {units.map((u, i) => (
-        <li key={u.equipmentId} className="rounded-lg border border-slate-200 bg-white p-3">
+        <li key={u.equipmentId} id={`unit-${i + 1}`} className="scroll-mt-4 rounded-lg border border-slate-200 bg-white p-3">
           <div className="flex items-baseline gap-2">
             <span className="text-sm font-bold text-slate-600">#{i + 1}</span>
             <Link href={`/equipment/${u.equipmentId}`} className="font-semibold underline-offset-2 hover:underline">

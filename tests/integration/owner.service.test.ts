@@ -146,6 +146,19 @@ describe('owner routes are scoped', () => {
     expect((await call(due.GET as never)).status).toBe(403);
   });
 
+  it('the attention API pages through the ranked list', async () => {
+    session.actor = owner;
+    const route = await import('@/app/api/overview/attention/route');
+    const first = (await call(route.GET as never, { path: '/api/overview/attention?limit=1' })).body as { total: number; items: { equipmentName: string }[]; nextCursor: string | null };
+    expect(first).toMatchObject({ total: 2, nextCursor: '1' });
+    expect(first.items.map((u) => u.equipmentName)).toEqual(['Cooler evaporator']);
+    const second = (await call(route.GET as never, { path: `/api/overview/attention?limit=1&cursor=${first.nextCursor}` })).body as typeof first;
+    expect(second).toMatchObject({ total: 2, nextCursor: null });
+    expect(second.items.map((u) => u.equipmentName)).toEqual(['Cooler condensing unit']);
+    const bad = await call(route.GET as never, { path: '/api/overview/attention?cursor=-4' });
+    expect(bad.status).toBe(422);
+  });
+
   it('the owner gets their own site’s reports as files', async () => {
     session.actor = owner;
     const siteReport = await import('@/app/api/reports/site-equipment/route');

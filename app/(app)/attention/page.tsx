@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { AttentionList } from '@/components/overview/attention-list';
+import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { needsAttention } from '@/lib/attention/service';
@@ -9,11 +10,16 @@ import { getSite } from '@/lib/sites/service';
 
 export const metadata: Metadata = { title: 'Needs attention' };
 
-export default async function AttentionPage({ searchParams }: { searchParams: Promise<{ siteId?: string }> }) {
+/** Units shown per step: the top of the list is what gets acted on; the rest loads on request. */
+const STEP = 50;
+
+export default async function AttentionPage({ searchParams }: { searchParams: Promise<{ siteId?: string; show?: string }> }) {
   const actor = await requirePageActor('/attention', 'overview.read');
-  const { siteId } = await searchParams;
+  const { siteId, show } = await searchParams;
   const site = siteId && /^[0-9a-f-]{36}$/i.test(siteId) ? await orNotFound(getSite(actor, siteId)) : null;
   const units = await needsAttention(actor, site?.id ?? null);
+  const shown = Math.min(units.length, Math.max(STEP, Math.ceil(Number(show) / STEP) * STEP || STEP));
+  const more = new URLSearchParams({ ...(site ? { siteId: site.id } : {}), show: String(shown + STEP) });
   return (
     <div className="space-y-4">
       <PageHeader title="Needs attention" subtitle={site ? site.name : 'Every unit you can see, most urgent first'} />
@@ -21,7 +27,18 @@ export default async function AttentionPage({ searchParams }: { searchParams: Pr
         <h2 className="font-semibold">How this list is ranked</h2>
         <p className="mt-1 text-slate-700">{rankingRule}</p>
       </Card>
-      <AttentionList units={units} showSite={!site} />
+      {units.length > 0 ? (
+        <p className="text-sm text-slate-700" role="status">
+          {units.length === 1 ? '1 unit needs attention.' : `${units.length.toLocaleString('en-US')} units need attention.`}
+          {shown < units.length ? ` Showing the first ${shown.toLocaleString('en-US')}.` : ''}
+        </p>
+      ) : null}
+      <AttentionList units={units.slice(0, shown)} showSite={!site} />
+      {shown < units.length ? (
+        <ButtonLink href={`/attention?${more.toString()}#unit-${shown + 1}`} variant="secondary" size="lg" scroll={false}>
+          Show {Math.min(STEP, units.length - shown)} more
+        </ButtonLink>
+      ) : null}
     </div>
   );
 }
