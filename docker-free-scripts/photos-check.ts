@@ -13,20 +13,8 @@
 // Reads the app's environment (DATABASE_URL, S3_*, AUTH_SECRET; `source docker-free-scripts/env.sh
 // dev` sets them for the local setup). Exit status: 0 when storage is consistent afterwards,
 // 1 when problems remain, 2 when the check could not run.
-import { register } from 'node:module';
+import '@/docker-free-scripts/server-modules';
 import { parseArgs } from 'node:util';
-
-// The app's server modules start with `import 'server-only'`, which throws unless resolved the way
-// a React server build resolves it; this script is server code, so resolve it that way too.
-register(
-  'data:text/javascript,' +
-    encodeURIComponent(
-      `export async function resolve(specifier, context, next) {
-        if (specifier === 'server-only') return next(specifier, { ...context, conditions: [...context.conditions, 'react-server'] });
-        return next(specifier, context);
-      }`,
-    ),
-);
 
 const { values: args } = parseArgs({
   options: {

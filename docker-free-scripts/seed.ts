@@ -1,17 +1,43 @@
 // Loads the demo scenario once (npm start runs it every time; it does nothing the second time).
+// A fresh demo also gets its history (equipment, visits, follow-ups, tags, photos, requests),
+// written through the app's services, so it needs the app's environment and the object store.
+import '@/docker-free-scripts/server-modules';
 import { Kysely, PostgresDialect } from 'kysely';
+import nodemailer from 'nodemailer';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { demoExists, seedDemo } from '@/db/seeds/demo';
 import { seedDemoLeakWork } from '@/db/seeds/demo-leak-work';
 
 const connectionString = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/rimeline';
 const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max: 2 }) }) });
+let appDb: Kysely<DB> | null = null;
 try {
-  const created = await seedDemo(db);
-  // The demo history goes only into a fresh demo: data already there is never added to.
-  if (created) await seedDemoLeakWork(db);
-  console.log(created ? '  demo data loaded' : '  demo data already present; nothing changed');
+  // Data already there is never added to.
+  if (await demoExists(db)) {
+    console.log('  demo data already present; nothing changed');
+  } else {
+    // The history's visit reports and service requests are about the past: this process delivers
+    // none of them (the transport module takes a transport cached here), and the history removes
+    // its rows from the outbox when it is done.
+    (globalThis as { rimelineMail?: unknown }).rimelineMail = nodemailer.createTransport({ jsonTransport: true });
+    const { seedDemoHistory } = await import('@/db/seeds/demo-history');
+    const { ensureBucket } = await import('@/storage/objects');
+    appDb = (await import('@/db')).db;
+    // The object store is checked before anything is written, so a store that is down leaves no
+    // half-loaded demo behind.
+    await ensureBucket();
+    await seedDemo(db);
+    await seedDemoLeakWork(db);
+    const started = Date.now();
+    const counts = await seedDemoHistory(db).catch((error: unknown) => {
+      console.error('  The demo history stopped part-way. Start again from an empty demo: bash docker-free-scripts/db-reset.sh --all');
+      throw error;
+    });
+    const took = ((Date.now() - started) / 1000).toFixed(1);
+    console.log(counts ? `  demo data loaded: ${counts.equipment} units, ${counts.visits} visits, ${counts.photos} photos (history ${took} s)` : '  demo data loaded');
+  }
 } finally {
   await db.destroy();
+  await appDb?.destroy();
 }

@@ -110,10 +110,14 @@ const clients = [
   },
 ] as const;
 
+/** Whether the scenario is already loaded (its admin exists). */
+export async function demoExists(db: Kysely<DB>): Promise<boolean> {
+  return Boolean(await db.selectFrom('users').select('id').where('email', '=', demoUsers[0].email).executeTakeFirst());
+}
+
 /** Loads the scenario once: returns false (and changes nothing) when it is already there. */
 export async function seedDemo(db: Kysely<DB>): Promise<boolean> {
-  const existing = await db.selectFrom('users').select('id').where('email', '=', demoUsers[0].email).executeTakeFirst();
-  if (existing) return false;
+  if (await demoExists(db)) return false;
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 11);
   await db.transaction().execute(async (trx) => {
     const company = await trx
