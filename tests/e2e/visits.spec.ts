@@ -274,5 +274,29 @@ test('a refrigerant addition shows the leak rate and the repair deadline the cal
   // The certification number is remembered on this phone for the next entry.
   await page.getByRole('button', { name: 'Refrigerant' }).click();
   await expect(page.getByLabel('Your certification number')).toHaveValue('TC-55120');
-  await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Leak check; refrigerant added.' });
+
+  // The leak is found and repaired on the same visit, and the initial verification test passes.
+  await page.goto(`/visits/${visit.id}?equipment=${circuit.condensingUnit.id}&kind=leak`);
+  await expect(page.getByText('Leak work safety')).toBeVisible();
+  await page.getByRole('radio', { name: /^Leak repair/ }).check();
+  await page.getByRole('button', { name: 'Save leak work' }).click();
+  await expect(page.getByText('Say where on the system the leak was repaired.')).toBeVisible();
+  await page.getByLabel('Where on the system').fill('Flare nut at the expansion valve inlet');
+  await page.getByRole('button', { name: 'Save leak work' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Saved', { exact: true })).toBeVisible();
+  await page.getByRole('button', { name: 'Leak work' }).click();
+  await page.getByRole('radio', { name: /^Initial verification test/ }).check();
+  await page.getByRole('radio', { name: 'Bubble solution' }).check();
+  await page.getByRole('radio', { name: /^Passed/ }).check();
+  await shot(page, `visit-leak-work-${info.project.name}`);
+  await page.getByRole('button', { name: 'Save leak work' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Saved', { exact: true })).toBeVisible();
+  await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Leak check; flare re-made; refrigerant added.' });
+
+  // The unit's history shows the leak work, and the attention list says the follow-up test is still to come.
+  await page.goto(`/equipment/${circuit.condensingUnit.id}`);
+  await expect(page.getByText(/Leak repair/).first()).toBeVisible();
+  await expect(page.getByText(/Initial verification test/).first()).toBeVisible();
+  await page.goto(`/attention?siteId=${circuit.site.id}`);
+  await expect(page.getByText(/repaired on \d{4}-\d{2}-\d{2}, verification tests still to pass/).first()).toBeVisible();
 });
