@@ -47,8 +47,8 @@ export function Scanner() {
       return;
     }
     try {
-      const { BrowserQRCodeReader } = await import('@zxing/browser');
-      const reader = new BrowserQRCodeReader(undefined, { delayBetweenScanAttempts: 100 });
+      const { TagQrReader } = await import('@/components/tags/qr-reader');
+      const reader = new TagQrReader(undefined, { delayBetweenScanAttempts: 100 });
       const c = await reader.decodeFromConstraints({ audio: false, video: { facingMode: { ideal: 'environment' } } }, video.current, (result) => {
         if (!result || handled.current) return;
         const code = codeFromScan(result.getText());
