@@ -10,13 +10,15 @@ export function AttentionList({ units, showSite = true }: { units: RankedUnit[];
     <ol className="space-y-2">
       {units.map((u, i) => (
         <li key={u.equipmentId} id={`unit-${i + 1}`} className="scroll-mt-4 rounded-lg border border-slate-200 bg-white p-3">
-          <div className="flex items-baseline gap-2">
+          <div className="flex items-start gap-2">
             <span className="text-sm font-bold text-slate-600">#{i + 1}</span>
-            <Link href={`/equipment/${u.equipmentId}`} className="font-semibold underline-offset-2 hover:underline">
-              {u.equipmentName}
-            </Link>
-            {showSite ? <span className="text-sm text-slate-600">· {u.siteName}</span> : null}
-            <span className="ml-auto text-sm text-slate-700">
+            <div className="min-w-0 flex-1">
+              <Link href={`/equipment/${u.equipmentId}`} className="font-semibold underline-offset-2 hover:underline">
+                {u.equipmentName}
+              </Link>
+              {showSite ? <span className="block text-sm text-slate-600 sm:ml-2 sm:inline">{u.siteName}</span> : null}
+            </div>
+            <span className="shrink-0 text-sm text-slate-700">
               {u.score} <span className="sr-only">points</span>
               <span aria-hidden>pts</span>
             </span>

@@ -50,7 +50,7 @@ export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary;
           <Count key={s} Icon={severityLooks[s].Icon} label={`${severityLabels[s].toLowerCase()} follow-up${summary.openFollowUps[s] === 1 ? '' : 's'}`} value={summary.openFollowUps[s]} box={severityLooks[s].box} />
         ))}
         {summary.systemsOverLeakThreshold > 0 ? (
-          <Count Icon={Droplets} label={`${summary.systemsOverLeakThreshold === 1 ? 'system' : 'systems'} over the leak-rate threshold`} value={summary.systemsOverLeakThreshold} box="border-red-400 bg-red-50 text-red-950" />
+          <Count Icon={Droplets} label={`${summary.systemsOverLeakThreshold === 1 ? 'system' : 'systems'} over the leak-rate threshold, not yet repaired and verified`} value={summary.systemsOverLeakThreshold} box="border-red-400 bg-red-50 text-red-950" />
         ) : null}
         {summary.pastExpectedLife > 0 ? <Count Icon={Hourglass} label="past expected life" value={summary.pastExpectedLife} box="border-amber-400 bg-amber-50 text-amber-950" /> : null}
       </ul>

@@ -5,7 +5,7 @@ import { siteVisibleTo } from '@/db/helpers';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { leakFollowThrough, type LeakWorkItem } from '@/lib/attention/leak-follow-through';
+import { openLeaks } from '@/lib/attention/open-leaks';
 import { rankUnits, type RankedUnit, type Signal, type UnitSignals } from '@/lib/attention/rank';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
 
@@ -36,57 +36,16 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
     .execute();
   for (const r of safety) push(r.id, { kind: 'open_safety_finding', followUpId: r.follow_up_id, title: r.title, since: r.created_at.toISOString().slice(0, 10) });
 
-  const leaks = await base()
-    .innerJoin('entries', 'entries.equipment_id', 'equipment.id')
-    .where('entries.kind', '=', 'refrigerant')
-    .where('entries.voided_at', 'is', null)
-    .where('entries.recorded_at', '>', new Date(today.getTime() - YEAR_MS))
-    .where(sql<boolean>`(entries.computed->'leak'->>'exceedsThreshold')::boolean`)
-    .select([
-      'equipment.id',
-      'entries.visit_id',
-      'entries.recorded_at',
-      'entries.system_id',
-      sql<number>`(entries.computed->'leak'->>'ratePct')::float8`.as('rate'),
-      sql<number>`(entries.computed->'leak'->>'thresholdPct')::float8`.as('threshold'),
-      sql<string | null>`entries.computed->'leak'->>'repairDueDate'`.as('due'),
-    ])
-    .orderBy('entries.recorded_at', 'desc')
-    .execute();
-  // Repairs and verification tests on the same systems (any unit of the circuit), for where each leak stands.
-  const leakSystems = [...new Set(leaks.map((l) => l.system_id).filter((id): id is string => Boolean(id)))];
-  const leakWork = leakSystems.length
-    ? await db
-        .selectFrom('entries')
-        .where('entries.system_id', 'in', leakSystems)
-        .where('entries.company_id', '=', actor.companyId)
-        .where('entries.kind', '=', 'leak')
-        .where('entries.voided_at', 'is', null)
-        .where('entries.recorded_at', '>', new Date(today.getTime() - 2 * YEAR_MS))
-        .select(['entries.system_id', 'entries.visit_id', 'entries.recorded_at', sql<string>`entries.data->>'activity'`.as('activity'), sql<string | null>`entries.data->>'result'`.as('result')])
-        .execute()
-    : [];
-  const workBySystem = new Map<string, LeakWorkItem[]>();
-  for (const w of leakWork) {
-    const list = workBySystem.get(w.system_id!) ?? [];
-    list.push({ at: w.recorded_at.toISOString(), visitId: w.visit_id, activity: w.activity as LeakWorkItem['activity'], result: w.result as LeakWorkItem['result'] });
-    workBySystem.set(w.system_id!, list);
-  }
-  const seenLeak = new Set<string>();
-  for (const r of leaks) {
-    if (seenLeak.has(r.id)) continue;
-    seenLeak.add(r.id);
-    const standing = leakFollowThrough({ at: r.recorded_at.toISOString(), visitId: r.visit_id }, (r.system_id && workBySystem.get(r.system_id)) || []);
-    if (standing.state === 'verified') continue;
-    push(r.id, {
+  for (const l of await openLeaks(actor, siteId, db, today)) {
+    push(l.equipmentId, {
       kind: 'leak_over_threshold',
-      visitId: r.visit_id,
-      ratePct: Number(r.rate),
-      thresholdPct: Number(r.threshold),
-      repairDueDate: r.due,
-      on: r.recorded_at.toISOString().slice(0, 10),
-      repairedOn: standing.state === 'repaired' ? standing.repairedOn : null,
-      verificationFailed: standing.state === 'repaired' && standing.failedTest,
+      visitId: l.visitId,
+      ratePct: l.ratePct,
+      thresholdPct: l.thresholdPct,
+      repairDueDate: l.repairDueDate,
+      on: l.recordedAt.toISOString().slice(0, 10),
+      repairedOn: l.standing.state === 'repaired' ? l.standing.repairedOn : null,
+      verificationFailed: l.standing.state === 'repaired' && l.standing.failedTest,
     });
   }
 

@@ -3,6 +3,7 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/db/helpers';
 import type { DB } from '@/db/schema.gen';
+import { openLeaks } from '@/lib/attention/open-leaks';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
@@ -85,21 +86,16 @@ export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = ne
     if (s) s.openFollowUps[f.severity as Severity] = Number(f.n);
   }
 
-  const leaks = await db
-    .selectFrom('entries')
-    .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
-    .innerJoin('sites', 'sites.id', 'equipment.site_id')
-    .where(siteVisibleTo(actor))
-    .where('entries.kind', '=', 'refrigerant')
-    .where('entries.voided_at', 'is', null)
-    .where('entries.recorded_at', '>', new Date(today.getTime() - YEAR_MS))
-    .where(sql<boolean>`(entries.computed->'leak'->>'exceedsThreshold')::boolean`)
-    .select(['equipment.site_id', sql<number>`count(distinct coalesce(entries.system_id, entries.equipment_id))`.as('n')])
-    .groupBy('equipment.site_id')
-    .execute();
-  for (const l of leaks) {
-    const s = out.get(l.site_id);
-    if (s) s.systemsOverLeakThreshold = Number(l.n);
+  // Systems with a leak over the threshold that is not yet repaired and verified.
+  const leakingSystems = new Map<string, Set<string>>();
+  for (const l of await openLeaks(actor, null, db, today)) {
+    const set = leakingSystems.get(l.siteId) ?? new Set<string>();
+    set.add(l.systemId ?? l.equipmentId);
+    leakingSystems.set(l.siteId, set);
+  }
+  for (const [siteId, set] of leakingSystems) {
+    const s = out.get(siteId);
+    if (s) s.systemsOverLeakThreshold = set.size;
   }
 
   const visits = await db

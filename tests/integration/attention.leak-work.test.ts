@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import { needsAttention } from '@/lib/attention/service';
 import { dueWork } from '@/lib/overview/due';
+import { siteSummaries } from '@/lib/overview/service';
 import { addEntry, closeVisit, startVisit } from '@/lib/visits/service';
 import type { LeakData } from '@/lib/visits/schemas';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
@@ -26,6 +27,7 @@ async function leakVisit(at: number, items: { equipmentId: string; data: LeakDat
 }
 
 const leakReason = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.reasons.find((r) => r.kind === 'leak_over_threshold');
+const leakingSystems = async () => (await siteSummaries(owner)).find((s) => s.siteId === circuit.siteId)?.systemsOverLeakThreshold;
 const leakScore = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.score ?? 0;
 
 beforeAll(async () => {
@@ -61,6 +63,7 @@ describe('leak work and the attention list', () => {
     ]);
     expect((await leakReason())?.text).toContain(`repaired on ${daysAgo(10).slice(0, 10)}, verification tests still to pass`);
     expect(await leakScore()).toBe(40);
+    expect(await leakingSystems()).toBe(1);
   });
 
   it('a failed follow-up test puts it back to 80', async () => {
@@ -77,6 +80,8 @@ describe('leak work and the attention list', () => {
     expect(await leakScore()).toBe(40);
     await leakVisit(1, [{ equipmentId: circuit.evaporatorId, data: { activity: 'follow_up_verification', method: 'electronic_detector', result: 'passed' } }]);
     expect(await leakReason()).toBeUndefined();
+    // The site card agrees: no system left with an open leak over the threshold.
+    expect(await leakingSystems()).toBe(0);
   });
 });
 
