@@ -245,7 +245,8 @@ test('a refrigerant addition shows the leak rate and the repair deadline the cal
   await signIn(page, 'tech@rimeline.test');
   const visit = await api<{ id: string }>(page.request, 'POST', '/api/visits', { siteId: circuit.site.id, reason: 'leak_check' });
   await page.goto(`/visits/${visit.id}?equipment=${circuit.condensingUnit.id}&kind=refrigerant`);
-  await expect(page.getByText('Refrigerant handling')).toBeVisible();
+  // Scoped to the form: while streamed HTML is swapped in, a hidden copy can exist for a moment.
+  await expect(page.getByRole('form', { name: 'New refrigerant entry' }).getByText('Refrigerant handling')).toBeVisible();
   await page.getByRole('radio', { name: /^Added/ }).check();
   await page.getByLabel('Amount (lb)').fill('8');
   await page.getByLabel('Cylinder id').fill('CYL-0042');
@@ -277,7 +278,7 @@ test('a refrigerant addition shows the leak rate and the repair deadline the cal
 
   // The leak is found and repaired on the same visit, and the initial verification test passes.
   await page.goto(`/visits/${visit.id}?equipment=${circuit.condensingUnit.id}&kind=leak`);
-  await expect(page.getByText('Leak work safety')).toBeVisible();
+  await expect(page.getByRole('form', { name: 'New leak work' }).getByText('Leak work safety')).toBeVisible();
   await page.getByRole('radio', { name: /^Leak repair/ }).check();
   await page.getByRole('button', { name: 'Save leak work' }).click();
   await expect(page.getByText('Say where on the system the leak was repaired.')).toBeVisible();
