@@ -5,6 +5,7 @@ import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import { EmptyState } from '@/components/ui/card';
 import type { EquipmentDto } from '@/lib/equipment/dto';
+import { lifeLine } from '@/lib/equipment/life-line';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
 
 /** Equipment as tappable cards: the site drill-down, a system's members, the table on a phone. */
@@ -13,12 +14,16 @@ export function EquipmentList({
   empty,
   showSite = false,
   showArea = false,
+  showLife = false,
 }: {
   items: EquipmentDto[];
   empty: string;
   showSite?: boolean;
   showArea?: boolean;
+  /** Age against expected service life, for the pages an owner reads. */
+  showLife?: boolean;
 }) {
+  const today = new Date();
   if (items.length === 0) return <EmptyState title={empty} />;
   return (
     <ul className="divide-y divide-slate-200 overflow-hidden rounded-lg border border-slate-200 bg-white">
@@ -42,6 +47,7 @@ export function EquipmentList({
                     {place}
                   </span>
                 ) : null}
+                {showLife ? <span className="block text-sm text-slate-700">{lifeLine(e, today)}</span> : null}
                 <span className="mt-1.5 flex flex-wrap gap-1.5">
                   <ConditionBadge condition={e.condition} />
                   {e.status !== 'in_service' ? <EquipmentStatusBadge status={e.status} /> : null}

@@ -113,6 +113,19 @@ export async function getPhoto(actor: Actor, id: string, db: Db = defaultDb): Pr
   return toPhotoDto(row, canEdit(actor, row.uploaded_by));
 }
 
+/** The newest photos of a site's equipment, for the site page. */
+export async function recentSitePhotos(actor: Actor, siteId: string, limit = 8, db: Db = defaultDb): Promise<(PhotoDto & { equipmentName: string })[]> {
+  assertCan(actor, 'photos.read');
+  const rows = await visiblePhotos(actor, db)
+    .where('equipment.site_id', '=', siteId)
+    .select([...dtoColumns, 'equipment.name as equipment_name'])
+    .orderBy('photos.sort_at', 'desc')
+    .orderBy('photos.id', 'desc')
+    .limit(limit)
+    .execute();
+  return rows.map((r) => ({ ...toPhotoDto(r, canEdit(actor, r.uploaded_by)), equipmentName: r.equipment_name }));
+}
+
 export interface UploadPhotoInput {
   equipmentId: string;
   kind: PhotoKind;

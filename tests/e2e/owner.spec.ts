@@ -1,5 +1,6 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
+import { lifeLine } from '../../lib/equipment/life-line';
 import { clearMail, waitForMail } from '../helpers/mail';
 import { cameraImage } from '../helpers/photo-images';
 import { shot, signIn } from './helpers';
@@ -33,6 +34,11 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
   await shot(page, `owner-home-${info.project.name}`);
   await page.getByRole('link', { name: 'Orchard Row Bistro' }).first().click();
   await expect(page.getByRole('heading', { name: 'Orchard Row Bistro' })).toBeVisible();
+  // The site page: each unit's age against its expected life, and the recent visits.
+  await expect(page.getByRole('link', { name: new RegExp(`Bar condensing unit ${info.project.name}`) }).getByText(lifeLine({ type: 'condensing_unit', installedOn: '2004-06-01' }, new Date()))).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Recent visits' })).toBeVisible();
+  await expect(page.getByText('Topped up after a flare leak was repaired.').first()).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Recent photos' })).toBeVisible();
   await page.getByRole('link', { name: `Bar condensing unit ${info.project.name}` }).first().click();
   await expect(page.getByRole('heading', { name: `Bar condensing unit ${info.project.name}` })).toBeVisible();
   await expect(page.getByText('CYL-0101').first()).toBeVisible();

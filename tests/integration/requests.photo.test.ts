@@ -77,6 +77,11 @@ describe('a service request with a photo', () => {
     const mail = await db.selectFrom('mail_outbox').select(['text_body as text']).where('kind', '=', 'service_request').orderBy('created_at', 'desc').executeTakeFirstOrThrow();
     expect(mail.text).toContain('A photo came with it');
 
+    // It is among the site's recent photos for the owner, with its unit; not for another client.
+    const { recentSitePhotos } = await import('@/lib/photos/service');
+    expect((await recentSitePhotos(owner, circuit.siteId)).map((p) => [p.id, p.equipmentName])).toEqual([[photoId, 'Cooler evaporator']]);
+    expect(await recentSitePhotos(stranger, circuit.siteId)).toEqual([]);
+
     // The owner and the office both see it; another client's owner does not.
     for (const [actor, status] of [[owner, 200], [office, 200], [stranger, 404]] as const) {
       session.actor = actor;

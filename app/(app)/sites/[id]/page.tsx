@@ -10,6 +10,7 @@ import { formatElevation } from '@/lib/units/format';
 import { siteAddress } from '@/lib/sites/dto';
 import { listEquipment } from '@/lib/equipment/service';
 import { listFollowUps } from '@/lib/follow-ups/service';
+import { recentSitePhotos } from '@/lib/photos/service';
 import { getSite, listAreas } from '@/lib/sites/service';
 import { listSystems } from '@/lib/systems/service';
 import { listVisits } from '@/lib/visits/service';
@@ -18,6 +19,7 @@ import { ArchiveSiteButton } from '@/app/(app)/sites/[id]/_components/archive-si
 import { SiteEquipment } from '@/app/(app)/sites/[id]/_components/site-equipment';
 import { SiteSystems } from '@/app/(app)/sites/[id]/_components/site-systems';
 import { SiteAttention } from '@/app/(app)/sites/[id]/_components/site-attention';
+import { SiteRecentPhotos, SiteRecentVisits } from '@/app/(app)/sites/[id]/_components/site-recent';
 
 export const metadata: Metadata = { title: 'Site' };
 
@@ -34,9 +36,11 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const canVisit = can(actor, 'visits.start') && !site.archivedAt;
   // Owners ask for service here; the office records requests it takes by phone the same way.
   const canRequest = actor.role === 'client' && can(actor, 'requests.create') && !site.archivedAt;
-  const [followUps, myOpenVisit] = await Promise.all([
+  const [followUps, myOpenVisit, recentVisits, recentPhotos] = await Promise.all([
     listFollowUps(actor, { siteId: id, status: ['open', 'scheduled'], limit: 50 }),
     canVisit ? listVisits(actor, { siteId: id, status: 'open', technicianId: actor.id, limit: 1 }).then((p) => p.items[0]) : undefined,
+    listVisits(actor, { siteId: id, status: 'closed', limit: 5 }),
+    recentSitePhotos(actor, id, 8),
   ]);
 
   return (
@@ -121,6 +125,8 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         </div>
         <FollowUpList items={followUps.items} canWrite={can(actor, 'followups.write')} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
       </section>
+      <SiteRecentVisits visits={recentVisits.items} siteId={site.id} />
+      <SiteRecentPhotos photos={recentPhotos} timeZone={site.timeZone} />
       <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />
       <SiteEquipment
         siteId={site.id}

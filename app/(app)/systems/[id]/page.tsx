@@ -87,7 +87,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
         <h2 id="members-h" className="text-lg font-semibold">
           Equipment in this system ({system.equipmentCount})
         </h2>
-        <EquipmentList items={members.items} showArea empty="No equipment registered in this system yet." />
+        <EquipmentList items={members.items} showArea showLife empty="No equipment registered in this system yet." />
         {members.nextCursor ? (
           <Link href={`/equipment?systemId=${system.id}`} className="inline-block font-semibold text-ice-800 underline">
             See all {system.equipmentCount} in the equipment table

@@ -75,7 +75,7 @@ export function SiteEquipment({
             <h3 className="text-base font-semibold text-slate-800">
               {g.title} <span className="font-normal text-slate-600">({g.items.length})</span>
             </h3>
-            <EquipmentList items={g.items} empty="" />
+            <EquipmentList items={g.items} empty="" showLife />
           </div>
         ))
       )}

@@ -1,0 +1,72 @@
+import Link from 'next/link';
+import { EmptyState } from '@/components/ui/card';
+import { photoKindLabels } from '@/lib/photos/schemas';
+import type { PhotoDto } from '@/lib/photos/dto';
+import type { VisitDto } from '@/lib/visits/dto';
+import { visitReasonLabels } from '@/lib/visits/schemas';
+
+function dateIn(iso: string, timeZone: string): string {
+  return new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: 'short', day: 'numeric' }).format(new Date(iso));
+}
+
+/** The site's last closed visits, newest first, each opening its record. */
+export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteId: string }) {
+  return (
+    <section aria-labelledby="recent-visits-h" className="space-y-3">
+      <div className="flex flex-wrap items-end justify-between gap-2">
+        <h2 id="recent-visits-h" className="text-lg font-semibold">
+          Recent visits
+        </h2>
+        <Link href={`/visits?siteId=${siteId}`} className="flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
+          All visits at this site
+        </Link>
+      </div>
+      {visits.length === 0 ? (
+        <EmptyState title="No finished visits at this site yet." />
+      ) : (
+        <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
+          {visits.map((v) => (
+            <li key={v.id}>
+              <Link href={`/visits/${v.id}`} className="block px-4 py-3 hover:bg-ice-50">
+                <span className="block font-semibold">
+                  {visitReasonLabels[v.reason]} · {dateIn(v.startedAt, v.timeZone)}
+                </span>
+                <span className="block text-sm text-slate-600">{v.technicianName}</span>
+                {v.summary ? <span className="mt-0.5 line-clamp-2 block text-sm text-slate-800">{v.summary}</span> : null}
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
+
+/** The newest photos of the site's equipment; each opens its unit's page, where the gallery is. */
+export function SiteRecentPhotos({ photos, timeZone }: { photos: (PhotoDto & { equipmentName: string })[]; timeZone: string }) {
+  return (
+    <section aria-labelledby="recent-photos-h" className="space-y-3">
+      <h2 id="recent-photos-h" className="text-lg font-semibold">
+        Recent photos
+      </h2>
+      {photos.length === 0 ? (
+        <EmptyState title="No photos of this site's equipment yet." />
+      ) : (
+        <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+          {photos.map((p) => (
+            <li key={p.id}>
+              <Link href={`/equipment/${p.equipmentId}#photos-h`} className="block rounded-lg border border-slate-200 bg-white p-1.5 hover:bg-ice-50">
+                {/* eslint-disable-next-line @next/next/no-img-element -- served by the access-checked photo route */}
+                <img src={p.urls.thumb} alt={p.caption ?? `${photoKindLabels[p.kind]} photo of ${p.equipmentName}`} width={200} height={200} loading="lazy" className="aspect-square w-full rounded object-cover" />
+                <span className="mt-1 block truncate text-sm font-semibold">{p.equipmentName}</span>
+                <span className="block text-xs text-slate-600">
+                  {photoKindLabels[p.kind]} · {dateIn(p.sortAt, timeZone)}
+                </span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
