@@ -94,10 +94,12 @@ test('the office sees the request in its queue and marks it seen; the owner sees
   await page.getByLabel('Note to the owner').fill('Technician booked for tomorrow morning.');
   await page.getByRole('button', { name: 'Save' }).click();
   await expect(page.getByText('Saved. The owner sees the new status.')).toBeVisible();
-  const ownerPage = await (await browser.newContext()).newPage();
+  const ownerContext = await browser.newContext();
+  const ownerPage = await ownerContext.newPage();
   await signIn(ownerPage, 'owner@client-one.test');
   await ownerPage.goto(`/requests/${id}`);
   await expect(ownerPage.getByText('Seen by the office')).toBeVisible();
   await expect(ownerPage.getByText('Technician booked for tomorrow morning.')).toBeVisible();
+  await ownerContext.close();
   await owner.dispose();
 });
