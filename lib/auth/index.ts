@@ -4,9 +4,9 @@ import { redirect } from 'next/navigation';
 import { cache } from 'react';
 import { db } from '@/db';
 import { AppError } from '@/lib/errors';
-import type { Actor } from '@/lib/auth/actor';
+import { actorFromRow, type Actor } from '@/lib/auth/actor';
 import { authOptions } from '@/lib/auth/options';
-import { roleCan, type Permission, type Role } from '@/lib/auth/permissions';
+import { roleCan, type Permission } from '@/lib/auth/permissions';
 
 export { authOptions };
 export type { Actor };
@@ -23,16 +23,7 @@ export const getActor = cache(async (): Promise<Actor | null> => {
     .where('deactivated_at', 'is', null)
     .executeTakeFirst();
   if (!row) return null;
-  return {
-    id: row.id,
-    companyId: row.company_id,
-    role: row.role as Role,
-    clientId: row.client_id,
-    name: row.name,
-    email: row.email,
-    units: row.units as Actor['units'],
-    metricPressure: row.metric_pressure as Actor['metricPressure'],
-  };
+  return actorFromRow(row);
 });
 
 /** For route handlers and actions: 401 when signed out. */

@@ -2,8 +2,7 @@ import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
 import { seedDemo } from '@/db/seeds/demo';
-import type { Actor } from '@/lib/auth/actor';
-import type { Role } from '@/lib/auth/permissions';
+import { actorFromRow, type Actor } from '@/lib/auth/actor';
 
 export const testDatabaseUrl = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/rimeline_test';
 
@@ -42,16 +41,7 @@ export async function resetToDemo(db: Kysely<DB>): Promise<void> {
 
 export async function actorFor(db: Kysely<DB>, email: string): Promise<Actor> {
   const row = await db.selectFrom('users').selectAll().where('email', '=', email).executeTakeFirstOrThrow();
-  return {
-    id: row.id,
-    companyId: row.company_id,
-    role: row.role as Role,
-    clientId: row.client_id,
-    name: row.name,
-    email: row.email,
-    units: row.units as Actor['units'],
-    metricPressure: row.metric_pressure as Actor['metricPressure'],
-  };
+  return actorFromRow(row);
 }
 
 export const demoEmails = {
