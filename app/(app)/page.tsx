@@ -150,7 +150,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
         <h2 id="charts-h" className="text-lg font-semibold">
           At a glance
         </h2>
-        <OverviewCharts data={charts} />
+        <OverviewCharts data={charts} prefs={{ units: actor.units, metricPressure: actor.metricPressure }} />
       </section>
     </>
   );

@@ -2,6 +2,7 @@
 
 import { Bar, BarChart, CartesianGrid, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { ChartData } from '@/lib/overview/service';
+import { conversionFor, type UnitPrefs } from '@/lib/units/quantities';
 
 // Charts where a person would rather look than read. Each has a heading, a text alternative and
 // patterns that survive printing in black and white (solid vs. outlined bars, labelled axes).
@@ -18,10 +19,13 @@ function Frame({ title, summary, children }: { title: string; summary: string; c
   );
 }
 
-export function OverviewCharts({ data }: { data: ChartData }) {
+export function OverviewCharts({ data, prefs }: { data: ChartData; prefs: UnitPrefs }) {
+  // Refrigerant in the viewer's mass unit (stored in kg), rounded to what a scale reads.
+  const mass = conversionFor('mass', prefs);
+  const amount = (kg: number) => Math.round(mass.fromSi(kg) * 100) / 100;
   const years = [...new Set(data.refrigerantAddedByYear.map((r) => r.year))];
   const systems = [...new Set(data.refrigerantAddedByYear.map((r) => r.system))].slice(0, 6);
-  const byYear = years.map((year) => ({ year: String(year), ...Object.fromEntries(systems.map((s) => [s, data.refrigerantAddedByYear.find((r) => r.year === year && r.system === s)?.kg ?? 0])) }));
+  const byYear = years.map((year) => ({ year: String(year), ...Object.fromEntries(systems.map((s) => [s, amount(data.refrigerantAddedByYear.find((r) => r.year === year && r.system === s)?.kg ?? 0)])) }));
   const shades = ['#0f3a56', '#4ea6cf', '#195877', '#86c6e3', '#1d6d93', '#b9dff0'];
   return (
     <div className="grid gap-3 md:grid-cols-2 print:grid-cols-2">
@@ -53,8 +57,8 @@ export function OverviewCharts({ data }: { data: ChartData }) {
         </ResponsiveContainer>
       </Frame>
       <Frame
-        title="Refrigerant added per system per year (kg)"
-        summary={data.refrigerantAddedByYear.map((r) => `${r.year} ${r.system}: ${r.kg} kg`).join('; ') || 'No refrigerant added on record'}
+        title={`Refrigerant added per system per year (${mass.label})`}
+        summary={data.refrigerantAddedByYear.map((r) => `${r.year} ${r.system}: ${amount(r.kg)} ${mass.label}`).join('; ') || 'No refrigerant added on record'}
       >
         <ResponsiveContainer>
           <BarChart data={byYear} margin={{ left: -20 }}>

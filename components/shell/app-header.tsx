@@ -26,7 +26,7 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
   }
 
   return (
-    <header className="bg-slate-900 text-white">
+    <header className="bg-slate-900 text-white print:hidden">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2 focus:text-slate-900">
         Skip to content
       </a>

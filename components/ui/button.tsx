@@ -3,9 +3,10 @@ import Link from 'next/link';
 import type { ButtonHTMLAttributes, ComponentProps } from 'react';
 import { cn } from '@/lib/utils';
 
-// Minimum 44 px targets (48 px "large") so gloved fingers hit them.
+// Minimum 44 px targets (48 px "large") so gloved fingers hit them. Nothing to press on paper,
+// and a filled button prints as white text on white, so buttons are left out of print.
 export const buttonVariants = cva(
-  'inline-flex items-center justify-center gap-2 rounded-md font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60',
+  'inline-flex items-center justify-center gap-2 rounded-md font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60 print:hidden',
   {
     variants: {
       variant: {
