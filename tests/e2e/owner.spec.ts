@@ -1,5 +1,11 @@
 import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+import { execFile } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
+import { mkdtemp, readdir, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { promisify } from 'node:util';
+import sharp from 'sharp';
 import { lifeLine } from '../../lib/equipment/life-line';
 import { clearMail, waitForMail } from '../helpers/mail';
 import { cameraImage } from '../helpers/photo-images';
@@ -102,4 +108,36 @@ test('the office sees the request in its queue and marks it seen; the owner sees
   await expect(ownerPage.getByText('Technician booked for tomorrow morning.')).toBeVisible();
   await ownerContext.close();
   await owner.dispose();
+});
+
+test('the owner home prints: charts within the page, no header or buttons on paper', async ({ page }) => {
+  await signIn(page, 'owner@client-one.test');
+  await expect(page.getByRole('heading', { name: 'At a glance' })).toBeVisible();
+  await page.waitForLoadState('networkidle');
+  const dir = await mkdtemp(path.join(tmpdir(), 'rimeline-print-'));
+  try {
+    const pdf = path.join(dir, 'home.pdf');
+    // Letter, no printer margins, so anything wider than the page reaches its right edge: charts
+    // drawn at their screen width did (hundreds of inked pixels there); the page's own padding
+    // keeps everything else clear of it.
+    await page.pdf({ path: pdf, format: 'Letter' });
+    const run = promisify(execFile);
+    const { stdout: text } = await run('pdftotext', [pdf, '-']);
+    expect(text).toContain('Needs attention');
+    expect(text).toContain('Visits per month');
+    expect(text).not.toContain('Sign out');
+    expect(text).not.toContain('Ask for service');
+    // Rendered at 50 dpi, the outer 5 px (0.1 in) on the right stay blank on every page.
+    await run('pdftoppm', ['-r', '50', '-gray', '-png', pdf, path.join(dir, 'page')]);
+    const pages = (await readdir(dir)).filter((f) => f.endsWith('.png'));
+    expect(pages.length).toBeGreaterThan(0);
+    for (const file of pages) {
+      const { data, info } = await sharp(path.join(dir, file)).greyscale().raw().toBuffer({ resolveWithObject: true });
+      let inked = 0;
+      for (let y = 0; y < info.height; y++) for (let x = info.width - 5; x < info.width; x++) if (data[y * info.width + x]! < 200) inked++;
+      expect(inked, file).toBe(0);
+    }
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
 });
