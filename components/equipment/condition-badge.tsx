@@ -1,6 +1,6 @@
 import { CircleCheck, CircleHelp, CircleMinus, OctagonAlert, Sparkles, TriangleAlert, type LucideIcon } from 'lucide-react';
 import { conditionLabels, type Condition } from '@/lib/equipment/types';
-import { cn } from '@/lib/utils';
+import { Pill } from '@/components/ui/pill';
 
 // Condition is never colour alone: each rating has its word, its icon and its number.
 const looks: Record<Condition, { Icon: LucideIcon; box: string }> = {
@@ -20,16 +20,7 @@ export function conditionLook(condition: number | null): { Icon: LucideIcon; box
 export function ConditionBadge({ condition, size = 'md', className }: { condition: number | null; size?: 'md' | 'lg'; className?: string }) {
   const { Icon, box, word } = conditionLook(condition);
   return (
-    <span
-      className={cn(
-        'inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border font-semibold',
-        size === 'lg' ? 'px-3 py-1 text-base' : 'px-2 py-0.5 text-sm',
-        box,
-        className,
-      )}
-    >
-      <Icon aria-hidden className={size === 'lg' ? 'size-5' : 'size-4'} />
-      <span className="sr-only">Condition: </span>
+    <Pill Icon={Icon} box={box} size={size} srPrefix="Condition:" className={className}>
       {word}
       {condition !== null ? (
         <>
@@ -39,6 +30,6 @@ export function ConditionBadge({ condition, size = 'md', className }: { conditio
           <span className="sr-only">, {condition} of 5</span>
         </>
       ) : null}
-    </span>
+    </Pill>
   );
 }

@@ -1,6 +1,6 @@
 import { Archive, CircleCheck, PowerOff, type LucideIcon } from 'lucide-react';
 import { statusLabels, type EquipmentStatus } from '@/lib/equipment/types';
-import { cn } from '@/lib/utils';
+import { Pill } from '@/components/ui/pill';
 
 const looks: Record<EquipmentStatus, { Icon: LucideIcon; box: string }> = {
   in_service: { Icon: CircleCheck, box: 'border-slate-300 bg-white text-slate-800' },
@@ -11,17 +11,8 @@ const looks: Record<EquipmentStatus, { Icon: LucideIcon; box: string }> = {
 export function EquipmentStatusBadge({ status, size = 'md', className }: { status: EquipmentStatus; size?: 'md' | 'lg'; className?: string }) {
   const { Icon, box } = looks[status];
   return (
-    <span
-      className={cn(
-        'inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border font-semibold',
-        size === 'lg' ? 'px-3 py-1 text-base' : 'px-2 py-0.5 text-sm',
-        box,
-        className,
-      )}
-    >
-      <Icon aria-hidden className={size === 'lg' ? 'size-5' : 'size-4'} />
-      <span className="sr-only">Status: </span>
+    <Pill Icon={Icon} box={box} size={size} srPrefix="Status:" className={className}>
       {statusLabels[status]}
-    </span>
+    </Pill>
   );
 }

@@ -1,6 +1,6 @@
 import { CircleDashed, Link2, Ban, type LucideIcon } from 'lucide-react';
 import { tagStateLabels, type TagState } from '@/lib/tags/schemas';
-import { cn } from '@/lib/utils';
+import { Pill } from '@/components/ui/pill';
 
 const looks: Record<TagState, { Icon: LucideIcon; box: string }> = {
   blank: { Icon: CircleDashed, box: 'border-slate-300 bg-white text-slate-800' },
@@ -12,10 +12,8 @@ const looks: Record<TagState, { Icon: LucideIcon; box: string }> = {
 export function TagStateBadge({ state, className }: { state: TagState; className?: string }) {
   const { Icon, box } = looks[state];
   return (
-    <span className={cn('inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2 py-0.5 text-sm font-semibold', box, className)}>
-      <Icon aria-hidden className="size-4" />
-      <span className="sr-only">Tag state: </span>
+    <Pill Icon={Icon} box={box} srPrefix="Tag state:" className={className}>
       {tagStateLabels[state]}
-    </span>
+    </Pill>
   );
 }

@@ -27,10 +27,10 @@ import {
 } from 'lucide-react';
 import { followUpStatusLabels, type FollowUpStatus } from '@/lib/follow-ups/schemas';
 import { entryKindLabels, severityLabels, type EntryKind, type Severity } from '@/lib/visits/schemas';
+import { Pill } from '@/components/ui/pill';
 import { cn } from '@/lib/utils';
 
-// Status is never colour alone: every badge here has its word and an icon.
-const pill = 'inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2 py-0.5 text-sm font-semibold';
+// Status is never colour alone: every badge here has its word and an icon (components/ui/pill.tsx).
 
 export const severityLooks: Record<Severity, { Icon: LucideIcon; box: string; hint: string }> = {
   safety: { Icon: OctagonAlert, box: 'border-red-400 bg-red-50 text-red-950', hint: 'A hazard to people or property' },
@@ -42,11 +42,9 @@ export const severityLooks: Record<Severity, { Icon: LucideIcon; box: string; hi
 export function SeverityBadge({ severity, className }: { severity: Severity; className?: string }) {
   const { Icon, box } = severityLooks[severity];
   return (
-    <span className={cn(pill, box, className)}>
-      <Icon aria-hidden className="size-4" />
-      <span className="sr-only">Severity: </span>
+    <Pill Icon={Icon} box={box} srPrefix="Severity:" className={className}>
       {severityLabels[severity]}
-    </span>
+    </Pill>
   );
 }
 
@@ -60,11 +58,9 @@ const followUpLooks: Record<FollowUpStatus, { Icon: LucideIcon; box: string }> =
 export function FollowUpStatusBadge({ status, className }: { status: FollowUpStatus; className?: string }) {
   const { Icon, box } = followUpLooks[status];
   return (
-    <span className={cn(pill, box, className)}>
-      <Icon aria-hidden className="size-4" />
-      <span className="sr-only">Status: </span>
+    <Pill Icon={Icon} box={box} srPrefix="Status:" className={className}>
       {followUpStatusLabels[status]}
-    </span>
+    </Pill>
   );
 }
 
@@ -76,20 +72,17 @@ export function VisitStatusBadge({ status, reviewed, className }: { status: 'ope
         ? { Icon: CheckCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950', word: 'Closed · reviewed' }
         : { Icon: Lock, box: 'border-slate-300 bg-white text-slate-800', word: 'Closed' };
   return (
-    <span className={cn(pill, look.box, className)}>
-      <look.Icon aria-hidden className="size-4" />
-      <span className="sr-only">Visit status: </span>
+    <Pill Icon={look.Icon} box={look.box} srPrefix="Visit status:" className={className}>
       {look.word}
-    </span>
+    </Pill>
   );
 }
 
 export function NeedsReviewBadge({ className }: { className?: string }) {
   return (
-    <span className={cn(pill, 'border-ice-400 bg-white text-ice-950', className)}>
-      <Eye aria-hidden className="size-4" />
+    <Pill Icon={Eye} box="border-ice-400 bg-white text-ice-950" className={className}>
       Needs review
-    </span>
+    </Pill>
   );
 }
 
@@ -129,9 +122,8 @@ const saveLooks: Record<SaveState, { Icon: LucideIcon; box: string; word: string
 export function SaveStateBadge({ state, className }: { state: SaveState; className?: string }) {
   const { Icon, box, word } = saveLooks[state];
   return (
-    <span data-save-state={state} className={cn(pill, 'whitespace-normal', box, className)}>
-      <Icon aria-hidden className={cn('size-4 shrink-0', state === 'sending' && 'animate-spin motion-reduce:animate-none')} />
+    <Pill data-save-state={state} Icon={Icon} box={box} className={cn('whitespace-normal', className)} iconClassName={cn('shrink-0', state === 'sending' && 'animate-spin motion-reduce:animate-none')}>
       {word}
-    </span>
+    </Pill>
   );
 }

@@ -5,6 +5,7 @@ import type { UnitPrefs } from '@/lib/units/quantities';
 import type { EntryDto } from '@/lib/visits/dto';
 import { describeEntry } from '@/lib/visits/report-content';
 import { leakResultLabels, type LeakResult as LeakWorkOutcome, type Severity } from '@/lib/visits/schemas';
+import { formatDay } from '@/lib/format/dates';
 
 interface LeakResult {
   ratePct?: number;
@@ -33,9 +34,6 @@ function withoutKindPrefix(kind: EntryDto['kind'], text: string): string {
   return rest.charAt(0).toUpperCase() + rest.slice(1);
 }
 
-function formatDay(iso: string): string {
-  return new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
-}
 
 /** The leak rate the server worked out on an addition, with the repair deadline when it is over the threshold. */
 export function LeakRateNotice({ computed }: { computed: Record<string, unknown> | null }) {

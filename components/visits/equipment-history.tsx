@@ -14,10 +14,8 @@ import { cn } from '@/lib/utils';
 import type { EntryDto } from '@/lib/visits/dto';
 import { useHistory, type HistoryScope } from '@/lib/visits/hooks';
 import { ENTRY_KINDS, entryKindLabels, visitReasonLabels, type EntryKind } from '@/lib/visits/schemas';
+import { formatDay } from '@/lib/format/dates';
 
-function dateIn(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: 'short', day: 'numeric' }).format(new Date(iso));
-}
 
 function timeIn(iso: string, timeZone: string): string {
   return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }).format(new Date(iso));
@@ -121,7 +119,7 @@ export function EquipmentHistory({
               >
                 <span className="min-w-0 flex-1">
                   <span className="block font-semibold text-slate-900">
-                    {visitReasonLabels[g.visit.reason]} · {dateIn(g.visit.startedAt, g.visit.timeZone)}
+                    {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
                   </span>
                   <span className="block text-sm text-slate-700">
                     {g.visit.technicianName}

@@ -12,10 +12,8 @@ import { FollowUpStatusBadge, SeverityBadge } from '@/components/visits/badges';
 import { useUpdateFollowUp } from '@/lib/follow-ups/hooks';
 import type { UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
 import type { FollowUpDto } from '@/lib/visits/dto';
+import { formatDay } from '@/lib/format/dates';
 
-function day(iso: string): string {
-  return new Date(iso.length === 10 ? `${iso}T00:00:00Z` : iso).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
-}
 
 export function ageText(f: Pick<FollowUpDto, 'ageDays' | 'status'>): string {
   const n = f.ageDays;
@@ -78,7 +76,7 @@ function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: Follo
           </Link>
         ) : null}
         {' · raised by '}
-        {f.createdByName} on {day(f.createdAt)}
+        {f.createdByName} on {formatDay(f.createdAt)}
         {f.raisedVisitId ? (
           <>
             {' '}
@@ -92,13 +90,13 @@ function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: Follo
       </p>
       {f.status === 'scheduled' && f.scheduledFor ? (
         <p className="flex items-center gap-1.5 text-sm font-semibold text-ice-900">
-          <CalendarClock aria-hidden className="size-4" /> Planned for {day(f.scheduledFor)}
+          <CalendarClock aria-hidden className="size-4" /> Planned for {formatDay(f.scheduledFor)}
         </p>
       ) : null}
       {!live ? (
         <p className="text-sm text-slate-800">
           {f.status === 'resolved' ? 'Resolved' : 'Declined'} by {f.closedByName ?? 'someone'}
-          {f.closedAt ? ` on ${day(f.closedAt)}` : ''}
+          {f.closedAt ? ` on ${formatDay(f.closedAt)}` : ''}
           {f.closedVisitId ? (
             <>
               {' '}

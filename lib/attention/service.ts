@@ -13,7 +13,7 @@ type Db = Kysely<DB> | Transaction<DB>;
 
 const YEAR_MS = 365.25 * 86_400_000;
 
-/** Signals for every unit the actor can see (optionally one site), gathered in five queries. */
+/** Signals for every unit the actor can see (optionally one site), gathered in a few grouped queries (no per-unit round trips). */
 export async function gatherSignals(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<UnitSignals[]> {
   const base = () => {
     let q = db.selectFrom('equipment').innerJoin('sites', 'sites.id', 'equipment.site_id').where(siteVisibleTo(actor)).where('equipment.deleted_at', 'is', null).where('equipment.status', '<>', 'removed');

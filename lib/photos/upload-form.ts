@@ -1,7 +1,7 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
 import { zodIssues } from '@/lib/api/issues';
-import { isMultipart, readMultipart } from '@/lib/api/multipart';
+import { formFields, isMultipart, readMultipart } from '@/lib/api/multipart';
 import { AppError } from '@/lib/errors';
 import { assertPhotoSize } from '@/lib/photos/process';
 import { cleanFileName, formatBytes, MAX_PHOTO_BYTES, MAX_UPLOAD_OVERHEAD_BYTES, uploadPhotoFieldsSchema, type UploadPhotoFields } from '@/lib/photos/schemas';
@@ -29,11 +29,7 @@ export async function formPhotoFile(form: FormData): Promise<{ fileName: string 
 export async function readPhotoUpload(req: NextRequest): Promise<PhotoUpload> {
   if (!isMultipart(req)) throw new AppError('unsupported_media_type', 'Send the photo as multipart/form-data with the image in the "file" field.');
   const form = await readMultipart(req, PHOTO_UPLOAD_LIMIT, photoTooLarge);
-  const text = (name: string) => {
-    const v = form.get(name);
-    return typeof v === 'string' ? v : undefined;
-  };
-  const parsed = uploadPhotoFieldsSchema.safeParse({ kind: text('kind'), caption: text('caption'), uploadKey: text('uploadKey') || undefined });
+  const parsed = uploadPhotoFieldsSchema.safeParse(formFields(form));
   const file = form.get('file') instanceof Blob ? await formPhotoFile(form) : null;
   const issues = parsed.success ? [] : zodIssues(parsed.error);
   if (!file) issues.push({ path: 'file', message: 'Choose a photo to upload.' });

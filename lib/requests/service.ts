@@ -114,7 +114,7 @@ export async function createRequest(actor: Actor, input: CreateRequestInput, db:
   let dto: ServiceRequestDto;
   if (photo) {
     // Cheap checks first: a wrong site or unit is refused before any image work or storage.
-    await db.transaction().execute((trx) => checkPlace(actor, input, trx));
+    await checkPlace(actor, input, db);
     const caption = `Sent with a service request: ${input.description.length > 200 ? `${input.description.slice(0, 199)}…` : input.description}`;
     const stored = await storePhoto(actor, { equipmentId: input.equipmentId!, kind: 'damage', caption, fileName: photo.fileName, bytes: photo.bytes }, db, record);
     dto = stored.result!;
@@ -125,7 +125,7 @@ export async function createRequest(actor: Actor, input: CreateRequestInput, db:
   return dto;
 }
 
-async function checkPlace(actor: Actor, input: CreateRequestInput, trx: Transaction<DB>) {
+async function checkPlace(actor: Actor, input: CreateRequestInput, trx: Db) {
   const site = await getSite(actor, input.siteId, trx);
   if (input.equipmentId) {
     const e = await getEquipment(actor, input.equipmentId, trx);

@@ -22,13 +22,13 @@ import { equipmentHistory } from '@/lib/visits/service';
 import { DeleteEquipmentButton } from '@/app/(app)/equipment/[id]/_components/delete-equipment-button';
 import { RelationManager } from '@/app/(app)/equipment/[id]/_components/relation-manager';
 import { formatNameplateValue } from '@/app/(app)/equipment/_components/nameplate-values';
+import { formatDay } from '@/lib/format/dates';
 
 export const metadata: Metadata = { title: 'Equipment' };
 
 function formatDate(iso: string | null): string | null {
   if (!iso) return null;
-  // Dates are calendar days; format in UTC so no time zone shifts them.
-  return new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+  return formatDay(iso);
 }
 
 function Detail({ label, children }: { label: string; children: ReactNode }) {

@@ -11,14 +11,15 @@ import type { EquipmentDto } from '@/lib/equipment/dto';
 import type { EquipmentSort } from '@/lib/equipment/schemas';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
 import { CheckOption, DisclosureMenu } from '@/app/(app)/equipment/_components/disclosure-menu';
+import { formatDay } from '@/lib/format/dates';
 
 // The server sorts and pages (a site list can hold 100,000 rows), so the table only renders what
 // the query returned: sorting is manual and its state comes from the URL.
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 const helper = createColumnHelper<typeof features, EquipmentDto>();
 
-function formatDay(iso: string | null): string {
-  return iso ? new Date(`${iso.slice(0, 10)}T00:00:00Z`).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' }) : '—';
+function formatDayOrDash(iso: string | null): string {
+  return iso ? formatDay(iso.slice(0, 10)) : '—';
 }
 
 const dash = <span className="text-slate-600">—</span>;
@@ -51,8 +52,8 @@ export const equipmentColumns = helper.columns([
   helper.accessor('refrigerant', { header: 'Refrigerant', enableSorting: false, cell: (info) => info.getValue() ?? dash }),
   helper.accessor('condition', { header: 'Condition', cell: (info) => <ConditionBadge condition={info.getValue()} /> }),
   helper.accessor('status', { header: 'Status', enableSorting: false, cell: (info) => <EquipmentStatusBadge status={info.getValue()} /> }),
-  helper.accessor('installedOn', { header: 'Installed', cell: (info) => formatDay(info.getValue()) }),
-  helper.accessor('updatedAt', { header: 'Updated', cell: (info) => formatDay(info.getValue()) }),
+  helper.accessor('installedOn', { header: 'Installed', cell: (info) => formatDayOrDash(info.getValue()) }),
+  helper.accessor('updatedAt', { header: 'Updated', cell: (info) => formatDayOrDash(info.getValue()) }),
 ]);
 
 const defaultVisibility: ColumnVisibilityState = { system: false, refrigerant: false, installedOn: false, updatedAt: false };

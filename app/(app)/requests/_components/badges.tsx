@@ -1,7 +1,6 @@
 import { CalendarClock, CheckCheck, CircleDot, Eye, Siren, Timer, XCircle, Clock3 } from 'lucide-react';
+import { Pill } from '@/components/ui/pill';
 import { requestStatusLabels, type RequestStatus, type Urgency } from '@/lib/requests/schemas';
-
-const pill = 'inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2 py-0.5 text-sm font-semibold';
 
 const urgencyLook: Record<Urgency, { Icon: typeof Siren; box: string; word: string }> = {
   emergency: { Icon: Siren, box: 'border-red-400 bg-red-50 text-red-950', word: 'Emergency' },
@@ -14,19 +13,17 @@ const statusLook: Record<RequestStatus, typeof Siren> = { new: CircleDot, acknow
 export function UrgencyBadge({ urgency, title }: { urgency: Urgency; title?: string }) {
   const { Icon, box, word } = urgencyLook[urgency];
   return (
-    <span className={`${pill} ${box}`} title={title}>
-      <Icon aria-hidden className="size-4" />
+    <Pill Icon={Icon} box={box} title={title}>
       {word}
-    </span>
+    </Pill>
   );
 }
 
 export function RequestStatusBadge({ status }: { status: RequestStatus }) {
   const Icon = statusLook[status];
   return (
-    <span className={`${pill} border-slate-300 bg-white text-slate-900`}>
-      <Icon aria-hidden className="size-4" />
+    <Pill Icon={Icon} box="border-slate-300 bg-white text-slate-900">
       {requestStatusLabels[status]}
-    </span>
+    </Pill>
   );
 }

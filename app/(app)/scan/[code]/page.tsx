@@ -14,12 +14,13 @@ import { codeFromPathSegment, formatCode } from '@/lib/tags/code';
 import { retireReasonLabels } from '@/lib/tags/schemas';
 import { resolveTag, siteTagCodes } from '@/lib/tags/service';
 import { ClaimFlow } from '@/app/(app)/scan/[code]/_components/claim-flow';
+import { formatDay } from '@/lib/format/dates';
 
 export const metadata: Metadata = { title: 'Tag' };
 
 function formatWhen(iso: string | null): string {
   if (!iso) return 'an unknown date';
-  return new Date(iso).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone: 'UTC' });
+  return formatDay(iso);
 }
 
 /** What a scanned tag opens when it is not simply equipment: the claim flow, or a retired tag's story. */

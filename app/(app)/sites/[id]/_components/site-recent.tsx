@@ -4,10 +4,8 @@ import { photoKindLabels } from '@/lib/photos/schemas';
 import type { PhotoDto } from '@/lib/photos/dto';
 import type { VisitDto } from '@/lib/visits/dto';
 import { visitReasonLabels } from '@/lib/visits/schemas';
+import { formatDay } from '@/lib/format/dates';
 
-function dateIn(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: 'short', day: 'numeric' }).format(new Date(iso));
-}
 
 /** The site's last closed visits, newest first, each opening its record. */
 export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteId: string }) {
@@ -29,7 +27,7 @@ export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteI
             <li key={v.id}>
               <Link href={`/visits/${v.id}`} className="block px-4 py-3 hover:bg-ice-50">
                 <span className="block font-semibold">
-                  {visitReasonLabels[v.reason]} · {dateIn(v.startedAt, v.timeZone)}
+                  {visitReasonLabels[v.reason]} · {formatDay(v.startedAt, v.timeZone)}
                 </span>
                 <span className="block text-sm text-slate-600">{v.technicianName}</span>
                 {v.summary ? <span className="mt-0.5 line-clamp-2 block text-sm text-slate-800">{v.summary}</span> : null}
@@ -60,7 +58,7 @@ export function SiteRecentPhotos({ photos, timeZone }: { photos: (PhotoDto & { e
                 <img src={p.urls.thumb} alt={p.caption ?? `${photoKindLabels[p.kind]} photo of ${p.equipmentName}`} width={200} height={200} loading="lazy" className="aspect-square w-full rounded object-cover" />
                 <span className="mt-1 block truncate text-sm font-semibold">{p.equipmentName}</span>
                 <span className="block text-xs text-slate-600">
-                  {photoKindLabels[p.kind]} · {dateIn(p.sortAt, timeZone)}
+                  {photoKindLabels[p.kind]} · {formatDay(p.sortAt, timeZone)}
                 </span>
               </Link>
             </li>

@@ -1,0 +1,11 @@
+// Dates as pages show them ("Dec 1, 2026"). A calendar date (YYYY-MM-DD: installed on, due on)
+// is shown as written, never shifted by a time zone; an instant is shown as the day it was in
+// the given time zone (the site's, for visits), UTC when none is given.
+
+const DAY = { year: 'numeric', month: 'short', day: 'numeric' } as const;
+const CALENDAR_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+export function formatDay(value: string, timeZone = 'UTC'): string {
+  if (CALENDAR_DATE.test(value)) return new Date(`${value}T00:00:00Z`).toLocaleDateString('en-US', { ...DAY, timeZone: 'UTC' });
+  return new Intl.DateTimeFormat('en-US', { ...DAY, timeZone }).format(new Date(value));
+}
