@@ -96,7 +96,7 @@ else
   # random_page_cost 1.1 (the usual setting for SSD or cached data): with the default 4.0 the
   # planner reads a whole 100k-row table rather than walk an index for one client's 50 sites.
   opts="-c listen_addresses=127.0.0.1 -p $PG_PORT -k '$PGDATA' -c random_page_cost=1.1"
-  if [ "$RIMELINE_PROFILE" = test ]; then
+  if [ "$RIMELINE_PROFILE" = test ] || [[ "$RIMELINE_PROFILE" == lane* ]]; then
     opts+=" -c fsync=off -c synchronous_commit=off -c full_page_writes=off"
   fi
   if ! "${RL_PG_AS[@]}" "$PGBIN/pg_ctl" -D "$PGDATA" -l "$PGDATA/server.log" -w -t 60 -o "$opts" start \

@@ -48,8 +48,12 @@ if [ "$run_unit" = 0 ] && [ "$run_e2e" = 0 ]; then
 fi
 
 rl_check_node
+# The test profile, or a private lane (lane1…lane4) so that several people can test at once.
+profile="${RIMELINE_TEST_PROFILE:-test}"
+case "$profile" in test|lane[1-4]) ;; *) echo "test.sh: RIMELINE_TEST_PROFILE must be test or lane1…lane4" >&2; exit 2 ;; esac
 # shellcheck source=docker-free-scripts/env.sh
-source docker-free-scripts/env.sh test
+source docker-free-scripts/env.sh "$profile"
+RL_DIST="${NEXT_DIST_DIR:-.next}"   # a lane builds into its own folder
 
 TOTAL=7
 [ "$run_unit" = 1 ] && TOTAL=$((TOTAL + 1))
@@ -125,7 +129,7 @@ on_exit() {
   # The Playwright web server is Playwright's to stop; make sure nothing is left on the port.
   if rl_port_busy "$APP_PORT"; then rl_free_port "$APP_PORT" "test app server" >/dev/null 2>&1 || true; fi
   printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
-  if bash docker-free-scripts/db-stop.sh test --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
+  if bash docker-free-scripts/db-stop.sh "$profile" --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
   rm -f "$RIMELINE_RUN/pg.owner"
   rl_unlock_all
   rl_stop_reaper
@@ -154,17 +158,17 @@ on_signal() {
   stage_failures+=("interrupted by $1")
   exit 130
 }
-if holder="$(rl_lock_holder bench)"; then
+if [ "$profile" = test ] && holder="$(rl_lock_holder bench)"; then
   rl_fail "npm run bench is running (pid $holder); it uses the same ports as the tests." "wait for it to finish, or stop it (kill $holder)."
   echo "0 passed, 1 failed"
   exit 1
 fi
-if holder="$(rl_lock_holder test)"; then
+if holder="$(rl_lock_holder "$profile")"; then
   rl_fail "npm test is already running in this checkout (pid $holder: $(rl_cmdline "$holder"))." "wait for it to finish, or stop it (kill $holder)."
   echo "0 passed, 1 failed"
   exit 1
 fi
-rl_lock test
+rl_lock "$profile"
 trap on_exit EXIT
 trap 'on_signal INT' INT
 trap 'on_signal TERM' TERM
@@ -173,17 +177,17 @@ rl_watch_parent
 
 # ------------------------------------------------------------------------------------ set-up
 
-next_step "Stopping leftovers and wiping .data/test"
+next_step "Stopping leftovers and wiping .data/$profile"
 rl_stop_stale s3 "S3 fake"
 rl_stop_stale mail "mail catcher"
 rl_stop_stale app "test app server"
 if rl_pg_bindir >/dev/null; then
-  bash docker-free-scripts/db-stop.sh test --quiet
-  rl_pg_stop_profile bench   # bench shares the test ports; it is not running (no lock), so stop its database
+  bash docker-free-scripts/db-stop.sh "$profile" --quiet
+  [ "$profile" = test ] && rl_pg_stop_profile bench   # bench shares the test ports; it is not running (no lock), so stop its database
 fi
 rl_wipe_profile_data
 # shellcheck source=docker-free-scripts/env.sh
-source docker-free-scripts/env.sh test   # a fresh AUTH_SECRET for this run
+source docker-free-scripts/env.sh "$profile"   # a fresh AUTH_SECRET for this run
 mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN" "$RIMELINE_DATA/screenshots"
 rl_start_reaper
 rl_ok
@@ -213,7 +217,7 @@ fi
 
 next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
 echo "$$" >"$RIMELINE_RUN/pg.owner"
-rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh test \
+rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh "$profile" \
   || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
 rl_ok "database $PG_DB"
 
@@ -242,7 +246,7 @@ fi
 # ------------------------------------------------------------------------------------ Playwright
 if [ "$run_e2e" = 1 ]; then
   next_step "Building the app for the test profile (next build)"
-  if [ "$build" = 0 ] && [ -f "$RL_DIST/BUILD_ID" ] && [ "$(cat "$RL_DIST/rimeline-profile" 2>/dev/null)" = test ]; then
+  if [ "$build" = 0 ] && [ -f "$RL_DIST/BUILD_ID" ] && [ "$(cat "$RL_DIST/rimeline-profile" 2>/dev/null)" = "$profile" ]; then
     rl_ok "skipped (--no-build, reusing the existing test build)"
     built=1
   else
@@ -250,7 +254,7 @@ if [ "$run_e2e" = 1 ]; then
     rm -f "$RL_DIST/rimeline-profile"
     built=0
     if rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build; then
-      echo test >"$RL_DIST/rimeline-profile"
+      echo "$profile" >"$RL_DIST/rimeline-profile"
       built=1
       rl_ok
     else

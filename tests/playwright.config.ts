@@ -13,8 +13,10 @@ import path from 'node:path';
 import { defineConfig, devices } from '@playwright/test';
 
 const root = path.resolve(import.meta.dirname, '..');
-const testData = path.join(root, '.data', 'test');
-const appPort = 3100;
+// npm test exports the test profile (RIMELINE_DATA=.data/test, APP_PORT=3100); a private run beside it
+// exports its own folder and port (DEVELOPERS.md, "Working in parallel").
+const testData = process.env.RIMELINE_DATA || path.join(root, '.data', 'test');
+const appPort = Number(process.env.APP_PORT || 3100);
 const isCI = Boolean(process.env.CI);
 
 const chromiumArgs = [
@@ -85,7 +87,7 @@ export default defineConfig({
   // The shell records the server's pid (exec keeps it) so npm test can stop a server left behind
   // by a crashed run; Playwright starts and stops it itself.
   webServer: {
-    command: `mkdir -p .data/test/run && echo $$ > .data/test/run/app.pid && exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${appPort}`,
+    command: `mkdir -p '${testData}/run' && echo $$ > '${testData}/run/app.pid' && exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${appPort}`,
     cwd: root,
     url: `http://127.0.0.1:${appPort}/api/health`,
     reuseExistingServer: false,

@@ -2,7 +2,7 @@ import { expect, type Page } from '@playwright/test';
 import path from 'node:path';
 
 export const DEMO_PASSWORD = 'rimeline-demo';
-export const screenshotDir = path.resolve(import.meta.dirname, '../../.data/test/screenshots');
+export const screenshotDir = path.join(process.env.RIMELINE_DATA || path.resolve(import.meta.dirname, '../../.data/test'), 'screenshots');
 
 export async function signIn(page: Page, email: string, password = DEMO_PASSWORD, returnTo = '/'): Promise<void> {
   await page.goto(`/sign-in?callbackUrl=${encodeURIComponent(returnTo)}`);

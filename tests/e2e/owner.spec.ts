@@ -11,7 +11,7 @@ import { clearMail, waitForMail } from '../helpers/mail';
 import { cameraImage } from '../helpers/photo-images';
 import { shot, signIn } from './helpers';
 
-const base = 'http://localhost:3100';
+const base = process.env.APP_URL ?? 'http://localhost:3100';
 
 /** An API client signed in as a demo user, for setting up records the way the app would. */
 async function apiAs(email: string): Promise<APIRequestContext> {

@@ -18,7 +18,7 @@ import { readDrawnPages } from '@/tests/helpers/pdf-operators';
 
 const run = promisify(execFile);
 const db = createTestDb();
-const APP = 'http://localhost:3100';
+const APP = process.env.APP_URL ?? 'http://localhost:3100';
 const TOLERANCE_MM = 0.2;
 const DPI = 300;
 let layouts: LabelLayout[];
