@@ -22,6 +22,13 @@ const serverEnvSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Rimeline <no-reply@rimeline.test>'),
   MAIL_CATCHER_URL: z.url().optional(),
   APP_URL: z.url().default('http://localhost:3000'),
+  // Further public origins for a deployment reachable under several hostnames (comma-separated).
+  ALLOWED_ORIGINS: z
+    .string()
+    .default('')
+    .refine((v) => v.split(/[\s,]+/).every((o) => o === '' || URL.canParse(o)), 'ALLOWED_ORIGINS must be a comma-separated list of URLs'),
+  // How many reverse proxies append to X-Forwarded-For; 0 means the header is ignored.
+  TRUSTED_PROXY_COUNT: z.coerce.number().int().min(0).max(10).default(0),
   AUTH_SECRET: z.string().min(16, 'AUTH_SECRET must be at least 16 characters'),
   DEMO_MODE: booleanFlag,
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -7,6 +7,7 @@ import type { Permission } from '@/lib/auth/permissions';
 import { isCalcError } from '@/lib/calc/errors';
 import { zodIssues } from '@/lib/api/issues';
 import { formFields, isMultipart, readMultipart } from '@/lib/api/multipart';
+import { assertSameOrigin, assertValidText } from '@/lib/api/guards';
 import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
 
@@ -101,6 +102,8 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
 ) {
   return async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
     try {
+      // Before any lookup: a forged cross-origin request learns nothing, not even 401 or 404.
+      assertSameOrigin(req);
       const actor = await requireActor();
       if (options.permission) assertCan(actor, options.permission);
       const rawParams = (await ctx?.params) ?? {};
@@ -112,8 +115,10 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
         params = parsed.data;
       }
       let query = {} as Q;
+      const rawQuery = queryObject(req.nextUrl);
+      assertValidText(rawQuery);
       if (options.query) {
-        const parsed = options.query.safeParse(queryObject(req.nextUrl));
+        const parsed = options.query.safeParse(rawQuery);
         if (!parsed.success) throw validationError(parsed.error);
         query = parsed.data;
       }
@@ -122,6 +127,7 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
       if (options.body) {
         if (options.multipart && isMultipart(req)) form = await readMultipart(req, options.multipart.maxBytes, options.multipart.tooLarge);
         const raw = form ? formFields(form) : await readJson(req, options.maxBodyBytes ?? DEFAULT_MAX_BODY);
+        assertValidText(raw);
         const parsed = options.body.safeParse(raw);
         if (!parsed.success) throw validationError(parsed.error);
         body = parsed.data;

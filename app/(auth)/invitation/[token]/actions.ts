@@ -2,6 +2,7 @@
 
 import { redirect } from 'next/navigation';
 import { zodIssues } from '@/lib/api/issues';
+import { guardAction } from '@/lib/auth/action-guard';
 import { isAppError } from '@/lib/errors';
 import { acceptInvitationSchema } from '@/lib/users/schemas';
 import { acceptInvitation } from '@/lib/users/service';
@@ -13,6 +14,12 @@ export interface AcceptState {
 
 // Public by design: the secret token in the e-mailed link is the credential.
 export async function acceptInvitationAction(_prev: AcceptState, form: FormData): Promise<AcceptState> {
+  try {
+    await guardAction(form);
+  } catch (error) {
+    if (isAppError(error)) return { message: error.message };
+    throw error;
+  }
   const parsed = acceptInvitationSchema.safeParse({
     token: form.get('token'),
     password: form.get('password'),
