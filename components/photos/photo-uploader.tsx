@@ -1,44 +1,21 @@
 'use client';
 
-import { useQueryClient } from '@tanstack/react-query';
-import { Camera, CircleCheck, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, Upload, X } from 'lucide-react';
+import { Camera, CircleCheck, Clock, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, X } from 'lucide-react';
 import { useEffect, useId, useRef, useState } from 'react';
+import { usePhotoUploads, unsentMessage, type UploadItem } from '@/components/photos/use-photo-uploads';
 import { Button } from '@/components/ui/button';
 import { Input, Select } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
+import { LeaveDialog } from '@/components/ui/leave-dialog';
+import { useLeaveGuard } from '@/components/ui/use-leave-guard';
 import type { PhotoDto } from '@/lib/photos/dto';
-import { photoKeys, uploadPhotoFile } from '@/lib/photos/hooks';
-import { formatBytes, MAX_PHOTO_BYTES, photoFileProblem, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
+import { useUpdatePhoto } from '@/lib/photos/hooks';
+import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
 import { cn } from '@/lib/utils';
 
-// Several photos at once, from the camera or from files; each with its kind, an optional caption,
-// its own progress bar and, when it fails, its own plain error and Retry. Independent of any page:
-// the equipment page, a scan result or a visit form mount it with the equipment's id.
-
-type Status = 'ready' | 'uploading' | 'processing' | 'done' | 'failed';
-
-interface Item {
-  id: string;
-  file: File;
-  preview: string;
-  kind: PhotoKind;
-  caption: string;
-  status: Status;
-  percent: number;
-  error?: string;
-  /** False when sending the same file again cannot help (too large, empty). */
-  retryable: boolean;
-  photo?: PhotoDto;
-}
-
-/** Up to two uploads at a time: faster on a good line, still gentle on a weak one. */
-const PARALLEL = 2;
-
-function newId(): string {
-  return typeof crypto !== 'undefined' && 'randomUUID' in crypto
-    ? crypto.randomUUID()
-    : '10000000-1000-4000-8000-100000000000'.replace(/[018]/g, (c) => (Number(c) ^ (Math.random() * 16) >> (Number(c) / 4)).toString(16));
-}
+// Several photos at once, from the camera or from files. Each starts uploading the moment it is
+// chosen, with its own progress bar; a failure keeps the file and waits for Retry; a caption (or
+// a corrected kind) can be added once it is stored. Leaving the page with a photo not yet sent
+// asks first. Independent of any page: the equipment page or a visit form mount it.
 
 export interface PhotoUploaderProps {
   equipmentId: string;
@@ -46,90 +23,23 @@ export interface PhotoUploaderProps {
   defaultKind?: PhotoKind;
   /** Called once per stored photo, e.g. for a visit form to link it to an entry. */
   onUploaded?: (photo: PhotoDto) => void;
+  /** How many photos still wait to be sent, for a form that guards its own close button. */
+  onUnsentChange?: (count: number) => void;
 }
 
-export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded }: PhotoUploaderProps) {
-  const queryClient = useQueryClient();
+export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded, onUnsentChange }: PhotoUploaderProps) {
   const baseId = useId();
   const cameraInput = useRef<HTMLInputElement>(null);
   const filesInput = useRef<HTMLInputElement>(null);
   const [kind, setKind] = useState<PhotoKind>(defaultKind);
-  const [items, setItems] = useState<Item[]>([]);
-  const itemsRef = useRef(items);
-  itemsRef.current = items;
-  const uploadKeys = useRef(new Map<string, string>());
+  const uploads = usePhotoUploads(equipmentId, { onUploaded });
+  const { items, unsent } = uploads;
+  const guard = useLeaveGuard(unsent > 0, unsentMessage(unsent));
 
-  // Object URLs hold the picked file in memory; let them go with the item.
-  useEffect(() => () => itemsRef.current.forEach((i) => URL.revokeObjectURL(i.preview)), []);
+  useEffect(() => onUnsentChange?.(unsent), [unsent, onUnsentChange]);
 
-  const patch = (id: string, change: Partial<Item>) => setItems((all) => all.map((i) => (i.id === id ? { ...i, ...change } : i)));
-
-  function add(list: FileList | null) {
-    if (!list || list.length === 0) return;
-    const added: Item[] = [...list].map((file) => {
-      const problem = photoFileProblem(file);
-      return {
-        id: newId(),
-        file,
-        preview: URL.createObjectURL(file),
-        kind,
-        caption: '',
-        status: problem ? 'failed' : 'ready',
-        percent: 0,
-        error: problem,
-        retryable: !problem,
-      };
-    });
-    setItems((all) => [...all, ...added]);
-  }
-
-  async function send(item: Item): Promise<void> {
-    let key = uploadKeys.current.get(item.id);
-    if (!key) {
-      key = newId();
-      uploadKeys.current.set(item.id, key);
-    }
-    patch(item.id, { status: 'uploading', percent: 0, error: undefined });
-    try {
-      const photo = await uploadPhotoFile(equipmentId, item.file, { kind: item.kind, caption: item.caption, uploadKey: key }, ({ sent, total }) => {
-        const percent = total > 0 ? Math.min(100, Math.round((sent / total) * 100)) : 0;
-        patch(item.id, percent >= 100 ? { percent: 100, status: 'processing' } : { percent });
-      });
-      patch(item.id, { status: 'done', percent: 100, photo });
-      onUploaded?.(photo);
-      await queryClient.invalidateQueries({ queryKey: photoKeys.lists() });
-    } catch (error) {
-      const message = error instanceof ApiError ? error.message : 'The upload failed. Nothing was saved; press Retry.';
-      const retryable = !(error instanceof ApiError) || ![413, 415, 422].includes(error.status);
-      patch(item.id, { status: 'failed', error: message, retryable });
-    }
-  }
-
-  async function uploadAll() {
-    const queue = itemsRef.current.filter((i) => i.status === 'ready');
-    const workers = Array.from({ length: Math.min(PARALLEL, queue.length) }, async () => {
-      for (let next = queue.shift(); next; next = queue.shift()) {
-        // Read the latest kind and caption: they may have changed since the queue was made.
-        const current = itemsRef.current.find((i) => i.id === next!.id);
-        if (current && current.status === 'ready') await send(current);
-      }
-    });
-    await Promise.all(workers);
-  }
-
-  function remove(id: string) {
-    const item = itemsRef.current.find((i) => i.id === id);
-    if (item) URL.revokeObjectURL(item.preview);
-    uploadKeys.current.delete(id);
-    setItems((all) => all.filter((i) => i.id !== id));
-  }
-
-  function clearFinished() {
-    itemsRef.current.filter((i) => i.status === 'done').forEach((i) => remove(i.id));
-  }
-
-  const ready = items.filter((i) => i.status === 'ready').length;
-  const busy = items.some((i) => i.status === 'uploading' || i.status === 'processing');
+  const sending = items.filter((i) => i.status === 'queued' || i.status === 'uploading' || i.status === 'processing').length;
+  const failed = items.filter((i) => i.status === 'failed' && i.retryable).length;
   const done = items.filter((i) => i.status === 'done').length;
 
   return (
@@ -147,7 +57,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
             ))}
           </Select>
         </div>
-        <div className="flex flex-wrap gap-2">
+        <div className="grid grid-cols-2 gap-2 sm:flex">
           <Button size="lg" onClick={() => cameraInput.current?.click()}>
             <Camera aria-hidden className="size-5" />
             Take photo
@@ -168,7 +78,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
           aria-label="Take a photo with the camera"
           data-testid="photo-camera-input"
           onChange={(e) => {
-            add(e.target.files);
+            uploads.add(e.target.files, kind);
             e.target.value = '';
           }}
         />
@@ -181,23 +91,25 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
           aria-label="Choose photo files"
           data-testid="photo-file-input"
           onChange={(e) => {
-            add(e.target.files);
+            uploads.add(e.target.files, kind);
             e.target.value = '';
           }}
         />
       </div>
-      <p className="text-sm text-slate-600">JPEG, PNG or WebP, up to {formatBytes(MAX_PHOTO_BYTES)} each. Location data is removed unless your company keeps it.</p>
+      <p className="text-sm text-slate-600">
+        Each photo is sent as soon as you choose it. JPEG, PNG or WebP, up to {formatBytes(MAX_PHOTO_BYTES)} each. Location data is removed unless your company keeps it.
+      </p>
 
       {items.length > 0 ? (
-        <ul className="space-y-3" aria-label="Photos to upload">
+        <ul className="space-y-3" aria-label="Photos being sent">
           {items.map((item, index) => (
             <UploadRow
               key={item.id}
               item={item}
               label={`${baseId}-${index}`}
-              onChange={(change) => patch(item.id, change)}
-              onRetry={() => void send(item)}
-              onRemove={() => remove(item.id)}
+              onChange={(change) => uploads.patch(item.id, change)}
+              onRetry={() => uploads.retry(item.id)}
+              onRemove={() => uploads.remove(item.id)}
             />
           ))}
         </ul>
@@ -205,27 +117,28 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
 
       {items.length > 0 ? (
         <div className="flex flex-wrap items-center gap-2">
-          {ready > 0 || busy ? (
-            <Button size="lg" onClick={() => void uploadAll()} disabled={ready === 0 || busy}>
-              <Upload aria-hidden className="size-5" />
-              {busy ? 'Uploading…' : `Upload ${ready} photo${ready === 1 ? '' : 's'}`}
-            </Button>
-          ) : null}
+          <p className="text-sm font-medium text-slate-800" role="status" aria-live="polite">
+            {[
+              sending > 0 ? `Sending ${sending} ${sending === 1 ? 'photo' : 'photos'}…` : null,
+              failed > 0 ? `${failed} not sent: press Retry.` : null,
+              done > 0 ? `${done} uploaded.` : null,
+            ]
+              .filter(Boolean)
+              .join(' ')}
+          </p>
           {done > 0 ? (
-            <Button variant="ghost" onClick={clearFinished} disabled={busy}>
+            <Button variant="ghost" onClick={uploads.clearDone}>
               Clear uploaded
             </Button>
           ) : null}
-          <p className="text-sm text-slate-700" role="status" aria-live="polite">
-            {busy ? 'Uploading…' : done > 0 ? `${done} uploaded.` : ''}
-          </p>
         </div>
       ) : null}
+      <LeaveDialog {...guard.dialog} />
     </div>
   );
 }
 
-function StatusLine({ item }: { item: Item }) {
+export function UploadStatusLine({ item }: { item: UploadItem }) {
   if (item.status === 'done') {
     return (
       <p className="flex items-center gap-1.5 text-sm font-semibold text-emerald-800">
@@ -264,7 +177,11 @@ function StatusLine({ item }: { item: Item }) {
       </div>
     );
   }
-  return <p className="text-sm text-slate-600">Ready to upload</p>;
+  return (
+    <p className="flex items-center gap-1.5 text-sm text-slate-700">
+      <Clock aria-hidden className="size-4" /> Waiting to send
+    </p>
+  );
 }
 
 function UploadRow({
@@ -274,16 +191,15 @@ function UploadRow({
   onRetry,
   onRemove,
 }: {
-  item: Item;
+  item: UploadItem;
   label: string;
-  onChange: (change: Partial<Item>) => void;
+  onChange: (change: Partial<UploadItem>) => void;
   onRetry: () => void;
   onRemove: () => void;
 }) {
   // The browser cannot draw every file it is handed (not an image, or a format it lacks).
   const [previewBroken, setPreviewBroken] = useState(false);
-  const editable = item.status === 'ready' || (item.status === 'failed' && item.retryable);
-  const working = item.status === 'uploading' || item.status === 'processing';
+  const working = item.status === 'queued' || item.status === 'uploading' || item.status === 'processing';
   return (
     <li
       className={cn('flex gap-3 rounded-md border p-3', item.status === 'failed' ? 'border-red-300 bg-red-50' : 'border-slate-200')}
@@ -301,34 +217,25 @@ function UploadRow({
         <p className="truncate text-sm font-semibold text-slate-900" title={item.file.name}>
           {item.file.name} <span className="font-normal text-slate-600">· {formatBytes(item.file.size)}</span>
         </p>
-        {editable ? (
-          <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
-            <div>
-              <label htmlFor={`${label}-kind`} className="sr-only">
-                Kind of {item.file.name}
-              </label>
-              <Select id={`${label}-kind`} value={item.kind} onChange={(e) => onChange({ kind: e.target.value as PhotoKind })}>
-                {photoKinds.map((k) => (
-                  <option key={k} value={k}>
-                    {photoKindLabels[k]}
-                  </option>
-                ))}
-              </Select>
-            </div>
-            <div>
-              <label htmlFor={`${label}-caption`} className="sr-only">
-                Caption for {item.file.name}
-              </label>
-              <Input id={`${label}-caption`} value={item.caption} maxLength={500} placeholder="Caption (optional)" onChange={(e) => onChange({ caption: e.target.value })} />
-            </div>
+        {item.status === 'done' && item.photo ? (
+          <StoredPhotoFields photo={item.photo} label={label} fileName={item.file.name} onSaved={(photo) => onChange({ photo, kind: photo.kind, caption: photo.caption ?? '' })} />
+        ) : item.status === 'failed' && item.retryable ? (
+          <div>
+            <label htmlFor={`${label}-kind`} className="sr-only">
+              Kind of {item.file.name}
+            </label>
+            <Select id={`${label}-kind`} value={item.kind} onChange={(e) => onChange({ kind: e.target.value as PhotoKind })}>
+              {photoKinds.map((k) => (
+                <option key={k} value={k}>
+                  {photoKindLabels[k]}
+                </option>
+              ))}
+            </Select>
           </div>
         ) : (
-          <p className="text-sm text-slate-700">
-            {photoKindLabels[item.kind]}
-            {item.caption ? ` · ${item.caption}` : ''}
-          </p>
+          <p className="text-sm text-slate-700">{photoKindLabels[item.kind]}</p>
         )}
-        <StatusLine item={item} />
+        <UploadStatusLine item={item} />
         {!working && item.status !== 'done' ? (
           <div className="flex flex-wrap gap-2">
             {item.status === 'failed' && item.retryable ? (
@@ -343,5 +250,77 @@ function UploadRow({
         ) : null}
       </div>
     </li>
+  );
+}
+
+/** Kind and caption of a stored photo, changed in place (PATCH) when its uploader may edit it. */
+function StoredPhotoFields({ photo, label, fileName, onSaved }: { photo: PhotoDto; label: string; fileName: string; onSaved: (photo: PhotoDto) => void }) {
+  const update = useUpdatePhoto();
+  const [kind, setKind] = useState<PhotoKind>(photo.kind);
+  const [caption, setCaption] = useState(photo.caption ?? '');
+  const [saved, setSaved] = useState(false);
+  if (!photo.canEdit) {
+    return (
+      <p className="text-sm text-slate-700">
+        {photoKindLabels[photo.kind]}
+        {photo.caption ? ` · ${photo.caption}` : ''}
+      </p>
+    );
+  }
+  const changed = kind !== photo.kind || caption.trim() !== (photo.caption ?? '');
+  return (
+    <form
+      className="space-y-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (!changed) return;
+        setSaved(false);
+        update.mutate(
+          { id: photo.id, input: { kind, caption } },
+          {
+            onSuccess: (next) => {
+              setSaved(true);
+              onSaved(next);
+            },
+          },
+        );
+      }}
+    >
+      <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
+        <div>
+          <label htmlFor={`${label}-kind`} className="sr-only">
+            Kind of {fileName}
+          </label>
+          <Select id={`${label}-kind`} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
+            {photoKinds.map((k) => (
+              <option key={k} value={k}>
+                {photoKindLabels[k]}
+              </option>
+            ))}
+          </Select>
+        </div>
+        <div>
+          <label htmlFor={`${label}-caption`} className="sr-only">
+            Caption for {fileName}
+          </label>
+          <Input id={`${label}-caption`} value={caption} maxLength={500} placeholder="Add a caption (optional)" onChange={(e) => setCaption(e.target.value)} />
+        </div>
+      </div>
+      {changed ? (
+        <Button type="submit" variant="secondary" disabled={update.isPending}>
+          {update.isPending ? 'Saving…' : 'Save kind and caption'}
+        </Button>
+      ) : null}
+      {update.isError ? (
+        <p role="alert" className="flex items-start gap-1.5 text-sm font-medium text-red-800">
+          <OctagonAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
+          {update.error.message}
+        </p>
+      ) : saved && !changed ? (
+        <p role="status" className="flex items-center gap-1.5 text-sm text-emerald-800">
+          <CircleCheck aria-hidden className="size-4" /> Saved
+        </p>
+      ) : null}
+    </form>
   );
 }

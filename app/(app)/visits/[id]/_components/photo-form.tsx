@@ -1,19 +1,28 @@
 'use client';
 
-import { useState } from 'react';
+import { useCallback, useState } from 'react';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
+import { unsentMessage } from '@/components/photos/use-photo-uploads';
 import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { LeaveDialog } from '@/components/ui/leave-dialog';
+import { useLeaveGuard } from '@/components/ui/use-leave-guard';
 import type { PhotoDto } from '@/lib/photos/dto';
 import type { SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 /**
- * Photos go up through the shared uploader (which stores them on the equipment); each stored photo
- * then becomes a photo entry of this visit, saved like any other entry (kept on the phone if the
- * signal drops between the two).
+ * Photos go up through the shared uploader the moment they are chosen (stored on the equipment);
+ * each stored photo then becomes a photo entry of this visit at once, saved like any other entry
+ * (kept on the phone if the signal drops between the two). "Done" asks first while a photo is
+ * still on its way or waits for Retry.
  */
 export function PhotoForm({ equipmentId, onSubmit, onDone }: { equipmentId: string; onSubmit: (data: { photoId: string; caption: string | null }) => Promise<SubmitResult>; onDone: () => void }) {
   const [linked, setLinked] = useState(0);
   const [problem, setProblem] = useState<string | null>(null);
+  const [unsent, setUnsent] = useState(0);
+  // The uploader guards reloads and links; this guards the form's own close button.
+  const guard = useLeaveGuard(unsent > 0, unsentMessage(unsent), { pageLeave: false });
+  const onUnsentChange = useCallback((n: number) => setUnsent(n), []);
 
   async function uploaded(photo: PhotoDto) {
     const result = await onSubmit({ photoId: photo.id, caption: photo.caption });
@@ -23,7 +32,7 @@ export function PhotoForm({ equipmentId, onSubmit, onDone }: { equipmentId: stri
 
   return (
     <div className="space-y-3">
-      <PhotoUploader equipmentId={equipmentId} defaultKind="general" onUploaded={(p) => void uploaded(p)} />
+      <PhotoUploader equipmentId={equipmentId} defaultKind="general" onUploaded={(p) => void uploaded(p)} onUnsentChange={onUnsentChange} />
       {linked > 0 ? (
         <p role="status" className="font-semibold text-emerald-900">
           {linked} {linked === 1 ? 'photo' : 'photos'} added to this visit.
@@ -34,9 +43,10 @@ export function PhotoForm({ equipmentId, onSubmit, onDone }: { equipmentId: stri
           {problem}
         </Alert>
       ) : null}
-      <button type="button" onClick={onDone} className="min-h-12 w-full rounded-md border border-slate-300 bg-white px-5 font-semibold text-slate-900 hover:bg-slate-100 sm:w-auto">
+      <Button size="lg" variant="secondary" onClick={() => guard.confirm(onDone)}>
         Done with photos
-      </button>
+      </Button>
+      <LeaveDialog {...guard.dialog} />
     </div>
   );
 }
