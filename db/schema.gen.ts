@@ -121,6 +121,8 @@ export interface Equipment {
   model: string | null;
   name: string;
   nameplate: Generated<Json>;
+  removed_at: Timestamp | null;
+  replaced_by_id: string | null;
   search_text: Generated<string | null>;
   serial: string | null;
   site_id: string;

@@ -5,6 +5,8 @@ export interface EquipmentDto {
   id: string;
   siteId: string;
   siteName: string;
+  /** The site's time zone, for dates shown as the day they were there. */
+  siteTimeZone: string;
   clientName: string;
   areaId: string | null;
   areaName: string | null;
@@ -23,6 +25,11 @@ export interface EquipmentDto {
   conditionNote: string | null;
   status: EquipmentStatus;
   nameplate: Nameplate;
+  /** When the unit left service for good (status 'removed'); null while it is current. */
+  removedAt: string | null;
+  /** The unit that took its place, when it was replaced rather than just removed. */
+  replacedById: string | null;
+  replacedByName: string | null;
   deletedAt: string | null;
   createdAt: string;
   updatedAt: string;
@@ -42,10 +49,22 @@ export interface EquipmentDetailDto extends EquipmentDto {
   systemDesignBoxTempC: number | null;
 }
 
+export interface UnitFactsDto {
+  /** The newest visit with an entry on this unit that the viewer may read (owners: closed visits). */
+  lastVisit: { id: string; startedAt: string; timeZone: string } | null;
+  /** Follow-ups on this unit still to do (open or planned). */
+  openFollowUps: number;
+  /** The viewer's own open visit at this unit's site, to continue rather than start another. */
+  openVisitId: string | null;
+  /** The code of the tag attached to the unit. */
+  tagCode: string | null;
+}
+
 export interface EquipmentRow {
   id: string;
   site_id: string;
   site_name: string;
+  site_time_zone: string;
   client_name: string;
   area_id: string | null;
   area_name: string | null;
@@ -63,6 +82,9 @@ export interface EquipmentRow {
   condition_note: string | null;
   status: string;
   nameplate: unknown;
+  removed_at: Date | null;
+  replaced_by_id: string | null;
+  replaced_by_name: string | null;
   deleted_at: Date | null;
   created_at: Date;
   updated_at: Date;
@@ -73,6 +95,7 @@ export function toEquipmentDto(row: EquipmentRow): EquipmentDto {
     id: row.id,
     siteId: row.site_id,
     siteName: row.site_name,
+    siteTimeZone: row.site_time_zone,
     clientName: row.client_name,
     areaId: row.area_id,
     areaName: row.area_name,
@@ -90,6 +113,9 @@ export function toEquipmentDto(row: EquipmentRow): EquipmentDto {
     conditionNote: row.condition_note,
     status: row.status as EquipmentStatus,
     nameplate: (row.nameplate ?? {}) as Nameplate,
+    removedAt: row.removed_at?.toISOString() ?? null,
+    replacedById: row.replaced_by_name === null ? null : row.replaced_by_id,
+    replacedByName: row.replaced_by_name,
     deletedAt: row.deleted_at?.toISOString() ?? null,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),

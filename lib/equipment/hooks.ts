@@ -20,6 +20,8 @@ export interface EquipmentListFilters {
   condition: number[];
   refrigerant: RefrigerantId[];
   status: EquipmentStatus[];
+  /** 'only': the removed units, shown apart from the current ones. */
+  removed?: 'only';
   q?: string;
   sort: EquipmentSort;
   dir: 'asc' | 'desc';
@@ -48,6 +50,7 @@ export function equipmentSearchParams(filters: Partial<EquipmentListFilters>): U
   for (const c of filters.condition ?? []) params.append('condition', String(c));
   for (const r of filters.refrigerant ?? []) params.append('refrigerant', r);
   for (const s of filters.status ?? []) params.append('status', s);
+  if (filters.removed) params.set('removed', filters.removed);
   if (filters.q) params.set('q', filters.q);
   if (filters.sort && filters.sort !== 'name') params.set('sort', filters.sort);
   if (filters.dir && filters.dir !== 'asc') params.set('dir', filters.dir);

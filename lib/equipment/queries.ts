@@ -16,6 +16,8 @@ export function equipmentBaseQuery(actor: Actor, db: Db) {
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .leftJoin('areas', 'areas.id', 'equipment.area_id')
     .leftJoin('systems', 'systems.id', 'equipment.system_id')
+    // A deleted replacement is not linked to: its page would not open.
+    .leftJoin('equipment as replacement', (join) => join.onRef('replacement.id', '=', 'equipment.replaced_by_id').on('replacement.deleted_at', 'is', null))
     .where(siteVisibleTo(actor))
     .where('equipment.company_id', '=', actor.companyId);
 }
@@ -26,6 +28,7 @@ export const selection = [
   'equipment.id',
   'equipment.site_id',
   'sites.name as site_name',
+  'sites.time_zone as site_time_zone',
   'clients.name as client_name',
   'equipment.area_id',
   'areas.name as area_name',
@@ -42,6 +45,9 @@ export const selection = [
   'equipment.condition_note',
   'equipment.status',
   'equipment.nameplate',
+  'equipment.removed_at',
+  'equipment.replaced_by_id',
+  'replacement.name as replaced_by_name',
   'equipment.deleted_at',
   'equipment.created_at',
   'equipment.updated_at',
@@ -62,6 +68,10 @@ const sortExpressions: Record<EquipmentSort, { expr: RawBuilder<unknown>; cast: 
 /** Filters shared by the table, the CSV export and the benchmark. */
 export function filteredEquipment(actor: Actor, query: Omit<ListEquipmentQuery, 'cursor' | 'limit' | 'sort' | 'dir'>, db: Db) {
   let q = equipmentBaseQuery(actor, db).where('equipment.deleted_at', 'is', null);
+  // Removed units stay out of every list unless asked for, so pickers and current views never offer them.
+  const removed = query.removed ?? (query.status?.includes('removed') ? 'include' : 'exclude');
+  if (removed === 'exclude') q = q.where('equipment.status', '<>', 'removed');
+  else if (removed === 'only') q = q.where('equipment.status', '=', 'removed');
   if (query.siteId) q = q.where('equipment.site_id', '=', query.siteId);
   if (query.areaId) q = q.where('equipment.area_id', '=', query.areaId);
   if (query.systemId) q = q.where('equipment.system_id', '=', query.systemId);

@@ -65,6 +65,9 @@ export const updateEquipmentSchema = commonFields
   .superRefine(datesInOrder);
 
 
+export const REMOVED_VIEWS = ['exclude', 'only', 'include'] as const;
+export type RemovedView = (typeof REMOVED_VIEWS)[number];
+
 export const EQUIPMENT_SORTS = ['name', 'type', 'make', 'model', 'serial', 'condition', 'installedOn', 'updatedAt'] as const;
 export type EquipmentSort = (typeof EQUIPMENT_SORTS)[number];
 
@@ -76,6 +79,8 @@ export const listEquipmentQuerySchema = listQueryBase.omit({ archived: true }).e
   condition: repeatedParam(z.coerce.number().int().min(1).max(5)),
   refrigerant: repeatedParam(z.enum(REFRIGERANT_IDS)),
   status: repeatedParam(z.enum(EQUIPMENT_STATUSES)),
+  /** Removed units: left out (the default, for pickers and current views), the only ones, or both. */
+  removed: z.enum(REMOVED_VIEWS).optional(),
   sort: z.enum(EQUIPMENT_SORTS).default('name'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });

@@ -4,10 +4,10 @@ import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import { encodeCursor, type Page } from '@/lib/api/cursor';
 import { zodIssues } from '@/lib/api/issues';
-import { assertCan } from '@/lib/auth/access';
+import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
-import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto } from '@/lib/equipment/dto';
+import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto, type UnitFactsDto } from '@/lib/equipment/dto';
 import { nameplateSchemaFor } from '@/lib/equipment/nameplate';
 import { buildEquipmentListQuery, equipmentBaseQuery, refrigerantExpr, selection } from '@/lib/equipment/queries';
 import type { CreateEquipmentInput, CreateRelationInput, ListEquipmentQuery, UpdateEquipmentInput } from '@/lib/equipment/schemas';
@@ -166,6 +166,9 @@ export async function updateEquipment(actor: Actor, id: string, input: UpdateEqu
         ...(input.condition !== undefined ? { condition: input.condition } : {}),
         ...(input.conditionNote !== undefined ? { condition_note: input.conditionNote } : {}),
         ...(input.status !== undefined ? { status: input.status } : {}),
+        // The removal date is set once, when the unit leaves; a unit brought back is current again.
+        ...(input.status === 'removed' && before.status !== 'removed' ? { removed_at: sql<Date>`now()` } : {}),
+        ...(input.status !== undefined && input.status !== 'removed' && before.status === 'removed' ? { removed_at: null, replaced_by_id: null } : {}),
         ...(input.nameplate !== undefined ? { nameplate: JSON.stringify(parseNameplate(before.type, input.nameplate)) } : {}),
         updated_at: sql`now()`,
       })
@@ -195,6 +198,9 @@ export async function addRelation(actor: Actor, id: string, input: CreateRelatio
     const other = await getEquipment(actor, input.otherId, trx).catch(() => {
       throw new AppError('validation_failed', 'Choose equipment on the same site.', [{ path: 'otherId', message: 'This equipment was not found.' }]);
     });
+    if (other.status === 'removed' || self.status === 'removed') {
+      throw new AppError('validation_failed', 'Removed equipment cannot get new relations.', [{ path: 'otherId', message: 'Choose equipment still on site.' }]);
+    }
     if (other.id === self.id) throw new AppError('validation_failed', 'Equipment cannot relate to itself.', [{ path: 'otherId', message: 'Choose another piece of equipment.' }]);
     if (other.siteId !== self.siteId) {
       throw new AppError('validation_failed', 'Choose equipment on the same site.', [{ path: 'otherId', message: 'That equipment is on another site.' }]);
@@ -224,4 +230,51 @@ export async function removeRelation(actor: Actor, id: string, relationId: strin
     if (!row) throw new AppError('not_found', 'Relation not found.');
     await recordAudit(trx, actor, { action: 'delete', entityType: 'equipment_relation', entityId: relationId, before: row });
   });
+}
+
+
+/** What the unit page's header says at a glance, for a unit the caller has already been shown. */
+export async function getUnitFacts(actor: Actor, equipment: Pick<EquipmentDto, 'id' | 'siteId'>, db: Db = defaultDb): Promise<UnitFactsDto> {
+  assertCan(actor, 'equipment.read');
+  await assertEquipmentVisible(actor, equipment.id, db);
+  let last = db
+    .selectFrom('entries')
+    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .where('entries.equipment_id', '=', equipment.id)
+    .where('entries.company_id', '=', actor.companyId)
+    .where('entries.voided_at', 'is', null)
+    .select(['visits.id', 'visits.started_at', 'sites.time_zone'])
+    .orderBy('visits.started_at', 'desc')
+    .limit(1);
+  if (actor.role === 'client') last = last.where('visits.status', '=', 'closed');
+  const [lastRow, followUps, openVisit, tag] = await Promise.all([
+    last.executeTakeFirst(),
+    db
+      .selectFrom('follow_ups')
+      .where('equipment_id', '=', equipment.id)
+      .where('company_id', '=', actor.companyId)
+      .where('status', 'in', ['open', 'scheduled'])
+      .select((eb) => eb.fn.countAll<string>().as('n'))
+      .executeTakeFirstOrThrow(),
+    can(actor, 'visits.start')
+      ? db
+          .selectFrom('visits')
+          .where('site_id', '=', equipment.siteId)
+          .where('company_id', '=', actor.companyId)
+          .where('technician_id', '=', actor.id)
+          .where('status', '=', 'open')
+          .select('id')
+          .orderBy('started_at', 'desc')
+          .limit(1)
+          .executeTakeFirst()
+      : undefined,
+    db.selectFrom('tags').where('equipment_id', '=', equipment.id).where('company_id', '=', actor.companyId).where('state', '=', 'attached').select('code').orderBy('attached_at', 'desc').limit(1).executeTakeFirst(),
+  ]);
+  return {
+    lastVisit: lastRow ? { id: lastRow.id, startedAt: new Date(lastRow.started_at).toISOString(), timeZone: lastRow.time_zone } : null,
+    openFollowUps: Number(followUps.n),
+    openVisitId: openVisit?.id ?? null,
+    tagCode: tag?.code ?? null,
+  };
 }

@@ -127,7 +127,7 @@ describe('equipment registry', () => {
     const done = await importEquipmentCsv(office, empty.id, csv, true);
     expect(done.imported).toBe(5);
     const strip = (items: Awaited<ReturnType<typeof listEquipment>>['items']) =>
-      items.map(({ id: _id, siteId: _s, siteName: _n, areaId: _a, systemId: _y, createdAt: _c, updatedAt: _u, ...rest }) => rest);
+      items.map(({ id: _id, siteId: _s, siteName: _n, siteTimeZone: _z, areaId: _a, systemId: _y, createdAt: _c, updatedAt: _u, ...rest }) => rest);
     const original = await listEquipment(office, { siteId, limit: 50, sort: 'name', dir: 'asc' });
     const copy = await listEquipment(office, { siteId: empty.id, limit: 50, sort: 'name', dir: 'asc' });
     expect(strip(copy.items)).toEqual(strip(original.items));
