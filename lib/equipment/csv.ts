@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { escapeFormulae, unescapeCell } from '@/lib/equipment/csv-cells';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import type { EquipmentDto, SystemDto } from '@/lib/equipment/dto';
 import { nameplateFields } from '@/lib/equipment/nameplate';
@@ -70,7 +71,7 @@ export function equipmentToCsv(items: EquipmentDto[], systems: Map<string, Syste
     }
     return row;
   });
-  return Papa.unparse({ fields: csvColumns, data: rows.map((r) => csvColumns.map((c) => r[c] ?? '')) }, { newline: '\r\n' });
+  return Papa.unparse({ fields: csvColumns, data: rows.map((r) => csvColumns.map((c) => r[c] ?? '')) }, { newline: '\r\n', escapeFormulae });
 }
 
 export interface CsvProblem {
@@ -113,7 +114,12 @@ function nameplateValue(type: EquipmentType, key: string, text: string): unknown
  * count the header as line 1, as a spreadsheet shows them.
  */
 export function parseEquipmentCsv(text: string, siteId: string): ParsedCsv {
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim() });
+  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
+    header: true,
+    skipEmptyLines: 'greedy',
+    transformHeader: (h) => unescapeCell(h).trim(),
+    transform: (value) => unescapeCell(value),
+  });
   const problems: CsvProblem[] = [];
   const rows: ParsedRow[] = [];
   const headers = parsed.meta.fields ?? [];

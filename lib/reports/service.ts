@@ -1,5 +1,6 @@
 import 'server-only';
 import Papa from 'papaparse';
+import { escapeFormulae } from '@/lib/equipment/csv-cells';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/db/helpers';
@@ -257,8 +258,8 @@ function leakDetails(d: LeakRecord, c: RepairDeadline | null): string {
 
 export async function reportFile(report: TableReport, format: 'csv' | 'pdf', basename: string): Promise<ReportFile> {
   if (format === 'csv') {
-    const csv = Papa.unparse({ fields: report.columns.map((c) => c.label), data: report.rows }, { newline: '\r\n' });
-    const header = report.facts.map(([k, v]) => Papa.unparse([[`# ${k}`, v]])).join('\r\n');
+    const csv = Papa.unparse({ fields: report.columns.map((c) => c.label), data: report.rows }, { newline: '\r\n', escapeFormulae });
+    const header = report.facts.map(([k, v]) => Papa.unparse([[`# ${k}`, v]], { escapeFormulae })).join('\r\n');
     return { filename: `${basename}.csv`, contentType: 'text/csv; charset=utf-8', body: `${header}\r\n${csv}\r\n` };
   }
   return { filename: `${basename}.pdf`, contentType: 'application/pdf', body: await renderTablePdf(report) };
