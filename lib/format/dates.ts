@@ -9,3 +9,8 @@ export function formatDay(value: string, timeZone = 'UTC'): string {
   if (CALENDAR_DATE.test(value)) return new Date(`${value}T00:00:00Z`).toLocaleDateString('en-US', { ...DAY, timeZone: 'UTC' });
   return new Intl.DateTimeFormat('en-US', { ...DAY, timeZone }).format(new Date(value));
 }
+
+/** 'YYYY-MM-DD' of an instant on a time zone's calendar (a site's day, for deadlines and counts). */
+export function localDate(at: Date, timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at);
+}

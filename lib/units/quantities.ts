@@ -46,12 +46,21 @@ export function conversionFor(quantity: Quantity, prefs: UnitPrefs): Conversion 
   }
 }
 
-/** SI value → the text a form shows. Enough decimals that a typed value comes back unchanged. */
+/**
+ * SI value → the text a form shows: the unit's usual precision, or up to two more decimals when
+ * that is what brings a typed value back exactly (21.25 psig reopens as 21.25). A value stored
+ * from another unit (144.8 kPa is 21.0015 psig) shows at the usual precision (21), never with
+ * conversion noise.
+ */
 export function toDisplayValue(si: number | null | undefined, quantity: Quantity, prefs: UnitPrefs): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return '';
   const c = conversionFor(quantity, prefs);
-  // Four decimals of headroom beyond display precision, then trailing zeros trimmed.
-  return String(Number(c.fromSi(si).toFixed(c.decimals + 3)));
+  const shown = c.fromSi(si);
+  for (let d = c.decimals; d <= c.decimals + 2; d++) {
+    const candidate = Number(shown.toFixed(d));
+    if (Math.abs(c.toSi(candidate) - si) <= 1e-9 * Math.max(1, Math.abs(si))) return String(candidate);
+  }
+  return String(Number(shown.toFixed(c.decimals)));
 }
 
 /** Form text → SI value; empty → null; anything unparseable → NaN (the schema rejects it). */

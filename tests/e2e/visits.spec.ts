@@ -1,7 +1,8 @@
 import { expect, test, type Browser, type Page, type TestInfo } from '@playwright/test';
 import sharp from 'sharp';
 import { evaluateLeakEvent } from '../../lib/calc/leak-rate';
-import { computeReading, type EntryContext } from '../../lib/visits/compute';
+import { computeReading } from '../../lib/visits/kinds/reading';
+import type { EntryContext } from '../../lib/visits/kinds/types';
 import type { VisitDetailDto } from '../../lib/visits/dto';
 import { formatQuantity, fromDisplayValue, type UnitPrefs } from '../../lib/units/quantities';
 import { firstLink } from '../helpers/mail';

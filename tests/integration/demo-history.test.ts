@@ -15,7 +15,8 @@ import { listRequestsQuerySchema } from '@/lib/requests/schemas';
 import { listRequests } from '@/lib/requests/service';
 import { resolveTag } from '@/lib/tags/service';
 import { historyQuerySchema, listVisitsQuerySchema } from '@/lib/visits/schemas';
-import { equipmentHistory, getVisit, listVisits } from '@/lib/visits/service';
+import { equipmentHistory } from '@/lib/visits/history';
+import { getVisit, listVisits } from '@/lib/visits/service';
 import { ensureBucket, headObject } from '@/storage/objects';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 

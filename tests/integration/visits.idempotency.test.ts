@@ -3,7 +3,8 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
-import { addEntry, getVisit, startVisit } from '@/lib/visits/service';
+import { addEntry } from '@/lib/visits/entries';
+import { getVisit, startVisit } from '@/lib/visits/service';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 import { createCoolerCircuit } from '@/tests/helpers/registry';
 

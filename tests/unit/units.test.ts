@@ -44,4 +44,13 @@ describe('unit conversion', () => {
       { numRuns: 2000 },
     );
   });
+
+  it('a value stored from another unit is shown at the usual precision, without conversion noise', () => {
+    const imperial = { units: 'imperial', metricPressure: 'kPa' } as const;
+    // 144.8 kPa typed by a metric user is 21.0015 psig; an imperial form shows 21, not 21.0015.
+    expect(toDisplayValue(144.8, 'pressureGauge', imperial)).toBe('21');
+    // 2758 kPa (a nameplate's 400 psig design pressure, rounded) is 400.0 psig, not 399.9996.
+    expect(toDisplayValue(2758, 'pressureGauge', imperial)).toBe('400');
+    expect(toDisplayValue(-3.3333333, 'temperature', { units: 'metric', metricPressure: 'kPa' })).toBe('-3.3');
+  });
 });

@@ -11,7 +11,9 @@ import { updateFollowUp } from '@/lib/follow-ups/service';
 import { updateFollowUpSchema } from '@/lib/follow-ups/schemas';
 import { uploadPhoto } from '@/lib/photos/service';
 import type { PhotoKind } from '@/lib/photos/schemas';
-import { addEntry, closeVisit, markReviewed, startVisit } from '@/lib/visits/service';
+import { closeVisit } from '@/lib/visits/close';
+import { addEntry } from '@/lib/visits/entries';
+import { markReviewed, startVisit } from '@/lib/visits/service';
 import { closeVisitSchema, createEntrySchema, startVisitSchema, type EntryKind, type Severity, type VisitReason } from '@/lib/visits/schemas';
 import { addMinutes, dayOfYear, siteDate } from '@/db/seeds/history/clock';
 import type { SystemSpec } from '@/db/seeds/history/plant';
@@ -188,7 +190,7 @@ export async function logVisit(state: DemoState, plan: VisitPlan, work: (v: Visi
   state.visitIds.push(visit.id);
   if (plan.summary === null) return log;
   const endedAt = addMinutes(log.lastEntryAt, 10);
-  await closeVisit(state.tech, visit.id, closeVisitSchema.parse({ summary: plan.summary, endedAt: endedAt.toISOString() }), state.db);
+  await closeVisit(state.tech, visit.id, closeVisitSchema.parse({ summary: plan.summary, endedAt: endedAt.toISOString() }), state.db, { report: 'on-download' });
   if (plan.reviewed) {
     await markReviewed(state.office, visit.id, state.db);
     await state.db.updateTable('visits').set({ reviewed_at: addMinutes(endedAt, 20 * 60) }).where('id', '=', visit.id).execute();

@@ -13,7 +13,7 @@ import { applicationLabels } from '@/lib/equipment/types';
 import { getSystem } from '@/lib/systems/service';
 import { formatQuantity } from '@/lib/units/quantities';
 import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
-import { systemHistory } from '@/lib/visits/service';
+import { systemHistory } from '@/lib/visits/history';
 import { ArchiveSystemButton } from '@/app/(app)/systems/[id]/_components/archive-system-button';
 
 export const metadata: Metadata = { title: 'System' };

@@ -16,7 +16,8 @@ import { cn } from '@/lib/utils';
 import type { EntryDto } from '@/lib/visits/dto';
 import { formatTime } from '@/lib/visits/report-content';
 import { visitReasonLabels } from '@/lib/visits/schemas';
-import { getVisit, siteEntryContexts } from '@/lib/visits/service';
+import { siteEntryContexts } from '@/lib/visits/context';
+import { getVisit } from '@/lib/visits/service';
 import { ReviewActions } from '@/app/(app)/visits/[id]/_components/review-actions';
 import { VisitWorkspace } from '@/app/(app)/visits/[id]/_components/visit-workspace';
 

@@ -10,7 +10,7 @@ import { CERTIFIED_WORK_CAUTION, FLAMMABLE_LEAK_SEARCH_CAUTION, PRESSURE_TEST_CA
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import { CONDITIONS } from '@/lib/equipment/types';
 import { conversionFor, fromDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
-import type { EntryContext } from '@/lib/visits/compute';
+import type { EntryContext } from '@/lib/visits/kinds/types';
 import {
   LEAK_ACTIVITIES,
   LEAK_METHODS,

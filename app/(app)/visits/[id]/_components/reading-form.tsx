@@ -4,7 +4,8 @@ import { useMemo, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { CERTIFIED_WORK_CAUTION, ENERGISED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
-import { computeReading, type EntryContext, type ReadingComputed } from '@/lib/visits/compute';
+import { computeReading, type ReadingComputed } from '@/lib/visits/kinds/reading';
+import type { EntryContext } from '@/lib/visits/kinds/types';
 import type { ReadingData, ReadingKey } from '@/lib/visits/schemas';
 import { Cautions, ComputedPanel, FormActions, NumberInput, parseTyped, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 

@@ -16,7 +16,7 @@ import type { EquipmentDto } from '@/lib/equipment/dto';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
 import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
-import type { EntryContext } from '@/lib/visits/compute';
+import type { EntryContext } from '@/lib/visits/kinds/types';
 import type { EntryDto, VisitDetailDto } from '@/lib/visits/dto';
 import { usePendingEntries, useVisit, useVoidEntry, type SaveOutcome } from '@/lib/visits/hooks';
 import { newClientEntryId, type PendingEntry } from '@/lib/visits/pending';
@@ -265,7 +265,7 @@ export function VisitWorkspace({
                 <EntryKindLabel kind={kind} className="text-lg" />
               </h3>
               {kind === 'reading' ? <ReadingForm ctx={ctx} prefs={prefs} refrigerantCautions={handling} onSubmit={(d) => submit('reading', d)} onCancel={cancel} /> : null}
-              {kind === 'setting_change' ? <SettingForm equipment={selected} ctx={ctx} prefs={prefs} onSubmit={(d) => submit('setting_change', d)} onCancel={cancel} /> : null}
+              {kind === 'setting_change' ? <SettingForm unit={selected} ctx={ctx} prefs={prefs} onSubmit={(d) => submit('setting_change', d)} onCancel={cancel} /> : null}
               {kind === 'finding' ? <FindingForm onSubmit={(d) => submit('finding', d)} onCancel={cancel} /> : null}
               {kind === 'action' ? <ActionForm onSubmit={(d) => submit('action', d)} onCancel={cancel} /> : null}
               {kind === 'part' ? <PartForm equipmentName={selected.name} onSubmit={(d) => submit('part', d)} onCancel={cancel} /> : null}

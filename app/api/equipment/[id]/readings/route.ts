@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idParamsSchema } from '@/lib/api/schemas';
 import { withApi } from '@/lib/api/handler';
 import { readingFields } from '@/lib/visits/schemas';
-import { readingSeries } from '@/lib/visits/service';
+import { readingSeries } from '@/lib/visits/history';
 
 const keys: [string, ...string[]] = ['superheatK', 'subcoolingK', 'evaporatorTdK', 'condenserSplitK', 'compressionRatio', 'unbalancePct', 'evaporatingC', 'condensingC', ...Object.keys(readingFields)];
 const querySchema = z.object({ key: z.enum(keys, { message: 'Choose a reading to plot.' }) });

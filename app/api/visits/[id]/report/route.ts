@@ -1,12 +1,10 @@
 import { idParamsSchema } from '@/lib/api/schemas';
 import { withApi } from '@/lib/api/handler';
-import { ensureVisitReport } from '@/lib/visits/service';
-import { getObjectBytes } from '@/storage/objects';
+import { visitReportPdf } from '@/lib/visits/close';
 
 // GET /api/visits/:id/report: the visit's PDF report (access-checked; made on demand if missing).
 export const GET = withApi({ params: idParamsSchema }, async ({ actor, params }) => {
-  const key = await ensureVisitReport(actor, params.id);
-  const bytes = await getObjectBytes(key);
+  const bytes = await visitReportPdf(actor, params.id);
   return new Response(Buffer.from(bytes), {
     headers: {
       'Content-Type': 'application/pdf',

@@ -1,0 +1,67 @@
+import 'server-only';
+import { sql, type Kysely, type Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import type { DB } from '@/db/schema.gen';
+import { encodeCursor, type Page } from '@/lib/api/cursor';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { assertEquipmentVisible } from '@/lib/equipment/service';
+import type { EntryDto } from '@/lib/visits/dto';
+import { buildHistoryQuery, type HistoryScope } from '@/lib/visits/queries';
+import type { HistoryQuery, VisitReason } from '@/lib/visits/schemas';
+import { toEntryDto } from '@/lib/visits/service';
+
+// A unit's or a system's history, newest first, and one reading over time for a chart.
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+/** Newest first, keyset on (recorded_at, id); owners see entries of closed visits only. */
+export async function equipmentHistory(actor: Actor, equipmentId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
+  assertCan(actor, 'visits.read');
+  await assertEquipmentVisible(actor, equipmentId, db);
+  return historyPage(actor, db, query, { equipmentId });
+}
+
+export async function systemHistory(actor: Actor, systemId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
+  assertCan(actor, 'visits.read');
+  const { getSystem } = await import('@/lib/systems/service');
+  await getSystem(actor, systemId, db);
+  return historyPage(actor, db, query, { systemId });
+}
+
+async function historyPage(actor: Actor, db: Db, query: HistoryQuery, scope: HistoryScope): Promise<Page<EntryDto>> {
+  const rows = await buildHistoryQuery(actor, db, query, scope).execute();
+  const items = rows.slice(0, query.limit).map((r) => ({
+    ...toEntryDto(r),
+    visit: {
+      reason: r.visit_reason as VisitReason,
+      startedAt: r.visit_started_at.toISOString(),
+      technicianName: r.technician_name,
+      status: r.visit_status as 'open' | 'closed',
+      timeZone: r.visit_time_zone,
+    },
+  }));
+  const last = items.at(-1);
+  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.recordedAt, id: last.id }) : null };
+}
+
+const COMPUTED_KEYS = new Set(['superheatK', 'subcoolingK', 'evaporatorTdK', 'condenserSplitK', 'compressionRatio', 'unbalancePct', 'evaporatingC', 'condensingC']);
+
+/** One reading over time, for a chart. */
+export async function readingSeries(actor: Actor, equipmentId: string, key: string, db: Db = defaultDb): Promise<{ recordedAt: string; value: number }[]> {
+  assertCan(actor, 'visits.read');
+  await assertEquipmentVisible(actor, equipmentId, db);
+  const column = COMPUTED_KEYS.has(key) ? 'computed' : 'data';
+  let q = db
+    .selectFrom('entries')
+    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .select(['entries.recorded_at', sql<number>`(entries.${sql.raw(column)}->>${key})::float8`.as('value')])
+    .where('entries.equipment_id', '=', equipmentId)
+    .where('entries.kind', '=', 'reading')
+    .where('entries.voided_at', 'is', null)
+    .where(sql<boolean>`entries.${sql.raw(column)} ? ${key}`)
+    .where(sql<boolean>`jsonb_typeof(entries.${sql.raw(column)}->${key}) = 'number'`);
+  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
+  const rows = await q.orderBy('entries.recorded_at').limit(500).execute();
+  return rows.map((r) => ({ recordedAt: r.recorded_at.toISOString(), value: Number(r.value) }));
+}

@@ -1,0 +1,206 @@
+import { z } from 'zod';
+import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
+import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
+import { kpaDiff, kpaG, tempC, tempDiffK } from '@/lib/visits/kinds/fields';
+import { attempt } from '@/lib/visits/kinds/reading';
+import { defineKind, type EntryContext, type UnitShape } from '@/lib/visits/kinds/types';
+
+// Settings as found → as left on a pressure control (low, high or dual) or a thermostat. The unit's
+// current settings follow the as-left values, in the time order of the entries.
+
+const lowSide = z.object({ cutInKpaG: kpaG('Cut-in'), differentialKpa: kpaDiff('Differential') });
+const highSide = z.object({ cutOutKpaG: kpaG('Cut-out'), differentialKpa: kpaDiff('Differential') });
+const thermostatSide = z.object({ setpointC: tempC('Setpoint'), differentialK: tempDiffK('Differential') });
+const dualSide = z.object({ low: lowSide, high: highSide });
+
+export const settingChangeDataSchema = z.discriminatedUnion('control', [
+  z.object({ control: z.literal('low'), asFound: lowSide, asLeft: lowSide }),
+  z.object({ control: z.literal('high'), asFound: highSide, asLeft: highSide }),
+  z.object({ control: z.literal('dual'), asFound: dualSide, asLeft: dualSide }),
+  z.object({ control: z.literal('thermostat'), asFound: thermostatSide, asLeft: thermostatSide }),
+]);
+export type SettingChangeData = z.infer<typeof settingChangeDataSchema>;
+export type SettingControl = SettingChangeData['control'];
+export type LowSettings = z.infer<typeof lowSide>;
+export type HighSettings = z.infer<typeof highSide>;
+
+export const settingControlLabels: Record<SettingControl, string> = {
+  low: 'Low-pressure control',
+  high: 'High-pressure control',
+  dual: 'Dual pressure control',
+  thermostat: 'Thermostat',
+};
+
+/** The controls a unit has: a thermostat has a setpoint; a pressure control the side(s) on its nameplate. */
+export function controlsFor(unit: UnitShape): SettingControl[] {
+  if (unit.type === 'thermostat') return ['thermostat'];
+  if (unit.type !== 'pressure_control') return [];
+  const kind = unit.nameplate.controlKind;
+  if (kind === 'low' || kind === 'high' || kind === 'dual') return [kind];
+  return ['low', 'high', 'dual'];
+}
+
+/** Where each control keeps its current settings in the unit's record (SI). */
+export const settingRecordKeys = {
+  low: { cutInKpaG: 'lowCutInKpa', differentialKpa: 'lowDifferentialKpa' },
+  high: { cutOutKpaG: 'highCutOutKpa', differentialKpa: 'highDifferentialKpa' },
+  thermostat: { setpointC: 'setpointC', differentialK: 'differentialK' },
+} as const;
+
+function recordPatch(d: SettingChangeData): Record<string, number> {
+  const map = (keys: Record<string, string>, side: Record<string, number>) => Object.fromEntries(Object.entries(keys).map(([k, target]) => [target, side[k]!]));
+  switch (d.control) {
+    case 'low':
+      return map(settingRecordKeys.low, d.asLeft);
+    case 'high':
+      return map(settingRecordKeys.high, d.asLeft);
+    case 'dual':
+      return { ...map(settingRecordKeys.low, d.asLeft.low), ...map(settingRecordKeys.high, d.asLeft.high) };
+    case 'thermostat':
+      return map(settingRecordKeys.thermostat, d.asLeft);
+  }
+}
+
+/** The unit's current settings of one control, when all of them are on record. */
+export function recordedSettings(nameplate: Record<string, unknown>, control: SettingControl): Record<string, unknown> | null {
+  const read = (keys: Record<string, string>) => {
+    const out: Record<string, number> = {};
+    for (const [k, source] of Object.entries(keys)) {
+      const v = nameplate[source];
+      if (typeof v !== 'number') return null;
+      out[k] = v;
+    }
+    return out;
+  };
+  if (control === 'dual') {
+    const low = read(settingRecordKeys.low);
+    const high = read(settingRecordKeys.high);
+    return low && high ? { low, high } : null;
+  }
+  return read(settingRecordKeys[control]);
+}
+
+export interface SideComputed {
+  /** Low side: the cut-out; high side: the cut-in (kPa gauge). */
+  asFoundOtherKpaG: number | null;
+  asLeftOtherKpaG: number | null;
+  /** Saturation temperatures (°C) of each setting: dew for the low side, bubble for the high side. */
+  asLeftSaturation: { setting: number | null; other: number | null };
+  asFoundSaturation: { setting: number | null; other: number | null };
+}
+
+export interface SettingComputed extends SideComputed {
+  refrigerant: string | null;
+  /** A dual control: each side on its own (the top-level side values are the low side's). */
+  sides?: { low: SideComputed; high: SideComputed };
+  warnings: { code: string; message: string }[];
+  basis: string | null;
+  problems: string[];
+}
+
+const emptySide = (): SideComputed => ({
+  asFoundOtherKpaG: null,
+  asLeftOtherKpaG: null,
+  asLeftSaturation: { setting: null, other: null },
+  asFoundSaturation: { setting: null, other: null },
+});
+
+function lowComputed(found: LowSettings, left: LowSettings, ctx: EntryContext, out: SettingComputed): SideComputed {
+  const side = emptySide();
+  if (!ctx.refrigerant) {
+    side.asFoundOtherKpaG = found.cutInKpaG - found.differentialKpa;
+    side.asLeftOtherKpaG = left.cutInKpaG - left.differentialKpa;
+    return side;
+  }
+  const run = (s: LowSettings) =>
+    attempt(out.problems, () =>
+      lowPressureControl({ refrigerant: ctx.refrigerant!, unit: 'kPaG', temperatureUnit: 'C', elevationM: ctx.elevationM, cutIn: s.cutInKpaG, differential: s.differentialKpa, designBoxTemp: ctx.designBoxTempC ?? undefined }),
+    );
+  const f = run(found);
+  const l = run(left);
+  side.asFoundOtherKpaG = f?.cutOut ?? found.cutInKpaG - found.differentialKpa;
+  side.asLeftOtherKpaG = l?.cutOut ?? left.cutInKpaG - left.differentialKpa;
+  side.asFoundSaturation = { setting: f?.cutInSaturation?.dew ?? null, other: f?.cutOutSaturation?.dew ?? null };
+  side.asLeftSaturation = { setting: l?.cutInSaturation?.dew ?? null, other: l?.cutOutSaturation?.dew ?? null };
+  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message })) ?? []));
+  out.basis ??= l?.basis ?? null;
+  return side;
+}
+
+function highComputed(found: HighSettings, left: HighSettings, ctx: EntryContext, out: SettingComputed): SideComputed {
+  const side = emptySide();
+  if (!ctx.refrigerant) {
+    side.asFoundOtherKpaG = found.cutOutKpaG - found.differentialKpa;
+    side.asLeftOtherKpaG = left.cutOutKpaG - left.differentialKpa;
+    return side;
+  }
+  const run = (s: HighSettings) =>
+    attempt(out.problems, () =>
+      highPressureControl({ refrigerant: ctx.refrigerant!, unit: 'kPaG', temperatureUnit: 'C', elevationM: ctx.elevationM, cutOut: s.cutOutKpaG, differential: s.differentialKpa, designPressure: ctx.designPressureHighKpaG ?? undefined }),
+    );
+  const f = run(found);
+  const l = run(left);
+  side.asFoundOtherKpaG = f?.cutIn ?? found.cutOutKpaG - found.differentialKpa;
+  side.asLeftOtherKpaG = l?.cutIn ?? left.cutOutKpaG - left.differentialKpa;
+  side.asFoundSaturation = { setting: f?.cutOutSaturation?.bubble ?? null, other: f?.cutInSaturation?.bubble ?? null };
+  side.asLeftSaturation = { setting: l?.cutOutSaturation?.bubble ?? null, other: l?.cutInSaturation?.bubble ?? null };
+  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message })) ?? []));
+  out.basis ??= l?.basis ?? null;
+  return side;
+}
+
+export function computeSettingChange(data: SettingChangeData, ctx: EntryContext): SettingComputed {
+  const out: SettingComputed = { refrigerant: ctx.refrigerant, ...emptySide(), warnings: [], basis: null, problems: [] };
+  if (data.control === 'thermostat') {
+    if (ctx.designBoxTempC !== null && data.asLeft.setpointC > ctx.designBoxTempC + 1) {
+      out.warnings.push({ code: 'setpoint_above_design', message: 'The setpoint is above the system’s design box temperature.' });
+    }
+    return out;
+  }
+  if (!ctx.refrigerant) out.problems.push('No refrigerant is on record for this system, so settings cannot be turned into temperatures.');
+  // Each side fills in out's warnings and basis first, then its values are laid over out.
+  if (data.control === 'low') {
+    const side = lowComputed(data.asFound, data.asLeft, ctx, out);
+    return { ...out, ...side };
+  }
+  if (data.control === 'high') {
+    const side = highComputed(data.asFound, data.asLeft, ctx, out);
+    return { ...out, ...side };
+  }
+  const low = lowComputed(data.asFound.low, data.asLeft.low, ctx, out);
+  const high = highComputed(data.asFound.high, data.asLeft.high, ctx, out);
+  return { ...out, ...low, sides: { low, high } };
+}
+
+function describeLow(f: LowSettings, l: LowSettings, otherLeft: unknown, prefs: UnitPrefs): string {
+  const p = (v: number) => formatQuantity(v, 'pressureGauge', prefs);
+  const out = typeof otherLeft === 'number' ? `, cut-out ${p(otherLeft)}` : '';
+  return `cut-in ${p(f.cutInKpaG)} → ${p(l.cutInKpaG)}, differential ${formatQuantity(f.differentialKpa, 'pressureDiff', prefs)} → ${formatQuantity(l.differentialKpa, 'pressureDiff', prefs)}${out}`;
+}
+
+function describeHigh(f: HighSettings, l: HighSettings, otherLeft: unknown, prefs: UnitPrefs): string {
+  const p = (v: number) => formatQuantity(v, 'pressureGauge', prefs);
+  const cutIn = typeof otherLeft === 'number' ? `, cut-in ${p(otherLeft)}` : '';
+  return `cut-out ${p(f.cutOutKpaG)} → ${p(l.cutOutKpaG)}, differential ${formatQuantity(f.differentialKpa, 'pressureDiff', prefs)} → ${formatQuantity(l.differentialKpa, 'pressureDiff', prefs)}${cutIn}`;
+}
+
+export const settingChange = defineKind({
+  kind: 'setting_change',
+  fits: (u) => controlsFor(u).length > 0,
+  data: settingChangeDataSchema,
+  describe(d, computed, prefs) {
+    const c = (computed ?? {}) as Partial<SettingComputed>;
+    switch (d.control) {
+      case 'thermostat':
+        return `Thermostat: setpoint ${formatQuantity(d.asFound.setpointC, 'temperature', prefs)} → ${formatQuantity(d.asLeft.setpointC, 'temperature', prefs)}, differential ${formatQuantity(d.asFound.differentialK, 'temperatureDiff', prefs)} → ${formatQuantity(d.asLeft.differentialK, 'temperatureDiff', prefs)}`;
+      case 'low':
+        return `Low-pressure control: ${describeLow(d.asFound, d.asLeft, c.asLeftOtherKpaG, prefs)}`;
+      case 'high':
+        return `High-pressure control: ${describeHigh(d.asFound, d.asLeft, c.asLeftOtherKpaG, prefs)}`;
+      case 'dual':
+        return `Dual pressure control: low side ${describeLow(d.asFound.low, d.asLeft.low, c.sides?.low.asLeftOtherKpaG, prefs)}; high side ${describeHigh(d.asFound.high, d.asLeft.high, c.sides?.high.asLeftOtherKpaG, prefs)}`;
+    }
+  },
+  compute: async (d, tools) => ({ ...computeSettingChange(d, tools.ctx) }),
+  apply: (d, tools) => tools.applySettings(recordPatch(d)),
+});
