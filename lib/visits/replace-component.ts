@@ -29,7 +29,7 @@ export async function replaceComponent(actor: Actor, equipmentId: string, newSer
     })
     .returning('id')
     .executeTakeFirstOrThrow();
-  await trx.updateTable('equipment').set({ status: 'removed', updated_at: sql`now()` }).where('id', '=', equipmentId).execute();
+  await trx.updateTable('equipment').set({ status: 'removed', removed_at: sql`now()`, replaced_by_id: created.id, updated_at: sql`now()` }).where('id', '=', equipmentId).execute();
   // The tag on the unit now identifies its replacement: scanning it opens the new record.
   await trx.updateTable('tags').set({ equipment_id: created.id, updated_at: sql`now()` }).where('equipment_id', '=', equipmentId).where('state', '=', 'attached').execute();
   await trx.updateTable('equipment_relations').set({ from_equipment_id: created.id }).where('from_equipment_id', '=', equipmentId).execute();

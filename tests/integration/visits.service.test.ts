@@ -226,9 +226,12 @@ describe('visit entries that touch other records', () => {
     await db.insertInto('equipment_relations').values({ company_id: circuit.companyId, from_equipment_id: circuit.condensingUnitId, to_equipment_id: circuit.evaporatorId, kind: 'serves' }).execute();
     const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling' });
     await addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'part' as const, data: { part: 'Unit cooler', quantity: 1, newSerial: 'UC-88120', replacesEquipment: true } }));
-    const old = await db.selectFrom('equipment').select(['status']).where('id', '=', circuit.evaporatorId).executeTakeFirstOrThrow();
+    const old = await db.selectFrom('equipment').select(['status', 'removed_at', 'replaced_by_id']).where('id', '=', circuit.evaporatorId).executeTakeFirstOrThrow();
     expect(old.status).toBe('removed');
     const replacement = await db.selectFrom('equipment').select(['id', 'serial']).where('serial', '=', 'UC-88120').executeTakeFirstOrThrow();
+    // The removed record says when it left and what took its place.
+    expect(old.removed_at).not.toBeNull();
+    expect(old.replaced_by_id).toBe(replacement.id);
     const tag = await db.selectFrom('tags').select(['equipment_id', 'state']).where('code', '=', code).executeTakeFirstOrThrow();
     expect(tag).toEqual({ equipment_id: replacement.id, state: 'attached' });
     const unit = await getEquipment(tech, circuit.condensingUnitId);
