@@ -339,6 +339,14 @@ export interface TagScans {
   via: string;
 }
 
+export interface UserSessions {
+  created_at: Generated<Timestamp>;
+  expires_at: Timestamp;
+  id: Generated<string>;
+  revoked_at: Timestamp | null;
+  user_id: string;
+}
+
 export interface Users {
   client_id: string | null;
   company_id: string;
@@ -398,6 +406,7 @@ export interface DB {
   systems: Systems;
   tag_scans: TagScans;
   tags: Tags;
+  user_sessions: UserSessions;
   users: Users;
   visits: Visits;
 }

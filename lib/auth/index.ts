@@ -2,11 +2,11 @@ import 'server-only';
 import { getServerSession } from 'next-auth';
 import { redirect } from 'next/navigation';
 import { cache } from 'react';
-import { db } from '@/db';
 import { AppError } from '@/lib/errors';
-import { actorFromRow, type Actor } from '@/lib/auth/actor';
+import type { Actor } from '@/lib/auth/actor';
 import { authOptions } from '@/lib/auth/options';
 import { roleCan, type Permission } from '@/lib/auth/permissions';
+import { actorForSession } from '@/lib/auth/sessions';
 
 export { authOptions };
 export type { Actor };
@@ -14,16 +14,11 @@ export type { Actor };
 /** The signed-in, active user, or null. Read fresh from the database once per request. */
 export const getActor = cache(async (): Promise<Actor | null> => {
   const session = await getServerSession(authOptions);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  if (!id) return null;
-  const row = await db
-    .selectFrom('users')
-    .select(['id', 'company_id', 'role', 'client_id', 'name', 'email', 'units', 'metric_pressure'])
-    .where('id', '=', id)
-    .where('deactivated_at', 'is', null)
-    .executeTakeFirst();
-  if (!row) return null;
-  return actorFromRow(row);
+  const user = session?.user as { id?: string; sid?: string } | undefined;
+  // A cookie without a live server-side session (signed out, ended everywhere, credentials
+  // changed, or older than sessions) is no sign-in.
+  if (!user?.id || !user.sid) return null;
+  return actorForSession(user.id, user.sid);
 });
 
 /** For route handlers and actions: 401 when signed out. */

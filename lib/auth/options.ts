@@ -7,23 +7,17 @@ import { env } from '@/lib/env';
 import { rimelineAdapter } from '@/lib/auth/adapter';
 import { verifyPassword } from '@/lib/auth/password';
 import { credentialsSchema } from '@/lib/auth/schemas';
-import { clearFailures, recordFailure, secondsLocked, throttleKeys } from '@/lib/auth/throttle';
+import { endSession, startSession } from '@/lib/auth/sessions';
+import { beginAttempt, clearFailures, clientAddress, throttleKeys } from '@/lib/auth/throttle';
 import { enqueueMail, kickMailDelivery } from '@/lib/mail/outbox';
 import { magicLinkMail } from '@/lib/mail/templates';
 
+const isUuid = (value: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
+
 export const SESSION_MAX_AGE_SECONDS = 12 * 60 * 60;
 
-function waitMessage(seconds: number): string {
-  const human = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
-  return `Too many failed sign-ins. For your security, sign-in is paused for ${human}.`;
-}
-
-function clientAddress(headers: Record<string, unknown> | undefined): string | null {
-  const forwarded = headers?.['x-forwarded-for'];
-  if (typeof forwarded === 'string' && forwarded) return forwarded.split(',')[0]!.trim();
-  const real = headers?.['x-real-ip'];
-  return typeof real === 'string' && real ? real : null;
-}
+/** The code the sign-in page turns into its own message (lib/auth/messages.ts). */
+const PAUSED = 'SignInPaused';
 
 export const authOptions: NextAuthOptions = {
   secret: env.AUTH_SECRET,
@@ -39,9 +33,10 @@ export const authOptions: NextAuthOptions = {
         const parsed = credentialsSchema.safeParse(raw ?? {});
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
-        const keys = throttleKeys(email, clientAddress(req?.headers));
-        const wait = await secondsLocked(keys);
-        if (wait > 0) throw new Error(waitMessage(wait));
+        const forwarded = req?.headers?.['x-forwarded-for'];
+        const keys = throttleKeys(email, clientAddress(typeof forwarded === 'string' ? forwarded : null, env.TRUSTED_PROXY_COUNT));
+        // Counted before the password is read, so parallel attempts cannot pass the limit.
+        if ((await beginAttempt(keys)) > 0) throw new Error(PAUSED);
 
         const user = await db
           .selectFrom('users')
@@ -50,11 +45,7 @@ export const authOptions: NextAuthOptions = {
           .where('deactivated_at', 'is', null)
           .executeTakeFirst();
         const ok = user?.password_hash ? await verifyPassword(password, user.password_hash) : false;
-        if (!user || !ok) {
-          const locked = await recordFailure(keys);
-          if (locked > 0) throw new Error(waitMessage(locked));
-          return null;
-        }
+        if (!user || !ok) return null;
         await clearFailures(keys);
         await db.updateTable('users').set({ last_sign_in_at: new Date() }).where('id', '=', user.id).execute();
         return { id: user.id, email: user.email, name: user.name };
@@ -79,19 +70,41 @@ export const authOptions: NextAuthOptions = {
       },
     }),
   ],
+  events: {
+    async signOut({ token }) {
+      if (typeof token?.sid === 'string') await endSession(token.sid);
+    },
+  },
   callbacks: {
     async jwt({ token, user }) {
-      if (user) token.sub = user.id;
+      // At sign-in only: the cookie names a server-side session row that sign-out can end.
+      if (user) {
+        token.sub = user.id;
+        token.sid = await startSession(user.id, SESSION_MAX_AGE_SECONDS);
+      }
       return token;
     },
     async session({ session, token }) {
-      if (session.user && token.sub) (session.user as { id?: string }).id = token.sub;
+      if (session.user && token.sub) Object.assign(session.user, { id: token.sub, sid: typeof token.sid === 'string' ? token.sid : undefined });
       return session;
     },
-    async signIn({ user }) {
-      if (!user?.id) return false;
+    async signIn({ user, email }) {
+      // Asking for a link: every address gets the same answer (sendVerificationRequest only mails
+      // existing accounts). For an unknown address the library passes the address as the id, so
+      // nothing may be looked up by it here.
+      if (email?.verificationRequest) return true;
+      if (!user?.id || !isUuid(user.id)) return false;
       await db.updateTable('users').set({ last_sign_in_at: new Date() }).where('id', '=', user.id).execute();
       return true;
+    },
+    // Only our own origin, and never a thrown error for a malformed address (cookie or query).
+    async redirect({ url, baseUrl }) {
+      if (url.startsWith('/') && !url.startsWith('//')) return `${baseUrl}${url}`;
+      try {
+        return new URL(url).origin === new URL(baseUrl).origin ? url : baseUrl;
+      } catch {
+        return baseUrl;
+      }
     },
   },
 };

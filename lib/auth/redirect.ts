@@ -11,3 +11,15 @@ export function safeReturnPath(value: string | string[] | undefined, fallback = 
     return fallback;
   }
 }
+
+/**
+ * A callbackUrl the auth routes accept at all: a same-site path or an absolute http(s) URL of
+ * valid text. Anything else (`http://[`, `javascript:`, NUL) is a 400, never a thrown error.
+ */
+export function isWellFormedCallbackUrl(value: string): boolean {
+  if (value.includes('\u0000') || value.length > 2000) return false;
+  if (value.startsWith('/')) return !value.startsWith('//') && URL.canParse(value, 'http://rimeline.invalid');
+  if (!URL.canParse(value)) return false;
+  const protocol = new URL(value).protocol;
+  return protocol === 'http:' || protocol === 'https:';
+}

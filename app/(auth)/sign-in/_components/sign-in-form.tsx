@@ -8,6 +8,7 @@ import { useForm } from 'react-hook-form';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field, Input, describedBy } from '@/components/ui/field';
+import { signInMessage } from '@/lib/auth/messages';
 import { credentialsSchema, magicLinkSchema } from '@/lib/auth/schemas';
 import type { z } from 'zod';
 
@@ -24,7 +25,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
     setError(undefined);
     const result = await signIn('credentials', { ...values, redirect: false, callbackUrl });
     if (!result || result.error) {
-      setError(result?.error === 'CredentialsSignin' || !result?.error ? 'The e-mail or password is not right.' : result.error);
+      setError(signInMessage(result?.error ?? 'CredentialsSignin'));
       return;
     }
     router.replace(callbackUrl);
@@ -35,7 +36,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
     setError(undefined);
     const result = await signIn('email', { email: values.email, redirect: false, callbackUrl });
     if (result?.error) {
-      setError('The sign-in link could not be sent. Try again in a minute.');
+      setError(signInMessage('EmailSignin'));
       return;
     }
     router.push(`/sign-in/check-email?email=${encodeURIComponent(values.email)}`);

@@ -9,6 +9,7 @@ import { ApiError } from '@/lib/api/client';
 import { roleLabels, roles, type Role } from '@/lib/auth/permissions';
 import type { UserDto } from '@/lib/users/dto';
 import { useChangeRole, useSetActive } from '@/lib/users/hooks';
+import { SignOutEverywhere } from '@/app/(app)/settings/_components/sign-out-everywhere';
 
 function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: string; name: string }[]; isSelf: boolean }) {
   const router = useRouter();
@@ -83,6 +84,7 @@ function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: stri
             {user.active ? 'Deactivate' : 'Reactivate'}
           </Button>
         ) : null}
+        {!isSelf && user.active ? <SignOutEverywhere userId={user.id} self={false} name={user.name} /> : null}
       </div>
     </li>
   );
