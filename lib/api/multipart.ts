@@ -1,5 +1,6 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
+import { INVALID_TEXT_MESSAGE, isValidText, stripBidiControls } from '@/lib/api/text';
 import { AppError } from '@/lib/errors';
 
 // Multipart bodies are read with a hard byte limit: a declared Content-Length over the limit is
@@ -34,11 +35,28 @@ async function readLimited(req: NextRequest, maxBytes: number, tooLarge: () => A
 /** Parses a multipart/form-data body of at most `maxBytes`. */
 export async function readMultipart(req: NextRequest, maxBytes: number, tooLarge: () => AppError): Promise<FormData> {
   const raw = await readLimited(req, maxBytes, tooLarge);
+  let form: FormData;
   try {
-    return await new Response(new Uint8Array(raw.buffer as ArrayBuffer, raw.byteOffset, raw.byteLength), { headers: { 'content-type': req.headers.get('content-type') ?? '' } }).formData();
+    form = await new Response(new Uint8Array(raw.buffer as ArrayBuffer, raw.byteOffset, raw.byteLength), { headers: { 'content-type': req.headers.get('content-type') ?? '' } }).formData();
   } catch {
     throw new AppError('bad_request', 'The upload could not be read; it may have been cut off. Try again.');
   }
+  return cleanForm(form);
+}
+
+/**
+ * Refuses NUL and broken Unicode in any field name, value or file name (422), and removes
+ * bidirectional controls from file names so a name cannot disguise its extension.
+ */
+function cleanForm(form: FormData): FormData {
+  const out = new FormData();
+  for (const [key, value] of form.entries()) {
+    const valid = isValidText(key) && isValidText(typeof value === 'string' ? value : value.name);
+    if (!valid) throw new AppError('validation_failed', INVALID_TEXT_MESSAGE, [{ path: isValidText(key) ? key : '(key)', message: INVALID_TEXT_MESSAGE }]);
+    if (typeof value === 'string') out.append(key, value);
+    else out.append(key, new File([value], stripBidiControls(value.name), { type: value.type, lastModified: value.lastModified }));
+  }
+  return out;
 }
 
 /**
