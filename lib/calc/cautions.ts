@@ -1,6 +1,5 @@
 // Cautions shown beside calculation results, in the API and on the pages. Pure data, safe on the
-// client. Wording follows TRADE-REFERENCE §10 (safety cautions the app should show); the standards
-// named are the ones that section cites.
+// client. The wording is our own; each caution names the public standard or rule behind it.
 import type { Refrigerant, SafetyClass } from '@/lib/calc/refrigerants';
 
 /** Every calculation result: the app is a reference, not the authority. */
@@ -19,11 +18,11 @@ export const ENERGISED_WORK_CAUTION =
 export const SAFETY_CONTROL_CAUTION =
   'Never leave a safety control jumpered or set outside the nameplate limits; a jumper is for momentary diagnosis with the technician present.';
 
-/** Leak searching on flammable refrigerants (EPA SNAP Appendix Y citing UL 60335-2-89 and ASHRAE 15; TRADE-REFERENCE §10). */
+/** Leak searching on flammable refrigerants (EPA SNAP Appendix Y citing UL 60335-2-89 and ASHRAE 15). */
 export const FLAMMABLE_LEAK_SEARCH_CAUTION =
   'On A2L and A3 (flammable) refrigerants use a leak detector rated for that refrigerant, ventilate, and keep open flames and other ignition sources away: never use a flame-type leak detector.';
 
-/** Standing pressure tests: common trade practice (TRADE-REFERENCE §10, not from a standard). */
+/** Standing pressure tests: common trade practice, not from a standard. */
 export const PRESSURE_TEST_CAUTION =
   'Pressure-test with dry nitrogen through a regulator and relief valve, never oxygen or compressed air, and stay within the nameplate test pressures.';
 

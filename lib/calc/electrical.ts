@@ -1,8 +1,17 @@
 // Electrical checks on motor supply and control circuits.
 import { CalcInputError, fmt, requirePositive } from '@/lib/calc/errors';
+import { formatPercent, formatVolts } from '@/lib/calc/format';
+import {
+  CONTROL_VOLTAGE_BAND,
+  VOLTAGE_UNBALANCE_BAND,
+  describeBand,
+  judge,
+  type BandView,
+  type Level,
+} from '@/lib/calc/reading-bands';
 
 // NEMA MG 1 Fig. 14-1 derating curve, as tabulated in secondary engineering references
-// (TRADE-REFERENCE §5.1): [percent unbalance, derating factor].
+// quoting MG 1: [percent unbalance, derating factor].
 const DERATING_CURVE: readonly (readonly [number, number])[] = [
   [0, 1],
   [1, 1],
@@ -24,7 +33,7 @@ export const NEMA_MAX_UNBALANCE_PCT = 5;
  */
 export function motorDeratingFactor(unbalancePct: number): number | null {
   if (!Number.isFinite(unbalancePct) || unbalancePct < 0) {
-    throw new CalcInputError(`unbalance must be a non-negative number (got ${unbalancePct})`, 'unbalancePct');
+    throw new CalcInputError(`unbalance must be a non-negative number (got ${fmt(unbalancePct, 2)})`, 'unbalancePct');
   }
   if (unbalancePct > NEMA_MAX_UNBALANCE_PCT) return null;
   for (let i = 1; i < DERATING_CURVE.length; i++) {
@@ -45,6 +54,9 @@ export interface VoltageUnbalanceResult {
   deratingFactor: number | null;
   doNotOperate: boolean;
   status: 'ok' | 'caution' | 'derate' | 'do_not_operate';
+  /** normal ≤ 1 %, watch ≤ 2 %, abnormal above (VOLTAGE_UNBALANCE_BAND). */
+  level: Level;
+  band: BandView;
   notes: string[];
   basis: string;
 }
@@ -84,6 +96,8 @@ export function voltageUnbalance(lineVoltages: readonly number[]): VoltageUnbala
     deratingFactor,
     doNotOperate,
     status,
+    level: judge(unbalancePct, VOLTAGE_UNBALANCE_BAND).level,
+    band: describeBand(VOLTAGE_UNBALANCE_BAND, 'C'),
     notes,
     basis: 'NEMA MG 1: unbalance = 100 × max deviation from the average ÷ average; derating from the MG 1 curve (Fig. 14-1), interpolated.',
   };
@@ -96,7 +110,7 @@ interface VoltageSystem {
   readonly rangeB: { readonly serviceMin: number; readonly serviceMax: number; readonly utilizationMin: number };
 }
 
-// ANSI C84.1-2016 Table 1 as recalled in TRADE-REFERENCE §5.2: values FROM MEMORY, confirm before
+// ANSI C84.1-2016 Table 1: values FROM MEMORY, confirm against the standard before
 // relying on them. Utilization maximum equals the service maximum.
 const C84_1_SYSTEMS: readonly VoltageSystem[] = [
   { system: '120', nameplates: [115, 120], rangeA: { serviceMin: 114, serviceMax: 126, utilizationMin: 110 }, rangeB: { serviceMin: 110, serviceMax: 127, utilizationMin: 106 } },
@@ -114,9 +128,14 @@ export interface SupplyVoltageResult {
   rangeB: { minV: number; maxV: number };
   verdict: 'range_a' | 'range_b' | 'outside';
   direction: 'low' | 'high' | null;
+  /** Range A normal, Range B watch, outside abnormal. */
+  level: Level;
+  measuredV: number;
   message: string;
   basis: string;
 }
+
+const VERDICT_LEVEL: Record<SupplyVoltageResult['verdict'], Level> = { range_a: 'normal', range_b: 'watch', outside: 'abnormal' };
 
 /**
  * Supply voltage against the ANSI C84.1 ranges of the system that feeds a given nameplate voltage.
@@ -145,13 +164,13 @@ export function supplyVoltageCheck(input: { measuredV: number; nameplateV: numbe
   let message: string;
   if (direction === null) {
     verdict = 'range_a';
-    message = `${v} V is within Range A (${rangeA.minV}–${rangeA.maxV} V) for a ${sys.system} V system: normal.`;
+    message = `${formatVolts(v)} is within Range A (${rangeA.minV}–${rangeA.maxV} V) for a ${sys.system} V system: normal.`;
   } else if (v >= rangeB.minV && v <= rangeB.maxV) {
     verdict = 'range_b';
-    message = `${v} V is ${direction} but within Range B (${rangeB.minV}–${rangeB.maxV} V): acceptable only as an infrequent excursion; the supply should be corrected.`;
+    message = `${formatVolts(v)} is ${direction} but within Range B (${rangeB.minV}–${rangeB.maxV} V): acceptable only as an infrequent excursion; the supply should be corrected.`;
   } else {
     verdict = 'outside';
-    message = `${v} V is outside Range B (${rangeB.minV}–${rangeB.maxV} V) for a ${sys.system} V system: have the supply corrected before relying on the equipment.`;
+    message = `${formatVolts(v)} is ${direction} and outside Range B (${rangeB.minV}–${rangeB.maxV} V) for a ${sys.system} V system: have the supply corrected before relying on the equipment.`;
   }
   return {
     system: sys.system,
@@ -160,9 +179,50 @@ export function supplyVoltageCheck(input: { measuredV: number; nameplateV: numbe
     rangeB,
     verdict,
     direction,
+    level: VERDICT_LEVEL[verdict],
+    measuredV: v,
     message,
     basis: `ANSI C84.1 ${point} voltage ranges, ${sys.system} V system (table values from memory; confirm against the standard).`,
   };
+}
+
+const VERDICT_ORDER: Record<SupplyVoltageResult['verdict'], number> = { range_a: 0, range_b: 1, outside: 2 };
+
+export interface SupplyVoltageLinesResult extends SupplyVoltageResult {
+  /** Each line judged on its own; the worst decides the verdict, level and message. */
+  lines: SupplyVoltageResult[];
+  /** Index (0-based) of the line that decided. */
+  worstLine: number;
+}
+
+/**
+ * Three line voltages against ANSI C84.1: each line is judged on its own and the worst decides
+ * (ties go to the line farthest from the middle of Range A). Basis: ANSI C84.1 (from memory).
+ */
+export function supplyVoltageLines(input: {
+  lines: readonly number[];
+  nameplateV: number;
+  point?: 'service' | 'utilization';
+}): SupplyVoltageLinesResult {
+  if (input.lines.length < 1 || input.lines.length > 3) {
+    throw new CalcInputError(`one to three line voltages are needed (got ${input.lines.length})`, 'lines');
+  }
+  const lines = input.lines.map((measuredV, i) => {
+    requirePositive(measuredV, `voltage ${i + 1}`);
+    return supplyVoltageCheck({ measuredV, nameplateV: input.nameplateV, point: input.point });
+  });
+  let worstLine = 0;
+  lines.forEach((line, i) => {
+    const best = lines[worstLine]!;
+    const mid = (best.rangeA.minV + best.rangeA.maxV) / 2;
+    const worse =
+      VERDICT_ORDER[line.verdict] > VERDICT_ORDER[best.verdict] ||
+      (VERDICT_ORDER[line.verdict] === VERDICT_ORDER[best.verdict] && Math.abs(line.measuredV - mid) > Math.abs(best.measuredV - mid));
+    if (worse) worstLine = i;
+  });
+  const worst = lines[worstLine]!;
+  const message = lines.length > 1 ? `Line ${worstLine + 1} decides: ${worst.message}` : worst.message;
+  return { ...worst, message, lines, worstLine };
 }
 
 /**
@@ -193,42 +253,75 @@ export function motorVoltageTolerance(input: { measuredV: number; ratedV: number
 
 export interface ControlVoltageResult {
   nominalV: number;
+  /** How far from nominal still counts as ok (5 % by default, common practice). */
   tolerancePct: number;
+  /** The coil operating band: 85 % and 110 % of nominal (IEC 60947-4-1, from memory). */
   minV: number;
   maxV: number;
+  /** The ok band: nominal ± tolerancePct. */
+  okMinV: number;
+  okMaxV: number;
   deviationPct: number;
-  status: 'low' | 'ok' | 'high';
+  /** out: outside 85–110 %; marginal: inside it but more than tolerancePct from nominal; ok otherwise. */
+  status: 'ok' | 'marginal' | 'out';
+  direction: 'low' | 'high' | null;
+  level: Level;
+  band: BandView;
+  /** One line a person reads, e.g. "22.0 V on a 24 V circuit: marginal (low) …". */
+  message: string;
   notes: string[];
   basis: string;
 }
 
-/** Control-circuit voltage against its nominal (24 VAC default) ± tolerance (10 % default, common practice). */
+export const CONTROL_VOLTAGE_OUT_LOW_PCT = 85;
+export const CONTROL_VOLTAGE_OUT_HIGH_PCT = 110;
+
+/**
+ * Control-circuit voltage against its nominal (24 VAC by default).
+ * out: below 85 % or above 110 % of nominal, the operating band of contactor and relay coils
+ * (IEC 60947-4-1; clause quoted from memory). marginal: inside that band but more than 5 % from
+ * nominal (common practice: re-check under load). ok otherwise. 22 V on 24 V is marginal.
+ */
 export function controlCircuitVoltage(input: { measuredV: number; nominalV?: number; tolerancePct?: number }): ControlVoltageResult {
   requirePositive(input.measuredV, 'measured voltage');
   const nominalV = input.nominalV ?? 24;
-  const tolerancePct = input.tolerancePct ?? 10;
+  const tolerancePct = input.tolerancePct ?? 5;
   requirePositive(nominalV, 'nominal voltage');
   requirePositive(tolerancePct, 'tolerance');
   if (tolerancePct >= 50) throw new CalcInputError('tolerance must be below 50 %', 'tolerancePct');
-  const minV = nominalV * (1 - tolerancePct / 100);
-  const maxV = nominalV * (1 + tolerancePct / 100);
+  const minV = (nominalV * CONTROL_VOLTAGE_OUT_LOW_PCT) / 100;
+  const maxV = (nominalV * CONTROL_VOLTAGE_OUT_HIGH_PCT) / 100;
+  const okMinV = nominalV * (1 - tolerancePct / 100);
+  const okMaxV = nominalV * (1 + tolerancePct / 100);
   const v = input.measuredV;
-  const status = v < minV ? 'low' : v > maxV ? 'high' : 'ok';
+  const status: ControlVoltageResult['status'] = v < minV || v > maxV ? 'out' : v < okMinV || v > okMaxV ? 'marginal' : 'ok';
+  const direction = status === 'ok' ? null : v < nominalV ? 'low' : 'high';
   const notes: string[] = [];
-  if (status === 'low' || (status === 'ok' && v < nominalV * 0.95)) {
+  if (direction === 'low') {
     notes.push('Low control voltage: re-check under load and check the transformer primary tap (use the 208 V tap on a 208 V supply).');
   }
-  if (status === 'high' && nominalV === 24) {
+  if (direction === 'high' && nominalV === 24) {
     notes.push('Open or lightly loaded 24 V secondaries commonly read 24–28 V; re-check with the circuit loaded.');
   }
+  const words = { ok: 'ok', marginal: 'marginal', out: 'out of the coil operating band' }[status];
+  const message =
+    `${formatVolts(v)} on a ${fmt(nominalV, 1)} V circuit: ${words}${direction ? ` (${direction})` : ''}; ` +
+    `coils operate from ${formatVolts(minV)} to ${formatVolts(maxV)}, ok within ${formatPercent(tolerancePct)} of nominal.`;
+  const level: Level = status === 'ok' ? 'normal' : status === 'marginal' ? 'watch' : 'abnormal';
   return {
     nominalV,
     tolerancePct,
     minV,
     maxV,
+    okMinV,
+    okMaxV,
     deviationPct: ((v - nominalV) / nominalV) * 100,
     status,
+    direction,
+    level,
+    band: describeBand({ ...CONTROL_VOLTAGE_BAND, normal: { min: 100 - tolerancePct, max: 100 + tolerancePct } }, 'C'),
+    message,
     notes,
-    basis: `Nominal ${nominalV} VAC ± ${tolerancePct} % (common practice for control transformers).`,
+    basis: `Out below 85 % or above 110 % of nominal: contactor and relay coil operating band (IEC 60947-4-1, clause from memory). Marginal more than ${fmt(tolerancePct, 1)} % from nominal: common practice (re-check under load).`,
   };
 }

@@ -37,13 +37,13 @@ export function requireFinite(value: number, field: string): number {
 
 export function requirePositive(value: number, field: string): number {
   requireFinite(value, field);
-  if (value <= 0) throw new CalcInputError(`${field} must be greater than zero (got ${value})`, field);
+  if (value <= 0) throw new CalcInputError(`${field} must be greater than zero (got ${fmt(value, 2)})`, field);
   return value;
 }
 
 export function requireNonNegative(value: number, field: string): number {
   requireFinite(value, field);
-  if (value < 0) throw new CalcInputError(`${field} must not be negative (got ${value})`, field);
+  if (value < 0) throw new CalcInputError(`${field} must not be negative (got ${fmt(value, 2)})`, field);
   return value;
 }
 

@@ -1,5 +1,5 @@
 // Refrigerant leak rate, leak-repair obligations and yearly totals.
-// Leak-rate methods: 40 CFR 82.152 "leak rate" (parallel definition in 40 CFR 84.102), TRADE-REFERENCE §6.1.
+// Leak-rate methods: 40 CFR 82.152 "leak rate" (parallel definition in 40 CFR 84.102).
 import {
   DEFAULT_JURISDICTION,
   getComplianceRules,
@@ -24,7 +24,7 @@ export interface AnnualizedLeakRate {
 /**
  * Annualizing method, 40 CFR 82.152 (leak rate, steps 1–4):
  * rate % = (added ÷ full charge) × (365 ÷ min(days since the last addition, 365)) × 100.
- * With no earlier addition, 365 days are used (TRADE-REFERENCE §6.1; from memory for Part 84).
+ * With no earlier addition, 365 days are used (from memory for Part 84: not confirmed in the rule text).
  * `added` and `fullCharge` must be in the same mass unit.
  */
 export function annualizedLeakRate(input: {
@@ -60,19 +60,30 @@ export function annualizedLeakRate(input: {
 }
 
 /**
- * Rolling-average method, 40 CFR 82.152: refrigerant added over the previous 365 days (or since the
- * last successful repair, if that is shorter; that clause from memory) ÷ full charge × 100.
+ * Rolling-average method, 40 CFR 82.152 "leak rate": refrigerant added over the previous 365 days,
+ * or over the period since the last successful follow-up verification test showing every identified
+ * leak repaired, if that period is shorter; ÷ full charge × 100. A repair alone does not restart the
+ * window: the passed follow-up verification test does (see lastPassedFollowUpTest).
  */
 export function rollingAverageLeakRate(input: {
   additions: readonly { date: DateInput; amount: number }[];
   fullCharge: number;
   asOf: DateInput;
-  lastRepairDate?: DateInput | null | undefined;
-}): { ratePct: number; windowStart: string; addedInWindow: number; basis: string } {
+  /** Date of the last follow-up verification test that passed (all identified leaks repaired). */
+  lastPassedFollowUpTestDate?: DateInput | null | undefined;
+}): { ratePct: number; windowStart: string; windowStartReason: 'previous_365_days' | 'passed_follow_up_test'; addedInWindow: number; basis: string } {
   requirePositive(input.fullCharge, 'full charge');
   const asOf = toUtcDay(input.asOf, 'asOf');
   let start = asOf - 365;
-  if (input.lastRepairDate) start = Math.max(start, toUtcDay(input.lastRepairDate, 'lastRepairDate'));
+  let windowStartReason: 'previous_365_days' | 'passed_follow_up_test' = 'previous_365_days';
+  if (input.lastPassedFollowUpTestDate) {
+    const test = toUtcDay(input.lastPassedFollowUpTestDate, 'lastPassedFollowUpTestDate');
+    if (test > asOf) throw new CalcInputError('the follow-up verification test is after the as-of date', 'lastPassedFollowUpTestDate');
+    if (test > start) {
+      start = test;
+      windowStartReason = 'passed_follow_up_test';
+    }
+  }
   let addedInWindow = 0;
   input.additions.forEach((a, i) => {
     requirePositive(a.amount, `addition ${i + 1} amount`);
@@ -82,9 +93,32 @@ export function rollingAverageLeakRate(input: {
   return {
     ratePct: (addedInWindow / input.fullCharge) * 100,
     windowStart: utcDayToIso(start),
+    windowStartReason,
     addedInWindow,
-    basis: '40 CFR 82.152 rolling-average method: refrigerant added in the previous 365 days (or since the last repair) ÷ full charge × 100.',
+    basis:
+      '40 CFR 82.152 rolling-average method: refrigerant added in the previous 365 days, or since the last passed follow-up verification test if shorter, ÷ full charge × 100.',
   };
+}
+
+export interface LeakWorkEvent {
+  date: DateInput;
+  /** The 40 CFR 82.157 terms. */
+  kind: 'inspection' | 'repair' | 'initial_verification' | 'follow_up_verification';
+  /** For verification tests: whether it showed the repair holding. */
+  passed?: boolean | null | undefined;
+}
+
+/**
+ * The window start for rollingAverageLeakRate: the latest follow-up verification test that passed
+ * (40 CFR 82.152 "leak rate"); null when there is none. Repairs and initial tests do not count.
+ */
+export function lastPassedFollowUpTest(events: readonly LeakWorkEvent[]): string | null {
+  let latest: number | null = null;
+  events.forEach((e, i) => {
+    const day = toUtcDay(e.date, `leak work ${i + 1} date`);
+    if (e.kind === 'follow_up_verification' && e.passed === true && (latest === null || day > latest)) latest = day;
+  });
+  return latest === null ? null : utcDayToIso(latest);
 }
 
 export interface RegimeApplicability {
@@ -112,6 +146,9 @@ export function leakRuleApplicability(input: {
     if (day < toUtcDay(regime.appliesFrom)) {
       return { ...base, applies: false, reason: `applies from ${regime.appliesFrom}` };
     }
+    if (regime.appliesUntil && day > toUtcDay(regime.appliesUntil)) {
+      return { ...base, applies: false, reason: `applied until ${regime.appliesUntil}${regime.endedBy ? `: ${regime.endedBy}` : ''}` };
+    }
     const covered = coversRefrigerant(regime, r);
     if (!covered.covered) return { ...base, applies: false, reason: covered.reason };
     if (chargeLb < regime.minFullChargeLb) {
@@ -127,18 +164,27 @@ export function leakRuleApplicability(input: {
 
 function coversRefrigerant(
   regime: LeakRegime,
-  r: { id: string; containsOds: boolean; containsHfc: boolean; gwpAr4: number },
+  r: { id: string; containsOds: boolean; containsHfc: boolean; gwpAr4: number | null; gwpEu517: number },
 ): { covered: boolean; reason: string } {
   if (regime.covers === 'ods') {
     return r.containsOds
       ? { covered: true, reason: `${r.id} is an ozone-depleting (class I/II) refrigerant` }
       : { covered: false, reason: `${r.id} contains no ozone-depleting substance` };
   }
+  if (regime.covers === 'substitute_hfc') {
+    if (r.containsOds) return { covered: false, reason: `${r.id} is ozone-depleting, covered by the class I/II rule instead` };
+    return r.containsHfc
+      ? { covered: true, reason: `${r.id} is a substitute refrigerant containing an HFC` }
+      : { covered: false, reason: `${r.id} contains no HFC` };
+  }
   if (r.containsHfc) return { covered: true, reason: `${r.id} contains an HFC` };
   const limit = regime.gwpAbove ?? Infinity;
-  // GWP on the AR4 basis used by the AIM Act exchange values (from memory).
-  if (!r.containsOds && r.gwpAr4 > limit) return { covered: true, reason: `${r.id} is a substitute with GWP ${r.gwpAr4} > ${limit}` };
-  return { covered: false, reason: `${r.id} contains no HFC and its GWP (${r.gwpAr4}, AR4) is not above ${limit}` };
+  // GWP on the AR4 basis of the AIM Act exchange values (from memory); where AR4 lists no value,
+  // the commonly used regulatory figure stands in (all such refrigerants here are far below 53).
+  const gwp = r.gwpAr4 ?? r.gwpEu517;
+  const basis = r.gwpAr4 === null ? 'not in AR4; regulatory figure' : 'AR4';
+  if (!r.containsOds && gwp > limit) return { covered: true, reason: `${r.id} is a substitute with GWP ${gwp} (${basis}) > ${limit}` };
+  return { covered: false, reason: `${r.id} contains no HFC and its GWP (${gwp}, ${basis}) is not above ${limit}` };
 }
 
 export interface LeakEventInput {
@@ -187,7 +233,10 @@ export function evaluateLeakEvent(input: LeakEventInput): LeakEventResult {
   });
   const regulated = applicability.some((a) => a.applies);
   const applying = rules.regimes.find((r) => applicability.some((a) => a.applies && a.regimeId === r.id));
-  const thresholdPct = (applying ?? rules.regimes[rules.regimes.length - 1])?.thresholdPct[input.application] ?? 10;
+  // Not covered: show the threshold of the rules in force on that date, for guidance.
+  const day = toUtcDay(input.additionDate, 'additionDate');
+  const inForce = rules.regimes.filter((r) => day >= toUtcDay(r.appliesFrom) && (!r.appliesUntil || day <= toUtcDay(r.appliesUntil)));
+  const thresholdPct = (applying ?? inForce[0] ?? rules.regimes[rules.regimes.length - 1])?.thresholdPct[input.application] ?? 10;
   const exceedsThreshold = rate.ratePct > thresholdPct;
   const cautions = [rules.caution];
   if (!regulated) cautions.push('No regime covers this appliance on that date; the threshold is shown for guidance only.');
@@ -217,7 +266,7 @@ export function evaluateLeakEvent(input: LeakEventInput): LeakEventResult {
     repairDueDate,
     verification,
     cautions,
-    basis: `${rate.basis} Threshold by application (${applying?.citation ?? rules.regimes[0]?.citation ?? ''}); repair within ${rules.repairDays} days of the addition (${rules.repairDaysIprShutdown} with an industrial process shutdown).`,
+    basis: `${rate.basis} Threshold by application (${(applying ?? inForce[0])?.citation ?? rules.regimes[0]?.citation ?? ''}); repair within ${rules.repairDays} days of the addition (${rules.repairDaysIprShutdown} with an industrial process shutdown).`,
   };
 }
 

@@ -1,18 +1,17 @@
 // Low- and high-pressure switch settings and what they mean for the refrigerant.
 // Relation (both types): low event = high event − differential; the differential adjustment moves
-// only the low event (trade training material, TRADE-REFERENCE §4, common practice).
+// only the low event (trade training material, common practice).
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
 import { CalcInputError, isCalcError, fmt, requireFinite, requirePositive } from '@/lib/calc/errors';
+import { formatPressure, formatTemperature } from '@/lib/calc/format';
 import { getRefrigerant, type Refrigerant, type RefrigerantId } from '@/lib/calc/refrigerants';
-import { saturationTemperatureC } from '@/lib/calc/saturation';
+import { saturationTemperatureC, type MessageUnits } from '@/lib/calc/saturation';
 import {
   fromCelsius,
   fromKpaAbs,
   inHgVacuumToKpaAbs,
   pressureDifferenceToKpa,
-  pressureUnitLabel,
   STANDARD_ATMOSPHERE_KPA,
-  temperatureUnitLabel,
   toCelsius,
   toKpaAbs,
   KPA_PER_PSI,
@@ -26,7 +25,9 @@ export interface ControlWarning {
     | 'below_vacuum_floor'
     | 'cut_in_above_box'
     | 'above_design_pressure'
-    | 'high_low_event_below_floor';
+    | 'high_low_event_below_floor'
+    | 'below_triple_point'
+    | 'cut_out_below_condensing';
   message: string;
   basis: string;
 }
@@ -35,6 +36,13 @@ export interface ControlWarning {
 export const LP_FLOOR_KPA_ABS = inHgVacuumToKpaAbs(27, STANDARD_ATMOSPHERE_KPA);
 /** Common practice: a high-pressure control's low event (reset) not below 50 psig. */
 export const HP_LOW_EVENT_FLOOR_PSIG = 50;
+/**
+ * Common practice: an air-cooled condenser runs at entering air + 15–30 °F, so at a 95 °F design
+ * ambient it reaches about 125 °F (51.7 °C). A high-pressure cut-out whose saturation temperature
+ * is below that trips on an ordinary hot day (nuisance trips).
+ */
+export const HP_USUAL_MAX_CONDENSING_C = (125 - 32) / 1.8;
+const FLOOR_SOURCE = 'common practice (refrigeration service training texts; no standard sets this floor)';
 
 const RELATION_BASIS =
   'Low event = high event − differential; the differential adjustment moves only the low event (trade training material, common practice).';
@@ -46,10 +54,10 @@ export interface SettingSaturation {
   note: string | null;
 }
 
-function saturationOf(r: Refrigerant, pKpaAbs: number, tu: TemperatureUnit): SettingSaturation {
+function saturationOf(r: Refrigerant, pKpaAbs: number, tu: TemperatureUnit, units?: MessageUnits): SettingSaturation {
   const one = (curve: 'bubble' | 'dew'): { value: number | null; note: string | null } => {
     try {
-      return { value: fromCelsius(saturationTemperatureC(r, pKpaAbs, curve), tu), note: null };
+      return { value: fromCelsius(saturationTemperatureC(r, pKpaAbs, curve, units), tu), note: null };
     } catch (error) {
       if (isCalcError(error)) return { value: null, note: error.message };
       throw error;
@@ -100,30 +108,39 @@ export function lowPressureControl(input: LowPressureControlInput): LowPressureC
   requirePositive(input.differential, 'differential');
   const cutInKpaAbs = toKpaAbs(input.cutIn, input.unit, barometricKpa);
   const cutOutKpaAbs = cutInKpaAbs - pressureDifferenceToKpa(input.differential, input.unit);
-  const label = pressureUnitLabel(input.unit);
   if (cutOutKpaAbs <= 0) {
     throw new CalcInputError(
-      `a differential of ${input.differential} from a cut-in of ${input.cutIn} ${label} puts the cut-out below a perfect vacuum`,
+      `a differential of ${fmt(input.differential, 2)} from a cut-in of ${formatPressure(input.cutIn, input.unit)} puts the cut-out below a perfect vacuum`,
       'differential',
     );
   }
   const cutOut = input.cutIn - input.differential;
-  const cutInSaturation = saturationOf(r, cutInKpaAbs, tu);
-  const cutOutSaturation = saturationOf(r, cutOutKpaAbs, tu);
+  const cutInSaturation = saturationOf(r, cutInKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa });
+  const cutOutSaturation = saturationOf(r, cutOutKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa });
   const warnings: ControlWarning[] = [];
 
   if (!input.vacuumAllowed && cutOutKpaAbs < barometricKpa) {
     warnings.push({
       code: 'vacuum_cut_out',
-      message: `The cut-out (${fmt(cutOut, 1)} ${label}) is below atmospheric pressure: the low side would run in a vacuum and draw air and moisture in at any leak.`,
+      message: `The cut-out (${formatPressure(cutOut, input.unit)}) is below atmospheric pressure: the low side would run in a vacuum and draw air and moisture in at any leak.`,
       basis: 'Common practice: keep low-side cut-outs above 0 psig on systems not designed for vacuum operation.',
     });
   }
   if (cutOutKpaAbs < LP_FLOOR_KPA_ABS) {
     warnings.push({
       code: 'below_vacuum_floor',
-      message: `The cut-out is below 27 inHg vacuum (${fmt(fromKpaAbs(LP_FLOOR_KPA_ABS, input.unit, barometricKpa), 2)} ${label}), the lowest setting commonly allowed.`,
-      basis: 'Common practice: low-pressure control low event not below 27 inHg vacuum.',
+      message: `The cut-out is below 27 inHg vacuum (${formatPressure(fromKpaAbs(LP_FLOOR_KPA_ABS, input.unit, barometricKpa), input.unit)}), the lowest setting commonly allowed.`,
+      basis: `Low-pressure control low event not below 27 inHg vacuum: ${FLOOR_SOURCE}.`,
+    });
+  }
+  if (r.triplePoint && cutOutKpaAbs < r.triplePoint.pKpaAbs) {
+    warnings.push({
+      code: 'below_triple_point',
+      message:
+        `The cut-out (${formatPressure(cutOut, input.unit)}) is below the ${r.id} triple point ` +
+        `(${formatPressure(fromKpaAbs(r.triplePoint.pKpaAbs, input.unit, barometricKpa), input.unit)}, ${formatTemperature(fromCelsius(r.triplePoint.tC, tu), tu)}): ` +
+        'dry ice can form in the evaporator and block it. Set the cut-out above the triple-point pressure.',
+      basis: `${r.id} triple point 517.96 kPa abs at −56.56 °C (Span & Wagner 1996, CoolProp 8.0.0; tests/fixtures/reference/fluids.csv).`,
     });
   }
   if (input.designBoxTemp !== undefined) {
@@ -133,8 +150,8 @@ export function lowPressureControl(input: LowPressureControlInput): LowPressureC
       warnings.push({
         code: 'cut_in_above_box',
         message:
-          `The cut-in's saturation temperature (${fmt(cutInDew, 1)} ${temperatureUnitLabel(tu)}) is above the design box temperature ` +
-          `(${fmt(input.designBoxTemp, 1)} ${temperatureUnitLabel(tu)}): the evaporator pressure will not reach the cut-in while the box is at temperature, so the control cannot hold the box.`,
+          `The cut-in's saturation temperature (${formatTemperature(cutInDew, tu)}) is above the design box temperature ` +
+          `(${formatTemperature(input.designBoxTemp, tu)}): the evaporator pressure will not reach the cut-in while the box is at temperature, so the control cannot hold the box.`,
         basis: 'Common practice: set the cut-in below the saturation pressure at box temperature so the unit restarts when the box warms.',
       });
     }
@@ -192,10 +209,9 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
   requirePositive(input.differential, 'differential');
   const cutOutKpaAbs = toKpaAbs(input.cutOut, input.unit, barometricKpa);
   const cutInKpaAbs = cutOutKpaAbs - pressureDifferenceToKpa(input.differential, input.unit);
-  const label = pressureUnitLabel(input.unit);
   if (cutInKpaAbs <= 0) {
     throw new CalcInputError(
-      `a differential of ${input.differential} from a cut-out of ${input.cutOut} ${label} puts the cut-in below a perfect vacuum`,
+      `a differential of ${fmt(input.differential, 2)} from a cut-out of ${formatPressure(input.cutOut, input.unit)} puts the cut-in below a perfect vacuum`,
       'differential',
     );
   }
@@ -207,7 +223,7 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
     if (cutOutKpaAbs > designKpaAbs) {
       warnings.push({
         code: 'above_design_pressure',
-        message: `The cut-out (${fmt(input.cutOut, 1)} ${label}) is above the nameplate high-side design pressure (${fmt(input.designPressure, 1)} ${label}).`,
+        message: `The cut-out (${formatPressure(input.cutOut, input.unit)}) is above the nameplate high-side design pressure (${formatPressure(input.designPressure, input.unit)}).`,
         basis: 'The equipment nameplate governs: the high-pressure control must open below the design pressure.',
       });
     }
@@ -216,8 +232,20 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
   if (cutInKpaAbs < floorKpaAbs) {
     warnings.push({
       code: 'high_low_event_below_floor',
-      message: `The cut-in (${fmt(cutIn, 1)} ${label}) is below 50 psig (${fmt(fromKpaAbs(floorKpaAbs, input.unit, barometricKpa), 1)} ${label}), the lowest reset commonly allowed for a high-pressure control.`,
-      basis: 'Common practice: high-pressure control low event not below 50 psig.',
+      message: `The cut-in (${formatPressure(cutIn, input.unit)}) is below 50 psig (${formatPressure(fromKpaAbs(floorKpaAbs, input.unit, barometricKpa), input.unit)}), the lowest reset commonly allowed for a high-pressure control.`,
+      basis: `High-pressure control low event not below 50 psig: ${FLOOR_SOURCE}.`,
+    });
+  }
+  const cutOutSaturation = saturationOf(r, cutOutKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa });
+  const cutOutDewC = cutOutSaturation.dew === null ? null : toCelsius(cutOutSaturation.dew, tu);
+  if (r.id !== 'R-744' && cutOutDewC !== null && cutOutDewC < HP_USUAL_MAX_CONDENSING_C) {
+    warnings.push({
+      code: 'cut_out_below_condensing',
+      message:
+        `The cut-out (${formatPressure(input.cutOut, input.unit)}) saturates at ${formatTemperature(cutOutSaturation.dew!, tu)}, ` +
+        `below the ${formatTemperature(fromCelsius(HP_USUAL_MAX_CONDENSING_C, tu), tu)} an air-cooled condenser reaches on a hot day: expect nuisance trips. The nameplate governs.`,
+      basis:
+        'Common practice: air-cooled condensing runs 15–30 °F above entering air, about 125 °F at a 95 °F design ambient; typical cut-outs sit near 130–145 °F saturation.',
     });
   }
   return {
@@ -229,8 +257,8 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
     differential: input.differential,
     cutOutKpaAbs,
     cutInKpaAbs,
-    cutOutSaturation: saturationOf(r, cutOutKpaAbs, tu),
-    cutInSaturation: saturationOf(r, cutInKpaAbs, tu),
+    cutOutSaturation,
+    cutInSaturation: saturationOf(r, cutInKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa }),
     warnings,
     basis: RELATION_BASIS,
   };

@@ -1,4 +1,5 @@
-// The refrigerants Rimeline knows, as data. Sources are given per field; see TRADE-REFERENCE §1.
+// The refrigerants Rimeline knows, as data. Sources are given per field: ASHRAE Standard 34 (designations, compositions, safety classes),
+// IPCC AR4/AR5 (GWP), CoolProp 8.0.0 (tests/fixtures/reference/fluids.csv).
 // Designations, compositions and safety classes: ASHRAE Standard 34 (as copied in the reference
 // data's source files). GWP: IPCC AR4 and AR5 100-year values; blend GWP = Σ mass fraction × component
 // GWP. Critical points and normal boiling points: CoolProp 8.0.0 reference EOS
@@ -53,8 +54,19 @@ export interface Refrigerant {
   readonly molarMassGPerMol: number;
   readonly safetyClass: SafetyClass;
   readonly safetyClassNote?: string;
-  readonly gwpAr4: number;
-  readonly gwpAr5: number;
+  /**
+   * IPCC AR4 (2007) 100-year GWP, Table 2.14; for blends the mass-weighted sum of the components.
+   * Null where AR4 lists the substance (or a blend component) not at all: HFOs, propane, ammonia.
+   */
+  readonly gwpAr4: number | null;
+  /** IPCC AR5 (2013) 100-year GWP, WG1 Table 8.A.1 (HFOs "<1" counted as 1 alone, 0 in blends); null where not listed. */
+  readonly gwpAr5: number | null;
+  /**
+   * GWP as EU Regulation 517/2014 Annex IV counts it: AR4 for the HFCs (Annex I), the regulation's
+   * own Annex II/IV values for the rest (R-1234yf 4, R-1234ze(E) 7, propane 3, ammonia 0; from memory).
+   * Used for t CO2e where a rule is written on that basis.
+   */
+  readonly gwpEu517: number;
   readonly gwpNote?: string;
   /** Ozone depletion potential (Montreal Protocol); from memory for R-22. */
   readonly odp: number;
@@ -68,6 +80,11 @@ export interface Refrigerant {
   readonly nbp: { readonly bubbleC: number; readonly dewC: number } | null;
   readonly triplePoint?: { readonly tC: number; readonly pKpaAbs: number };
   readonly range: ValidRange;
+  /**
+   * Where the P-T chart stops when the fitted curve is known to drift before range.maxC (R-407C:
+   * checked to 50 °C, about 1.1 % off the reference EOS above it); the note says why, for the page.
+   */
+  readonly chart?: { readonly maxC: number; readonly note: string };
   /** The equation of state behind the reference data the saturation curves were fitted to. */
   readonly dataSource: string;
 }
@@ -76,7 +93,7 @@ const DATA_MIN = 'the lowest reference data point (-50 °C)';
 const NBP_MIN = 'just below the normal boiling point, so 0 psig stays in range';
 const CRIT_MAX = 'the critical temperature';
 const PSEUDO_CRIT_MAX = 'the pseudo-critical temperature (Lemmon 2003 pseudo-pure model)';
-const BLEND_MAX = '60 °C: above it the blend data are low-confidence (TRADE-REFERENCE §1.2)';
+const BLEND_MAX = '60 °C: above it the published critical points and blend data for this blend are low-confidence';
 const HEOS = 'CoolProp 8.0.0 multi-fluid mixture model (Kunz–Wagner form), nominal ASHRAE 34 composition';
 
 const pure = (designation: string): readonly Component[] => [{ designation, massPct: 100 }];
@@ -93,6 +110,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 1810,
     gwpAr5: 1760,
+    gwpEu517: 1810,
     gwpNote: 'AR5 from memory',
     odp: 0.055,
     containsOds: true,
@@ -113,6 +131,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 1430,
     gwpAr5: 1300,
+    gwpEu517: 1430,
     gwpNote: 'AR5 from memory',
     odp: 0,
     containsOds: false,
@@ -137,6 +156,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 3922,
     gwpAr5: 3943,
+    gwpEu517: 3922,
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -160,6 +180,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 2107,
     gwpAr5: 1923,
+    gwpEu517: 2107,
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -183,12 +204,17 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 1774,
     gwpAr5: 1624,
+    gwpEu517: 1774,
     odp: 0,
     containsOds: false,
     containsHfc: true,
     critical: { tC: 86.195, pKpaAbs: 4631.7, kind: 'pseudo' },
     nbp: { bubbleC: -43.627, dewC: -36.629 },
     range: { minC: -50, maxC: 86.195, minBasis: DATA_MIN, maxBasis: PSEUDO_CRIT_MAX },
+    chart: {
+      maxC: 50,
+      note: 'The chart stops at 50 °C (122 °F): the fitted R-407C curve is checked against the reference data up to 50 °C and drifts by up to about 1.1 % in pressure above it.',
+    },
     dataSource: HEOS,
   },
   {
@@ -205,6 +231,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 2088,
     gwpAr5: 1924,
+    gwpEu517: 2088,
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -228,8 +255,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     ],
     molarMassGPerMol: 86.28,
     safetyClass: 'A1',
-    gwpAr4: 1387,
+    gwpAr4: null,
     gwpAr5: 1273,
+    gwpEu517: 1387,
+    gwpNote: 'AR4 lists neither R-1234yf nor R-1234ze(E), so no AR4 value; 1387 is the EU 517/2014 figure (HFCs at AR4, HFOs at 4 and 7)',
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -253,8 +282,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     molarMassGPerMol: 87.21,
     safetyClass: 'A1',
     safetyClassNote: 'A1 from memory',
-    gwpAr4: 1397,
+    gwpAr4: null,
     gwpAr5: 1282,
+    gwpEu517: 1397,
+    gwpNote: 'AR4 does not list R-1234yf, so no AR4 value; 1397 is the EU 517/2014 figure (HFCs at AR4, R-1234yf at 4)',
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -277,6 +308,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 3985,
     gwpAr5: 3985,
+    gwpEu517: 3985,
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -297,6 +329,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClassNote: 'current ASHRAE 34 class (from memory); older data files say A2',
     gwpAr4: 675,
     gwpAr5: 677,
+    gwpEu517: 675,
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -314,9 +347,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     components: pure('R-290'),
     molarMassGPerMol: 44.096,
     safetyClass: 'A3',
-    gwpAr4: 3,
-    gwpAr5: 3,
-    gwpNote: 'AR5 value approximate (<5), from memory',
+    gwpAr4: null,
+    gwpAr5: null,
+    gwpEu517: 3,
+    gwpNote: 'Neither AR4 nor AR5 tabulates propane (from memory); 3 is the EU 517/2014 Annex IV value',
     odp: 0,
     containsOds: false,
     containsHfc: false,
@@ -336,6 +370,7 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     safetyClass: 'A1',
     gwpAr4: 1,
     gwpAr5: 1,
+    gwpEu517: 1,
     odp: 0,
     containsOds: false,
     containsHfc: false,
@@ -360,8 +395,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     molarMassGPerMol: 17.031,
     safetyClass: 'B2L',
     safetyClassNote: 'current ASHRAE 34 class (from memory); older data files say B2',
-    gwpAr4: 0,
-    gwpAr5: 0,
+    gwpAr4: null,
+    gwpAr5: null,
+    gwpEu517: 0,
+    gwpNote: 'Neither AR4 nor AR5 tabulates ammonia (from memory); 0 is the EU 517/2014 Annex IV value',
     odp: 0,
     containsOds: false,
     containsHfc: false,
@@ -379,9 +416,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     components: pure('R-1234yf'),
     molarMassGPerMol: 114.042,
     safetyClass: 'A2L',
-    gwpAr4: 4,
+    gwpAr4: null,
     gwpAr5: 1,
-    gwpNote: 'AR4 value 4 as used by EU 517/2014 (from memory); AR5 is below 1, stored as 1 (upper bound)',
+    gwpEu517: 4,
+    gwpNote: 'Not in AR4; 4 is the EU 517/2014 Annex II value (from memory). AR5 gives <1, stored as 1 (upper bound)',
     odp: 0,
     containsOds: false,
     containsHfc: false,
@@ -402,8 +440,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     ],
     molarMassGPerMol: 90.78,
     safetyClass: 'A2L',
-    gwpAr4: 148,
+    gwpAr4: null,
     gwpAr5: 146,
+    gwpEu517: 148,
+    gwpNote: 'AR4 does not list R-1234yf, so no AR4 value; 148 is the EU 517/2014 figure (R-32 at AR4, R-1234yf at 4)',
     odp: 0,
     containsOds: false,
     containsHfc: true,
@@ -425,8 +465,10 @@ export const REFRIGERANTS: readonly Refrigerant[] = [
     ],
     molarMassGPerMol: 87.45,
     safetyClass: 'A2L',
-    gwpAr4: 148,
+    gwpAr4: null,
     gwpAr5: 146,
+    gwpEu517: 148,
+    gwpNote: 'AR4 does not list R-1234yf, so no AR4 value; 148 is the EU 517/2014 figure (R-32 at AR4, R-1234yf at 4, CO2 1)',
     odp: 0,
     containsOds: false,
     containsHfc: true,

@@ -5,14 +5,14 @@
 // The hot path (used by charts and the benchmark) works on plain numbers and allocates nothing.
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
 import { CalcInputError, CalcRangeError, fmt } from '@/lib/calc/errors';
+import { formatPressure, formatTemperature } from '@/lib/calc/format';
 import { getRefrigerant, REFRIGERANTS, type Refrigerant, type RefrigerantId } from '@/lib/calc/refrigerants';
 import { SATURATION_COEFFICIENTS } from '@/lib/calc/saturation-coefficients';
 import {
   fromCelsius,
   fromKpaAbs,
   KELVIN_OFFSET,
-  pressureUnitLabel,
-  temperatureUnitLabel,
+  STANDARD_ATMOSPHERE_KPA,
   toCelsius,
   toKpaAbs,
   type PressureUnit,
@@ -156,8 +156,26 @@ function modelFor(ref: RefrigerantInput): SaturationModel {
 }
 
 type Formatter = (si: number) => string;
-const CELSIUS: Formatter = (c) => `${fmt(c, 2)} °C`;
-const KPA_ABS: Formatter = (p) => `${fmt(p, 1)} kPa abs`;
+const CELSIUS: Formatter = (c) => formatTemperature(c, 'C');
+const KPA_ABS: Formatter = (p) => formatPressure(p, 'kPaAbs');
+
+/** The units a person reads range messages in; kPa abs and °C when not given. */
+export interface MessageUnits {
+  pressureUnit?: PressureUnit | undefined;
+  temperatureUnit?: TemperatureUnit | undefined;
+  barometricKpa?: number | undefined;
+}
+
+function formattersFor(units: MessageUnits | undefined): { show: Formatter; showT: Formatter } {
+  if (!units) return { show: KPA_ABS, showT: CELSIUS };
+  const pu = units.pressureUnit;
+  const tu = units.temperatureUnit;
+  const bar = units.barometricKpa ?? STANDARD_ATMOSPHERE_KPA;
+  return {
+    show: pu ? (p) => formatPressure(fromKpaAbs(p, pu, bar), pu) : KPA_ABS,
+    showT: tu ? (c) => formatTemperature(fromCelsius(c, tu), tu) : CELSIUS,
+  };
+}
 
 function curveWord(m: SaturationModel, curve: SaturationCurve): string {
   return m.refrigerant.zeotropic ? `${curve} ` : 'saturation ';
@@ -212,7 +230,7 @@ function temperatureAt(m: SaturationModel, curve: SaturationCurve, pKpa: number,
     if (typeof pKpa !== 'number' || !Number.isFinite(pKpa)) {
       throw new CalcInputError(`pressure must be a finite number (got ${String(pKpa)})`, 'pressure');
     }
-    if (pKpa <= 0) throw new CalcInputError(`absolute pressure must be greater than zero (got ${pKpa} kPa abs)`, 'pressure');
+    if (pKpa <= 0) throw new CalcInputError(`absolute pressure must be greater than zero (got ${fmt(pKpa, 1)} kPa abs)`, 'pressure');
     throw pressureRangeError(m, curve, pKpa, show, showT);
   }
   const lnP = Math.log(pKpa);
@@ -220,19 +238,27 @@ function temperatureAt(m: SaturationModel, curve: SaturationCurve, pKpa: number,
 }
 
 /** Saturation pressure (kPa abs) at tC on the bubble or dew curve. Basis: SATURATION_BASIS. */
-export function saturationPressureKpa(ref: RefrigerantInput, tC: number, curve: SaturationCurve): number {
-  return pressureAt(modelFor(ref), curve, tC, CELSIUS);
+export function saturationPressureKpa(ref: RefrigerantInput, tC: number, curve: SaturationCurve, units?: MessageUnits): number {
+  return pressureAt(modelFor(ref), curve, tC, formattersFor(units).showT);
 }
 
 /** Saturation temperature (°C) at pKpaAbs on the bubble or dew curve. Basis: SATURATION_BASIS. */
-export function saturationTemperatureC(ref: RefrigerantInput, pKpaAbs: number, curve: SaturationCurve): number {
-  return temperatureAt(modelFor(ref), curve, pKpaAbs, KPA_ABS, CELSIUS);
+export function saturationTemperatureC(ref: RefrigerantInput, pKpaAbs: number, curve: SaturationCurve, units?: MessageUnits): number {
+  const f = formattersFor(units);
+  return temperatureAt(modelFor(ref), curve, pKpaAbs, f.show, f.showT);
 }
 
 export const bubblePressureKpa = (ref: RefrigerantInput, tC: number): number => saturationPressureKpa(ref, tC, 'bubble');
 export const dewPressureKpa = (ref: RefrigerantInput, tC: number): number => saturationPressureKpa(ref, tC, 'dew');
 export const bubbleTemperatureC = (ref: RefrigerantInput, pKpaAbs: number): number => saturationTemperatureC(ref, pKpaAbs, 'bubble');
 export const dewTemperatureC = (ref: RefrigerantInput, pKpaAbs: number): number => saturationTemperatureC(ref, pKpaAbs, 'dew');
+
+/** The span the P-T chart shows: the saturation range, capped where the fit is known to drift. */
+export function chartRange(ref: RefrigerantInput): { minC: number; maxC: number; note: string | null } {
+  const r = modelFor(ref).refrigerant;
+  const cap = r.chart;
+  return { minC: r.range.minC, maxC: cap ? Math.min(cap.maxC, r.range.maxC) : r.range.maxC, note: cap?.note ?? null };
+}
 
 /** The temperature and pressure span each curve covers (inclusive). */
 export function saturationRange(ref: RefrigerantInput): {
@@ -291,8 +317,9 @@ export interface SaturationAtPressure {
   basis: string;
 }
 
-export function saturationAtPressure(ref: RefrigerantInput, pKpaAbs: number): SaturationAtPressure {
-  return atPressure(modelFor(ref), pKpaAbs, KPA_ABS, CELSIUS);
+export function saturationAtPressure(ref: RefrigerantInput, pKpaAbs: number, units?: MessageUnits): SaturationAtPressure {
+  const f = formattersFor(units);
+  return atPressure(modelFor(ref), pKpaAbs, f.show, f.showT);
 }
 
 function atPressure(m: SaturationModel, pKpaAbs: number, show: Formatter, showT: Formatter): SaturationAtPressure {
@@ -344,7 +371,7 @@ export function saturationTable(
   const barometricKpa = resolveBarometricKpa(options);
   const fromC = toCelsius(from, temperatureUnit);
   const toC = toCelsius(to, temperatureUnit);
-  if (!(step > 0) || !Number.isFinite(step)) throw new CalcInputError(`step must be greater than zero (got ${step})`, 'step');
+  if (!(step > 0) || !Number.isFinite(step)) throw new CalcInputError(`step must be greater than zero (got ${fmt(step, 2)})`, 'step');
   if (toC < fromC) throw new CalcInputError('the range end must not be below its start', 'to');
   const count = Math.floor((to - from) / step + 1e-9) + 1;
   if (count > MAX_TABLE_ROWS) {
@@ -352,10 +379,11 @@ export function saturationTable(
   }
   const rows: SaturationTableRow[] = [];
   let clipped = false;
+  const chartMaxK = Math.min(m.bubble.tMaxK, (m.refrigerant.chart?.maxC ?? Infinity) + KELVIN_OFFSET);
   for (let i = 0; i < count; i++) {
     const t = from + i * step;
     const tK = toCelsius(t, temperatureUnit) + KELVIN_OFFSET;
-    if (tK < m.bubble.tMinK - 1e-9 || tK > m.bubble.tMaxK + 1e-9) {
+    if (tK < m.bubble.tMinK - 1e-9 || tK > chartMaxK + 1e-9) {
       clipped = true;
       continue;
     }
@@ -378,11 +406,23 @@ export type SaturationQuery =
       unit: PressureUnit;
       elevationM?: number | undefined;
       barometricKpa?: number | undefined;
+      /** The unit for the answer and the messages (°C when not given). */
+      temperatureUnit?: 'C' | 'F' | undefined;
     };
 
 export type SaturationQueryResult =
   | (SaturationAtTemperature & { kind: 'temperature' })
-  | (SaturationAtPressure & { kind: 'pressure'; barometricKpa: number });
+  | (SaturationAtPressure & {
+      kind: 'pressure';
+      barometricKpa: number;
+      temperatureUnit: 'C' | 'F';
+      /** Bubble, dew and mid-point in temperatureUnit. */
+      bubble: number;
+      dew: number;
+      midpoint: number;
+      /** With a gauge unit away from the standard barometer: the same gauge reading at sea level. */
+      seaLevel: { barometricKpa: number; bubble: number; dew: number; midpoint: number; bubbleC: number; dewC: number } | null;
+    });
 
 /**
  * The JSON API's saturation look-up, in the units the user chose; range errors quote the user's
@@ -392,7 +432,7 @@ export function saturationLookup(query: SaturationQuery): SaturationQueryResult 
   const m = modelFor(query.refrigerant);
   if (query.kind === 'temperature') {
     const unit = query.unit;
-    const showT: Formatter = (c) => `${fmt(fromCelsius(c, unit), 2)} ${temperatureUnitLabel(unit)}`;
+    const showT: Formatter = (c) => formatTemperature(fromCelsius(c, unit), unit);
     const tC = toCelsius(query.temperature, unit);
     return {
       kind: 'temperature',
@@ -406,7 +446,37 @@ export function saturationLookup(query: SaturationQuery): SaturationQueryResult 
   }
   const barometricKpa = resolveBarometricKpa(query);
   const unit = query.unit;
-  const show: Formatter = (p) => `${fmt(fromKpaAbs(p, unit, barometricKpa), 2)} ${pressureUnitLabel(unit)}`;
+  const tu = query.temperatureUnit ?? 'C';
+  const show: Formatter = (p) => formatPressure(fromKpaAbs(p, unit, barometricKpa), unit);
+  const showT: Formatter = (c) => formatTemperature(fromCelsius(c, tu), tu);
   const pKpaAbs = toKpaAbs(query.pressure, unit, barometricKpa);
-  return { kind: 'pressure', barometricKpa, ...atPressure(m, pKpaAbs, show, CELSIUS) };
+  const at = atPressure(m, pKpaAbs, show, showT);
+  const gauge = unit === 'psig' || unit === 'kPaG' || unit === 'barG';
+  let seaLevel: Extract<SaturationQueryResult, { kind: 'pressure' }>['seaLevel'] = null;
+  if (gauge && Math.abs(barometricKpa - STANDARD_ATMOSPHERE_KPA) > 1e-9) {
+    try {
+      const sea = atPressure(m, toKpaAbs(query.pressure, unit, STANDARD_ATMOSPHERE_KPA), show, showT);
+      seaLevel = {
+        barometricKpa: STANDARD_ATMOSPHERE_KPA,
+        bubble: fromCelsius(sea.bubbleC, tu),
+        dew: fromCelsius(sea.dewC, tu),
+        midpoint: fromCelsius(sea.midpointC, tu),
+        bubbleC: sea.bubbleC,
+        dewC: sea.dewC,
+      };
+    } catch (error) {
+      // The sea-level figure is a courtesy: out of range there simply means none is offered.
+      if (!(error instanceof CalcRangeError)) throw error;
+    }
+  }
+  return {
+    kind: 'pressure',
+    barometricKpa,
+    temperatureUnit: tu,
+    bubble: fromCelsius(at.bubbleC, tu),
+    dew: fromCelsius(at.dewC, tu),
+    midpoint: fromCelsius(at.midpointC, tu),
+    seaLevel,
+    ...at,
+  };
 }

@@ -4,6 +4,7 @@ import { z } from 'zod';
 
 import { APPLICATION_CATEGORIES, JURISDICTIONS } from '@/lib/calc/compliance-rules';
 import { SUPPORTED_NAMEPLATE_VOLTAGES } from '@/lib/calc/electrical';
+import { BOX_CLASSES, METERING_DEVICES } from '@/lib/calc/reading-bands';
 import { findRefrigerant, REFRIGERANT_IDS, type RefrigerantId } from '@/lib/calc/refrigerants';
 import type { SaturationQuery } from '@/lib/calc/saturation';
 import { EQUIPMENT_TYPES } from '@/lib/calc/service-life';
@@ -56,6 +57,8 @@ const refrigerantField = z
 
 const pressureUnitField = z.enum(PRESSURE_UNITS, { error: `pressure unit must be one of ${PRESSURE_UNITS.join(', ')}` });
 const temperatureUnitField = z.enum(['C', 'F'], { error: 'temperature unit must be C or F' });
+/** Every endpoint takes the reader's temperature unit; messages use it. °C when not given. */
+const optionalTemperatureUnit = z.preprocess(blank, temperatureUnitField.optional());
 const isoDate = (label: string) => z.iso.date({ error: `${label} must be a date as YYYY-MM-DD` });
 
 // A site's barometer: an explicit reading (kPa) wins over elevation (m); both optional.
@@ -71,6 +74,7 @@ export const saturationQuerySchema = z
     temperature: optionalNumber('temperature'),
     pressure: optionalNumber('pressure'),
     unit: z.string({ error: 'unit is required' }).trim().min(1, { error: 'unit is required' }),
+    temperatureUnit: optionalTemperatureUnit,
     ...barometerFields,
   })
   .transform((q, ctx): SaturationQuery => {
@@ -98,6 +102,7 @@ export const saturationQuerySchema = z
       unit: q.unit as PressureUnit,
       elevationM: q.elevationM,
       barometricKpa: q.barometricKpa,
+      temperatureUnit: q.temperatureUnit,
     };
   });
 
@@ -114,7 +119,7 @@ export const saturationTableQuerySchema = z.object({
 
 const saturationReference = z.enum(['midpoint', 'dew', 'bubble'], { error: 'reference must be midpoint, dew or bubble' });
 
-/** Readings (superheat, subcooling, TDs, compression ratio) in the user's units. */
+/** Readings (superheat, subcooling, TDs, compression ratio, and optional electrical) in the user's units. */
 export const readingsInputSchema = z
   .object({
     refrigerant: refrigerantField,
@@ -123,19 +128,48 @@ export const readingsInputSchema = z
     ...barometerFields,
     suctionPressure: optionalNumber('suction pressure'),
     headPressure: optionalNumber('head pressure'),
+    liquidPressure: optionalNumber('liquid-line pressure'),
     suctionLineTemp: optionalNumber('suction line temperature'),
     liquidLineTemp: optionalNumber('liquid line temperature'),
     boxTemp: optionalNumber('box temperature'),
     ambientTemp: optionalNumber('ambient temperature'),
+    designBoxTemp: optionalNumber('design box temperature'),
+    boxClass: z.preprocess(blank, z.enum(BOX_CLASSES, { error: `box class must be one of ${BOX_CLASSES.join(', ')}` }).optional()),
+    meteringDevice: z.preprocess(blank, z.enum(METERING_DEVICES, { error: `metering device must be one of ${METERING_DEVICES.join(', ')}` }).optional()),
+    superheatAt: z.preprocess(
+      blank,
+      z.enum(['evaporator_outlet', 'compressor_inlet'], { error: 'superheat point must be evaporator_outlet or compressor_inlet' }).optional(),
+    ),
     evaporatorReference: saturationReference.optional(),
     condenserReference: saturationReference.optional(),
+    controlVolts: z.preprocess(blank, coerced('control voltage').positive({ error: 'control voltage must be greater than zero' }).optional()),
+    controlNominalV: z.preprocess(blank, coerced('nominal control voltage').positive({ error: 'nominal control voltage must be greater than zero' }).optional()),
+    v1: z.preprocess(blank, coerced('voltage 1').positive({ error: 'voltage 1 must be greater than zero' }).optional()),
+    v2: z.preprocess(blank, coerced('voltage 2').positive({ error: 'voltage 2 must be greater than zero' }).optional()),
+    v3: z.preprocess(blank, coerced('voltage 3').positive({ error: 'voltage 3 must be greater than zero' }).optional()),
+    nameplateV: z.preprocess(
+      blank,
+      coerced('nameplate voltage')
+        .refine((v) => SUPPORTED_NAMEPLATE_VOLTAGES.includes(v), { error: `nameplate voltage must be one of ${SUPPORTED_NAMEPLATE_VOLTAGES.join(', ')}` })
+        .optional(),
+    ),
   })
   .refine(
     (r) =>
       (r.suctionPressure !== undefined && (r.suctionLineTemp !== undefined || r.boxTemp !== undefined || r.headPressure !== undefined)) ||
-      (r.headPressure !== undefined && (r.liquidLineTemp !== undefined || r.ambientTemp !== undefined)),
+      ((r.headPressure !== undefined || r.liquidPressure !== undefined) && (r.liquidLineTemp !== undefined || r.ambientTemp !== undefined)) ||
+      r.controlVolts !== undefined ||
+      (r.v1 !== undefined && r.v2 !== undefined && r.v3 !== undefined),
     { error: 'enter a pressure and a matching temperature (e.g. suction pressure and suction line temperature)', path: ['suctionPressure'] },
-  );
+  )
+  .refine((r) => [r.v1, r.v2, r.v3].every((v) => v === undefined) || [r.v1, r.v2, r.v3].every((v) => v !== undefined), {
+    error: 'enter all three line voltages, or none',
+    path: ['v3'],
+  })
+  .transform(({ v1, v2, v3, ...rest }) => ({
+    ...rest,
+    lineVoltages: v1 !== undefined && v2 !== undefined && v3 !== undefined ? ([v1, v2, v3] as const) : undefined,
+  }));
 
 export const lowPressureControlSchema = z.object({
   refrigerant: refrigerantField,
@@ -160,18 +194,49 @@ export const highPressureControlSchema = z.object({
 
 /** GET /api/calc/voltage-unbalance?v1=…&v2=…&v3=… → { lineVoltages }. */
 export const voltageUnbalanceQuerySchema = z
-  .object({ v1: requiredPositive('voltage 1'), v2: requiredPositive('voltage 2'), v3: requiredPositive('voltage 3') })
-  .transform((q) => ({ lineVoltages: [q.v1, q.v2, q.v3] as const }));
+  .object({
+    v1: requiredPositive('voltage 1'),
+    v2: requiredPositive('voltage 2'),
+    v3: requiredPositive('voltage 3'),
+    temperatureUnit: optionalTemperatureUnit,
+  })
+  .transform((q) => ({ lineVoltages: [q.v1, q.v2, q.v3] as const, temperatureUnit: q.temperatureUnit ?? 'C' }));
 
-export const supplyVoltageQuerySchema = z.object({
-  measuredV: requiredPositive('measured voltage'),
-  nameplateV: requiredNumber('nameplate voltage').refine((v) => SUPPORTED_NAMEPLATE_VOLTAGES.includes(v), {
-    error: `nameplate voltage must be one of ${SUPPORTED_NAMEPLATE_VOLTAGES.join(', ')}`,
-  }),
-  point: z.enum(['service', 'utilization'], { error: 'point must be service or utilization' }).optional(),
-});
+const optionalPositive = (label: string) =>
+  z.preprocess(blank, coerced(label).positive({ error: `${label} must be greater than zero` }).optional());
+
+/** One measured voltage (measuredV), or the three line voltages v1, v2, v3 (the worst line decides). */
+export const supplyVoltageQuerySchema = z
+  .object({
+    measuredV: optionalPositive('measured voltage'),
+    v1: optionalPositive('voltage 1'),
+    v2: optionalPositive('voltage 2'),
+    v3: optionalPositive('voltage 3'),
+    nameplateV: requiredNumber('nameplate voltage').refine((v) => SUPPORTED_NAMEPLATE_VOLTAGES.includes(v), {
+      error: `nameplate voltage must be one of ${SUPPORTED_NAMEPLATE_VOLTAGES.join(', ')}`,
+    }),
+    point: z.enum(['service', 'utilization'], { error: 'point must be service or utilization' }).optional(),
+    temperatureUnit: optionalTemperatureUnit,
+  })
+  .superRefine((q, ctx) => {
+    const lines = [q.v1, q.v2, q.v3];
+    const some = lines.some((v) => v !== undefined);
+    if (some && lines.some((v) => v === undefined)) {
+      const missing = lines.findIndex((v) => v === undefined);
+      ctx.addIssue({ code: 'custom', path: [`v${missing + 1}`], message: 'enter all three line voltages (v1, v2, v3), or one measured voltage' });
+    } else if (!some && q.measuredV === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['measuredV'], message: 'measured voltage is required (or the three line voltages v1, v2, v3)' });
+    }
+  })
+  .transform((q) => ({
+    lines: q.v1 !== undefined && q.v2 !== undefined && q.v3 !== undefined ? [q.v1, q.v2, q.v3] : [q.measuredV as number],
+    nameplateV: q.nameplateV,
+    point: q.point,
+    temperatureUnit: q.temperatureUnit ?? 'C',
+  }));
 
 export const controlVoltageQuerySchema = z.object({
+  temperatureUnit: optionalTemperatureUnit,
   measuredV: requiredPositive('measured voltage'),
   nominalV: z.preprocess(blank, coerced('nominal voltage').positive({ error: 'nominal voltage must be greater than zero' }).optional()),
   tolerancePct: z.preprocess(
@@ -184,6 +249,7 @@ export const controlVoltageQuerySchema = z.object({
 export const leakEventSchema = z
   .object({
     jurisdiction: z.enum(JURISDICTIONS, { error: `jurisdiction must be one of ${JURISDICTIONS.join(', ')}` }).optional(),
+    temperatureUnit: optionalTemperatureUnit,
     refrigerant: refrigerantField,
     application: z.enum(APPLICATION_CATEGORIES, { error: `application must be one of ${APPLICATION_CATEGORIES.join(', ')}` }),
     fullCharge: requiredPositive('full charge'),
@@ -213,6 +279,7 @@ export const yearlyTotalsBodySchema = z.object({
 });
 
 export const serviceLifeQuerySchema = z.object({
+  temperatureUnit: optionalTemperatureUnit,
   equipmentType: z.enum(EQUIPMENT_TYPES, { error: `equipment type must be one of ${EQUIPMENT_TYPES.join(', ')}` }),
   installedOn: isoDate('install date'),
   asOf: isoDate('as-of date'),

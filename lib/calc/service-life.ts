@@ -1,6 +1,6 @@
 // Expected service life per Rimeline equipment type, and a replacement outlook.
 // Source of the medians: ASHRAE Handbook—HVAC Applications, chapter "Owning and Operating Costs",
-// table "Comparison of Service Life Estimates" (median years from Akalin 1978), TRADE-REFERENCE §7.
+// table "Comparison of Service Life Estimates" (median years from Akalin 1978).
 // Most published service lives come from opinion surveys, not survival studies (Hiller, ASHRAE
 // Journal 2000), so every result here is guidance, not a prediction.
 import { toUtcDay, type DateInput } from '@/lib/calc/dates';
@@ -74,10 +74,11 @@ export const SERVICE_LIFE: Readonly<Record<EquipmentType, ServiceLifeEntry | nul
     mapping: 'The table has no refrigerant-valve row; a solenoid valve is an electrically operated control.',
   },
   expansion_valve: {
-    tableRow: 'Controls, pneumatic',
-    medianYears: 20,
-    howKnown: 'V',
-    mapping: 'The table has no refrigerant-valve row; a thermostatic expansion valve is a self-acting, pressure-operated control.',
+    tableRow: 'Valve actuators, self-contained',
+    medianYears: 10,
+    howKnown: 'M',
+    mapping:
+      'A thermostatic expansion valve is a self-contained (self-actuated) valve: its bulb and diaphragm drive it with no outside power. The table has no refrigerant-valve row; the row and its 10 years are from memory.',
   },
   defrost_control: {
     tableRow: 'Controls, electric',

@@ -116,7 +116,7 @@ export function kelvinToCelsius(k: number): number {
 export function toCelsius(value: number, unit: TemperatureUnit): number {
   requireFinite(value, 'temperature');
   const c = unit === 'C' ? value : unit === 'F' ? fahrenheitToCelsius(value) : kelvinToCelsius(value);
-  if (c < -KELVIN_OFFSET) throw new CalcInputError(`${value} ${temperatureUnitLabel(unit)} is below absolute zero`, 'temperature');
+  if (c < -KELVIN_OFFSET) throw new CalcInputError(`${fmt(value, 1)} ${temperatureUnitLabel(unit)} is below absolute zero`, 'temperature');
   return c;
 }
 

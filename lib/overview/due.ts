@@ -108,12 +108,12 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
   for (const s of systems) {
     if (s.maintenance_interval_days) push(s, 'maintenance', s.last_maintenance ? new Date(s.last_maintenance) : null, s.maintenance_interval_days, `Every ${s.maintenance_interval_days} days (this system's maintenance interval)`);
     if (s.full_charge_kg) {
-      const gwp = getRefrigerant(s.refrigerant).gwpAr4;
+      const gwp = getRefrigerant(s.refrigerant).gwpEu517;
       const months = leakCheckIntervalMonths(Number(s.full_charge_kg), gwp);
       if (months) {
         const tonnes = ((Number(s.full_charge_kg) * gwp) / 1000).toFixed(1);
         const checks = [s.last_leak_check, s.last_leak_work].filter(Boolean).map((d) => new Date(d!).getTime());
-        push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP AR4), per the F-gas rule table — confirm the rule that applies locally`);
+        push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP as EU 517/2014 counts it), per the F-gas rule table — confirm the rule that applies locally`);
       }
     }
   }

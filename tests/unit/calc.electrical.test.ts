@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   controlCircuitVoltage,
   motorDeratingFactor,
+  supplyVoltageLines,
   motorVoltageTolerance,
   supplyVoltageCheck,
   voltageUnbalance,
@@ -90,26 +91,67 @@ describe('supply voltage, ANSI C84.1 (TRADE-REFERENCE §5.2, values from memory)
   });
 });
 
-describe('control circuit voltage (TRADE-REFERENCE §5.3)', () => {
-  it('24 VAC ± 10 % → 21.6–26.4 V (common practice)', () => {
+describe('control circuit voltage: IEC 60947-4-1 coil band 85–110 % (from memory), marginal beyond ±5 % (common practice)', () => {
+  it('24 V nominal: out below 20.4 V (85 %) or above 26.4 V (110 %); ok within 22.8–25.2 V (±5 %)', () => {
     const r = controlCircuitVoltage({ measuredV: 24 });
-    expect(r.minV).toBeCloseTo(21.6, 9);
+    expect(r.minV).toBeCloseTo(20.4, 9);
     expect(r.maxV).toBeCloseTo(26.4, 9);
-    expect(r.status).toBe('ok');
+    expect(r.okMinV).toBeCloseTo(22.8, 9);
+    expect(r.okMaxV).toBeCloseTo(25.2, 9);
+    expect(r).toMatchObject({ status: 'ok', direction: null, level: 'normal' });
+    expect(r.basis).toMatch(/IEC 60947-4-1/);
     expect(r.basis).toMatch(/common practice/);
   });
 
-  it('22 V is inside the band but flagged "a little low"; 21 V is low; 27 V high', () => {
+  it('22 V on 24 V is marginal (low), in words, with the re-check note (TRADE-REFERENCE §5.3: "a little low")', () => {
     const r = controlCircuitVoltage({ measuredV: 22 });
-    expect(r.status).toBe('ok');
+    expect(r).toMatchObject({ status: 'marginal', direction: 'low', level: 'watch' });
+    expect(r.message).toBe('22 V on a 24 V circuit: marginal (low); coils operate from 20.4 V to 26.4 V, ok within 5 % of nominal.');
     expect(r.notes[0]).toMatch(/re-check under load/);
-    expect(controlCircuitVoltage({ measuredV: 21 }).status).toBe('low');
-    expect(controlCircuitVoltage({ measuredV: 27 }).status).toBe('high');
+  });
+
+  it.each([
+    [20.3, 'out', 'low'],
+    [20.4, 'marginal', 'low'],
+    [22.7, 'marginal', 'low'],
+    [22.8, 'ok', null],
+    [25.2, 'ok', null],
+    [25.3, 'marginal', 'high'],
+    [26.4, 'marginal', 'high'],
+    [26.5, 'out', 'high'],
+  ] as const)('%s V on 24 V → %s (%s)', (v, status, direction) => {
+    expect(controlCircuitVoltage({ measuredV: v })).toMatchObject({ status, direction });
   });
 
   it('accepts another nominal and tolerance; rejects nonsense', () => {
     expect(controlCircuitVoltage({ measuredV: 115, nominalV: 120, tolerancePct: 5 }).status).toBe('ok');
+    expect(controlCircuitVoltage({ measuredV: 110, nominalV: 120 }).status).toBe('marginal');
     expect(() => controlCircuitVoltage({ measuredV: -3 })).toThrow(CalcInputError);
     expect(() => controlCircuitVoltage({ measuredV: 24, tolerancePct: 60 })).toThrow(/below 50 %/);
+  });
+});
+
+describe('supply voltage on three lines, ANSI C84.1 (TRADE-REFERENCE §5.2, values from memory): the worst line decides', () => {
+  it('460 V nameplate (480 V system, utilization): 470/465/430 V → line 3 in Range B (low) decides', () => {
+    const r = supplyVoltageLines({ lines: [470, 465, 430], nameplateV: 460 });
+    expect(r.lines.map((l) => l.verdict)).toEqual(['range_a', 'range_a', 'range_b']);
+    expect(r).toMatchObject({ worstLine: 2, verdict: 'range_b', direction: 'low', level: 'watch' });
+    expect(r.message).toMatch(/^Line 3 decides: 430 V is low but within Range B \(424–508 V\)/);
+  });
+
+  it('one line outside Range B makes the whole supply abnormal even when the average is fine (208Y/120: 218/220/221 V)', () => {
+    // Average 219.7 V lies inside Range B (≤ 220 V), but 221 V is above it.
+    const r = supplyVoltageLines({ lines: [218, 220, 221], nameplateV: 208 });
+    expect(r).toMatchObject({ verdict: 'outside', direction: 'high', level: 'abnormal', worstLine: 2 });
+  });
+
+  it('a fractional average never reaches the message as a raw float (issue 14: "208.33333333333334 V")', () => {
+    const one = supplyVoltageLines({ lines: [(208 + 209 + 208) / 3], nameplateV: 208 });
+    expect(one.message).toBe('208.3 V is within Range A (191–218 V) for a 208Y/120 V system: normal.');
+  });
+
+  it('rejects an empty or four-line input', () => {
+    expect(() => supplyVoltageLines({ lines: [], nameplateV: 460 })).toThrow(/one to three line voltages/);
+    expect(() => supplyVoltageLines({ lines: [1, 2, 3, 4], nameplateV: 460 })).toThrow(/one to three line voltages/);
   });
 });

@@ -47,7 +47,7 @@ describe('annualizing method, 40 CFR 82.152 (TRADE-REFERENCE §6.1)', () => {
 });
 
 describe('rolling-average method, 40 CFR 82.152', () => {
-  it('sums additions in the previous 365 days, or since the last repair', () => {
+  it('sums additions in the previous 365 days, or since the last passed follow-up verification test', () => {
     const additions = [
       { date: '2025-01-10', amount: 5 },
       { date: '2025-08-01', amount: 4 },
@@ -55,7 +55,7 @@ describe('rolling-average method, 40 CFR 82.152', () => {
     ];
     expect(rollingAverageLeakRate({ additions, fullCharge: 50, asOf: '2026-01-05' }).ratePct).toBeCloseTo(30, 9);
     expect(rollingAverageLeakRate({ additions, fullCharge: 50, asOf: '2026-01-12' }).ratePct).toBeCloseTo(20, 9);
-    expect(rollingAverageLeakRate({ additions, fullCharge: 50, asOf: '2026-01-05', lastRepairDate: '2025-09-01' }).ratePct).toBeCloseTo(12, 9);
+    expect(rollingAverageLeakRate({ additions, fullCharge: 50, asOf: '2026-01-05', lastPassedFollowUpTestDate: '2025-09-01' }).ratePct).toBeCloseTo(12, 9);
   });
 });
 

@@ -102,7 +102,12 @@ describe('computeReadings in the user’s units', () => {
     expect(() => computeReadings({ ...base, refrigerant: 'R-999' })).toThrow(/unknown refrigerant "R-999"/);
     expect(() => computeReadings({ ...base, suctionPressure: Number.NaN, suctionLineTemp: 40 })).toThrow(CalcInputError);
     expect(() => computeReadings({ ...base, suctionPressure: 20, suctionLineTemp: Number.NaN })).toThrow(/finite number/);
-    expect(() => computeReadings({ ...base, suctionPressure: 20, headPressure: 10 })).toThrow(/discharge pressure must not be below suction/);
+    // A head below suction fails the compression ratio alone; the saturation values stay.
+    const r = computeReadings({ ...base, suctionPressure: 20, headPressure: 10 });
+    expect(r.compressionRatio).toBeNull();
+    expect(r.errors.compressionRatio).toMatchObject({ field: 'headPressure', message: expect.stringMatching(/discharge pressure must not be below suction/) });
+    expect(r.evaporating).not.toBeNull();
+    // When nothing at all can be computed, the request itself is refused with the reason.
     expect(() => computeReadings({ ...base, suctionPressure: 600, suctionLineTemp: 40 })).toThrow(CalcRangeError);
     expect(() => compressionRatio({ suctionKpaAbs: 0, dischargeKpaAbs: 100 })).toThrow(/greater than zero/);
   });

@@ -15,7 +15,7 @@ describe('median service life, ASHRAE "Comparison of Service Life Estimates" (Ak
     ['defrost_control', 'Controls, electric', 16],
     ['solenoid_valve', 'Controls, electric', 16],
     ['thermostat', 'Controls, electronic', 15],
-    ['expansion_valve', 'Controls, pneumatic', 20],
+    ['expansion_valve', 'Valve actuators, self-contained', 10],
   ] as const)('%s → "%s", %s years', (type, row, years) => {
     const e = medianServiceLife(type);
     expect(e?.tableRow).toBe(row);

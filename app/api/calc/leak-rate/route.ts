@@ -7,5 +7,5 @@ import { leakEventSchema } from '@/lib/calc/schemas';
 // GET /api/calc/leak-rate: one refrigerant addition: annualized leak rate, threshold, repair and verification deadlines.
 export const GET = withApi({ permission: 'calc.use', query: leakEventSchema }, async ({ query }) => {
   const result = evaluateLeakEvent(query);
-  return { ...result, cautions: [...result.cautions, ...refrigerantCautions(getRefrigerant(query.refrigerant)), REFERENCE_CAUTION] };
+  return { ...result, temperatureUnit: query.temperatureUnit ?? 'C', cautions: [...result.cautions, ...refrigerantCautions(getRefrigerant(query.refrigerant)), REFERENCE_CAUTION] };
 });

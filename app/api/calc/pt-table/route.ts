@@ -2,7 +2,7 @@ import { withApi } from '@/lib/api/handler';
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
 import { refrigerantResultCautions } from '@/lib/calc/cautions';
 import { getRefrigerant } from '@/lib/calc/refrigerants';
-import { saturationTable } from '@/lib/calc/saturation';
+import { chartRange, saturationTable } from '@/lib/calc/saturation';
 import { saturationTableQuerySchema } from '@/lib/calc/schemas';
 
 // GET /api/calc/pt-table: pressure–temperature chart rows (bubble and dew) in the caller's units.
@@ -16,7 +16,8 @@ export const GET = withApi({ permission: 'calc.use', query: saturationTableQuery
     barometricKpa: resolveBarometricKpa(query),
     zeotropic: refrigerant.zeotropic,
     safetyClass: refrigerant.safetyClass,
-    range: { minC: refrigerant.range.minC, maxC: refrigerant.range.maxC },
+    // The chart's span: the saturation range, capped where the fit is known to drift (with why).
+    range: chartRange(refrigerant),
     clipped: table.clipped,
     rows: table.rows,
     basis: table.basis,

@@ -5,5 +5,5 @@ import { serviceLifeOutlook } from '@/lib/calc/service-life';
 // GET /api/calc/service-life: equipment age, median service life (ASHRAE table) and a condition-weighted outlook.
 export const GET = withApi({ permission: 'calc.use', query: serviceLifeQuerySchema }, async ({ query }) => {
   const result = serviceLifeOutlook(query);
-  return { ...result, cautions: [result.caution] };
+  return { ...result, temperatureUnit: query.temperatureUnit ?? 'C', cautions: [result.caution] };
 });

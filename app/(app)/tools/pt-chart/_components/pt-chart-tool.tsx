@@ -8,7 +8,7 @@ import { barometricPressureKpa, MAX_ELEVATION_M, MIN_ELEVATION_M } from '@/lib/c
 import { REFERENCE_CAUTION } from '@/lib/calc/cautions';
 import { isCalcError } from '@/lib/calc/errors';
 import { getRefrigerant, REFRIGERANTS, type RefrigerantId } from '@/lib/calc/refrigerants';
-import { saturationTable, type SaturationTableRow } from '@/lib/calc/saturation';
+import { chartRange, saturationTable, type SaturationTableRow } from '@/lib/calc/saturation';
 import { fromCelsius, KPA_PER_PSI, STANDARD_ATMOSPHERE_KPA, type PressureUnit } from '@/lib/calc/units';
 import {
   formatNumber,
@@ -102,7 +102,8 @@ export function PtChartTool(props: {
   }
 
   const tl = temperatureLabel(temperatureUnit);
-  const rangeHint = `${refrigerant.id} covers ${formatNumber(fromCelsius(refrigerant.range.minC, temperatureUnit), 0, 1)} to ${formatNumber(fromCelsius(refrigerant.range.maxC, temperatureUnit), 0, 1)} ${tl}.`;
+  const span = chartRange(refrigerant);
+  const rangeHint = `${refrigerant.id} covers ${formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1)} to ${formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1)} ${tl}.${span.note ? ` ${span.note}` : ''}`;
   const baroText = barometerText(barometer.kpa, barometer.elevationM, lengthUnit);
 
   return (

@@ -6,7 +6,7 @@ import { Field, Input } from '@/components/ui/field';
 import { isCalcError } from '@/lib/calc/errors';
 import type { Refrigerant } from '@/lib/calc/refrigerants';
 import { saturationLookup } from '@/lib/calc/saturation';
-import { fromCelsius, fromKpaAbs, temperatureDifferenceFromKelvin, toCelsius, toKpaAbs, type PressureUnit } from '@/lib/calc/units';
+import { fromCelsius, fromKpaAbs, isGaugeUnit, temperatureDifferenceFromKelvin, toCelsius, toKpaAbs, type PressureUnit } from '@/lib/calc/units';
 import {
   formatNumber,
   formatPressure,
@@ -58,24 +58,35 @@ export function PtConverter({ refrigerant, temperatureUnit, pressureUnit, barome
   });
 
   const fromPressure = run(pressure, (p) => {
-    const r = saturationLookup({ kind: 'pressure', refrigerant: refrigerant.id, pressure: p, unit: pressureUnit, barometricKpa });
+    const r = saturationLookup({ kind: 'pressure', refrigerant: refrigerant.id, pressure: p, unit: pressureUnit, barometricKpa, temperatureUnit });
     if (r.kind !== 'pressure') return [];
-    const t = (c: number) => `${formatNumber(fromCelsius(c, temperatureUnit), 1)} ${tl}`;
-    return blend
+    const t = (v: number) => `${formatNumber(v, 1)} ${tl}`;
+    const values = blend
       ? [
-          { label: 'Bubble (liquid)', value: t(r.bubbleC) },
-          { label: 'Dew (vapour)', value: t(r.dewC) },
+          { label: 'Bubble (liquid)', value: t(r.bubble) },
+          { label: 'Dew (vapour)', value: t(r.dew) },
           { label: 'Glide', value: `${formatNumber(temperatureDifferenceFromKelvin(r.glideK, temperatureUnit), 1)} ${temperatureUnit === 'F' ? '°F' : 'K'}` },
         ]
-      : [{ label: 'Saturation temperature', value: t(r.bubbleC) }];
+      : [{ label: 'Saturation temperature', value: t(r.bubble) }];
+    // Away from sea level, also offer what a sea-level pocket chart reads for the same gauge reading.
+    if (r.seaLevel) {
+      values.push(
+        blend
+          ? { label: 'Sea-level chart (dew)', value: t(r.seaLevel.dew) }
+          : { label: 'Sea-level chart', value: t(r.seaLevel.bubble) },
+      );
+    }
+    return values;
   });
+  const offSeaLevel = Math.abs(barometricKpa - 101.325) > 1e-6 && isGaugeUnit(pressureUnit);
 
   return (
     <Card className="grid gap-5">
       <div>
         <h2 className="text-lg font-bold text-slate-900">Converter</h2>
         <p className="text-sm text-slate-600">
-          {refrigerant.id}, {blend ? 'bubble and dew points' : 'one saturation curve'}; gauge pressures against {formatNumber(barometricKpa, 2)} kPa.
+          {refrigerant.id}, {blend ? 'bubble and dew points' : 'one saturation curve'}; gauge pressures against a barometer of {formatNumber(barometricKpa, 1)} kPa
+          {offSeaLevel ? ' (corrected for the site’s elevation; the sea-level chart value, 101.3 kPa, is shown beside it)' : ' (sea level)'}.
         </p>
       </div>
       <Direction

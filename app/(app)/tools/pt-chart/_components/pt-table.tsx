@@ -1,5 +1,5 @@
 import type { Refrigerant } from '@/lib/calc/refrigerants';
-import type { SaturationTableRow } from '@/lib/calc/saturation';
+import { chartRange, type SaturationTableRow } from '@/lib/calc/saturation';
 import { fromCelsius, isGaugeUnit, type PressureUnit } from '@/lib/calc/units';
 import {
   formatNumber,
@@ -15,15 +15,18 @@ export function PtTable(props: { refrigerant: Refrigerant; rows: SaturationTable
   const tl = temperatureLabel(temperatureUnit);
   const pl = pressureLabel(pressureUnit);
   const blend = r.zeotropic;
-  const min = formatNumber(fromCelsius(r.range.minC, temperatureUnit), 0, 1);
-  const max = formatNumber(fromCelsius(r.range.maxC, temperatureUnit), 0, 1);
+  const span = chartRange(r);
+  const min = formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1);
+  const max = formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1);
   const anyVacuum = isGaugeUnit(pressureUnit) && rows.some((row) => row.dew < 0 || row.bubble < 0);
 
   return (
     <div className="grid gap-2">
+      {span.note ? <p className="text-sm text-slate-700">{span.note}</p> : null}
       {props.clipped ? (
         <p className="text-sm text-slate-700">
-          Rows outside {r.id}&rsquo;s range ({min} to {max} {tl}) are left out: {r.critical ? 'there is no saturation above the critical point' : 'data beyond it are low-confidence'}.
+          Rows outside {r.id}&rsquo;s chart range ({min} to {max} {tl}) are left out:{' '}
+          {span.note ? 'see the note above' : r.critical ? 'there is no saturation above the critical point' : 'data beyond it are low-confidence'}.
         </p>
       ) : null}
       {rows.length === 0 ? (

@@ -18,7 +18,7 @@ export function RefrigerantSafety({ refrigerant: r }: { refrigerant: Refrigerant
           <span className="font-semibold">Safety class {r.safetyClass}</span>: {SAFETY_CLASS_WORDS[r.safetyClass]}.{' '}
           <span className="text-slate-700">
             {r.chemicalName}
-            {glide !== null ? `; glide about ${formatNumber(glide, 1)} K (${formatNumber(glide * 1.8, 1)} °F) at 1 atm` : ''}. GWP {r.gwpAr4} (AR4).
+            {glide !== null ? `; glide about ${formatNumber(glide, 1)} K (${formatNumber(glide * 1.8, 1)} °F) at 1 atm` : ''}. {gwpText(r)}.
           </span>
         </span>
       </p>
@@ -31,4 +31,11 @@ export function RefrigerantSafety({ refrigerant: r }: { refrigerant: Refrigerant
       ) : null}
     </div>
   );
+}
+
+/** GWP with its basis: AR4 where IPCC AR4 lists it, else AR5, else the regulatory figure, said as such. */
+function gwpText(r: Refrigerant): string {
+  if (r.gwpAr4 !== null) return `GWP ${r.gwpAr4} (IPCC AR4)${r.gwpAr5 !== null ? `, ${r.gwpAr5} (AR5)` : ''}`;
+  if (r.gwpAr5 !== null) return `GWP ${r.gwpAr5} (IPCC AR5; not in AR4), ${r.gwpEu517} as EU 517/2014 counts it`;
+  return `GWP ${r.gwpEu517} as EU 517/2014 counts it (not tabulated by IPCC AR4 or AR5)`;
 }
