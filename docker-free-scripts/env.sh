@@ -20,7 +20,7 @@
 #   data       .data/dev           .data/test            .data/bench
 #
 # test and bench share ports, so they never run at the same time (the scripts refuse to).
-# lane1 … lane4 are private copies of the test profile for people working in one checkout at once
+# lane1 … lane9 are private copies of the test profile for people working in one checkout at once
 # (RIMELINE_TEST_PROFILE=lane2 npm test …): PostgreSQL 5440N, S3 458N, SMTP 104N, mail API 109N,
 # app 320N, data .data/laneN, build folder .next-laneN.
 
@@ -35,14 +35,14 @@ case "$_rl_env_profile" in
   dev)   _rl_env_ports="54329 rimeline 4570 rimeline 1025 1080 3000" ;;
   test)  _rl_env_ports="54339 rimeline_test 4571 rimeline-test 1026 1081 3100" ;;
   bench) _rl_env_ports="54339 rimeline_bench 4571 rimeline-bench 1026 1081 3100" ;;
-  lane[1-4])
+  lane[1-9])
     _rl_env_n="${_rl_env_profile#lane}"
     _rl_env_ports="5440$_rl_env_n rimeline_lane$_rl_env_n 458$_rl_env_n rimeline-lane$_rl_env_n 104$_rl_env_n 109$_rl_env_n 320$_rl_env_n"
     export NEXT_DIST_DIR=".next-lane$_rl_env_n"
     unset _rl_env_n
     ;;
   *)
-    echo "env.sh: unknown profile '$_rl_env_profile' (use dev, test, bench or lane1…lane4)" >&2
+    echo "env.sh: unknown profile '$_rl_env_profile' (use dev, test, bench or lane1…lane9)" >&2
     unset _rl_env_profile _rl_env_root
     return 1 2>/dev/null || exit 1
     ;;

@@ -50,7 +50,7 @@ fi
 rl_check_node
 # The test profile, or a private lane (lane1…lane4) so that several people can test at once.
 profile="${RIMELINE_TEST_PROFILE:-test}"
-case "$profile" in test|lane[1-4]) ;; *) echo "test.sh: RIMELINE_TEST_PROFILE must be test or lane1…lane4" >&2; exit 2 ;; esac
+case "$profile" in test|lane[1-9]) ;; *) echo "test.sh: RIMELINE_TEST_PROFILE must be test or lane1…lane9" >&2; exit 2 ;; esac
 # shellcheck source=docker-free-scripts/env.sh
 source docker-free-scripts/env.sh "$profile"
 RL_DIST="${NEXT_DIST_DIR:-.next}"   # a lane builds into its own folder
