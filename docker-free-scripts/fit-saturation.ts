@@ -1,7 +1,7 @@
 // Fits the saturation-curve constants in lib/calc/saturation-coefficients.ts.
 //
 // Data: CoolProp 8.0.0 reference EOS (MIT), tests/fixtures/reference/saturation.csv and fluids.csv
-// (copies of shared/reference/). No product pressure-temperature table is used.
+// (CoolProp's own output, computed for this project). No product pressure-temperature table is used.
 //
 // Form: the Wagner "2.5-5" vapour-pressure equation (Wagner 1973; as given in Poling, Prausnitz &
 // O'Connell, The Properties of Gases and Liquids, 5th ed., eq. 7-3.3):

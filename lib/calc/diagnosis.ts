@@ -24,6 +24,7 @@ export interface DiagnosisInput {
 export type SuggestionCode =
   | 'undercharge_or_liquid_restriction'
   | 'metering_device_starving'
+  | 'evaporator_starving'
   | 'overfeeding_or_flooding'
   | 'low_evaporator_airflow'
   | 'condenser_airflow_or_noncondensables'
@@ -67,6 +68,8 @@ interface Rule {
   when: { key: Key; direction: 'low' | 'high' }[];
   /** Conditions that add weight but are not required. */
   alsoWhen?: { key: Key; direction: 'low' | 'high' }[];
+  /** Readings that argue against it: each subtracts its weight (watch 1, abnormal 2). */
+  against?: { key: Key; direction: 'low' | 'high' }[];
   /** Evaluated only when the metering device is (or may be) this. */
   metering?: 'txv' | 'fixed';
   /** Tie-breaker among equal scores: more specific patterns first. */
@@ -111,6 +114,20 @@ const RULES: readonly Rule[] = [
     priority: 10,
   },
   {
+    code: 'evaporator_starving',
+    title: 'Evaporator short of refrigerant (check charge and metering device)',
+    reasoning:
+      'High superheat: the refrigerant boils off early in the coil, so the evaporator is starved. Subcooling tells which: low points to charge or a restriction before the valve, high to the valve itself.',
+    checks: [
+      'Measure subcooling at the liquid line (with a liquid-line pressure if there is a port).',
+      'Check the sight glass, the filter-drier temperature drop and the TXV bulb.',
+      'Make sure the box is not simply in pull-down from a warm start (a warm box raises superheat and TD together).',
+    ],
+    when: [{ key: 'superheat', direction: 'high' }],
+    alsoWhen: [{ key: 'evaporatorTd', direction: 'high' }],
+    priority: 7,
+  },
+  {
     code: 'low_evaporator_airflow',
     title: 'Low airflow over the evaporator: iced or dirty coil, or a fan failure',
     reasoning:
@@ -122,6 +139,8 @@ const RULES: readonly Rule[] = [
     ],
     when: [{ key: 'evaporatorTd', direction: 'high' }],
     alsoWhen: [{ key: 'superheat', direction: 'low' }],
+    // A starved coil also shows a large TD, but with high superheat rather than low.
+    against: [{ key: 'superheat', direction: 'high' }],
     priority: 8,
   },
   {
@@ -242,7 +261,8 @@ export function suggestCauses(input: DiagnosisInput, limit = 4): Suggestion[] {
     const required = rule.when.map((c) => off(input[c.key], c.direction));
     if (required.some((s) => s === 0)) continue;
     const extra = (rule.alsoWhen ?? []).map((c) => ({ c, s: off(input[c.key], c.direction) }));
-    const score = required.reduce((a, b) => a + b, 0) + extra.reduce((a, e) => a + e.s, 0);
+    const penalty = (rule.against ?? []).reduce((a, c) => a + off(input[c.key], c.direction), 0);
+    const score = required.reduce((a, b) => a + b, 0) + extra.reduce((a, e) => a + e.s, 0) - penalty;
     const basedOn = [...rule.when.map((c) => c.key), ...extra.filter((e) => e.s > 0).map((e) => e.c.key)];
     scored.push({ rule, score, basedOn });
   }

@@ -140,7 +140,7 @@ export function lowPressureControl(input: LowPressureControlInput): LowPressureC
         `The cut-out (${formatPressure(cutOut, input.unit)}) is below the ${r.id} triple point ` +
         `(${formatPressure(fromKpaAbs(r.triplePoint.pKpaAbs, input.unit, barometricKpa), input.unit)}, ${formatTemperature(fromCelsius(r.triplePoint.tC, tu), tu)}): ` +
         'dry ice can form in the evaporator and block it. Set the cut-out above the triple-point pressure.',
-      basis: `${r.id} triple point 517.96 kPa abs at −56.56 °C (Span & Wagner 1996, CoolProp 8.0.0; tests/fixtures/reference/fluids.csv).`,
+      basis: `${r.id} triple-point pressure 517.96 kPa abs (Span & Wagner 1996, CoolProp 8.0.0; tests/fixtures/reference/fluids.csv).`,
     });
   }
   if (input.designBoxTemp !== undefined) {

@@ -59,7 +59,7 @@ export function toKpaAbs(value: number, unit: PressureUnit, barometricKpa = STAN
   if (kpa <= 0) {
     const floor = isGaugeUnit(unit) ? -barometricKpa / kpaPerPressureStep(unit) : 0;
     throw new CalcInputError(
-      `${fmt(value, 3)} ${pressureUnitLabel(unit)} is not a possible pressure (perfect vacuum is ${fmt(floor, 3)} ${pressureUnitLabel(unit)})`,
+      `${fmt(value, 2)} ${pressureUnitLabel(unit)} is not a possible pressure (perfect vacuum is ${fmt(floor, 2)} ${pressureUnitLabel(unit)})`,
       'pressure',
     );
   }

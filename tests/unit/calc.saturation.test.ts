@@ -365,7 +365,7 @@ describe('invalid input is rejected with a clear message', () => {
     expect(() => saturationTemperatureC('R-22', Number.NaN, 'dew')).toThrow(CalcInputError);
     expect(() => saturationTemperatureC('R-22', -5, 'dew')).toThrow(/greater than zero/);
     expect(() => saturationLookup({ kind: 'pressure', refrigerant: 'R-22', pressure: -20, unit: 'psig' })).toThrow(
-      '-20 psig is not a possible pressure (perfect vacuum is -14.696 psig)',
+      '-20 psig is not a possible pressure (perfect vacuum is -14.7 psig)',
     );
   });
 

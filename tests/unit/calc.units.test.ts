@@ -87,7 +87,7 @@ describe('units, TRADE-REFERENCE §2 (NIST SP 811)', () => {
 
   it('rejects impossible or non-numeric values with a clear message', () => {
     expect(() => toKpaAbs(-15, 'psig')).toThrow(CalcInputError);
-    expect(() => toKpaAbs(-15, 'psig')).toThrow('-15 psig is not a possible pressure (perfect vacuum is -14.696 psig)');
+    expect(() => toKpaAbs(-15, 'psig')).toThrow('-15 psig is not a possible pressure (perfect vacuum is -14.7 psig)');
     expect(() => toKpaAbs(0, 'kPaAbs')).toThrow(/not a possible pressure/);
     expect(() => toKpaAbs(Number.NaN, 'psig')).toThrow('pressure must be a finite number (got NaN)');
     expect(() => toKpaAbs(10, 'psig', 0)).toThrow(/barometric pressure must be greater than zero/);
