@@ -1,0 +1,104 @@
+import 'server-only';
+import type { Kysely, Transaction } from 'kysely';
+import { db as defaultDb } from '@/db';
+import type { DB } from '@/db/schema.gen';
+import { assertCan } from '@/lib/auth/access';
+import type { Actor } from '@/lib/auth/actor';
+import { AppError } from '@/lib/errors';
+import { packFollowUpsQuery, packHistoryQuery, packOpenVisitQuery, packUnitsQuery } from '@/lib/sites/pack-queries';
+import { SITE_PACK_VERSION, type PackEntry, type PackUnit, type SitePack } from '@/lib/sites/pack-schema';
+import { getSite } from '@/lib/sites/service';
+import { normalizeCode } from '@/lib/tags/code';
+import { siteEntryContexts } from '@/lib/visits/context';
+
+// What a phone keeps of one site to work there without signal (lib/sites/pack-schema.ts). Staff
+// who record entries only: an owner never gets a pack.
+
+type Db = Kysely<DB> | Transaction<DB>;
+
+const iso = (d: Date | string) => (d instanceof Date ? d.toISOString() : new Date(d).toISOString());
+
+export async function getSitePack(actor: Actor, siteId: string, db: Db = defaultDb): Promise<SitePack> {
+  assertCan(actor, 'equipment.read');
+  assertCan(actor, 'entries.write');
+  if (actor.role === 'client') throw new AppError('forbidden');
+  // Scoped like every site read: another company's site is a 404.
+  const site = await getSite(actor, siteId, db);
+  const [unitRows, historyRows, followUpRows, openVisit, contexts] = await Promise.all([
+    packUnitsQuery(actor, db, siteId).execute(),
+    packHistoryQuery(actor, db, siteId).execute(),
+    packFollowUpsQuery(actor, db, siteId).execute(),
+    packOpenVisitQuery(actor, db, siteId).executeTakeFirst(),
+    siteEntryContexts(actor, siteId, db),
+  ]);
+
+  const history = new Map<string, PackEntry[]>();
+  for (const r of historyRows) {
+    const list = history.get(r.equipment_id) ?? [];
+    list.push({
+      id: r.id,
+      visitId: r.visit_id,
+      equipmentId: r.equipment_id,
+      equipmentName: r.equipment_name,
+      equipmentType: r.equipment_type,
+      kind: r.kind as PackEntry['kind'],
+      data: (r.data ?? {}) as Record<string, unknown>,
+      computed: (r.computed as Record<string, unknown> | null) ?? null,
+      recordedAt: iso(r.recorded_at),
+      createdBy: r.created_by,
+      createdByName: r.author_name,
+      voidedAt: null,
+      voidReason: null,
+      clientEntryId: r.client_entry_id,
+      visit: {
+        reason: r.visit_reason as PackEntry['visit']['reason'],
+        startedAt: iso(r.visit_started_at),
+        technicianName: r.technician_name,
+        status: r.visit_status as 'open' | 'closed',
+        timeZone: r.visit_time_zone,
+      },
+    });
+    history.set(r.equipment_id, list);
+  }
+
+  const units: PackUnit[] = unitRows.map((r) => ({
+    id: r.id,
+    name: r.name,
+    type: r.type as PackUnit['type'],
+    areaId: r.area_id,
+    areaName: r.area_name,
+    systemId: r.system_id,
+    systemName: r.system_name,
+    refrigerant: r.refrigerant,
+    make: r.make,
+    model: r.model,
+    serial: r.serial,
+    nameplate: (r.nameplate ?? {}) as Record<string, unknown>,
+    tagCode: r.tag_code ? normalizeCode(r.tag_code) : null,
+    condition: r.condition,
+    conditionNote: r.condition_note,
+    status: r.status as PackUnit['status'],
+    history: history.get(r.id) ?? [],
+  }));
+  const current = new Set(units.map((u) => u.id));
+
+  return {
+    version: SITE_PACK_VERSION,
+    takenAt: new Date().toISOString(),
+    viewer: { id: actor.id, role: actor.role as SitePack['viewer']['role'], units: actor.units, metricPressure: actor.metricPressure },
+    site: { id: site.id, name: site.name, clientName: site.clientName, timeZone: site.timeZone, elevationM: site.elevationM },
+    openVisitId: openVisit?.id ?? null,
+    units,
+    followUps: followUpRows.map((f) => ({
+      id: f.id,
+      equipmentId: f.equipment_id,
+      title: f.title,
+      severity: f.severity as SitePack['followUps'][number]['severity'],
+      status: f.status as 'open' | 'scheduled',
+      scheduledFor: f.scheduled_for,
+      createdAt: iso(f.created_at),
+    })),
+    // Contexts of the units the pack holds only.
+    contexts: Object.fromEntries(Object.entries(contexts).filter(([id]) => current.has(id))),
+  };
+}
