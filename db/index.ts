@@ -2,14 +2,36 @@ import 'server-only';
 import { Kysely, PostgresDialect } from 'kysely';
 import { pg } from '@/db/pg-types';
 import { env } from '@/lib/env';
+import { logger } from '@/lib/logger';
 import type { DB } from '@/db/schema.gen';
 
 export type Database = DB;
 
 const globalForDb = globalThis as unknown as { rimelineDb?: Kysely<DB> };
 
+/**
+ * An idle pooled connection that the server drops (a restart, a failover) is reported as an
+ * 'error' event on the pool; without a listener Node treats it as uncaught. The pool discards
+ * such clients itself, so the event is only logged: once per outage, not once per connection,
+ * with a note when a new connection succeeds again.
+ */
+export function watchPool(pool: InstanceType<typeof pg.Pool>, log: Pick<typeof logger, 'error' | 'info'> = logger): void {
+  let failing = false;
+  pool.on('error', (err: Error) => {
+    if (failing) return;
+    failing = true;
+    log.error({ err: err.message }, 'database connection lost; the pool reconnects on the next query');
+  });
+  pool.on('connect', () => {
+    if (!failing) return;
+    failing = false;
+    log.info('database connection restored');
+  });
+}
+
 function createDb(): Kysely<DB> {
   const pool = new pg.Pool({ connectionString: env.DATABASE_URL, max: env.DATABASE_POOL_MAX });
+  watchPool(pool);
   return new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
 }
 

@@ -39,23 +39,48 @@ export async function enqueueMail(mail: OutgoingMail, db: Kysely<DB> | Transacti
 }
 
 const MAX_ATTEMPTS = 12;
-const LOCK_SECONDS = 60;
+/**
+ * A claimed row stays leased this long: long enough for the mark-as-sent retries below, so a
+ * database restart between "the server accepted it" and "marked sent" cannot make another pass
+ * (or app copy) send the message again.
+ */
+const LEASE_SECONDS = 10 * 60;
+/** Waits between tries to record a sent message (about four minutes in all, inside the lease). */
+const MARK_RETRY_MS = [250, 500, 1000, 2000, 4000, 8000, 15000, 30000, 60000, 120000];
 
 /** Retry delay grows with each attempt: 15 s, 30 s, 1 min … capped at 1 hour. */
 export function retryDelaySeconds(attempts: number): number {
   return Math.min(3600, 15 * 2 ** Math.max(0, attempts - 1));
 }
 
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** Tries `write` until it succeeds or the retries run out (then throws the last error). */
+async function persistently(write: () => Promise<unknown>, delays: number[]): Promise<void> {
+  for (let i = 0; ; i++) {
+    try {
+      await write();
+      return;
+    } catch (error) {
+      if (i >= delays.length) throw error;
+      await sleep(delays[i]!);
+    }
+  }
+}
+
 /**
  * Deliver due messages. Rows are claimed with SKIP LOCKED and a lease, so several app copies can
- * run this at once without sending a message twice; a message is marked sent right after the
- * server accepts it, and its fixed Message-ID lets receivers drop a duplicate if a crash falls
- * exactly between the two.
+ * run this at once without sending a message twice. After the mail server accepts a message,
+ * recording it as sent is retried through a database outage for as long as the lease lasts; a
+ * failed send is recorded the same way, and a pass whose records cannot be written stops rather
+ * than sending more. What remains at-least-once: the process dying (or the database staying away
+ * longer than the lease) between acceptance and the record; the message is then sent again with
+ * the same Message-ID, so receivers can drop the duplicate.
  */
-export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb): Promise<{ sent: number; failed: number }> {
+export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb, markRetryMs = MARK_RETRY_MS): Promise<{ sent: number; failed: number }> {
   const claimed = await db
     .updateTable('mail_outbox')
-    .set({ locked_until: sql`now() + make_interval(secs => ${LOCK_SECONDS})` })
+    .set({ locked_until: sql`now() + make_interval(secs => ${LEASE_SECONDS})` })
     .where(
       'id',
       'in',
@@ -76,6 +101,7 @@ export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb): Pr
   let sent = 0;
   let failed = 0;
   for (const m of claimed) {
+    let sendError: unknown = null;
     try {
       await mailTransport.sendMail({
         from: env.MAIL_FROM,
@@ -85,28 +111,42 @@ export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb): Pr
         html: m.html_body ?? undefined,
         messageId: m.message_id,
       });
-      await db
-        .updateTable('mail_outbox')
-        .set({ status: 'sent', sent_at: sql`now()`, attempts: m.attempts + 1, locked_until: null, last_error: null })
-        .where('id', '=', m.id)
-        .execute();
-      sent++;
     } catch (error) {
-      const attempts = m.attempts + 1;
-      const message = error instanceof Error ? error.message : String(error);
-      await db
-        .updateTable('mail_outbox')
-        .set({
-          attempts,
-          last_error: message.slice(0, 500),
-          locked_until: null,
-          status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
-          next_attempt_at: sql`now() + make_interval(secs => ${retryDelaySeconds(attempts)})`,
-        })
-        .where('id', '=', m.id)
-        .execute();
+      sendError = error;
+    }
+    const attempts = m.attempts + 1;
+    const message = sendError instanceof Error ? sendError.message : String(sendError);
+    const record = sendError
+      ? () =>
+          db
+            .updateTable('mail_outbox')
+            .set({
+              attempts,
+              last_error: message.slice(0, 500),
+              locked_until: null,
+              status: attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
+              next_attempt_at: sql`now() + make_interval(secs => ${retryDelaySeconds(attempts)})`,
+            })
+            .where('id', '=', m.id)
+            .execute()
+      : () =>
+          db
+            .updateTable('mail_outbox')
+            .set({ status: 'sent', sent_at: sql`now()`, attempts, locked_until: null, last_error: null })
+            .where('id', '=', m.id)
+            .execute();
+    try {
+      await persistently(record, markRetryMs);
+    } catch (error) {
+      // The rows still leased stay untouched until their lease ends; nothing more is sent now.
+      logger.error({ outboxId: m.id, sent: !sendError, err: String(error) }, 'mail outbox could not record a delivery; pass stopped');
+      break;
+    }
+    if (sendError) {
       logger.warn({ outboxId: m.id, attempts, err: message }, 'mail delivery failed; will retry');
       failed++;
+    } else {
+      sent++;
     }
   }
   return { sent, failed };

@@ -12,26 +12,42 @@ function isTimeZone(value: string): boolean {
 
 export const timeZoneSchema = z.string().trim().refine(isTimeZone, 'Choose a valid time zone, e.g. America/Denver.');
 
-// Elevation bounds cover every inhabited place (Dead Sea shore to high Andean towns).
-export const elevationMSchema = z.coerce
-  .number({ message: 'Enter the elevation as a number.' })
-  .min(-500, 'Elevation must be at least −500 m.')
-  .max(6000, 'Elevation must be at most 6000 m.');
+// Elevation bounds cover every inhabited place (Dead Sea shore to high Andean towns). A number
+// or numeric text (forms) only: null, "", [] or true are refused rather than coerced to 0 m,
+// which would silently shift every saturation temperature computed for the site.
+export const elevationMSchema = z.preprocess(
+  (v) => (typeof v === 'string' && v.trim() !== '' ? Number(v) : v),
+  z
+    .number({ message: 'Enter the elevation as a number.' })
+    .min(-500, 'Elevation must be at least −500 m.')
+    .max(6000, 'Elevation must be at most 6000 m.'),
+);
 
-export const createSiteSchema = z.object({
-  clientId: z.uuid('Choose a client.'),
+const countrySchema = z.string().trim().length(2, 'Use the two-letter country code.').toUpperCase();
+
+const siteFields = {
   name: requiredText('Name', 120),
   addressLine1: optionalText(200),
   addressLine2: optionalText(200),
   city: optionalText(100),
   region: optionalText(100),
   postalCode: optionalText(20),
-  country: z.string().trim().length(2, 'Use the two-letter country code.').toUpperCase().default('US'),
+  country: countrySchema,
+  timeZone: timeZoneSchema,
+  elevationM: elevationMSchema,
+  accessNotes: optionalText(2000),
+};
+
+export const createSiteSchema = z.object({
+  clientId: z.uuid('Choose a client.'),
+  ...siteFields,
+  country: countrySchema.default('US'),
   timeZone: timeZoneSchema.default('America/Chicago'),
   elevationM: elevationMSchema.default(0),
-  accessNotes: optionalText(2000),
 });
-export const updateSiteSchema = createSiteSchema.omit({ clientId: true }).partial();
+// Built without the create defaults: a field left out of an edit keeps its stored value (zod
+// applies an inner default even under .partial(), which turned every edit's elevation into 0 m).
+export const updateSiteSchema = z.object(siteFields).partial();
 export const listSitesQuerySchema = listQueryBase.extend({ clientId: z.uuid().optional() });
 
 export const areaKinds = [

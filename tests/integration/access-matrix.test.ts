@@ -204,7 +204,7 @@ const cases: Case[] = [
   { name: 'GET /api/tags?equipmentId=', route: () => import('@/app/api/tags/route'), method: 'GET', path: '/api/x?equipmentId=EQUIPMENT', expect: all(200) },
   { name: 'GET /api/equipment/:id/photos', route: () => import('@/app/api/equipment/[id]/photos/route'), method: 'GET', params: async () => ({ id: ids.equipment }), expect: all(200) },
   { name: 'GET /api/photos/consistency', route: () => import('@/app/api/photos/consistency/route'), method: 'GET', expect: adminOnly(200) },
-  { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: all(200) },
+  { name: 'GET /api/company', route: () => import('@/app/api/company/route'), method: 'GET', expect: adminOnly(200) },
   { name: 'PATCH /api/company', route: () => import('@/app/api/company/route'), method: 'PATCH', body: () => ({ servicePhone: '555-0100' }), expect: adminOnly(200) },
 ];
 
