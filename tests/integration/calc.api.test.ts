@@ -1,6 +1,7 @@
 // The calculation JSON API (issue 4): the route handlers called directly with a stubbed session.
 // Every value check names its external source: the CoolProp 8.0.0 reference data
 // (tests/fixtures/reference/saturation.csv) or a section of ../shared/TRADE-REFERENCE.md ("TR §n").
+import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 import { saturationRows } from '@/tests/helpers/reference-data';
@@ -210,7 +211,7 @@ describe('GET /api/calc/saturation', () => {
 
   it('above the critical point → 422: R-744 at 35 °C (critical 30.98 °C, TR §1.2)', async () => {
     const error = await unprocessable('saturation', 'refrigerant=R-744&temperature=35&unit=C');
-    expect(error.message).toContain('above its critical temperature 30.98 °C');
+    expect(error.message).toContain('above its critical temperature 31 °C');
     expect(error.issues).toEqual([{ path: 'temperature', message: error.message }]);
   });
 
@@ -358,11 +359,23 @@ describe('electrical', () => {
     expect((await unprocessable('supply-voltage', 'measuredV=430&nameplateV=455')).issues[0]).toMatchObject({ path: 'nameplateV' });
   });
 
-  it('control voltage: 24 VAC ± 10 % is 21.6–26.4 V; 22 V is inside but low (TR §5.3)', async () => {
+  it('control voltage: 22 V on 24 V is marginal (low) in words; out below 85 % / above 110 % (IEC 60947-4-1, from memory; TR §5.3)', async () => {
     const body = await ok('control-voltage', 'measuredV=22');
-    expect(body).toMatchObject({ status: 'ok', minV: 21.6 });
+    expect(body).toMatchObject({ status: 'marginal', direction: 'low', level: 'watch', minV: 20.4 });
     expect(body.maxV as number).toBeCloseTo(26.4, 9);
+    expect(body.message).toMatch(/^22 V on a 24 V circuit: marginal \(low\)/);
     expect((body.notes as string[]).join(' ')).toMatch(/under load/);
+    expect(await ok('control-voltage', 'measuredV=20')).toMatchObject({ status: 'out', direction: 'low', level: 'abnormal' });
+    expect(await ok('control-voltage', 'measuredV=24.4')).toMatchObject({ status: 'ok', direction: null });
+  });
+
+  it('supply voltage on three lines: each against ANSI C84.1, the worst decides (TR §5.2, from memory)', async () => {
+    const body = await ok('supply-voltage', 'v1=470&v2=465&v3=430&nameplateV=460');
+    expect(body).toMatchObject({ verdict: 'range_b', direction: 'low', worstLine: 2, level: 'watch' });
+    expect((body.lines as Json[]).map((l) => l.verdict)).toEqual(['range_a', 'range_a', 'range_b']);
+    expect(body.message).toMatch(/^Line 3 decides: 430 V/);
+    expect((await unprocessable('supply-voltage', 'v1=470&v2=465&nameplateV=460')).issues[0]).toMatchObject({ path: 'v3' });
+    expect((await unprocessable('supply-voltage', 'nameplateV=460')).issues[0]).toMatchObject({ path: 'measuredV' });
   });
 });
 
@@ -396,5 +409,126 @@ describe('GET /api/calc/service-life', () => {
 
   it('an install date after the as-of date → 422 on installedOn', async () => {
     expect((await unprocessable('service-life', 'equipmentType=compressor&installedOn=2026-01-01&asOf=2025-01-01')).issues[0]).toMatchObject({ path: 'installedOn' });
+  });
+});
+
+describe('GET /api/calc/readings: levels, bands and suggestions (issue 14)', () => {
+  it('R-404A freezer not cooling (TR §1.4 saturation; §3/§8 bands, common practice): each value has its level and band; suggestions are a ranked guide', async () => {
+    const body = await ok(
+      'readings',
+      'refrigerant=R-404A&pressureUnit=psig&temperatureUnit=F&designBoxTemp=-10&suctionPressure=14.6&suctionLineTemp=4&headPressure=250.6&liquidLineTemp=103&boxTemp=20&ambientTemp=85',
+    );
+    const sh = body.superheat as Json;
+    expect(sh).toMatchObject({ level: 'abnormal', direction: 'high', reference: 'dew' });
+    expect((sh.band as Json).text).toBe('usual 4–6 °F for a freezer evaporator (TXV)');
+    expect((sh.band as Json).source).toMatch(/common practice/);
+    expect((body.evaporatorTd as Json).level).toBe('abnormal');
+    expect((body.subcooling as Json)).toMatchObject({ level: 'watch', pressureSource: 'head' });
+    const suggestions = body.suggestions as Json[];
+    expect(suggestions[0]).toMatchObject({ code: 'undercharge_or_liquid_restriction', rank: 1, guide: true });
+    expect(suggestions[0]!.basis).toMatch(/not a verdict/);
+    expect(body).toMatchObject({ boxClass: 'freezer', boxClassFrom: 'design_box_temperature', barometerSource: 'standard' });
+  });
+
+  it('a transcritical R-744 head keeps the suction-side values and puts its error on its own field (TR §1.2: critical 7377.3 kPa)', async () => {
+    const body = await ok('readings', 'refrigerant=R-744&pressureUnit=kPaAbs&temperatureUnit=C&suctionPressure=1969.63&suctionLineTemp=-14&headPressure=9000&liquidLineTemp=30');
+    expect((body.superheat as Json).valueK as number).toBeCloseTo(6, 1);
+    expect(body.subcooling).toBeNull();
+    expect((body.errors as Json).subcooling).toMatchObject({ field: 'headPressure', code: 'out_of_range' });
+  });
+
+  it('electrical readings ride along: 22 V on 24 V gives the transformer suggestion; three lines give unbalance and supply levels', async () => {
+    const body = await ok('readings', 'refrigerant=R-404A&pressureUnit=psig&temperatureUnit=F&controlVolts=22&v1=460&v2=467&v3=450&nameplateV=460');
+    expect(body.controlVoltage).toMatchObject({ status: 'marginal', level: 'watch' });
+    expect(body.voltageUnbalance).toMatchObject({ level: 'watch' }); // 1.96 % (TR §5.1): above 1 %, within the common 2 %
+    expect(body.supplyVoltage).toMatchObject({ verdict: 'range_a', level: 'normal' });
+    expect((body.suggestions as Json[]).map((x) => x.code)).toContain('control_transformer_or_connection');
+    expect((await unprocessable('readings', 'refrigerant=R-404A&pressureUnit=psig&temperatureUnit=F&v1=460&v2=467')).issues.map((i) => i.path)).toContain('v3');
+  });
+});
+
+describe('temperatureUnit on every endpoint; an imperial user reads °F and psig', () => {
+  const withF: Record<string, string> = {
+    saturation: 'refrigerant=R-404A&pressure=30&unit=psig&temperatureUnit=F',
+    'pt-table': 'refrigerant=R-404A&from=-40&to=40&step=10&temperatureUnit=F&pressureUnit=psig',
+    refrigerants: 'temperatureUnit=F',
+    readings: 'refrigerant=R-404A&pressureUnit=psig&temperatureUnit=F&suctionPressure=20&suctionLineTemp=30',
+    'pressure-control': 'type=low&refrigerant=R-404A&unit=psig&cutIn=30&differential=20&temperatureUnit=F',
+    'voltage-unbalance': 'v1=460&v2=467&v3=450&temperatureUnit=F',
+    'supply-voltage': 'measuredV=430&nameplateV=460&temperatureUnit=F',
+    'control-voltage': 'measuredV=22&temperatureUnit=F',
+    'leak-rate': `${validQueries['leak-rate']}&temperatureUnit=F`,
+    'service-life': `${validQueries['service-life']}&temperatureUnit=F`,
+  };
+  for (const name of Object.keys(routes)) {
+    it(`GET /api/calc/${name} takes temperatureUnit=F and answers in it; a bad unit → 422`, async () => {
+      const body = await ok(name, withF[name]!);
+      expect(body.temperatureUnit).toBe('F');
+      expect((await unprocessable(name, `${withF[name]!.replace('temperatureUnit=F', 'temperatureUnit=K')}`)).issues.map((i) => i.path)).toContain('temperatureUnit');
+    });
+  }
+
+  it('pressure-control warnings in °F and psig: cut-in above a 35 °F box, R-404A (TR §4 pump-down example range)', async () => {
+    const body = await ok('pressure-control', 'type=low&refrigerant=R-404A&unit=psig&cutIn=80&differential=60&designBoxTemp=35&temperatureUnit=F');
+    const warnings = body.warnings as { code: string; message: string }[];
+    const w = warnings.find((x) => x.code === 'cut_in_above_box')!;
+    expect(w.message).toMatch(/°F/);
+    expect(w.message).not.toMatch(/°C/);
+    const high = await ok('pressure-control', 'type=high&refrigerant=R-404A&unit=psig&cutOut=250&differential=60&temperatureUnit=F');
+    const trip = (high.warnings as { code: string; message: string }[]).find((x) => x.code === 'cut_out_below_condensing')!;
+    expect(trip.message).toMatch(/250 psig/);
+    expect(trip.message).toMatch(/°F/);
+  });
+
+  it('a range error on a pressure look-up quotes psig and °F', async () => {
+    const error = await unprocessable('saturation', 'refrigerant=R-404A&pressure=700&unit=psig&temperatureUnit=F');
+    expect(error.message).toMatch(/psig/);
+    expect(error.message).not.toMatch(/°C|kPa/);
+  });
+
+  it('the saturation look-up at 1610 m names its barometer and offers the sea-level value (ISO 2533; TR §1.4: 14.6 psig ↔ −30 °C dew)', async () => {
+    const body = await ok('saturation', 'refrigerant=R-404A&pressure=14.6&unit=psig&temperatureUnit=F&elevationM=1610');
+    expect(body.barometricKpa as number).toBeCloseTo(101.325 * Math.pow(1 - 2.25577e-5 * 1610, 5.25588), 6);
+    expect(((body.seaLevel as Json).dew as number)).toBeCloseTo(-22, 0);
+    expect(body.dew as number).toBeLessThan(((body.seaLevel as Json).dew as number) - 3);
+  });
+});
+
+describe('no raw float in any message of the calculation API (property test)', () => {
+  const RAW_FLOAT = /\d\.\d{3,}/;
+  const strings = (v: unknown, out: string[] = []): string[] => {
+    if (typeof v === 'string') out.push(v);
+    else if (Array.isArray(v)) v.forEach((x) => strings(x, out));
+    else if (v && typeof v === 'object') Object.values(v).forEach((x) => strings(x, out));
+    return out;
+  };
+  const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+  const refrigerant = fc.constantFrom('R-404A', 'R-134a', 'R-744', 'R-407C', 'R-448A', 'R-290', 'R-22');
+  const unit = fc.constantFrom('C', 'F');
+  const queries: fc.Arbitrary<[string, string]> = fc.oneof(
+    fc.tuple(refrigerant, unit, num(-20, 600), num(-40, 80), num(-20, 2500), num(-40, 160), num(-40, 60), num(-20, 120)).map(([r, u, sp, sl, hp, ll, box, amb]) => [
+      'readings',
+      `refrigerant=${r}&pressureUnit=psig&temperatureUnit=${u}&suctionPressure=${sp}&suctionLineTemp=${sl}&headPressure=${hp}&liquidLineTemp=${ll}&boxTemp=${box}&ambientTemp=${amb}&controlVolts=${Math.abs(sl) + 1}`,
+    ] as [string, string]),
+    fc.tuple(refrigerant, unit, num(-10, 2000), num(0.5, 300)).map(([r, u, set, diff]) => [
+      'pressure-control',
+      `type=${diff > 150 ? 'high' : 'low'}&refrigerant=${r}&unit=psig&${diff > 150 ? 'cutOut' : 'cutIn'}=${set}&differential=${diff}&temperatureUnit=${u}&designBoxTemp=${set / 10}`,
+    ] as [string, string]),
+    fc.tuple(refrigerant, unit, num(-20, 1500)).map(([r, u, p]) => ['saturation', `refrigerant=${r}&pressure=${p}&unit=psig&temperatureUnit=${u}&elevationM=1610`] as [string, string]),
+    fc.tuple(num(50, 600), num(50, 600), num(50, 600), fc.constantFrom(208, 230, 460)).map(([a, b, c, n]) => ['supply-voltage', `v1=${a}&v2=${b}&v3=${c}&nameplateV=${n}`] as [string, string]),
+    fc.tuple(num(1, 40)).map(([v]) => ['control-voltage', `measuredV=${v}`] as [string, string]),
+    fc.tuple(num(50, 600), num(50, 600), num(50, 600)).map(([a, b, c]) => ['voltage-unbalance', `v1=${a}&v2=${b}&v3=${c}`] as [string, string]),
+  );
+
+  it('over random queries, every string in the answer (or its 422 error) has at most two decimals', async () => {
+    await fc.assert(
+      fc.asyncProperty(queries, async ([name, query]) => {
+        const res = await get(name, query);
+        expect([200, 422], JSON.stringify(res.body)).toContain(res.status);
+        // Section numbers of cited rules ("29 CFR 1910.147") are citations, not measured values.
+        for (const text of strings(res.body)) expect(text.replace(/\b\d+ CFR \d+\.\d+/g, 'CFR §'), `${name}?${query}`).not.toMatch(RAW_FLOAT);
+      }),
+      { numRuns: 150 },
+    );
   });
 });
