@@ -103,7 +103,7 @@ export function PtChartTool(props: {
 
   const tl = temperatureLabel(temperatureUnit);
   const span = chartRange(refrigerant);
-  const rangeHint = `${refrigerant.id} covers ${formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1)} to ${formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1)} ${tl}.${span.note ? ` ${span.note}` : ''}`;
+  const rangeHint = `${refrigerant.id} covers ${formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1)} to ${formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1)} ${tl}.`;
   const baroText = barometerText(barometer.kpa, barometer.elevationM, lengthUnit);
 
   return (
