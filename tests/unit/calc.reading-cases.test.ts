@@ -128,7 +128,7 @@ describe('reading cases: levels and suggestions', () => {
       expect(value!.level, `${key} (${c.source})`).toBe(level);
     }
     for (const [key, expected] of Object.entries(c.values ?? {})) {
-      const v = r[key as keyof typeof c.values]!;
+      const v = r[key as 'superheat' | 'subcooling' | 'evaporatorTd' | 'condenserSplit']!;
       const inUnit = c.input.temperatureUnit === 'F' ? v.value : v.valueK;
       expect(inUnit, `${key} (${c.source})`).toBeCloseTo(expected, 0);
     }
