@@ -365,6 +365,7 @@ export interface Users {
 }
 
 export interface Visits {
+  close_client_id: string | null;
   closed_by: string | null;
   company_id: string;
   created_at: Generated<Timestamp>;

@@ -14,3 +14,8 @@ export function formatDay(value: string, timeZone = 'UTC'): string {
 export function localDate(at: Date, timeZone: string): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at);
 }
+
+/** The time of day an instant was in a time zone ("2:05 PM"), for entries within one visit. */
+export function formatClock(value: string, timeZone = 'UTC'): string {
+  return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit' }).format(new Date(value));
+}

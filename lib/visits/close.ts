@@ -32,7 +32,12 @@ export async function closeVisit(
   opts: { report: 'now' | 'on-download' } = { report: 'now' },
 ): Promise<VisitDto> {
   assertCan(actor, 'visits.start');
-  const visit = await db.transaction().execute(async (trx) => {
+  const result = await db.transaction().execute(async (trx) => {
+    if (input.clientCloseId) {
+      // The same close sent again (its answer was lost): it already went through.
+      const done = await trx.selectFrom('visits').select('id').where('id', '=', visitId).where('status', '=', 'closed').where('close_client_id', '=', input.clientCloseId).executeTakeFirst();
+      if (done) return { visit: await getVisitSummary(actor, visitId, trx), repeat: true };
+    }
     const current = await openVisitForWriting(actor, visitId, trx);
     const detail = await getVisit(actor, visitId, trx);
     if (detail.openBypasses.length > 0) {
@@ -67,6 +72,7 @@ export async function closeVisit(
         summary: input.summary,
         ended_at: input.endedAt ? new Date(input.endedAt) : sql`now()`,
         closed_by: actor.id,
+        close_client_id: input.clientCloseId ?? null,
         updated_at: sql`now()`,
       })
       .where('id', '=', visitId)
@@ -74,13 +80,14 @@ export async function closeVisit(
     const after = await getVisitSummary(actor, visitId, trx);
     await recordAudit(trx, actor, { action: 'close', entityType: 'visit', entityId: visitId, before: current, after });
     await queueVisitReport(actor, visitId, trx);
-    return after;
+    return { visit: after, repeat: false };
   });
+  if (result.repeat) return result.visit;
   kickMailDelivery();
-  if (opts.report === 'on-download') return visit;
+  if (opts.report === 'on-download') return result.visit;
   // The PDF is made now when the store answers, else on the first download.
   await ensureVisitReport(actor, visitId, db).catch((err: unknown) => logger.warn({ err: String(err), visitId }, 'visit report not stored yet'));
-  return visit;
+  return result.visit;
 }
 
 /**

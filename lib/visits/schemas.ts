@@ -62,6 +62,8 @@ export const createEntrySchema = z.discriminatedUnion(
 );
 
 export const startVisitSchema = z.object({
+  /** Made on the phone when the visit is started without signal; a repeat returns the same visit. */
+  id: z.uuid().optional(),
   siteId: z.uuid('Choose a site.'),
   reason: z.enum(VISIT_REASONS, { message: 'Choose the reason for the visit.' }),
   startedAt: dateTime.optional(),
@@ -71,6 +73,8 @@ export const closeVisitSchema = z.object({
   summary: requiredText('Summary', 4000),
   endedAt: dateTime.optional(),
   confirmBypassRemoved: z.boolean().default(false),
+  /** Made on the phone; a repeat of a close that already went through returns the closed visit. */
+  clientCloseId: z.uuid().optional(),
 });
 
 export const voidEntrySchema = z.object({ reason: requiredText('Reason', 500) });

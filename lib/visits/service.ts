@@ -134,6 +134,14 @@ export async function listVisits(actor: Actor, query: ListVisitsQuery, db: Db = 
 export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
   assertCan(actor, 'visits.start');
   return db.transaction().execute(async (trx) => {
+    if (input.id) {
+      // A start sent again (made without signal, or its answer lost): the first one stands.
+      const earlier = await trx.selectFrom('visits').select(['technician_id', 'site_id']).where('id', '=', input.id).where('company_id', '=', actor.companyId).executeTakeFirst();
+      if (earlier) {
+        if (earlier.technician_id !== actor.id || earlier.site_id !== input.siteId) throw new AppError('conflict', 'This visit id is already in use.');
+        return getVisitSummary(actor, input.id, trx);
+      }
+    }
     const site = await getSite(actor, input.siteId, trx);
     if (site.archivedAt) throw new AppError('validation_failed', 'This site is archived.');
     const open = await trx
@@ -147,6 +155,7 @@ export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysel
     const row = await trx
       .insertInto('visits')
       .values({
+        ...(input.id ? { id: input.id } : {}),
         company_id: actor.companyId,
         site_id: input.siteId,
         technician_id: actor.id,

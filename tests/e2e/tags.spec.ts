@@ -3,19 +3,12 @@
 // signed out, a tag says only that the unit is registered and sign-in comes back to it; the Scan
 // page checks a typed code as it is typed; and (@camera) a label scanned through Chromium's fake
 // camera lands on the equipment.
-import { execFile } from 'node:child_process';
-import { mkdir, mkdtemp, readdir, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import { expect, test, type APIRequestContext, type PlaywrightWorkerArgs } from '@playwright/test';
-import sharp from 'sharp';
 import { formatCode, generateCode } from '../../lib/tags/code';
 import { createTestDb } from '../helpers/db';
 import { fakeCameraFile } from '../playwright.config';
+import { writeFakeCameraFromLabel } from './camera';
 import { DEMO_PASSWORD, shot, signIn } from './helpers';
-
-const run = promisify(execFile);
 
 async function apiAs(playwright: PlaywrightWorkerArgs['playwright'], baseURL: string, email: string): Promise<APIRequestContext> {
   const api = await playwright.request.newContext({ baseURL });
@@ -183,28 +176,7 @@ test.describe('fake camera', () => {
     const pdf = await (await office.get(`/api/print-runs/${id}/pdf`)).body();
     await office.dispose();
 
-    const dir = await mkdtemp(path.join(tmpdir(), 'rimeline-camera-'));
-    try {
-      await writeFile(path.join(dir, 'label.pdf'), pdf);
-      await run('pdftoppm', ['-r', '200', '-png', path.join(dir, 'label.pdf'), path.join(dir, 'label')]);
-      const png = (await readdir(dir)).find((f) => f.endsWith('.png'))!;
-      const W = 640;
-      const H = 480;
-      const label = await sharp(path.join(dir, png)).resize({ width: 560 }).png().toBuffer();
-      const y = await sharp({ create: { width: W, height: H, channels: 3, background: '#ffffff' } })
-        .composite([{ input: label, gravity: 'center' }])
-        .greyscale()
-        .raw()
-        .toBuffer({ resolveWithObject: true });
-      // YUV4MPEG2, 4:2:0: per frame the Y plane (the greyscale label) and flat U and V planes.
-      const luma = y.info.channels === 1 ? y.data : Buffer.from(Array.from({ length: W * H }, (_, i) => y.data[i * y.info.channels]!));
-      const chroma = Buffer.alloc((W / 2) * (H / 2), 128);
-      const frame = Buffer.concat([Buffer.from('FRAME\n'), luma, chroma, chroma]);
-      await mkdir(path.dirname(fakeCameraFile), { recursive: true });
-      await writeFile(fakeCameraFile, Buffer.concat([Buffer.from(`YUV4MPEG2 W${W} H${H} F30:1 Ip A1:1 C420jpeg\n`), ...Array.from({ length: 30 }, () => frame)]));
-    } finally {
-      await rm(dir, { recursive: true, force: true });
-    }
+    await writeFakeCameraFromLabel(pdf, fakeCameraFile);
   });
 
   test('scanning a label through the fake camera lands on the equipment @camera', async ({ page }) => {

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
-import { Scanner } from '@/app/(app)/scan/_components/scanner';
+import { ScanPageScanner } from '@/app/(app)/scan/_components/scan-page-scanner';
 
 export const metadata: Metadata = { title: 'Scan' };
 
@@ -10,7 +10,7 @@ export default async function ScanPage() {
   return (
     <>
       <PageHeader title="Scan" subtitle="Scan an equipment tag to open the unit and its history." />
-      <Scanner />
+      <ScanPageScanner />
     </>
   );
 }

@@ -18,6 +18,7 @@ import { formatTime } from '@/lib/visits/report-content';
 import { visitReasonLabels } from '@/lib/visits/schemas';
 import { siteEntryContexts } from '@/lib/visits/context';
 import { getVisit } from '@/lib/visits/service';
+import { siteTagCodes } from '@/lib/tags/service';
 import { ReviewActions } from '@/app/(app)/visits/[id]/_components/review-actions';
 import { VisitWorkspace } from '@/app/(app)/visits/[id]/_components/visit-workspace';
 
@@ -53,19 +54,31 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
   );
 
   if (canWork) {
-    const [equipment, contexts] = await Promise.all([
+    const [equipment, contexts, tagCodes] = await Promise.all([
       listEquipment(actor, { siteId: visit.siteId, status: ['in_service', 'out_of_service'], limit: 200, sort: 'name', dir: 'asc' }),
       siteEntryContexts(actor, visit.siteId),
+      siteTagCodes(actor, visit.siteId),
     ]);
     return (
-      <div className="space-y-5">
-        {header}
+      <div className="space-y-4">
+        {/* A phone's first screen is for the work: the visit in two lines. */}
+        <header>
+          <h1 className="break-words text-xl font-bold tracking-tight text-slate-900">
+            <Link href={`/sites/${visit.siteId}`} className="hover:underline">
+              {visit.siteName}
+            </Link>
+          </h1>
+          <p className="text-sm text-slate-700">
+            {visitReasonLabels[visit.reason]} · {visit.technicianName} · started {formatTime(visit.startedAt, visit.timeZone)}
+          </p>
+        </header>
         {/* useSearchParams needs a boundary; the fallback is never seen on a server render with params. */}
         <Suspense fallback={<p role="status">Loading the visit…</p>}>
           <VisitWorkspace
             visit={visit}
             equipment={equipment.items}
             contexts={contexts}
+            tagCodes={tagCodes}
             prefs={prefs}
             actorId={actor.id}
             canVoidAny={can(actor, 'visits.review')}
@@ -134,7 +147,7 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
                     <div className={cn(e.voidedAt && 'text-slate-600 line-through')}>
                       <EntrySummary entry={e} prefs={prefs} />
                     </div>
-                    {e.voidedAt ? <p className="text-sm font-semibold">Voided: {e.voidReason}</p> : null}
+                    {e.voidedAt ? <p className="text-sm font-semibold">Struck out: {e.voidReason}</p> : null}
                   </li>
                 ))}
               </ol>

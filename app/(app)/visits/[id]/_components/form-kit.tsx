@@ -2,9 +2,9 @@
 
 import type { LucideIcon } from 'lucide-react';
 import { Minus, OctagonAlert, Plus, TriangleAlert } from 'lucide-react';
-import type { ReactNode } from 'react';
+import { useState, type FormEvent, type ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
-import { describedBy, Field, Input } from '@/components/ui/field';
+import { describedBy, Field, Input, Textarea } from '@/components/ui/field';
 import { cn } from '@/lib/utils';
 
 // Building blocks of the visit's entry forms: big targets for gloved fingers, numbers typed with a
@@ -249,4 +249,52 @@ export function parseTyped(text: string): number | null {
   if (t === '') return null;
   const n = Number(t);
   return Number.isFinite(n) ? n : Number.NaN;
+}
+
+export type Submit = (data: Record<string, unknown>) => Promise<SubmitResult>;
+
+/** Shared plumbing: busy flag, the server's field errors and message, reset after a save. */
+export function useEntryForm(onSubmit: Submit, reset: () => void) {
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [message, setMessage] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  async function run(e: FormEvent, data: Record<string, unknown>) {
+    e.preventDefault();
+    setBusy(true);
+    setMessage(null);
+    const result = await onSubmit(data);
+    setBusy(false);
+    if (result.ok) {
+      setErrors({});
+      reset();
+    } else {
+      setErrors(result.errors);
+      setMessage(result.message ?? null);
+    }
+  }
+  return { errors, message, busy, run };
+}
+
+export function NotSaved({ message }: { message: string | null }) {
+  return message ? (
+    <Alert tone="danger" title="Not saved">
+      {message}
+    </Alert>
+  ) : null;
+}
+
+export function TextArea({ id, label, value, onChange, error, hint, rows = 3 }: { id: string; label: string; value: string; onChange: (v: string) => void; error?: string; hint?: ReactNode; rows?: number }) {
+  return (
+    <Field id={id} label={label} error={error} hint={hint}>
+      <Textarea id={id} rows={rows} value={value} onChange={(e) => onChange(e.target.value)} className="text-base" {...describedBy(id, error)} />
+    </Field>
+  );
+}
+
+export function TextInput({ id, label, value, onChange, error, hint, placeholder }: { id: string; label: string; value: string; onChange: (v: string) => void; error?: string; hint?: ReactNode; placeholder?: string }) {
+  return (
+    <Field id={id} label={label} error={error} hint={hint}>
+      <Input id={id} value={value} placeholder={placeholder} autoComplete="off" onChange={(e) => onChange(e.target.value)} className="min-h-12" {...describedBy(id, error)} />
+    </Field>
+  );
 }

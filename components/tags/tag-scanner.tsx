@@ -1,7 +1,6 @@
 'use client';
 
 import { Camera, CameraOff, Flashlight, FlashlightOff, ScanLine } from 'lucide-react';
-import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { IScannerControls } from '@zxing/browser';
 import { Alert } from '@/components/ui/alert';
@@ -12,9 +11,11 @@ import { cn } from '@/lib/utils';
 
 type CameraState = 'starting' | 'running' | 'denied' | 'unavailable' | 'stopped';
 
-/** The Scan page: rear camera through @zxing/browser, torch where the device has one, and typed entry. */
-export function Scanner() {
-  const router = useRouter();
+/**
+ * A tag scanner: rear camera through @zxing/browser, torch where the device has one, and typed
+ * entry. It hands each code read to `onCode` (the Scan page opens it; a visit switches unit).
+ */
+export function TagScanner({ onCode, compact = false }: { onCode: (code: string, via: 'camera' | 'typed') => void; compact?: boolean }) {
   const video = useRef<HTMLVideoElement>(null);
   const controls = useRef<IScannerControls | null>(null);
   const handled = useRef(false);
@@ -26,9 +27,9 @@ export function Scanner() {
   const open = useCallback(
     (code: string, via: 'camera' | 'typed') => {
       setOpening(code);
-      router.push(`/T/${code}?via=${via}`);
+      onCode(code, via);
     },
-    [router],
+    [onCode],
   );
 
   const stop = useCallback(() => {
@@ -84,7 +85,7 @@ export function Scanner() {
   return (
     <div className="space-y-5">
       {opening ? (
-        <Alert tone="success" title={`Opening tag ${formatCode(opening)} …`} />
+        <Alert tone="success" title={`Tag ${formatCode(opening)} read`} />
       ) : null}
       <section aria-labelledby="camera-h" className="space-y-3">
         <h2 id="camera-h" className="sr-only">
@@ -94,7 +95,7 @@ export function Scanner() {
           className={cn(
             'relative mx-auto w-full max-w-md overflow-hidden rounded-lg bg-slate-900',
             // Without a picture the box shrinks, so typed entry is in reach without scrolling.
-            state === 'running' || state === 'starting' ? 'aspect-[3/4] sm:aspect-video' : 'h-24',
+            state === 'running' || state === 'starting' ? (compact ? 'aspect-square max-h-72' : 'aspect-[3/4] sm:aspect-video') : 'h-24',
           )}
         >
           <video ref={video} muted playsInline className="size-full object-cover" data-testid="scan-video" />

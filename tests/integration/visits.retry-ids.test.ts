@@ -1,0 +1,49 @@
+// Sends repeated from a phone without signal: a visit started with an id made on the phone, and a
+// close with its own id, both return the first result when sent again, and store nothing twice.
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import type { Actor } from '@/lib/auth/actor';
+import { closeVisit } from '@/lib/visits/close';
+import { startVisit } from '@/lib/visits/service';
+import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { createCoolerCircuit } from '@/tests/helpers/registry';
+
+const db = createTestDb();
+let tech: Actor;
+let office: Actor;
+let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+
+beforeEach(async () => {
+  await resetToDemo(db);
+  tech = await actorFor(db, demoEmails.technician);
+  office = await actorFor(db, demoEmails.office);
+  circuit = await createCoolerCircuit(db);
+});
+afterAll(async () => {
+  await db.destroy();
+});
+
+describe('ids made on the phone', () => {
+  it('a start sent twice is one visit; the id cannot be taken by someone else', async () => {
+    const id = randomUUID();
+    const first = await startVisit(tech, { id, siteId: circuit.siteId, reason: 'no_cooling' });
+    const again = await startVisit(tech, { id, siteId: circuit.siteId, reason: 'no_cooling' });
+    expect(first.id).toBe(id);
+    expect(again).toEqual(first);
+    expect(await db.selectFrom('visits').select('id').where('site_id', '=', circuit.siteId).execute()).toHaveLength(1);
+    await expect(startVisit(office, { id, siteId: circuit.siteId, reason: 'maintenance' })).rejects.toMatchObject({ code: 'conflict' });
+  });
+
+  it('a close sent twice closes once; a close with another id is still refused', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    const clientCloseId = randomUUID();
+    const closed = await closeVisit(tech, visit.id, { summary: 'Done', confirmBypassRemoved: false, clientCloseId }, undefined, { report: 'on-download' });
+    const repeat = await closeVisit(tech, visit.id, { summary: 'Done', confirmBypassRemoved: false, clientCloseId }, undefined, { report: 'on-download' });
+    expect(repeat).toEqual(closed);
+    const audits = await db.selectFrom('audit_events').select('id').where('entity_id', '=', visit.id).where('action', '=', 'close').execute();
+    expect(audits).toHaveLength(1);
+    const mails = await db.selectFrom('mail_outbox').select('id').where('kind', '=', 'visit_report').execute();
+    expect(mails.length).toBeLessThanOrEqual(1);
+    await expect(closeVisit(tech, visit.id, { summary: 'Done', confirmBypassRemoved: false, clientCloseId: randomUUID() })).rejects.toMatchObject({ code: 'conflict' });
+  });
+});
