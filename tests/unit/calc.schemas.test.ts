@@ -118,3 +118,47 @@ describe('other calculation inputs', () => {
     );
   });
 });
+
+describe('issue 14 inputs', () => {
+  const readings = { refrigerant: 'R-404A', pressureUnit: 'psig', temperatureUnit: 'F' };
+
+  it('readings: liquidPressure with a liquid line temperature is enough; context fields are checked', () => {
+    const r = readingsInputSchema.safeParse({ ...readings, liquidPressure: '250', liquidLineTemp: '95', boxClass: 'freezer', meteringDevice: 'txv' });
+    expect(r.success && r.data).toMatchObject({ liquidPressure: 250, liquidLineTemp: 95, boxClass: 'freezer', meteringDevice: 'txv', lineVoltages: undefined });
+    expect(messages(readingsInputSchema.safeParse({ ...readings, suctionPressure: '20', suctionLineTemp: '30', boxClass: 'walk-in' }))).toEqual([
+      'box class must be one of cooler, freezer, low_temp_display',
+    ]);
+    expect(messages(readingsInputSchema.safeParse({ ...readings, suctionPressure: '20', suctionLineTemp: '30', meteringDevice: 'valve' }))).toEqual([
+      'metering device must be one of txv, fixed',
+    ]);
+  });
+
+  it('readings: three line voltages become lineVoltages; two are refused on v3', () => {
+    const r = readingsInputSchema.safeParse({ ...readings, v1: '460', v2: '467', v3: '450', nameplateV: '460' });
+    expect(r.success && r.data.lineVoltages).toEqual([460, 467, 450]);
+    const partial = readingsInputSchema.safeParse({ ...readings, v1: '460', v2: '467' });
+    expect(partial.success).toBe(false);
+    expect(partial.error?.issues.find((i) => i.path[0] === 'v3')?.message).toBe('enter all three line voltages, or none');
+  });
+
+  it('supply voltage: one measured voltage or three lines; the reader’s temperature unit is taken (C by default)', () => {
+    const one = supplyVoltageQuerySchema.safeParse({ measuredV: '430', nameplateV: '460' });
+    expect(one.success && one.data).toEqual({ lines: [430], nameplateV: 460, point: undefined, temperatureUnit: 'C' });
+    const three = supplyVoltageQuerySchema.safeParse({ v1: '470', v2: '465', v3: '430', nameplateV: '460', temperatureUnit: 'F' });
+    expect(three.success && three.data).toMatchObject({ lines: [470, 465, 430], temperatureUnit: 'F' });
+    expect(messages(supplyVoltageQuerySchema.safeParse({ nameplateV: '460' }))).toEqual(['measured voltage is required (or the three line voltages v1, v2, v3)']);
+    expect(messages(supplyVoltageQuerySchema.safeParse({ v1: '470', nameplateV: '460' }))[0]).toMatch(/enter all three line voltages/);
+  });
+
+  it('every calculation schema takes temperatureUnit C or F', () => {
+    for (const [schema, input] of [
+      [controlVoltageQuerySchema, { measuredV: '22' }],
+      [voltageUnbalanceQuerySchema, { v1: '460', v2: '467', v3: '450' }],
+      [serviceLifeQuerySchema, { equipmentType: 'compressor', installedOn: '2010-01-01', asOf: '2025-01-01' }],
+      [saturationQuerySchema, { refrigerant: 'R-404A', pressure: '30', unit: 'psig' }],
+    ] as const) {
+      expect((schema as { safeParse: (v: unknown) => { success: boolean } }).safeParse({ ...input, temperatureUnit: 'F' }).success).toBe(true);
+      expect((schema as { safeParse: (v: unknown) => { success: boolean } }).safeParse({ ...input, temperatureUnit: 'K' }).success).toBe(false);
+    }
+  });
+});
