@@ -8,6 +8,7 @@ import './globals.css';
 export const metadata: Metadata = {
   title: { default: 'Rimeline', template: '%s · Rimeline' },
   description: 'Service records for commercial refrigeration equipment.',
+  icons: { icon: '/icons/icon.svg', apple: '/icons/apple-touch-icon.png' },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#0f172a' };

@@ -1,5 +1,6 @@
 import { cookies, headers } from 'next/headers';
 import type { ReactNode } from 'react';
+import { OfflineSetup } from '@/components/offline/offline-setup';
 import { AppHeader } from '@/components/shell/app-header';
 import { requirePageActor } from '@/lib/auth';
 import { navFor } from '@/lib/navigation';
@@ -11,6 +12,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   return (
     <>
       <AppHeader items={navFor(actor.role)} name={actor.name} role={actor.role} highContrast={highContrast} />
+      <OfflineSetup userId={actor.id} />
       <main id="main" className="mx-auto max-w-6xl px-3 py-5 sm:px-6 sm:py-8">
         {children}
       </main>

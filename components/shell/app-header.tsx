@@ -8,6 +8,7 @@ import { useState } from 'react';
 import { roleLabels, type Role } from '@/lib/auth/permissions';
 import type { NavItem } from '@/lib/navigation';
 import { cn } from '@/lib/utils';
+import { signOutWipe } from '@/lib/offline/user';
 
 const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge, requests: BellRing, reports: FileText } as const;
 
@@ -53,7 +54,11 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
           </span>
           <button
             type="button"
-            onClick={() => signOut({ callbackUrl: '/sign-in' })}
+            onClick={async () => {
+              // The phone's kept sites and pages belong to this person: they go before the session does.
+              await signOutWipe().catch(() => undefined);
+              await signOut({ callbackUrl: '/sign-in' });
+            }}
             className="flex min-h-11 items-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
           >
             <LogOut aria-hidden className="size-5" />

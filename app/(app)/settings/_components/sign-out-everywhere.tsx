@@ -2,6 +2,7 @@
 
 import { LogOut } from 'lucide-react';
 import { signOut } from 'next-auth/react';
+import { signOutWipe } from '@/lib/offline/user';
 import { useState, useTransition } from 'react';
 import { Button } from '@/components/ui/button';
 import { endSessionsAction } from '@/app/(app)/settings/actions';
@@ -23,7 +24,10 @@ export function SignOutEverywhere({ userId, self, name }: { userId: string; self
           start(async () => {
             const outcome = await endSessionsAction(userId);
             setResult(outcome);
-            if (outcome.ok && self) await signOut({ callbackUrl: '/sign-in' });
+            if (outcome.ok && self) {
+              await signOutWipe().catch(() => undefined);
+              await signOut({ callbackUrl: '/sign-in' });
+            }
           })
         }
       >

@@ -1,0 +1,58 @@
+// The service worker (bundled by Serwist's route, app/serwist/[path]/route.ts, served at
+// /serwist/sw.js with scope /). What it keeps:
+// - the build's hashed static files (precached at install, then cache first: a hash never changes);
+// - the field pages (Scan, the pack's unit page, visit pages, the P-T chart), network first, so a
+//   phone always gets the live page when there is signal and its last copy when there is none;
+// - nothing from /api: answers there belong to one person and change; the site pack lives in
+//   IndexedDB (lib/offline), not here.
+// A unit's own address (/T/<code>, /tag/<code>, /equipment/<id>) that fails for want of signal is
+// answered with the pack's unit page for it. The kept pages are wiped on sign-out (lib/offline/store).
+import { CacheFirst, ExpirationPlugin, NetworkFirst, NetworkOnly, Serwist, type PrecacheEntry, type SerwistPlugin } from 'serwist';
+import { isFieldPage, OFFLINE_UNIT_PATH, offlineUnitTarget, PAGES_CACHE } from '@/lib/offline/cache-names';
+
+declare const self: { __SW_MANIFEST: (PrecacheEntry | string)[] | undefined; location: Location };
+
+/** The pack's unit page is one page whatever unit it shows: one copy, without its query. */
+const onePageCopy: SerwistPlugin = {
+  cacheKeyWillBeUsed: async ({ request }) => {
+    const url = new URL(request.url);
+    return url.pathname === OFFLINE_UNIT_PATH ? `${url.origin}${url.pathname}` : request;
+  },
+};
+
+const pages = new NetworkFirst({
+  cacheName: PAGES_CACHE,
+  // A weak roof signal: after a while the kept copy is better than a spinner.
+  networkTimeoutSeconds: 8,
+  // Next varies pages on its router headers; a navigation never sends them.
+  matchOptions: { ignoreVary: true },
+  plugins: [onePageCopy, new ExpirationPlugin({ maxEntries: 40, maxAgeSeconds: 30 * 24 * 3600 })],
+});
+
+const serwist = new Serwist({
+  precacheEntries: self.__SW_MANIFEST,
+  precacheOptions: { cleanupOutdatedCaches: true },
+  skipWaiting: true,
+  clientsClaim: true,
+  navigationPreload: false,
+  runtimeCaching: [
+    { matcher: ({ url, sameOrigin }) => sameOrigin && url.pathname.startsWith('/api/'), handler: new NetworkOnly() },
+    {
+      matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === 'navigate' && offlineUnitTarget(url.pathname) !== null,
+      handler: async ({ request, url }) => {
+        try {
+          return await fetch(request);
+        } catch {
+          return Response.redirect(new URL(offlineUnitTarget(url.pathname)!, url.origin).href, 302);
+        }
+      },
+    },
+    { matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === 'navigate' && isFieldPage(url.pathname), handler: pages },
+    {
+      matcher: ({ url, sameOrigin }) => sameOrigin && (url.pathname.startsWith('/_next/static/') || url.pathname.startsWith('/icons/')),
+      handler: new CacheFirst({ cacheName: 'rimeline-static', plugins: [new ExpirationPlugin({ maxEntries: 400 })] }),
+    },
+  ],
+});
+
+serwist.addEventListeners();
