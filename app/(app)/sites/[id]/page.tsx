@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
+import { KeepSitePanel } from '@/components/offline/keep-site-panel';
 import { Card, PageHeader } from '@/components/ui/card';
 import { FollowUpList } from '@/components/visits/follow-up-list';
 import { orNotFound } from '@/lib/api/page';
@@ -85,6 +86,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         }
       />
       {site.archivedAt ? <p className="rounded bg-slate-200 px-3 py-2 text-sm font-medium">Archived site: hidden from lists, kept with its history.</p> : null}
+      {can(actor, 'entries.write') && !site.archivedAt ? <KeepSitePanel siteId={site.id} timeZone={site.timeZone} /> : null}
       <SiteAttention actor={actor} siteId={site.id} />
       <div className="grid gap-4 md:grid-cols-3">
         <Card className="md:col-span-1">
