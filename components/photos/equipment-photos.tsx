@@ -26,6 +26,10 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
   const first = pages[0];
   const photos = pages.flatMap((p) => p.items);
   const timeZone = first?.timeZone ?? 'UTC';
+  // Once known, the uploader stays mounted whatever the list does next: unmounting it would drop
+  // photos still on their way.
+  const [canUpload, setCanUpload] = useState(false);
+  if (first && first.canUpload !== canUpload) setCanUpload(first.canUpload);
   const viewing = open !== null && photos.length > 0 ? Math.min(open, photos.length - 1) : null;
 
   return (
@@ -41,7 +45,7 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
         ) : null}
       </div>
 
-      {first?.canUpload ? <PhotoUploader equipmentId={equipmentId} /> : null}
+      {canUpload ? <PhotoUploader equipmentId={equipmentId} /> : null}
 
       {first && first.total > 0 ? (
         <div role="group" aria-label="Show photos of kind" className="flex flex-wrap gap-2">

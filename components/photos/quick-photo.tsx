@@ -24,7 +24,7 @@ export function QuickPhotoButton({ equipmentId, canUpload }: { equipmentId: stri
 
   return (
     <div className="flex min-w-0 flex-col gap-2">
-      <Button size="lg" onClick={() => setOpen(true)} aria-haspopup="dialog">
+      <Button size="lg" variant="secondary" onClick={() => setOpen(true)} aria-haspopup="dialog">
         <Camera aria-hidden className="size-5" />
         Add photo
       </Button>

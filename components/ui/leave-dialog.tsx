@@ -29,7 +29,7 @@ export function LeaveDialog({ open, message, onStay, onLeave }: LeaveDialogProps
         <Button size="lg" variant="danger" onClick={onLeave}>
           Leave anyway
         </Button>
-        <Button size="lg" onClick={onStay} autoFocus>
+        <Button size="lg" onClick={onStay} data-autofocus>
           Stay
         </Button>
       </div>

@@ -4,7 +4,7 @@ import { useEffect, useRef, type ReactNode } from 'react';
 import { cn } from '@/lib/utils';
 
 // The browser's own modal <dialog>: it keeps focus inside, makes the page behind inert, and
-// Escape asks to close. On a phone it rises from the bottom edge, where a thumb reaches.
+// Escape asks to close. Mark the control to focus first with data-autofocus. On a phone it rises from the bottom edge, where a thumb reaches.
 
 export function Modal({
   open,
@@ -27,7 +27,11 @@ export function Modal({
   useEffect(() => {
     const dialog = ref.current;
     if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
+    if (open && !dialog.open) {
+      dialog.showModal();
+      // showModal focuses the first control; React keeps autoFocus out of the DOM, so ask by mark.
+      dialog.querySelector<HTMLElement>('[data-autofocus]')?.focus();
+    }
     if (!open && dialog.open) dialog.close();
   }, [open]);
 

@@ -1,6 +1,6 @@
 'use client';
 
-import { useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch, ApiError } from '@/lib/api/client';
 import type { ErrorBody } from '@/lib/errors';
 import type { PhotoDto, PhotoListDto, StorageRepairDto } from '@/lib/photos/dto';
@@ -24,6 +24,8 @@ export function usePhotos(equipmentId: string, kinds: PhotoKind[] = []) {
     },
     initialPageParam: '',
     getNextPageParam: (last) => last.nextCursor ?? undefined,
+    // A new kind filter keeps the current page on screen (and the uploader above it mounted).
+    placeholderData: keepPreviousData,
   });
 }
 

@@ -1,6 +1,7 @@
-// Photos in the browser: upload two at once with a progress bar each and see both thumbnails;
-// a refused file and a dropped connection each said plainly, the second retried alone; the
-// full-screen viewer (zoom by keyboard, Escape), the kind filter and the comparison.
+// Photos in the browser: two chosen at once upload by themselves, each with a progress bar, a
+// caption added once stored, both thumbnails; a refused file and a dropped connection each said
+// plainly, the second retried alone; the full-screen viewer (zoom by keyboard, Escape), the kind
+// filter and the comparison.
 import { DeleteObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
@@ -48,6 +49,8 @@ async function slowUploads(page: Page): Promise<void> {
 }
 
 test('uploads two photos with progress, shows both thumbnails, views, filters and compares them @phone', async ({ page }, info) => {
+  // Two slowed uploads, a caption, the viewer at full resolution and the comparison: a long walk on two shared cores.
+  test.setTimeout(120_000);
   await signIn(page, 'tech@rimeline.test');
   const id = await newEquipment(page, `Roof condensing unit ${Date.now() % 100000}`);
   const plate = info.outputPath('nameplate.jpg');
@@ -60,15 +63,12 @@ test('uploads two photos with progress, shows both thumbnails, views, filters an
   await expect(page.getByRole('heading', { name: 'Photos' })).toBeVisible();
   await expect(page.getByText('No photos yet.')).toBeVisible();
   await page.getByLabel('Kind for new photos').selectOption('nameplate');
+  // Choosing the files is the last tap: both start at once, each with its own bar.
+  await watchProgress(page);
+  await slowUploads(page);
   await page.getByTestId('photo-file-input').setInputFiles([plate, coil]);
   const rows = page.getByTestId('upload-row');
   await expect(rows).toHaveCount(2);
-  await page.getByLabel('Kind of coil-corrosion.jpg').selectOption('corrosion');
-  await page.getByLabel('Caption for coil-corrosion.jpg').fill('East coil fins');
-
-  await watchProgress(page);
-  await slowUploads(page);
-  await page.getByRole('button', { name: 'Upload 2 photos' }).click();
   await expect(page.getByRole('progressbar', { name: 'Upload of coil-corrosion.jpg' })).toBeVisible();
   await shot(page, `photos-uploading-${info.project.name}`);
   await expect(rows.filter({ hasText: 'Uploaded' })).toHaveCount(2, { timeout: 30_000 });
@@ -77,6 +77,12 @@ test('uploads two photos with progress, shows both thumbnails, views, filters an
   // The larger file's bar showed intermediate steps on its way to 100.
   expect(seen['Upload of coil-corrosion.jpg']!.some((v) => v > 0 && v < 100)).toBe(true);
   expect(Math.max(...seen['Upload of coil-corrosion.jpg']!)).toBe(100);
+
+  // Kind and caption corrected once stored.
+  await page.getByLabel('Kind of coil-corrosion.jpg').selectOption('corrosion');
+  await page.getByLabel('Caption for coil-corrosion.jpg').fill('East coil fins');
+  await page.getByRole('button', { name: 'Save kind and caption' }).click();
+  await expect(rows.filter({ hasText: 'coil-corrosion.jpg' }).getByRole('status')).toHaveText('Saved');
 
   const gallery = page.getByRole('list', { name: 'Photos' });
   const thumbs = gallery.getByTestId('photo-thumb');
@@ -153,7 +159,6 @@ test('a refused file says why; a dropped upload is retried alone @phone', async 
   });
 
   await page.getByTestId('photo-camera-input').setInputFiles([notPhoto, damage]);
-  await page.getByRole('button', { name: 'Upload 2 photos' }).click();
   const refused = page.getByTestId('upload-row').filter({ hasText: 'notes.jpg' });
   const retried = page.getByTestId('upload-row').filter({ hasText: 'damage.jpg' });
   await expect(refused.getByRole('alert')).toContainText('Not uploaded: This file is not an image we can read. Upload a JPEG, PNG or WebP photo.');
@@ -185,6 +190,7 @@ test('an owner sees photos of their equipment but no uploader', async ({ page, b
   await owner.goto(`/equipment/${id}`);
   await expect(owner.getByRole('list', { name: 'Photos' }).getByTestId('photo-thumb')).toHaveCount(1);
   await expect(owner.getByRole('button', { name: 'Take photo' })).toHaveCount(0);
+  await expect(owner.getByRole('button', { name: 'Add photo' })).toHaveCount(0);
   const other = await browser.newPage();
   await signIn(other, 'owner@client-two.test');
   const photoId = (await up.json()).id as string;
