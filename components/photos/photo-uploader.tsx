@@ -43,98 +43,100 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
   const done = items.filter((i) => i.status === 'done').length;
 
   return (
-    <div className="space-y-4 rounded-lg border border-slate-200 bg-white p-4 shadow-sm">
-      <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
-        <div className="space-y-1 sm:w-56">
-          <label htmlFor={`${baseId}-kind`} className="block text-sm font-semibold text-slate-800">
-            Kind for new photos
-          </label>
-          <Select id={`${baseId}-kind`} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
-            {photoKinds.map((k) => (
-              <option key={k} value={k}>
-                {photoKindLabels[k]}
-              </option>
-            ))}
-          </Select>
-        </div>
-        <div className="grid grid-cols-2 gap-2 sm:flex">
-          <Button size="lg" onClick={() => cameraInput.current?.click()}>
-            <Camera aria-hidden className="size-5" />
-            Take photo
-          </Button>
-          <Button size="lg" variant="secondary" onClick={() => filesInput.current?.click()}>
-            <ImagePlus aria-hidden className="size-5" />
-            Choose files
-          </Button>
-        </div>
-        {/* image/* lets a phone offer its camera roll and convert its own formats to JPEG. */}
-        <input
-          ref={cameraInput}
-          type="file"
-          accept="image/*"
-          capture="environment"
-          multiple
-          className="hidden"
-          aria-label="Take a photo with the camera"
-          data-testid="photo-camera-input"
-          onChange={(e) => {
-            uploads.add(e.target.files, kind);
-            e.target.value = '';
-          }}
-        />
-        <input
-          ref={filesInput}
-          type="file"
-          accept="image/jpeg,image/png,image/webp,image/*"
-          multiple
-          className="hidden"
-          aria-label="Choose photo files"
-          data-testid="photo-file-input"
-          onChange={(e) => {
-            uploads.add(e.target.files, kind);
-            e.target.value = '';
-          }}
-        />
-      </div>
-      <p className="text-sm text-slate-600">
-        Each photo is sent as soon as you choose it. JPEG, PNG or WebP, up to {formatBytes(MAX_PHOTO_BYTES)} each. Location data is removed unless your company keeps it.
-      </p>
-
-      {items.length > 0 ? (
-        <ul className="space-y-3" aria-label="Photos being sent">
-          {items.map((item, index) => (
-            <UploadRow
-              key={item.id}
-              item={item}
-              label={`${baseId}-${index}`}
-              onChange={(change) => uploads.patch(item.id, change)}
-              onRetry={() => uploads.retry(item.id)}
-              onRemove={() => uploads.remove(item.id)}
-            />
-          ))}
-        </ul>
-      ) : null}
-
-      {items.length > 0 ? (
-        <div className="flex flex-wrap items-center gap-2">
-          <p className="text-sm font-medium text-slate-800" role="status" aria-live="polite">
-            {[
-              sending > 0 ? `Sending ${sending} ${sending === 1 ? 'photo' : 'photos'}…` : null,
-              failed > 0 ? `${failed} not sent: press Retry.` : null,
-              done > 0 ? `${done} uploaded.` : null,
-            ]
-              .filter(Boolean)
-              .join(' ')}
-          </p>
-          {done > 0 ? (
-            <Button variant="ghost" onClick={uploads.clearDone}>
-              Clear uploaded
+    <>
+      <div className="space-y-4 rounded-lg border border-slate-200 bg-white p-4 shadow-sm">
+        <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
+          <div className="space-y-1 sm:w-56">
+            <label htmlFor={`${baseId}-kind`} className="block text-sm font-semibold text-slate-800">
+              Kind for new photos
+            </label>
+            <Select id={`${baseId}-kind`} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
+              {photoKinds.map((k) => (
+                <option key={k} value={k}>
+                  {photoKindLabels[k]}
+                </option>
+              ))}
+            </Select>
+          </div>
+          <div className="grid grid-cols-2 gap-2 sm:flex">
+            <Button size="lg" className="whitespace-nowrap px-3" onClick={() => cameraInput.current?.click()}>
+              <Camera aria-hidden className="size-5" />
+              Take photo
             </Button>
-          ) : null}
+            <Button size="lg" variant="secondary" className="whitespace-nowrap px-3" onClick={() => filesInput.current?.click()}>
+              <ImagePlus aria-hidden className="size-5" />
+              Choose files
+            </Button>
+          </div>
+          {/* image/* lets a phone offer its camera roll and convert its own formats to JPEG. */}
+          <input
+            ref={cameraInput}
+            type="file"
+            accept="image/*"
+            capture="environment"
+            multiple
+            className="hidden"
+            aria-label="Take a photo with the camera"
+            data-testid="photo-camera-input"
+            onChange={(e) => {
+              uploads.add(e.target.files, kind);
+              e.target.value = '';
+            }}
+          />
+          <input
+            ref={filesInput}
+            type="file"
+            accept="image/jpeg,image/png,image/webp,image/*"
+            multiple
+            className="hidden"
+            aria-label="Choose photo files"
+            data-testid="photo-file-input"
+            onChange={(e) => {
+              uploads.add(e.target.files, kind);
+              e.target.value = '';
+            }}
+          />
         </div>
-      ) : null}
+        <p className="text-sm text-slate-600">
+          Each photo is sent as soon as you choose it. JPEG, PNG or WebP, up to {formatBytes(MAX_PHOTO_BYTES)} each. Location data is removed unless your company keeps it.
+        </p>
+
+        {items.length > 0 ? (
+          <ul className="space-y-3" aria-label="Photos being sent">
+            {items.map((item, index) => (
+              <UploadRow
+                key={item.id}
+                item={item}
+                label={`${baseId}-${index}`}
+                onChange={(change) => uploads.patch(item.id, change)}
+                onRetry={() => uploads.retry(item.id)}
+                onRemove={() => uploads.remove(item.id)}
+              />
+            ))}
+          </ul>
+        ) : null}
+
+        {items.length > 0 ? (
+          <div className="flex flex-wrap items-center gap-2">
+            <p className="text-sm font-medium text-slate-800" role="status" aria-live="polite">
+              {[
+                sending > 0 ? `Sending ${sending} ${sending === 1 ? 'photo' : 'photos'}…` : null,
+                failed > 0 ? `${failed} not sent: press Retry.` : null,
+                done > 0 ? `${done} uploaded.` : null,
+              ]
+                .filter(Boolean)
+                .join(' ')}
+            </p>
+            {done > 0 ? (
+              <Button variant="ghost" onClick={uploads.clearDone}>
+                Clear uploaded
+              </Button>
+            ) : null}
+          </div>
+        ) : null}
+      </div>
       <LeaveDialog {...guard.dialog} />
-    </div>
+    </>
   );
 }
 

@@ -49,7 +49,7 @@ export function Modal({
         if (e.target === e.currentTarget) onClose();
       }}
       className={cn(
-        'mb-0 mt-auto w-full max-w-full rounded-t-2xl bg-white p-0 text-slate-900 shadow-xl backdrop:bg-slate-950/60 sm:mb-auto sm:max-w-md sm:rounded-2xl',
+        'mx-auto mb-0 mt-auto w-full max-w-full rounded-t-2xl bg-white p-0 text-slate-900 shadow-xl backdrop:bg-slate-950/60 sm:mb-auto sm:max-w-md sm:rounded-2xl',
         className,
       )}
     >
