@@ -19,17 +19,71 @@ import {
   type TemperatureUnit,
 } from '@/lib/calc/units';
 
+export type ControlWarningCode =
+  | 'vacuum_cut_out'
+  | 'below_vacuum_floor'
+  | 'cut_in_above_box'
+  | 'above_design_pressure'
+  | 'high_low_event_below_floor'
+  | 'below_triple_point'
+  | 'cut_out_below_condensing';
+
+/**
+ * What a warning is about, in SI (kPa abs, °C) with the barometer gauge values were read against,
+ * so a stored warning can be worded again in any reader's units (controlWarningMessage).
+ */
+export interface ControlWarningData {
+  barometricKpa: number;
+  refrigerant: RefrigerantId;
+  /** The setting the warning is about (kPa abs). */
+  settingKpaAbs?: number;
+  /** The limit it is compared with (kPa abs). */
+  limitKpaAbs?: number;
+  /** A saturation temperature of the setting (°C). */
+  saturationC?: number;
+  /** The temperature it is compared with (°C). */
+  limitC?: number;
+}
+
 export interface ControlWarning {
-  code:
-    | 'vacuum_cut_out'
-    | 'below_vacuum_floor'
-    | 'cut_in_above_box'
-    | 'above_design_pressure'
-    | 'high_low_event_below_floor'
-    | 'below_triple_point'
-    | 'cut_out_below_condensing';
+  code: ControlWarningCode;
+  /** Worded in the units the control was entered in and the temperatureUnit asked for. */
   message: string;
   basis: string;
+  data: ControlWarningData;
+}
+
+/** The words of a warning in any units: the same text the calculation gave, re-worded from its SI data. */
+export function controlWarningMessage(code: ControlWarningCode, d: ControlWarningData, units: { pressureUnit: PressureUnit; temperatureUnit: TemperatureUnit }): string {
+  const pu = units.pressureUnit;
+  const tu = units.temperatureUnit;
+  const p = (kpaAbs: number | undefined) => formatPressure(fromKpaAbs(kpaAbs ?? Number.NaN, pu, d.barometricKpa), pu);
+  const t = (c: number | undefined) => formatTemperature(fromCelsius(c ?? Number.NaN, tu), tu);
+  switch (code) {
+    case 'vacuum_cut_out':
+      return `The cut-out (${p(d.settingKpaAbs)}) is below atmospheric pressure: the low side would run in a vacuum and draw air and moisture in at any leak.`;
+    case 'below_vacuum_floor':
+      return `The cut-out (${p(d.settingKpaAbs)}) is below 27 inHg vacuum (${p(d.limitKpaAbs)}), the lowest setting commonly allowed.`;
+    case 'below_triple_point':
+      return (
+        `The cut-out (${p(d.settingKpaAbs)}) is below the ${d.refrigerant} triple point (${p(d.limitKpaAbs)}, ${t(d.limitC)}): ` +
+        'dry ice can form in the evaporator and block it. Set the cut-out above the triple-point pressure.'
+      );
+    case 'cut_in_above_box':
+      return (
+        `The cut-in's saturation temperature (${t(d.saturationC)}) is above the design box temperature (${t(d.limitC)}): ` +
+        'the evaporator pressure will not reach the cut-in while the box is at temperature, so the control cannot hold the box.'
+      );
+    case 'above_design_pressure':
+      return `The cut-out (${p(d.settingKpaAbs)}) is above the nameplate high-side design pressure (${p(d.limitKpaAbs)}).`;
+    case 'high_low_event_below_floor':
+      return `The cut-in (${p(d.settingKpaAbs)}) is below 50 psig (${p(d.limitKpaAbs)}), the lowest reset commonly allowed for a high-pressure control.`;
+    case 'cut_out_below_condensing':
+      return (
+        `The cut-out (${p(d.settingKpaAbs)}) saturates at ${t(d.saturationC)}, below the ${t(d.limitC)} an air-cooled condenser ` +
+        'reaches on a hot day: expect nuisance trips. The nameplate governs.'
+      );
+  }
 }
 
 /** Common practice: a low-pressure control's low event not below 27 inHg vacuum (≈1.435 psia). */
@@ -119,41 +173,33 @@ export function lowPressureControl(input: LowPressureControlInput): LowPressureC
   const cutOutSaturation = saturationOf(r, cutOutKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa });
   const warnings: ControlWarning[] = [];
 
+  const units = { pressureUnit: input.unit, temperatureUnit: tu };
+  const warn = (code: ControlWarningCode, data: Omit<ControlWarningData, 'barometricKpa' | 'refrigerant'>, basis: string) => {
+    const full = { ...data, barometricKpa, refrigerant: r.id };
+    warnings.push({ code, message: controlWarningMessage(code, full, units), basis, data: full });
+  };
   if (!input.vacuumAllowed && cutOutKpaAbs < barometricKpa) {
-    warnings.push({
-      code: 'vacuum_cut_out',
-      message: `The cut-out (${formatPressure(cutOut, input.unit)}) is below atmospheric pressure: the low side would run in a vacuum and draw air and moisture in at any leak.`,
-      basis: 'Common practice: keep low-side cut-outs above 0 psig on systems not designed for vacuum operation.',
-    });
+    warn('vacuum_cut_out', { settingKpaAbs: cutOutKpaAbs, limitKpaAbs: barometricKpa }, 'Common practice: keep low-side cut-outs above 0 psig on systems not designed for vacuum operation.');
   }
   if (cutOutKpaAbs < LP_FLOOR_KPA_ABS) {
-    warnings.push({
-      code: 'below_vacuum_floor',
-      message: `The cut-out is below 27 inHg vacuum (${formatPressure(fromKpaAbs(LP_FLOOR_KPA_ABS, input.unit, barometricKpa), input.unit)}), the lowest setting commonly allowed.`,
-      basis: `Low-pressure control low event not below 27 inHg vacuum: ${FLOOR_SOURCE}.`,
-    });
+    warn('below_vacuum_floor', { settingKpaAbs: cutOutKpaAbs, limitKpaAbs: LP_FLOOR_KPA_ABS }, `Low-pressure control low event not below 27 inHg vacuum: ${FLOOR_SOURCE}.`);
   }
   if (r.triplePoint && cutOutKpaAbs < r.triplePoint.pKpaAbs) {
-    warnings.push({
-      code: 'below_triple_point',
-      message:
-        `The cut-out (${formatPressure(cutOut, input.unit)}) is below the ${r.id} triple point ` +
-        `(${formatPressure(fromKpaAbs(r.triplePoint.pKpaAbs, input.unit, barometricKpa), input.unit)}, ${formatTemperature(fromCelsius(r.triplePoint.tC, tu), tu)}): ` +
-        'dry ice can form in the evaporator and block it. Set the cut-out above the triple-point pressure.',
-      basis: `${r.id} triple-point pressure 517.96 kPa abs (Span & Wagner 1996, CoolProp 8.0.0; tests/fixtures/reference/fluids.csv).`,
-    });
+    warn(
+      'below_triple_point',
+      { settingKpaAbs: cutOutKpaAbs, limitKpaAbs: r.triplePoint.pKpaAbs, limitC: r.triplePoint.tC },
+      `${r.id} triple-point pressure 517.96 kPa abs (Span & Wagner 1996, CoolProp 8.0.0; tests/fixtures/reference/fluids.csv).`,
+    );
   }
   if (input.designBoxTemp !== undefined) {
     const boxC = toCelsius(input.designBoxTemp, tu);
     const cutInDew = cutInSaturation.dew;
     if (cutInDew !== null && toCelsius(cutInDew, tu) > boxC) {
-      warnings.push({
-        code: 'cut_in_above_box',
-        message:
-          `The cut-in's saturation temperature (${formatTemperature(cutInDew, tu)}) is above the design box temperature ` +
-          `(${formatTemperature(input.designBoxTemp, tu)}): the evaporator pressure will not reach the cut-in while the box is at temperature, so the control cannot hold the box.`,
-        basis: 'Common practice: set the cut-in below the saturation pressure at box temperature so the unit restarts when the box warms.',
-      });
+      warn(
+        'cut_in_above_box',
+        { settingKpaAbs: cutInKpaAbs, saturationC: toCelsius(cutInDew, tu), limitC: boxC },
+        'Common practice: set the cut-in below the saturation pressure at box temperature so the unit restarts when the box warms.',
+      );
     }
   }
   return {
@@ -218,35 +264,29 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
   const cutIn = input.cutOut - input.differential;
   const warnings: ControlWarning[] = [];
 
+  const units = { pressureUnit: input.unit, temperatureUnit: tu };
+  const warn = (code: ControlWarningCode, data: Omit<ControlWarningData, 'barometricKpa' | 'refrigerant'>, basis: string) => {
+    const full = { ...data, barometricKpa, refrigerant: r.id };
+    warnings.push({ code, message: controlWarningMessage(code, full, units), basis, data: full });
+  };
   if (input.designPressure !== undefined) {
     const designKpaAbs = toKpaAbs(input.designPressure, input.unit, barometricKpa);
     if (cutOutKpaAbs > designKpaAbs) {
-      warnings.push({
-        code: 'above_design_pressure',
-        message: `The cut-out (${formatPressure(input.cutOut, input.unit)}) is above the nameplate high-side design pressure (${formatPressure(input.designPressure, input.unit)}).`,
-        basis: 'The equipment nameplate governs: the high-pressure control must open below the design pressure.',
-      });
+      warn('above_design_pressure', { settingKpaAbs: cutOutKpaAbs, limitKpaAbs: designKpaAbs }, 'The equipment nameplate governs: the high-pressure control must open below the design pressure.');
     }
   }
   const floorKpaAbs = HP_LOW_EVENT_FLOOR_PSIG * KPA_PER_PSI + barometricKpa;
   if (cutInKpaAbs < floorKpaAbs) {
-    warnings.push({
-      code: 'high_low_event_below_floor',
-      message: `The cut-in (${formatPressure(cutIn, input.unit)}) is below 50 psig (${formatPressure(fromKpaAbs(floorKpaAbs, input.unit, barometricKpa), input.unit)}), the lowest reset commonly allowed for a high-pressure control.`,
-      basis: `High-pressure control low event not below 50 psig: ${FLOOR_SOURCE}.`,
-    });
+    warn('high_low_event_below_floor', { settingKpaAbs: cutInKpaAbs, limitKpaAbs: floorKpaAbs }, `High-pressure control low event not below 50 psig: ${FLOOR_SOURCE}.`);
   }
   const cutOutSaturation = saturationOf(r, cutOutKpaAbs, tu, { pressureUnit: input.unit, temperatureUnit: tu, barometricKpa });
   const cutOutDewC = cutOutSaturation.dew === null ? null : toCelsius(cutOutSaturation.dew, tu);
   if (r.id !== 'R-744' && cutOutDewC !== null && cutOutDewC < HP_USUAL_MAX_CONDENSING_C) {
-    warnings.push({
-      code: 'cut_out_below_condensing',
-      message:
-        `The cut-out (${formatPressure(input.cutOut, input.unit)}) saturates at ${formatTemperature(cutOutSaturation.dew!, tu)}, ` +
-        `below the ${formatTemperature(fromCelsius(HP_USUAL_MAX_CONDENSING_C, tu), tu)} an air-cooled condenser reaches on a hot day: expect nuisance trips. The nameplate governs.`,
-      basis:
-        'Common practice: air-cooled condensing runs 15–30 °F above entering air, about 125 °F at a 95 °F design ambient; typical cut-outs sit near 130–145 °F saturation.',
-    });
+    warn(
+      'cut_out_below_condensing',
+      { settingKpaAbs: cutOutKpaAbs, saturationC: cutOutDewC, limitC: HP_USUAL_MAX_CONDENSING_C },
+      'Common practice: air-cooled condensing runs 15–30 °F above entering air, about 125 °F at a 95 °F design ambient; typical cut-outs sit near 130–145 °F saturation.',
+    );
   }
   return {
     refrigerant: r.id,

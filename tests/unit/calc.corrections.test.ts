@@ -5,7 +5,7 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 import { evaluateLeakEvent, lastPassedFollowUpTest, leakRuleApplicability, rollingAverageLeakRate } from '@/lib/calc/leak-rate';
-import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
+import { controlWarningMessage, highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
 import { computeReadings } from '@/lib/calc/readings';
 import { getRefrigerant, REFRIGERANTS } from '@/lib/calc/refrigerants';
 import { chartRange, saturationLookup, saturationTable } from '@/lib/calc/saturation';
@@ -173,6 +173,18 @@ describe('pressure-control warnings', () => {
     expect(low.warnings.map((x) => x.code)).toContain('cut_out_below_condensing');
     expect(low.warnings.find((x) => x.code === 'cut_out_below_condensing')!.message).toMatch(/125 °F/);
     expect(highPressureControl({ refrigerant: 'R-404A', unit: 'psig', cutOut: 400, differential: 100 }).warnings).toEqual([]);
+  });
+
+  it('a warning stored in kPa(g) and °C re-words in psig and °F from its SI data (issue 14: an imperial user got °C)', () => {
+    // R-404A cut-in 30 psig ≈ 308.17 kPa abs (TR §2) sits above a −10 °F box (TR §4 low-temperature pump-down: cut-in 20–25 psig).
+    const stored = lowPressureControl({ refrigerant: 'R-404A', unit: 'kPaG', cutIn: 30 * 6.894757293168361, differential: 100, designBoxTemp: (-10 - 32) / 1.8, temperatureUnit: 'C' });
+    const w = stored.warnings.find((x) => x.code === 'cut_in_above_box')!;
+    expect(w.message).toMatch(/°C/);
+    const imperial = controlWarningMessage(w.code, w.data, { pressureUnit: 'psig', temperatureUnit: 'F' });
+    expect(imperial).toMatch(/\(-10 °F\)/);
+    expect(imperial).not.toMatch(/°C|kPa/);
+    const again = lowPressureControl({ refrigerant: 'R-404A', unit: 'psig', cutIn: 30, differential: 100 / 6.894757293168361, designBoxTemp: -10, temperatureUnit: 'F' });
+    expect(again.warnings.find((x) => x.code === 'cut_in_above_box')!.message).toBe(imperial);
   });
 
   it('the setting floors say they are common practice', () => {
