@@ -37,6 +37,10 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
   const guard = useLeaveGuard(unsent > 0, unsentMessage(unsent));
 
   useEffect(() => onUnsentChange?.(unsent), [unsent, onUnsentChange]);
+  // Gone from the page, nothing of it waits any more (its uploads are stopped on unmount).
+  const unsentRef = useRef(onUnsentChange);
+  unsentRef.current = onUnsentChange;
+  useEffect(() => () => unsentRef.current?.(0), []);
 
   const sending = items.filter((i) => i.status === 'queued' || i.status === 'uploading' || i.status === 'processing').length;
   const failed = items.filter((i) => i.status === 'failed' && i.retryable).length;
