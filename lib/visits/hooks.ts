@@ -1,19 +1,13 @@
 'use client';
 
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import { useCallback, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useState } from 'react';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import type { Page } from '@/lib/api/cursor';
 import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
-import {
-  addPending,
-  pendingSnapshot,
-  readPending,
-  removePending,
-  subscribePending,
-  updatePending,
-  type PendingEntry,
-} from '@/lib/visits/pending';
+import type { PhotoKind } from '@/lib/photos/schemas';
+import { adoptLegacyEntries, nextSeq, outboxItems, patchItem, putItem, removeItem, subscribeOutbox, type OutboxItem } from '@/lib/visits/outbox';
+import { drainOutbox, sendItem, type SendResult } from '@/lib/visits/outbox-sender';
 import { HISTORY_PAGE_SIZE, type CloseVisitInput, type CreateEntryInput, type EntryKind, type StartVisitInput } from '@/lib/visits/schemas';
 
 export const visitKeys = {
@@ -65,87 +59,48 @@ export function useVoidEntry(visitId: string) {
 }
 
 // ---------------------------------------------------------------------------------------------
-// Entries saved as they are made, kept on the phone until the server has them.
+// The visit's work saved as it is made and kept on the phone (lib/visits/outbox.ts) until the
+// server has it.
 
 export type SaveOutcome = { outcome: 'saved'; entry: EntryDto } | { outcome: 'waiting' } | { outcome: 'refused'; error: ApiError };
 
-/** A refusal is final (fix and resubmit); anything that smells of a bad connection is retried. */
-function isTransient(error: unknown): boolean {
-  if (!(error instanceof ApiError)) return true;
-  return error.code === 'network' || error.status === 0 || error.status === 401 || error.status === 408 || error.status === 429 || error.status >= 500;
-}
+const RETRY_CHECK_MS = 5_000;
 
-const inFlight = new Set<string>();
-const SEND_TIMEOUT_MS = 12_000;
-
-async function sendPending(visitId: string, clientEntryId: string, qc: QueryClient): Promise<SaveOutcome | null> {
-  if (inFlight.has(clientEntryId)) return null;
-  const pending = readPending(visitId).find((p) => p.input.clientEntryId === clientEntryId);
-  if (!pending) return null;
-  inFlight.add(clientEntryId);
-  updatePending(visitId, clientEntryId, { state: 'sending', attempts: pending.attempts + 1 });
-  try {
-    // A weak link can hang a request for minutes: give up after a while and keep it for the retry.
-    const entry = await apiFetch<EntryDto>(`/api/visits/${visitId}/entries`, { method: 'POST', json: pending.input, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
-    removePending(visitId, clientEntryId);
-    qc.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (old) =>
-      old ? { ...old, entries: [...old.entries.filter((e) => e.id !== entry.id), entry] } : old,
-    );
-    // The server also works out bypasses, follow-ups and settings from the entry.
-    void qc.invalidateQueries({ queryKey: visitKeys.detail(visitId) });
-    void qc.invalidateQueries({ queryKey: visitKeys.histories() });
-    return { outcome: 'saved', entry };
-  } catch (error) {
-    if (isTransient(error)) {
-      const signedOut = error instanceof ApiError && error.status === 401;
-      updatePending(visitId, clientEntryId, { state: 'waiting', error: signedOut ? 'Signed out: sign in again to send it.' : undefined });
-      return { outcome: 'waiting' };
-    }
-    const apiError = error as ApiError;
-    updatePending(visitId, clientEntryId, { state: 'refused', error: apiError.message, issues: apiError.issues });
-    return { outcome: 'refused', error: apiError };
-  } finally {
-    inFlight.delete(clientEntryId);
+/** What the server's answer to an outbox item changes in the cached visit. */
+function applySent(qc: QueryClient, visitId: string, result: SendResult): void {
+  if (result.result !== 'sent') return;
+  if (result.entry) {
+    const entry = result.entry;
+    qc.setQueryData<VisitDetailDto>(visitKeys.detail(visitId), (old) => (old ? { ...old, entries: [...old.entries.filter((e) => e.id !== entry.id), entry] } : old));
   }
+  // The server also works out bypasses, follow-ups and settings from the entry.
+  void qc.invalidateQueries({ queryKey: visitKeys.detail(visitId) });
+  void qc.invalidateQueries({ queryKey: visitKeys.histories() });
 }
-
-const RETRY_EVERY_MS = 15_000;
 
 /**
- * The visit's unsent entries and how to save a new one. Use once per visit page: it retries on
- * load, when the browser says the connection is back, and every 15 s while anything waits
- * (navigator.onLine is not always told about a dead mobile link).
+ * The visit's outbox and how to add to it. Use once per visit page: it sends on load, when the
+ * browser says the connection is back, and on a timer while anything waits (navigator.onLine is
+ * not always told about a dead mobile link), each item after its back-off.
  */
-export function usePendingEntries(visitId: string) {
+export function useVisitOutbox(visitId: string) {
   const qc = useQueryClient();
-  const raw = useSyncExternalStore(
-    (cb) => subscribePending(visitId, cb),
-    () => pendingSnapshot(visitId),
-    () => '[]',
-  );
-  const pending = useMemo(() => {
-    try {
-      return JSON.parse(raw) as PendingEntry[];
-    } catch {
-      return [];
-    }
-  }, [raw]);
+  const [items, setItems] = useState<OutboxItem[]>([]);
   const [online, setOnline] = useState(true);
-
-  const retryAll = useCallback(async () => {
-    for (const p of readPending(visitId)) {
-      if (p.state === 'refused') continue;
-      const result = await sendPending(visitId, p.input.clientEntryId, qc);
-      // One failed send means no signal: leave the rest for the next attempt.
-      if (result?.outcome === 'waiting') break;
-    }
-  }, [visitId, qc]);
+  const reload = useCallback(async () => setItems(await outboxItems(visitId)), [visitId]);
+  const onSent = useCallback((item: OutboxItem, result: SendResult) => applySent(qc, item.visitId, result), [qc]);
+  const retryAll = useCallback(async () => drainOutbox({ visitId, force: true, onSent }), [visitId, onSent]);
 
   useEffect(() => {
     setOnline(navigator.onLine);
-    // A 'sending' left by a page that was closed mid-request is really waiting.
-    for (const p of readPending(visitId)) if (p.state === 'sending' && !inFlight.has(p.input.clientEntryId)) updatePending(visitId, p.input.clientEntryId, { state: 'waiting' });
-    void retryAll();
+    const unsubscribe = subscribeOutbox(() => void reload());
+    void (async () => {
+      await adoptLegacyEntries();
+      // A 'sending' left by a page that was closed mid-request is really waiting.
+      for (const i of await outboxItems(visitId)) if (i.state === 'sending') await patchItem(i.id, { state: 'waiting' });
+      await reload();
+      await drainOutbox({ visitId, force: true, onSent });
+    })();
     const up = () => {
       setOnline(true);
       void retryAll();
@@ -154,32 +109,64 @@ export function usePendingEntries(visitId: string) {
     window.addEventListener('online', up);
     window.addEventListener('offline', down);
     return () => {
+      unsubscribe();
       window.removeEventListener('online', up);
       window.removeEventListener('offline', down);
     };
-  }, [visitId, retryAll]);
+  }, [visitId, reload, retryAll, onSent]);
 
-  const waitingCount = pending.filter((p) => p.state !== 'refused').length;
+  const waitingCount = items.filter((i) => i.state !== 'refused').length;
   useEffect(() => {
     if (waitingCount === 0) return;
-    const timer = window.setInterval(() => void retryAll(), RETRY_EVERY_MS);
+    const timer = window.setInterval(() => void drainOutbox({ visitId, onSent }), RETRY_CHECK_MS);
     return () => window.clearInterval(timer);
-  }, [waitingCount, retryAll]);
+  }, [waitingCount, visitId, onSent]);
 
   /** Keeps the entry on the phone first, then sends it. A refusal on the first try is handed back to the form. */
   const save = useCallback(
     async (input: CreateEntryInput): Promise<SaveOutcome> => {
-      addPending(visitId, input);
-      const result = await sendPending(visitId, input.clientEntryId, qc);
-      if (result?.outcome === 'refused') removePending(visitId, input.clientEntryId);
-      return result ?? { outcome: 'waiting' };
+      const item: OutboxItem = { type: 'entry', id: input.clientEntryId, visitId, seq: nextSeq(), state: 'sending', attempts: 0, savedAt: input.recordedAt ?? new Date().toISOString(), nextTryAt: 0, input };
+      await putItem(item);
+      const earlier = (await outboxItems(visitId)).some((i) => i.seq < item.seq && i.state !== 'refused');
+      // Behind older work still waiting, it keeps its place in the queue.
+      if (earlier) {
+        await patchItem(item.id, { state: 'waiting' });
+        void drainOutbox({ visitId, force: true, onSent });
+        return { outcome: 'waiting' };
+      }
+      const sent = await sendItem(item);
+      if (sent) onSent(item, sent);
+      if (sent?.result === 'refused') {
+        await removeItem(item.id);
+        return { outcome: 'refused', error: sent.error };
+      }
+      return sent?.result === 'sent' && sent.entry ? { outcome: 'saved', entry: sent.entry } : { outcome: 'waiting' };
     },
-    [visitId, qc],
+    [visitId, onSent],
   );
 
-  const discard = useCallback((clientEntryId: string) => removePending(visitId, clientEntryId), [visitId]);
+  /** A photo taken without signal: kept as a blob, uploaded and linked to the visit when it can be. */
+  const savePhoto = useCallback(
+    async (photo: { equipmentId: string; file: Blob; fileName: string; kind: PhotoKind; caption: string | null; uploadKey: string; clientEntryId: string }) => {
+      await putItem({ type: 'photo', id: photo.clientEntryId, visitId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, equipmentId: photo.equipmentId, file: photo.file, fileName: photo.fileName, photoKind: photo.kind, caption: photo.caption, uploadKey: photo.uploadKey });
+      void drainOutbox({ visitId, force: true, onSent });
+    },
+    [visitId, onSent],
+  );
 
-  return { pending, waitingCount, online, save, retryAll, discard };
+  /** The close goes into the outbox behind everything made before it, and is sent after them. */
+  const queueClose = useCallback(
+    async (input: CloseVisitInput & { clientCloseId: string }) => {
+      await putItem({ type: 'close', id: input.clientCloseId, visitId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, input });
+      await drainOutbox({ visitId, force: true, onSent });
+      return (await outboxItems(visitId)).find((i) => i.id === input.clientCloseId) ?? null;
+    },
+    [visitId, onSent],
+  );
+
+  const discard = useCallback((id: string) => void removeItem(id), []);
+
+  return { items, waitingCount, online, save, savePhoto, queueClose, retryAll, discard };
 }
 
 // ---------------------------------------------------------------------------------------------

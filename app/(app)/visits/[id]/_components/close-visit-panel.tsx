@@ -7,50 +7,57 @@ import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
 import { describedBy, Field, Textarea } from '@/components/ui/field';
 import type { VisitDetailDto } from '@/lib/visits/dto';
-import { useCloseVisit } from '@/lib/visits/hooks';
-import type { PendingEntry } from '@/lib/visits/pending';
+import { newClientId, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
 import { CheckCard } from '@/app/(app)/visits/[id]/_components/form-kit';
 
+/** Bypasses on record: the server's, plus any recorded on the phone and not yet sent. */
+export function bypassesOf(visit: VisitDetailDto, items: readonly OutboxItem[]): string[] {
+  const local = items.flatMap((i) => (i.type === 'entry' && i.input.kind === 'action' && i.input.data.bypassedControl ? [i.input.data.bypassDescription ?? 'a control'] : []));
+  return [...visit.openBypasses.map((b) => b.description), ...local];
+}
+
 /** What still stands between the visit and its close, in words (empty when nothing does). */
-export function stillMissing(visit: VisitDetailDto, pending: PendingEntry[]): string[] {
+export function stillMissing(visit: VisitDetailDto, items: readonly OutboxItem[]): string[] {
   const out: string[] = [];
-  const waiting = pending.filter((p) => p.state !== 'refused');
-  const photos = waiting.filter((p) => p.input.kind === 'photo').length;
-  const refused = pending.length - waiting.length;
-  if (waiting.length > 0) {
-    const others = waiting.length - photos;
-    const parts = [others > 0 ? `${others} ${others === 1 ? 'entry' : 'entries'}` : null, photos > 0 ? `${photos} ${photos === 1 ? 'photo' : 'photos'}` : null].filter(Boolean);
-    out.push(`${parts.join(' and ')} not yet sent: they wait for signal.`);
-  }
-  if (refused > 0) out.push(`${refused} ${refused === 1 ? 'entry was' : 'entries were'} refused by the server: fix or discard ${refused === 1 ? 'it' : 'them'}.`);
-  for (const b of visit.openBypasses) out.push(`Bypass to confirm removed: ${b.description}.`);
+  const work = items.filter((i) => i.type !== 'close');
+  const waiting = waitingWords(work);
+  if (waiting) out.push(`${waiting.replace(/ waiting$/, '')} not yet sent: they wait for signal.`);
+  const refused = work.filter((i) => i.state === 'refused').length;
+  if (refused > 0) out.push(`${refused} ${refused === 1 ? 'entry was' : 'entries were'} refused by the server: record ${refused === 1 ? 'it' : 'them'} again or discard ${refused === 1 ? 'it' : 'them'}.`);
+  for (const b of bypassesOf(visit, items)) out.push(`Bypass to confirm removed: ${b}.`);
   return out;
 }
 
 /**
- * Closing: a summary, every entry on the server, and — when a control was bypassed — the
- * technician's confirmation that the jumper is gone. The server checks the same and records it.
+ * Closing: a summary and — when a control was bypassed — the technician's confirmation that the
+ * jumper is gone (the server checks the same and records it). The close goes into the phone's
+ * outbox behind the work made before it, so a visit closed without signal closes once all of it
+ * has reached the server.
  */
-export function CloseVisitPanel({ visit, pending }: { visit: VisitDetailDto; pending: PendingEntry[] }) {
-  const waitingCount = pending.length;
-  const missing = stillMissing(visit, pending);
+export function CloseVisitPanel({
+  visit,
+  items,
+  queueClose,
+}: {
+  visit: VisitDetailDto;
+  items: readonly OutboxItem[];
+  queueClose: (input: { summary: string; confirmBypassRemoved: boolean; clientCloseId: string }) => Promise<OutboxItem | null>;
+}) {
+  const missing = stillMissing(visit, items);
   const router = useRouter();
-  const close = useCloseVisit(visit.id);
   const [summary, setSummary] = useState('');
   const [confirmed, setConfirmed] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
   const [summaryError, setSummaryError] = useState<string | undefined>();
   const confirmRef = useRef<HTMLDivElement>(null);
-  const bypasses = visit.openBypasses;
+  const bypasses = bypassesOf(visit, items);
+  const queued = items.find((i) => i.type === 'close');
 
-  function submit(e: FormEvent) {
+  async function submit(e: FormEvent) {
     e.preventDefault();
     setProblem(null);
     setSummaryError(undefined);
-    if (waitingCount > 0) {
-      setProblem(`${waitingCount} ${waitingCount === 1 ? 'entry is' : 'entries are'} not on the server yet. They must reach it (or be discarded) before the visit closes.`);
-      return;
-    }
     if (!summary.trim()) {
       setSummaryError('Summary is required.');
       return;
@@ -60,12 +67,23 @@ export function CloseVisitPanel({ visit, pending }: { visit: VisitDetailDto; pen
       confirmRef.current?.querySelector('input')?.focus();
       return;
     }
-    close.mutate(
-      { summary, confirmBypassRemoved: confirmed },
-      {
-        onSuccess: () => router.refresh(),
-        onError: (err) => setProblem(err.message),
-      },
+    setBusy(true);
+    const left = await queueClose({ summary: summary.trim(), confirmBypassRemoved: confirmed, clientCloseId: newClientId() });
+    setBusy(false);
+    if (!left) router.refresh();
+    else if (left.state === 'refused') setProblem(left.error ?? 'The server refused to close the visit.');
+  }
+
+  if (queued && queued.state !== 'refused') {
+    return (
+      <Card>
+        <div role="status" className="space-y-2" data-testid="close-queued">
+          <h2 className="flex items-center gap-2 text-lg font-semibold">
+            <Lock aria-hidden className="size-5 text-ice-700" /> Closing as soon as there is signal
+          </h2>
+          <p>The close is kept on this phone behind the work made before it, and goes to the server after it. You can leave this page.</p>
+        </div>
+      </Card>
     );
   }
 
@@ -93,25 +111,18 @@ export function CloseVisitPanel({ visit, pending }: { visit: VisitDetailDto; pen
         </Field>
         {bypasses.length > 0 ? (
           <div ref={confirmRef} className="space-y-2">
-            <Alert tone="danger" title="Bypassed control on record">
-              <ul className="list-disc pl-4">
-                {bypasses.map((b) => (
-                  <li key={b.entryId}>{b.description}</li>
-                ))}
-              </ul>
-            </Alert>
             <CheckCard id="close-bypass-removed" checked={confirmed} onChange={setConfirmed} tone="warning">
               I removed every jumper or bypass and the controls are back in service
             </CheckCard>
           </div>
         ) : null}
-        {problem ? (
+        {problem || queued?.state === 'refused' ? (
           <Alert tone="danger" title="The visit is still open">
-            {problem}
+            {problem ?? queued?.error}
           </Alert>
         ) : null}
-        <button type="submit" disabled={close.isPending} className="min-h-12 w-full rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:w-auto">
-          {close.isPending ? 'Closing…' : 'Close visit'}
+        <button type="submit" disabled={busy} className="min-h-12 w-full rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:w-auto">
+          {busy ? 'Closing…' : 'Close visit'}
         </button>
       </form>
     </Card>

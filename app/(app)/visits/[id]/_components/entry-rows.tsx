@@ -9,7 +9,7 @@ import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
 import type { EntryDto } from '@/lib/visits/dto';
 import { useVoidEntry } from '@/lib/visits/hooks';
-import type { PendingEntry } from '@/lib/visits/pending';
+import type { OutboxItem } from '@/lib/visits/outbox';
 import type { EntryKind } from '@/lib/visits/terms';
 
 // The entries of a visit as the technician sees them: saved, on their way, or refused and waiting
@@ -24,7 +24,7 @@ export interface Row {
   state: SaveState;
   entry: SummaryEntry;
   saved?: EntryDto;
-  pending?: PendingEntry;
+  pending?: OutboxItem;
 }
 
 export function EntryRows({
@@ -35,6 +35,7 @@ export function EntryRows({
   timeZone,
   canVoid,
   onDiscard,
+  onRedo,
 }: {
   rows: Row[];
   showEquipment: boolean;
@@ -43,6 +44,8 @@ export function EntryRows({
   timeZone: string;
   canVoid: (r: Row) => boolean;
   onDiscard: (clientEntryId: string) => void;
+  /** Opens the entry's form on its unit, to record a refused entry again with the fix. */
+  onRedo: (r: Row) => void;
 }) {
   if (rows.length === 0) return <p className="rounded-lg border border-dashed border-slate-300 bg-white p-4 text-slate-700">Nothing recorded yet.</p>;
   return (
@@ -66,9 +69,22 @@ export function EntryRows({
               <p role="alert" className="text-sm font-semibold text-red-800">
                 The server refused it: {r.pending.error}
               </p>
-              <Button variant="secondary" size="sm" onClick={() => onDiscard(r.key)}>
-                Discard this entry
-              </Button>
+              {r.pending.issues?.length ? (
+                <ul className="list-disc pl-5 text-sm text-red-800">
+                  {r.pending.issues.map((i) => (
+                    <li key={`${i.path}-${i.message}`}>{i.message}</li>
+                  ))}
+                </ul>
+              ) : null}
+              <p className="text-sm text-slate-700">It stays here until you record it again with the fix, or discard it.</p>
+              <div className="flex flex-wrap gap-2">
+                <Button size="sm" onClick={() => onRedo(r)}>
+                  Record it again
+                </Button>
+                <Button variant="secondary" size="sm" onClick={() => onDiscard(r.key)}>
+                  Discard this entry
+                </Button>
+              </div>
             </div>
           ) : null}
           {r.pending?.state === 'waiting' && r.pending.error ? <p className="text-sm font-semibold text-amber-900">{r.pending.error}</p> : null}

@@ -17,10 +17,10 @@ import type { ErrorIssue } from '@/lib/errors';
 import { formatCode } from '@/lib/tags/code';
 import type { UnitPrefs } from '@/lib/units/quantities';
 import type { VisitDetailDto } from '@/lib/visits/dto';
-import { usePendingEntries, useVisit, type SaveOutcome } from '@/lib/visits/hooks';
+import { useVisit, useVisitOutbox, type SaveOutcome } from '@/lib/visits/hooks';
 import { kindsFor } from '@/lib/visits/kinds';
 import type { EntryContext } from '@/lib/visits/kinds/types';
-import { newClientEntryId } from '@/lib/visits/pending';
+import { newClientId, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
 import { createEntrySchema, type CreateEntryInput } from '@/lib/visits/schemas';
 import { ENTRY_KINDS, entryKindLabels, type EntryKind } from '@/lib/visits/terms';
 import { CloseVisitPanel, stillMissing } from '@/app/(app)/visits/[id]/_components/close-visit-panel';
@@ -70,7 +70,7 @@ export function VisitWorkspace({
   const search = useSearchParams();
   const visitQuery = useVisit(initialVisit.id, initialVisit);
   const visit = visitQuery.data ?? initialVisit;
-  const { pending, waitingCount, online, save, retryAll, discard } = usePendingEntries(visit.id);
+  const { items, waitingCount, online, save, queueClose, retryAll, discard } = useVisitOutbox(visit.id);
   const [justSaved, setJustSaved] = useState<{ clientEntryId: string; outcome: SaveOutcome['outcome']; kind: EntryKind } | null>(null);
   const savedNote = useRef<HTMLDivElement>(null);
   const panelHeading = useRef<HTMLHeadingElement>(null);
@@ -106,9 +106,9 @@ export function VisitWorkspace({
   // A pending entry the server already has (its answer was lost on the way back) is done.
   const savedIds = useMemo(() => new Set(visit.entries.map((e) => e.clientEntryId)), [visit.entries]);
   useEffect(() => {
-    for (const p of pending) if (savedIds.has(p.input.clientEntryId)) discard(p.input.clientEntryId);
-  }, [pending, savedIds, discard]);
-  const unsent = useMemo(() => pending.filter((p) => !savedIds.has(p.input.clientEntryId)), [pending, savedIds]);
+    for (const i of items) if (i.type !== 'close' && savedIds.has(i.id)) discard(i.id);
+  }, [items, savedIds, discard]);
+  const unsent = useMemo(() => items.filter((i) => !savedIds.has(i.id)), [items, savedIds]);
 
   const rows: Row[] = useMemo(() => {
     const fromServer: Row[] = visit.entries.map((e) => ({
@@ -121,16 +121,7 @@ export function VisitWorkspace({
       entry: e,
       saved: e,
     }));
-    const waiting: Row[] = unsent.map((p) => ({
-      key: p.input.clientEntryId,
-      kind: p.input.kind,
-      equipmentId: p.input.equipmentId,
-      equipmentName: names.get(p.input.equipmentId) ?? 'Equipment',
-      recordedAt: p.savedAt,
-      state: p.state,
-      entry: { kind: p.input.kind, data: p.input.data as Record<string, unknown> },
-      pending: p,
-    }));
+    const waiting: Row[] = unsent.flatMap((p) => (p.type === 'close' ? [] : [outboxRow(p, names)]));
     return [...fromServer, ...waiting].sort((a, b) => b.recordedAt.localeCompare(a.recordedAt));
   }, [visit.entries, unsent, names]);
 
@@ -148,7 +139,7 @@ export function VisitWorkspace({
 
   async function submit(k: EntryKind, data: unknown, opts?: { stay: boolean }): Promise<SubmitResult> {
     if (!selected) return { ok: false, errors: {}, message: 'Choose the unit first.' };
-    const candidate = { equipmentId: selected.id, clientEntryId: newClientEntryId(), recordedAt: new Date().toISOString(), kind: k, data };
+    const candidate = { equipmentId: selected.id, clientEntryId: newClientId(), recordedAt: new Date().toISOString(), kind: k, data };
     const parsed = createEntrySchema.safeParse(candidate);
     if (!parsed.success) return { ok: false, errors: toFieldErrors(parsed.error.issues), message: 'Check the highlighted fields; nothing was saved.' };
     const input: CreateEntryInput = parsed.data;
@@ -189,7 +180,7 @@ export function VisitWorkspace({
         <button type="button" onClick={() => go({ equipment: selected?.id })} className="inline-flex min-h-11 items-center gap-2 rounded-md px-2 font-semibold text-ice-800 hover:bg-ice-50">
           <ArrowLeft aria-hidden className="size-5" /> Back to the units
         </button>
-        <CloseVisitPanel visit={visit} pending={unsent} />
+        <CloseVisitPanel visit={visit} items={unsent} queueClose={queueClose} />
       </div>
     );
   } else if (step === 'scan') {
@@ -292,6 +283,7 @@ export function VisitWorkspace({
             timeZone={visit.timeZone}
             canVoid={(r) => canVoidAny || r.saved?.createdBy === actorId}
             onDiscard={discard}
+            onRedo={(r) => go({ equipment: r.equipmentId, kind: r.kind })}
           />
         </section>
       </section>
@@ -301,7 +293,7 @@ export function VisitWorkspace({
   return (
     <div className="space-y-4 pb-28">
       {!online || waitingCount > 0 ? (
-        <Alert tone="warning" title={online ? `${waitingCount} ${waitingCount === 1 ? 'entry is' : 'entries are'} waiting to be sent` : 'No signal'}>
+        <Alert tone="warning" title={online ? `${waitingWords(unsent) ?? 'Nothing'} to be sent` : `No signal${waitingCount > 0 ? `: ${waitingWords(unsent)}` : ''}`}>
           <p>
             {waitingCount > 0
               ? 'They are kept on this phone and sent as soon as there is a connection. Do not clear this browser’s data until they are sent.'
@@ -348,6 +340,7 @@ export function VisitWorkspace({
         entryCount={rows.filter((r) => !r.saved?.voidedAt).length}
         unitCount={touched.size}
         missing={missing.length}
+        closeQueued={unsent.some((i) => i.type === 'close' && i.state !== 'refused')}
         closing={step === 'close'}
         onClose={() => go({ equipment: selected?.id, step: 'close' })}
       />
@@ -355,13 +348,42 @@ export function VisitWorkspace({
   );
 }
 
+/** An item still on the phone, as a row of the visit's entries. */
+function outboxRow(p: Exclude<OutboxItem, { type: 'close' }>, names: Map<string, string>): Row {
+  const equipmentId = p.type === 'entry' ? p.input.equipmentId : p.equipmentId;
+  return {
+    key: p.id,
+    kind: p.type === 'entry' ? p.input.kind : 'photo',
+    equipmentId,
+    equipmentName: names.get(equipmentId) ?? 'Equipment',
+    recordedAt: p.savedAt,
+    state: p.state,
+    entry: p.type === 'entry' ? { kind: p.input.kind, data: p.input.data as Record<string, unknown> } : { kind: 'photo', data: { caption: p.caption ?? p.fileName } },
+    pending: p,
+  };
+}
+
 /** Always in reach at the bottom of the screen: where the visit stands, and the way to close it. */
-function VisitBar({ entryCount, unitCount, missing, closing, onClose }: { entryCount: number; unitCount: number; missing: number; closing: boolean; onClose: () => void }) {
+function VisitBar({
+  entryCount,
+  unitCount,
+  missing,
+  closeQueued,
+  closing,
+  onClose,
+}: {
+  entryCount: number;
+  unitCount: number;
+  missing: number;
+  closeQueued: boolean;
+  closing: boolean;
+  onClose: () => void;
+}) {
   return (
     <div className="fixed inset-x-0 bottom-0 z-30 border-t border-slate-300 bg-white/95 shadow-[0_-2px_8px_rgba(15,23,42,0.12)] backdrop-blur print:hidden" data-testid="visit-bar">
       <div className="mx-auto flex max-w-5xl items-center gap-3 px-4 py-2">
         <p className="min-w-0 flex-1 text-sm leading-tight" role="status">
-          <span className="block font-semibold text-slate-900">Visit open</span>
+          <span className="block font-semibold text-slate-900">{closeQueued ? 'Closing when there is signal' : 'Visit open'}</span>
           <span className="block text-slate-700">
             {entryCount} {entryCount === 1 ? 'entry' : 'entries'} on {unitCount} {unitCount === 1 ? 'unit' : 'units'}
             {missing > 0 ? ` · ${missing} to settle` : ''}

@@ -1,0 +1,182 @@
+import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import type { ErrorIssue } from '@/lib/errors';
+import type { PhotoKind } from '@/lib/photos/schemas';
+import type { CloseVisitInput, CreateEntryInput } from '@/lib/visits/schemas';
+
+// The phone's one outbox for a visit's work: entries, photos (kept as blobs) and the close, in the
+// order they were made, in IndexedDB so a reload, a closed tab or a restarted phone loses nothing.
+// Each item carries an id made on the phone (clientEntryId, the photo's uploadKey, clientCloseId),
+// so a send repeated after a lost answer returns the first result. Browser-only.
+
+export type OutboxState = 'waiting' | 'sending' | 'refused';
+
+interface ItemBase {
+  /** The id made on the phone: the entry's clientEntryId, or the close's clientCloseId. */
+  id: string;
+  visitId: string;
+  /** Order of making; items of a visit are sent in this order. */
+  seq: number;
+  state: OutboxState;
+  attempts: number;
+  /** When the technician made it (also the entry's recordedAt). */
+  savedAt: string;
+  /** Not before this time (ms since epoch): the back-off after a failed send. */
+  nextTryAt: number;
+  /** For a refusal: the server's message and field issues, so the technician can fix it. */
+  error?: string;
+  issues?: ErrorIssue[];
+}
+
+export interface EntryItem extends ItemBase {
+  type: 'entry';
+  input: CreateEntryInput;
+}
+
+/** A photo taken without signal: uploaded (idempotent by uploadKey), then linked by a photo entry. */
+export interface PhotoItem extends ItemBase {
+  type: 'photo';
+  equipmentId: string;
+  file: Blob;
+  fileName: string;
+  photoKind: PhotoKind;
+  caption: string | null;
+  uploadKey: string;
+  /** Set once the upload went through, so a retry only links it. */
+  photoId?: string;
+}
+
+export interface CloseItem extends ItemBase {
+  type: 'close';
+  input: CloseVisitInput & { clientCloseId: string };
+}
+
+export type OutboxItem = EntryItem | PhotoItem | CloseItem;
+
+interface OutboxDb extends DBSchema {
+  items: { key: string; value: OutboxItem; indexes: { visitId: string } };
+}
+
+const DB_NAME = 'rimeline-outbox';
+const CHANNEL = 'rimeline-outbox';
+const LEGACY_PREFIX = 'rimeline:pending-entries:';
+
+let dbPromise: Promise<IDBPDatabase<OutboxDb>> | null = null;
+function database(): Promise<IDBPDatabase<OutboxDb>> {
+  dbPromise ??= openDB<OutboxDb>(DB_NAME, 1, {
+    upgrade(db) {
+      db.createObjectStore('items', { keyPath: 'id' }).createIndex('visitId', 'visitId');
+    },
+  });
+  return dbPromise;
+}
+
+const listeners = new Set<() => void>();
+let channel: BroadcastChannel | null = null;
+
+function changed(): void {
+  for (const l of listeners) l();
+  channel?.postMessage('changed');
+}
+
+/** Calls back on any change, from this tab or another. */
+export function subscribeOutbox(onChange: () => void): () => void {
+  if (typeof window === 'undefined') return () => undefined;
+  if (!channel && typeof BroadcastChannel !== 'undefined') {
+    channel = new BroadcastChannel(CHANNEL);
+    channel.onmessage = () => {
+      for (const l of listeners) l();
+    };
+  }
+  listeners.add(onChange);
+  return () => listeners.delete(onChange);
+}
+
+let lastSeq = 0;
+/** Strictly increasing within this phone, even for two items made in one millisecond. */
+export function nextSeq(): number {
+  lastSeq = Math.max(lastSeq + 1, Date.now() * 1000);
+  return lastSeq;
+}
+
+export async function outboxItems(visitId?: string): Promise<OutboxItem[]> {
+  const db = await database();
+  const items = visitId ? await db.getAllFromIndex('items', 'visitId', visitId) : await db.getAll('items');
+  return items.sort((a, b) => a.seq - b.seq);
+}
+
+export async function putItem(item: OutboxItem): Promise<void> {
+  await (await database()).put('items', item);
+  changed();
+}
+
+export async function patchItem(id: string, patch: Partial<Pick<OutboxItem, 'state' | 'attempts' | 'nextTryAt' | 'error' | 'issues'>> & { photoId?: string }): Promise<void> {
+  const db = await database();
+  const tx = db.transaction('items', 'readwrite');
+  const item = await tx.store.get(id);
+  if (item) await tx.store.put({ ...item, ...patch } as OutboxItem);
+  await tx.done;
+  changed();
+}
+
+export async function removeItem(id: string): Promise<void> {
+  await (await database()).delete('items', id);
+  changed();
+}
+
+/** Entries kept in localStorage by an earlier version move into the outbox once. */
+export async function adoptLegacyEntries(): Promise<void> {
+  if (typeof window === 'undefined') return;
+  const keys = Object.keys(window.localStorage).filter((k) => k.startsWith(LEGACY_PREFIX));
+  for (const key of keys) {
+    const visitId = key.slice(LEGACY_PREFIX.length);
+    let list: { input: CreateEntryInput; savedAt: string; attempts: number; state: string; error?: string; issues?: ErrorIssue[] }[] = [];
+    try {
+      list = JSON.parse(window.localStorage.getItem(key) ?? '[]');
+    } catch {
+      list = [];
+    }
+    for (const p of list) {
+      await putItem({
+        type: 'entry',
+        id: p.input.clientEntryId,
+        visitId,
+        seq: nextSeq(),
+        state: p.state === 'refused' ? 'refused' : 'waiting',
+        attempts: p.attempts ?? 0,
+        savedAt: p.savedAt,
+        nextTryAt: 0,
+        input: p.input,
+        error: p.error,
+        issues: p.issues,
+      });
+    }
+    window.localStorage.removeItem(key);
+  }
+}
+
+/** "3 entries and 2 photos waiting" — what the phone still holds, in words. */
+export function waitingWords(items: readonly OutboxItem[]): string | null {
+  const waiting = items.filter((i) => i.state !== 'refused');
+  const photos = waiting.filter((i) => i.type === 'photo' || (i.type === 'entry' && i.input.kind === 'photo')).length;
+  const closes = waiting.filter((i) => i.type === 'close').length;
+  const entries = waiting.length - photos - closes;
+  const parts = [
+    entries > 0 ? `${entries} ${entries === 1 ? 'entry' : 'entries'}` : null,
+    photos > 0 ? `${photos} ${photos === 1 ? 'photo' : 'photos'}` : null,
+    closes > 0 ? 'the close' : null,
+  ].filter(Boolean);
+  if (parts.length === 0) return null;
+  const list = parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts.at(-1)}` : parts[0];
+  return `${list} waiting`;
+}
+
+/** A v4 uuid; crypto.randomUUID exists only in secure contexts, getRandomValues everywhere. */
+export function newClientId(): string {
+  const c = globalThis.crypto;
+  if (typeof c.randomUUID === 'function') return c.randomUUID();
+  const b = c.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6]! & 0x0f) | 0x40;
+  b[8] = (b[8]! & 0x3f) | 0x80;
+  const h = [...b].map((x) => x.toString(16).padStart(2, '0')).join('');
+  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`;
+}

@@ -1,0 +1,114 @@
+// The phone's outbox (IndexedDB through fake-indexeddb, fetch stubbed): a visit's work goes in the
+// order it was made; no signal stops the round and backs off; a refusal is kept for its fix and
+// never dropped; the close waits until everything before it has reached the server.
+import 'fake-indexeddb/auto';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { nextSeq, outboxItems, putItem, removeItem, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
+import { backoffMs, drainOutbox } from '@/lib/visits/outbox-sender';
+
+const visitId = '11111111-1111-4111-8111-111111111111';
+const unit = '22222222-2222-4222-8222-222222222222';
+
+function entry(id: string, text: string): OutboxItem {
+  return {
+    type: 'entry',
+    id,
+    visitId,
+    seq: nextSeq(),
+    state: 'waiting',
+    attempts: 0,
+    savedAt: new Date().toISOString(),
+    nextTryAt: 0,
+    input: { equipmentId: unit, clientEntryId: id, kind: 'note', data: { text } },
+  };
+}
+
+function close(id: string): OutboxItem {
+  return { type: 'close', id, visitId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, input: { summary: 'Done', confirmBypassRemoved: false, clientCloseId: id } };
+}
+
+const ids = ['aaaaaaaa-0000-4000-8000-000000000001', 'aaaaaaaa-0000-4000-8000-000000000002', 'aaaaaaaa-0000-4000-8000-000000000003', 'aaaaaaaa-0000-4000-8000-000000000004'];
+let sent: { url: string; body: unknown }[];
+
+function answer(status: number, body: unknown): Response {
+  return new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
+}
+
+beforeEach(async () => {
+  sent = [];
+  for (const i of await outboxItems()) await removeItem(i.id);
+});
+afterEach(() => vi.unstubAllGlobals());
+
+describe('visit outbox', () => {
+  it('sends a visit’s work in the order it was made, then the close', async () => {
+    await putItem(entry(ids[0]!, 'first'));
+    await putItem(entry(ids[1]!, 'second'));
+    await putItem(close(ids[2]!));
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      sent.push({ url, body: JSON.parse(String(init.body)) });
+      return answer(200, url.endsWith('/close') ? { id: visitId, status: 'closed' } : { id: 'e', clientEntryId: 'x' });
+    });
+    await drainOutbox({ visitId });
+    expect(sent.map((s) => (s.body as { data?: { text: string } }).data?.text ?? 'close')).toEqual(['first', 'second', 'close']);
+    expect(sent[2]!.url).toBe(`/api/visits/${visitId}/close`);
+    expect(await outboxItems(visitId)).toEqual([]);
+  });
+
+  it('stops the round when there is no signal, and backs off', async () => {
+    await putItem(entry(ids[0]!, 'first'));
+    await putItem(entry(ids[1]!, 'second'));
+    vi.stubGlobal('fetch', async (url: string) => {
+      sent.push({ url, body: null });
+      throw new TypeError('Failed to fetch');
+    });
+    const before = Date.now();
+    await drainOutbox({ visitId });
+    expect(sent).toHaveLength(1);
+    const [first, second] = await outboxItems(visitId);
+    expect(first).toMatchObject({ state: 'waiting', attempts: 1 });
+    expect(first!.nextTryAt).toBeGreaterThanOrEqual(before + backoffMs(1));
+    expect(second).toMatchObject({ state: 'waiting', attempts: 0 });
+    // Within the back-off nothing is tried again, unless forced (the connection came back).
+    await drainOutbox({ visitId });
+    expect(sent).toHaveLength(1);
+    await drainOutbox({ visitId, force: true });
+    expect(sent).toHaveLength(2);
+    expect(waitingWords(await outboxItems(visitId))).toBe('2 entries waiting');
+  });
+
+  it('keeps a refused entry for its fix, sends the entries after it, and holds the close', async () => {
+    await putItem(entry(ids[0]!, 'refused one'));
+    await putItem(entry(ids[1]!, 'fine one'));
+    await putItem(close(ids[2]!));
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      const body = JSON.parse(String(init.body)) as { data?: { text: string } };
+      sent.push({ url, body });
+      if (body.data?.text === 'refused one') return answer(422, { error: { code: 'validation_failed', message: 'Note is too long.', issues: [{ path: 'data.text', message: 'Note is too long.' }] } });
+      return answer(200, url.endsWith('/close') ? { id: visitId } : { id: 'e' });
+    });
+    await drainOutbox({ visitId, force: true });
+    expect(sent.map((s) => s.url.endsWith('/close'))).toEqual([false, false]);
+    const left = await outboxItems(visitId);
+    expect(left.map((i) => [i.type, i.state])).toEqual([
+      ['entry', 'refused'],
+      ['close', 'waiting'],
+    ]);
+    expect(left[0]!.error).toBe('Note is too long.');
+    expect(left[0]!.issues).toEqual([{ path: 'data.text', message: 'Note is too long.' }]);
+    // A later round does not drop it either.
+    await drainOutbox({ visitId, force: true });
+    expect((await outboxItems(visitId)).map((i) => i.state)).toEqual(['refused', 'waiting']);
+    // Discarded by the technician: now the close goes.
+    await removeItem(ids[0]!);
+    await drainOutbox({ visitId, force: true });
+    expect(sent.at(-1)!.url).toBe(`/api/visits/${visitId}/close`);
+    expect(await outboxItems(visitId)).toEqual([]);
+  });
+
+  it('says what waits in words', () => {
+    const photo: OutboxItem = { ...entry(ids[3]!, 'p'), type: 'photo', equipmentId: unit, file: new Blob(['x']), fileName: 'plate.jpg', photoKind: 'nameplate', caption: null, uploadKey: ids[3]! } as OutboxItem;
+    expect(waitingWords([entry(ids[0]!, 'a'), entry(ids[1]!, 'b'), entry(ids[2]!, 'c'), photo, close(ids[2]!)])).toBe('3 entries, 1 photo and the close waiting');
+    expect(waitingWords([])).toBeNull();
+  });
+});
