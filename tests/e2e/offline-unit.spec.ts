@@ -56,11 +56,17 @@ async function packCount(page: Page): Promise<number> {
   });
 }
 
-test('a kept site opens a never-opened unit by typed code without signal; sign-out wipes the copy @phone', async ({ page, context }) => {
+test('a kept site opens a never-opened unit by typed code without signal; sign-out wipes the copy @phone', async ({ page, context, browser }, info) => {
   test.setTimeout(180_000);
   const label = String(Date.now()).slice(-6);
+  // The office registers the site, its units and their tags.
+  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
+  const office = await officeContext.newPage();
+  await signIn(office, 'office@rimeline.test');
+  const { site, evaporator, control } = await keptSite(office.request, label);
+  await officeContext.close();
+
   await signIn(page, 'tech@rimeline.test');
-  const { site, evaporator, control } = await keptSite(page.request, label);
   // History on the control: a visit with a note, recorded while online.
   const visit = await api<{ id: string }>(page.request, 'POST', '/api/visits', { siteId: site.id, reason: 'maintenance' });
   await api(page.request, 'POST', `/api/visits/${visit.id}/entries`, {
