@@ -3,6 +3,7 @@
 import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { LeaveDialogProps } from '@/components/ui/leave-dialog';
+import { inAppPath } from '@/lib/ui/in-app-path';
 
 // Asks before work not yet sent is left behind: on reload or tab close (the browser's own
 // question), on a link within the app, and on a form's own close button (`confirm`). Render
@@ -19,18 +20,12 @@ export interface LeaveGuardOptions {
   pageLeave?: boolean;
 }
 
-/** The same-app address a click would follow, or null when the click is not a plain in-app navigation. */
-export function inAppTarget(event: MouseEvent, origin: string, current: string): string | null {
+/** The in-app path a plain click would follow, or null (modifier keys, new tab, download, another site). */
+function followedPath(event: MouseEvent): string | null {
   if (event.defaultPrevented || event.button !== 0 || event.metaKey || event.ctrlKey || event.shiftKey || event.altKey) return null;
   const anchor = event.target instanceof Element ? event.target.closest('a[href]') : null;
   if (!(anchor instanceof HTMLAnchorElement) || anchor.hasAttribute('download')) return null;
-  if (anchor.target && anchor.target !== '_self') return null;
-  const url = new URL(anchor.href, current);
-  if (url.origin !== origin) return null;
-  const here = new URL(current);
-  // A jump within the same page loses nothing.
-  if (url.pathname === here.pathname && url.search === here.search && url.hash !== '') return null;
-  return url.pathname + url.search + url.hash;
+  return inAppPath(anchor.href, anchor.target, window.location.href);
 }
 
 export function useLeaveGuard(blocking: boolean, message: string, { pageLeave = true }: LeaveGuardOptions = {}): LeaveGuard {
@@ -63,7 +58,7 @@ export function useLeaveGuard(blocking: boolean, message: string, { pageLeave = 
     };
     // Capture phase, ahead of the app's link handlers, which skip a click already prevented.
     const click = (e: MouseEvent) => {
-      const href = inAppTarget(e, window.location.origin, window.location.href);
+      const href = followedPath(e);
       if (!href) return;
       e.preventDefault();
       onLeave.current = () => router.push(href);
