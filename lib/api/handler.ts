@@ -100,7 +100,7 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
   options: Options<P, Q, B>,
   handler: (input: HandlerInput<P, Q, B>) => Promise<R>,
 ) {
-  return async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
+  const route = async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
     try {
       // Before any lookup: a forged cross-origin request learns nothing, not even 401 or 404.
       assertSameOrigin(req);
@@ -140,4 +140,6 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
       return errorResponse(error);
     }
   };
+  // The schemas stay readable on the export so tests (the route fuzzer) can mutate each route's own.
+  return Object.assign(route, { apiOptions: options as Options<unknown, unknown, unknown> });
 }

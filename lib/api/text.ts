@@ -17,13 +17,28 @@ export function stripBidiControls(value: string): string {
   return value.replace(BIDI_CONTROLS, '');
 }
 
+/** Deeper than any record the app stores; a body nested further is refused before it is walked. */
+export const MAX_DEPTH = 32;
+
+/** Whether a parsed JSON value nests arrays or objects deeper than `max` levels. */
+export function nestedDeeperThan(value: unknown, max = MAX_DEPTH): boolean {
+  const stack: [unknown, number][] = [[value, 0]];
+  while (stack.length) {
+    const [v, depth] = stack.pop()!;
+    if (v === null || typeof v !== 'object') continue;
+    if (depth >= max) return true;
+    for (const item of Object.values(v)) stack.push([item, depth + 1]);
+  }
+  return false;
+}
+
 /**
  * The path of the first string (value or object key) that is not valid text, walking nested
- * arrays and objects; `null` when all text is valid. Depth is bounded so a hostile body cannot
- * exhaust the stack: anything deeper than that counts as invalid.
+ * arrays and objects; `null` when all text is valid. Callers refuse deep nesting first
+ * (nestedDeeperThan); past MAX_DEPTH the walk stops and counts the rest as invalid.
  */
 export function findInvalidText(value: unknown, path: string[] = [], depth = 0): string | null {
-  if (depth > 64) return path.join('.') || '(root)';
+  if (depth > MAX_DEPTH) return path.join('.') || '(root)';
   if (typeof value === 'string') return isValidText(value) ? null : path.join('.') || '(root)';
   if (Array.isArray(value)) {
     for (let i = 0; i < value.length; i++) {

@@ -11,7 +11,9 @@ import { GENERIC_SIGN_IN_MESSAGE, signInMessage, signInMessages } from '@/lib/au
 import { createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 
 // The library's request core, as its route handler calls it (the package does not export the path).
-const { AuthHandler } = createRequire(import.meta.url)(resolve('node_modules/next-auth/core/index.js')) as typeof import('next-auth/core');
+const { AuthHandler } = createRequire(import.meta.url)(resolve('node_modules/next-auth/core/index.js')) as {
+  AuthHandler: (params: { req: Record<string, unknown>; options: unknown }) => Promise<{ status?: number; redirect?: string }>;
+};
 const db = createTestDb();
 const appUrl = process.env.APP_URL ?? 'http://localhost:3000';
 beforeAll(async () => {

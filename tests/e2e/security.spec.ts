@@ -1,0 +1,109 @@
+// Browser checks of the security hardening: a page served from another port on localhost (the
+// same site for SameSite cookies) cannot make a signed-in browser archive a site or send a
+// multipart service request; every page, route and static file carries the security headers;
+// and the pages still run under the nonce CSP (no console CSP violations while signing in).
+import { createServer, type Server } from 'node:http';
+import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+import { signIn } from './helpers';
+
+const appPort = Number(process.env.APP_PORT || 3100);
+// A fixed port beside the app's, never a random one.
+const otherPort = appPort + 50;
+const appOrigin = `http://localhost:${appPort}`;
+
+async function apiAs(email: string): Promise<APIRequestContext> {
+  const api = await playwrightRequest.newContext({ baseURL: appOrigin });
+  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: 'rimeline-demo', json: 'true' } });
+  expect((await api.get('/api/me')).ok()).toBe(true);
+  return api;
+}
+
+function serveOtherOrigin(html: string): Promise<Server> {
+  const server = createServer((_req, res) => {
+    res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
+    res.end(html);
+  });
+  return new Promise((resolve) => server.listen(otherPort, '127.0.0.1', () => resolve(server)));
+}
+
+test.describe('a page on another port', () => {
+  let server: Server | null = null;
+  test.afterEach(async () => {
+    await new Promise<void>((r) => (server ? server.close(() => r()) : r()));
+    server = null;
+  });
+
+  test('cannot archive a site with the office’s cookie', async ({ page }) => {
+    const office = await apiAs('office@rimeline.test');
+    const site = ((await (await office.get('/api/sites?q=Orchard')).json()) as { items: { id: string; name: string }[] }).items[0]!;
+    server = await serveOtherOrigin(
+      `<!doctype html><form method="post" action="${appOrigin}/api/sites/${site.id}/archive"><button>Win a prize</button></form>`,
+    );
+    await signIn(page, 'office@rimeline.test');
+    await page.goto(`http://localhost:${otherPort}/`);
+    const [response] = await Promise.all([page.waitForResponse(`${appOrigin}/api/sites/${site.id}/archive`), page.getByRole('button', { name: 'Win a prize' }).click()]);
+    expect(response.status()).toBe(403);
+    expect(await response.json()).toEqual({ error: { code: 'forbidden', message: 'This request came from another site and was refused.' } });
+    const after = (await (await office.get(`/api/sites/${site.id}`)).json()) as { archivedAt: string | null };
+    expect(after.archivedAt).toBeNull();
+  });
+
+  test('cannot send a multipart service request with an owner’s cookie', async ({ page }) => {
+    const owner = await apiAs('owner@client-one.test');
+    const site = ((await (await owner.get('/api/sites')).json()) as { items: { id: string }[] }).items[0]!;
+    const count = async () => ((await (await owner.get('/api/requests?limit=200')).json()) as { items: unknown[] }).items.length;
+    const before = await count();
+    server = await serveOtherOrigin(
+      `<!doctype html><form method="post" enctype="multipart/form-data" action="${appOrigin}/api/requests">
+        <input name="siteId" value="${site.id}"><input name="description" value="Forged request"><input name="urgency" value="urgent">
+        <button>Claim your reward</button></form>`,
+    );
+    await signIn(page, 'owner@client-one.test');
+    await page.goto(`http://localhost:${otherPort}/`);
+    const [response] = await Promise.all([page.waitForResponse(`${appOrigin}/api/requests`), page.getByRole('button', { name: 'Claim your reward' }).click()]);
+    expect(response.status()).toBe(403);
+    expect(await count()).toBe(before);
+  });
+});
+
+test('pages, routes and static files carry the security headers; pages run under the nonce CSP', async ({ page, request }) => {
+  const violations: string[] = [];
+  page.on('console', (msg) => {
+    if (/Content Security Policy|Refused to/i.test(msg.text())) violations.push(msg.text());
+  });
+  const signInPage = await page.goto('/sign-in');
+  const headers = signInPage!.headers();
+  expect(headers['content-security-policy']).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
+  expect(headers['content-security-policy']).toContain("frame-ancestors 'none'");
+  expect(headers['content-security-policy']).not.toContain('unsafe-eval');
+  expect(headers['x-frame-options']).toBe('DENY');
+  expect(headers['x-content-type-options']).toBe('nosniff');
+  expect(headers['referrer-policy']).toBe('strict-origin-when-cross-origin');
+  expect(headers['permissions-policy']).toContain('camera=(self)');
+  // Next put the nonce on its own scripts, and they ran: the form is interactive.
+  const nonce = /'nonce-([^']+)'/.exec(headers['content-security-policy']!)![1];
+  expect(await page.locator(`script[nonce]`).count()).toBeGreaterThan(0);
+  expect(await page.locator('script[nonce]').first().evaluate((s) => (s as HTMLScriptElement).nonce)).toBe(nonce);
+  await signIn(page, 'office@rimeline.test');
+  await expect(page.getByRole('navigation').first()).toBeVisible();
+  expect(violations).toEqual([]);
+
+  const api = await request.get('/api/health');
+  expect(api.headers()['x-frame-options']).toBe('DENY');
+  expect(api.headers()['content-security-policy']).toContain("frame-ancestors 'none'");
+  const asset = (await page.locator('script[src*="/_next/static/"]').first().getAttribute('src'))!;
+  const assetRes = await request.get(asset);
+  expect(assetRes.headers()['x-content-type-options']).toBe('nosniff');
+  // No HSTS over plain HTTP; a request forwarded as HTTPS gets it.
+  expect(headers['strict-transport-security']).toBeUndefined();
+  const viaHttps = await request.get('/sign-in', { headers: { 'x-forwarded-proto': 'https' } });
+  expect(viaHttps.headers()['strict-transport-security']).toMatch(/max-age=\d+/);
+});
+
+test('a NUL or a malformed callbackUrl in an address is a 400, not a 500', async ({ request }) => {
+  expect((await request.get('/sign-in?callbackUrl=http%3A%2F%2F%5B')).status()).toBe(400);
+  expect((await request.get('/sign-in?callbackUrl=%E0%A4%A')).status()).toBe(400);
+  expect((await request.get('/clients?q=%00')).status()).toBe(400);
+  expect((await request.get('/api/auth/signin?callbackUrl=http%3A%2F%2F%5B')).status()).toBe(400);
+});
