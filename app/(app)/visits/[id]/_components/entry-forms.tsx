@@ -27,6 +27,8 @@ export interface EntryFormProps {
   /** `stay`: keep the form open after saving (photos are linked one after another). */
   onSubmit: (data: unknown, opts?: { stay: boolean }) => Promise<SubmitResult>;
   onCancel: () => void;
+  /** Photos chosen but not yet sent: the workspace guards its other ways out while there are any. */
+  onUnsentChange: (count: number) => void;
 }
 
 export const entryForms: Record<EntryKind, (p: EntryFormProps) => ReactNode> = {
@@ -39,5 +41,5 @@ export const entryForms: Record<EntryKind, (p: EntryFormProps) => ReactNode> = {
   leak: (p) => <LeakForm refrigerantCautions={p.refrigerantCautions} onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
   condition: (p) => <ConditionForm current={p.unit.condition} onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
   note: (p) => <NoteForm onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
-  photo: (p) => <PhotoForm equipmentId={p.unit.id} onSubmit={(d) => p.onSubmit(d, { stay: true })} onDone={p.onCancel} />,
+  photo: (p) => <PhotoForm equipmentId={p.unit.id} onSubmit={(d) => p.onSubmit(d, { stay: true })} onDone={p.onCancel} onUnsentChange={p.onUnsentChange} />,
 };

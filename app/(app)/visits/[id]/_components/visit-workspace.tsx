@@ -6,10 +6,14 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { TagScanner } from '@/components/tags/tag-scanner';
 import { Alert } from '@/components/ui/alert';
+import { LeaveDialog } from '@/components/ui/leave-dialog';
+import { useLeaveGuard } from '@/components/ui/use-leave-guard';
+import { unsentMessage } from '@/components/photos/use-photo-uploads';
 import { Card } from '@/components/ui/card';
 import { EntryKindLabel, entryKindIcons, SaveStateBadge } from '@/components/visits/badges';
 import { EntrySummary } from '@/components/visits/entry-summary';
 import { refrigerantCautions as cautionsFor } from '@/lib/calc/cautions';
+import { useKeepSite } from '@/lib/offline';
 import { findRefrigerant } from '@/lib/calc/refrigerants';
 import type { EquipmentDto } from '@/lib/equipment/dto';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
@@ -71,6 +75,11 @@ export function VisitWorkspace({
   const visitQuery = useVisit(initialVisit.id, initialVisit);
   const visit = visitQuery.data ?? initialVisit;
   const { items, waitingCount, online, save, queueClose, retryAll, discard } = useVisitOutbox(visit.id);
+  // A visit keeps its site on the phone, so its units open from a scan without signal.
+  const kept = useKeepSite(visit.siteId);
+  // Photos chosen in the photo form and not sent yet: changing unit, scanning or closing asks first.
+  const [unsentPhotos, setUnsentPhotos] = useState(0);
+  const photoGuard = useLeaveGuard(unsentPhotos > 0, unsentMessage(unsentPhotos), { pageLeave: false });
   const [justSaved, setJustSaved] = useState<{ clientEntryId: string; outcome: SaveOutcome['outcome']; kind: EntryKind } | null>(null);
   const savedNote = useRef<HTMLDivElement>(null);
   const panelHeading = useRef<HTMLHeadingElement>(null);
@@ -95,6 +104,10 @@ export function VisitWorkspace({
     [visit.id],
   );
 
+  // The photo form is gone (left on purpose): nothing of it is left to guard.
+  useEffect(() => {
+    if (kind !== 'photo') setUnsentPhotos(0);
+  }, [kind]);
   useEffect(() => {
     if (selected && !step) panelHeading.current?.focus();
   }, [selected, kind, step]);
@@ -202,7 +215,14 @@ export function VisitWorkspace({
       </section>
     );
   } else if (!selected) {
-    main = <UnitPicker equipment={equipment} tagCodes={tagCodes} touched={touched} onPick={(id) => go({ equipment: id })} onScan={() => go({ step: 'scan' })} />;
+    main = (
+      <>
+        <UnitPicker equipment={equipment} tagCodes={tagCodes} touched={touched} onPick={(id) => go({ equipment: id })} onScan={() => go({ step: 'scan' })} />
+        <p className="text-sm text-slate-700" data-testid="site-kept" role="status">
+          {kept.status === 'ready' ? 'This site is kept on the phone: ready without signal.' : kept.status === 'saving' ? 'Keeping this site on the phone…' : kept.status === 'failed' && kept.kept ? 'This site is on the phone (an older copy).' : null}
+        </p>
+      </>
+    );
   } else {
     const code = tagCodes[selected.id];
     main = (
@@ -227,10 +247,10 @@ export function VisitWorkspace({
           </div>
         </div>
         <div className="grid grid-cols-2 gap-2">
-          <button type="button" onClick={() => go({})} className="inline-flex min-h-12 items-center justify-center gap-2 rounded-md border border-slate-300 bg-white px-3 font-semibold text-slate-900 hover:bg-slate-100">
+          <button type="button" onClick={() => photoGuard.confirm(() => go({}))} className="inline-flex min-h-12 items-center justify-center gap-2 rounded-md border border-slate-300 bg-white px-3 font-semibold text-slate-900 hover:bg-slate-100">
             <Shuffle aria-hidden className="size-5" /> Change unit
           </button>
-          <button type="button" onClick={() => go({ step: 'scan' })} className="inline-flex min-h-12 items-center justify-center gap-2 rounded-md border border-slate-300 bg-white px-3 font-semibold text-slate-900 hover:bg-slate-100">
+          <button type="button" onClick={() => photoGuard.confirm(() => go({ step: 'scan' }))} className="inline-flex min-h-12 items-center justify-center gap-2 rounded-md border border-slate-300 bg-white px-3 font-semibold text-slate-900 hover:bg-slate-100">
             <ScanLine aria-hidden className="size-5" /> Scan another tag
           </button>
         </div>
@@ -268,7 +288,7 @@ export function VisitWorkspace({
             <h3 className="flex items-center gap-2 text-lg font-bold">
               <EntryKindLabel kind={kind} className="text-lg" />
             </h3>
-            {entryForms[kind]({ unit: selected, ctx, prefs, refrigerantCautions: handling, onSubmit: (d, opts) => submit(kind, d, opts), onCancel: cancel })}
+            {entryForms[kind]({ unit: selected, ctx, prefs, refrigerantCautions: handling, onSubmit: (d, opts) => submit(kind, d, opts), onCancel: cancel, onUnsentChange: setUnsentPhotos })}
           </Card>
         )}
         <section aria-labelledby="entries-h" className="space-y-3">
@@ -342,8 +362,9 @@ export function VisitWorkspace({
         missing={missing.length}
         closeQueued={unsent.some((i) => i.type === 'close' && i.state !== 'refused')}
         closing={step === 'close'}
-        onClose={() => go({ equipment: selected?.id, step: 'close' })}
+        onClose={() => photoGuard.confirm(() => go({ equipment: selected?.id, step: 'close' }))}
       />
+      <LeaveDialog {...photoGuard.dialog} />
     </div>
   );
 }
