@@ -48,6 +48,9 @@ export default defineConfig({
     screenshot: 'only-on-failure',
     trace: 'retain-on-failure',
     launchOptions: { executablePath: '/usr/bin/chromium', args: chromiumArgs },
+    // Requests a service worker handles escape page.route; only the offline specs let it run
+    // (test.use({ serviceWorkers: 'allow' })).
+    serviceWorkers: 'block',
   },
   projects: [
     {

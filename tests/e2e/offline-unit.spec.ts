@@ -7,6 +7,9 @@ import { formatCode } from '../../lib/tags/code';
 import { api } from '../helpers/visits';
 import { shot, signIn } from './helpers';
 
+// The phone's service worker is what answers without signal.
+test.use({ serviceWorkers: 'allow' });
+
 async function keptSite(request: APIRequestContext, label: string) {
   const clients = await api<{ items: { id: string }[] }>(request, 'GET', '/api/clients?limit=50');
   const site = await api<{ id: string; name: string }>(request, 'POST', '/api/sites', { clientId: clients.items[0]!.id, name: `Basement deli ${label}`, timeZone: 'America/Chicago', elevationM: 180 });

@@ -29,6 +29,8 @@ export interface EntryFormProps {
   onCancel: () => void;
   /** Photos chosen but not yet sent: the workspace guards its other ways out while there are any. */
   onUnsentChange: (count: number) => void;
+  /** Without signal: photos into the visit's outbox. */
+  keepPhotosOffline: (files: File[]) => Promise<void>;
 }
 
 export const entryForms: Record<EntryKind, (p: EntryFormProps) => ReactNode> = {
@@ -41,5 +43,5 @@ export const entryForms: Record<EntryKind, (p: EntryFormProps) => ReactNode> = {
   leak: (p) => <LeakForm refrigerantCautions={p.refrigerantCautions} onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
   condition: (p) => <ConditionForm current={p.unit.condition} onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
   note: (p) => <NoteForm onSubmit={(d) => p.onSubmit(d)} onCancel={p.onCancel} />,
-  photo: (p) => <PhotoForm equipmentId={p.unit.id} onSubmit={(d) => p.onSubmit(d, { stay: true })} onDone={p.onCancel} onUnsentChange={p.onUnsentChange} />,
+  photo: (p) => <PhotoForm equipmentId={p.unit.id} onSubmit={(d) => p.onSubmit(d, { stay: true })} onDone={p.onCancel} onUnsentChange={p.onUnsentChange} onKeepOffline={p.keepPhotosOffline} />,
 };

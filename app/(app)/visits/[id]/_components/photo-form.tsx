@@ -1,6 +1,7 @@
 'use client';
 
-import { useCallback, useRef, useState } from 'react';
+import { CloudOff } from 'lucide-react';
+import { useCallback, useEffect, useId, useRef, useState } from 'react';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
 import { unsentMessage } from '@/components/photos/use-photo-uploads';
 import { Alert } from '@/components/ui/alert';
@@ -21,13 +22,27 @@ export function PhotoForm({
   onSubmit,
   onDone,
   onUnsentChange,
+  onKeepOffline,
 }: {
   equipmentId: string;
   onSubmit: (data: { photoId: string; caption: string | null }) => Promise<SubmitResult>;
   onDone: () => void;
   /** For a workspace that closes this form by other buttons (another unit, a scan): guard them with useLeaveGuard. */
   onUnsentChange?: (count: number) => void;
+  /** Without signal: the photos go into the visit's outbox on the phone and are sent later. */
+  onKeepOffline?: (files: File[]) => Promise<void>;
 }) {
+  const [offline, setOffline] = useState(false);
+  useEffect(() => {
+    const update = () => setOffline(!navigator.onLine);
+    update();
+    window.addEventListener('online', update);
+    window.addEventListener('offline', update);
+    return () => {
+      window.removeEventListener('online', update);
+      window.removeEventListener('offline', update);
+    };
+  }, []);
   const [linked, setLinked] = useState(0);
   const [problem, setProblem] = useState<string | null>(null);
   const [unsent, setUnsent] = useState(0);
@@ -48,7 +63,11 @@ export function PhotoForm({
 
   return (
     <div className="space-y-3">
-      <PhotoUploader equipmentId={equipmentId} defaultKind="general" onUploaded={(p) => void uploaded(p)} onUnsentChange={unsentChanged} />
+      {offline && onKeepOffline ? (
+        <OfflinePhotos onKeep={onKeepOffline} />
+      ) : (
+        <PhotoUploader equipmentId={equipmentId} defaultKind="general" onUploaded={(p) => void uploaded(p)} onUnsentChange={unsentChanged} />
+      )}
       {linked > 0 ? (
         <p role="status" className="font-semibold text-emerald-900">
           {linked} {linked === 1 ? 'photo' : 'photos'} added to this visit.
@@ -63,6 +82,43 @@ export function PhotoForm({
         Done with photos
       </Button>
       <LeaveDialog {...guard.dialog} />
+    </div>
+  );
+}
+
+/** No signal: a photo taken now is kept on the phone with the visit's other work and sent with it. */
+function OfflinePhotos({ onKeep }: { onKeep: (files: File[]) => Promise<void> }) {
+  const id = useId();
+  const [kept, setKept] = useState(0);
+  return (
+    <div className="space-y-2 rounded-lg border-2 border-dashed border-amber-500 bg-amber-50 p-3">
+      <p className="flex items-center gap-2 font-semibold text-amber-950">
+        <CloudOff aria-hidden className="size-5" /> No signal: photos are kept on this phone and sent with the visit.
+      </p>
+      <label htmlFor={id} className="inline-flex min-h-12 cursor-pointer items-center rounded-md bg-ice-900 px-4 font-semibold text-white hover:bg-ice-800 has-[:focus-visible]:outline has-[:focus-visible]:outline-3">
+        Take or choose photos
+        <input
+          id={id}
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          capture="environment"
+          multiple
+          className="sr-only"
+          data-testid="offline-photo-input"
+          onChange={async (e) => {
+            const files = [...(e.target.files ?? [])];
+            e.target.value = '';
+            if (files.length === 0) return;
+            await onKeep(files);
+            setKept((n) => n + files.length);
+          }}
+        />
+      </label>
+      {kept > 0 ? (
+        <p role="status" className="font-semibold text-amber-950">
+          {kept} {kept === 1 ? 'photo' : 'photos'} kept on this phone for this visit.
+        </p>
+      ) : null}
     </div>
   );
 }

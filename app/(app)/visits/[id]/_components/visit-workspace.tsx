@@ -74,7 +74,7 @@ export function VisitWorkspace({
   const search = useSearchParams();
   const visitQuery = useVisit(initialVisit.id, initialVisit);
   const visit = visitQuery.data ?? initialVisit;
-  const { items, waitingCount, online, save, queueClose, retryAll, discard } = useVisitOutbox(visit.id);
+  const { items, waitingCount, online, save, savePhoto, queueClose, retryAll, discard } = useVisitOutbox(visit.id);
   // A visit keeps its site on the phone, so its units open from a scan without signal.
   const kept = useKeepSite(visit.siteId);
   // Photos chosen in the photo form and not sent yet: changing unit, scanning or closing asks first.
@@ -163,6 +163,12 @@ export function VisitWorkspace({
     // The unit's record changed on the server (a replaced component, new current settings): reload it.
     if (result.outcome === 'saved' && ((input.kind === 'part' && input.data.replacesEquipment) || input.kind === 'setting_change')) router.refresh();
     return { ok: true };
+  }
+
+  async function keepPhotos(equipmentId: string, files: File[]): Promise<void> {
+    for (const file of files) {
+      await savePhoto({ equipmentId, file, fileName: file.name || 'photo.jpg', kind: 'general', caption: null, uploadKey: newClientId(), clientEntryId: newClientId() });
+    }
   }
 
   const [scanProblem, setScanProblem] = useState<{ code: string; attempt: number } | null>(null);
@@ -288,7 +294,7 @@ export function VisitWorkspace({
             <h3 className="flex items-center gap-2 text-lg font-bold">
               <EntryKindLabel kind={kind} className="text-lg" />
             </h3>
-            {entryForms[kind]({ unit: selected, ctx, prefs, refrigerantCautions: handling, onSubmit: (d, opts) => submit(kind, d, opts), onCancel: cancel, onUnsentChange: setUnsentPhotos })}
+            {entryForms[kind]({ unit: selected, ctx, prefs, refrigerantCautions: handling, onSubmit: (d, opts) => submit(kind, d, opts), onCancel: cancel, onUnsentChange: setUnsentPhotos, keepPhotosOffline: (files) => keepPhotos(selected.id, files) })}
           </Card>
         )}
         <section aria-labelledby="entries-h" className="space-y-3">
