@@ -66,7 +66,15 @@ export async function fetchAndKeepSite(userId: string, siteId: string): Promise<
     if (res.status === 403 || res.status === 404) await forgetPack(userId, siteId);
     throw new Error(message);
   }
-  const pack = sitePackSchema.parse(JSON.parse(text));
+  let parsed: ReturnType<typeof sitePackSchema.safeParse>;
+  try {
+    parsed = sitePackSchema.safeParse(JSON.parse(text));
+  } catch {
+    parsed = sitePackSchema.safeParse(null);
+  }
+  // A newer server than this page (or a broken answer): keep the older copy, ask for a reload.
+  if (!parsed.success) throw new Error('The server sent a copy this page cannot read. Reload the page.');
+  const pack = parsed.data;
   if (pack.viewer.id !== userId) throw new Error('This copy was made for someone else. Reload the page.');
   const stored = await savePack(userId, pack, new TextEncoder().encode(text).byteLength);
   await warmFieldPages().catch(() => undefined);
@@ -103,7 +111,8 @@ export function useKeepSite(siteId: string, options: { onlyIfKept?: boolean } = 
       const still = await readPack(userId, siteId).catch(() => null);
       isKept.current = still !== null;
       setKept(still ? summary(still) : null);
-      setError(e instanceof Error && e.message !== 'Failed to fetch' ? e.message : 'No connection to the server.');
+      // fetch rejects with a TypeError (worded per browser) when there is no connection.
+      setError(e instanceof TypeError || !(e instanceof Error) ? 'No connection to the server.' : e.message);
       setStatus('failed');
     } finally {
       busy.current = false;

@@ -50,7 +50,7 @@ export function packHistoryQuery(actor: Actor, db: Db, siteId: string) {
           .selectFrom('entries')
           .whereRef('entries.equipment_id', '=', 'unit.id')
           .where('entries.voided_at', 'is', null)
-          .select(['entries.id', 'entries.visit_id', 'entries.kind', 'entries.data', 'entries.computed', 'entries.recorded_at', 'entries.created_by', 'entries.client_entry_id'])
+          .select(['entries.id', 'entries.visit_id', 'entries.kind', 'entries.data', 'entries.computed', 'entries.recorded_at', 'entries.created_by'])
           .orderBy('entries.recorded_at', 'desc')
           .orderBy('entries.id', 'desc')
           .limit(PACK_HISTORY_PER_UNIT)
@@ -69,15 +69,11 @@ export function packHistoryQuery(actor: Actor, db: Db, siteId: string) {
       'e.id',
       'e.visit_id',
       'unit.id as equipment_id',
-      'unit.name as equipment_name',
-      'unit.type as equipment_type',
       'e.kind',
       'e.data',
       'e.computed',
       'e.recorded_at',
-      'e.created_by',
       'author.name as author_name',
-      'e.client_entry_id',
       'visits.reason as visit_reason',
       'visits.started_at as visit_started_at',
       'visits.status as visit_status',

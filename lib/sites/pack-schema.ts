@@ -13,28 +13,23 @@ export const PACK_HISTORY_PER_UNIT = 20;
 
 const iso = z.string().min(1);
 
+/** An entry of a unit's history; its visit is in the pack's `visits` (said once, not per entry). */
 export const packEntrySchema = z.object({
   id: z.uuid(),
   visitId: z.uuid(),
-  equipmentId: z.uuid(),
-  equipmentName: z.string(),
-  equipmentType: z.string(),
   kind: z.enum(ENTRY_KINDS),
   data: z.record(z.string(), z.unknown()),
   computed: z.record(z.string(), z.unknown()).nullable(),
   recordedAt: iso,
-  createdBy: z.uuid(),
   createdByName: z.string(),
-  voidedAt: iso.nullable(),
-  voidReason: z.string().nullable(),
-  clientEntryId: z.string(),
-  visit: z.object({
-    reason: z.enum(VISIT_REASONS),
-    startedAt: iso,
-    technicianName: z.string(),
-    status: z.enum(['open', 'closed']),
-    timeZone: z.string(),
-  }),
+});
+
+export const packVisitSchema = z.object({
+  reason: z.enum(VISIT_REASONS),
+  startedAt: iso,
+  technicianName: z.string(),
+  status: z.enum(['open', 'closed']),
+  timeZone: z.string(),
 });
 
 export const packUnitSchema = z.object({
@@ -101,6 +96,8 @@ export const sitePackSchema = z.object({
   openVisitId: z.uuid().nullable(),
   /** Units still on site (removed and deleted ones left out), by name. */
   units: z.array(packUnitSchema),
+  /** The visits the kept entries belong to, keyed by visit id. */
+  visits: z.record(z.string(), packVisitSchema),
   /** Follow-ups still to do (open or planned), oldest first. */
   followUps: z.array(packFollowUpSchema),
   /** What entries are computed against, keyed by equipment id (lib/visits/context). */
@@ -110,4 +107,5 @@ export const sitePackSchema = z.object({
 export type SitePack = z.infer<typeof sitePackSchema>;
 export type PackUnit = z.infer<typeof packUnitSchema>;
 export type PackEntry = z.infer<typeof packEntrySchema>;
+export type PackVisit = z.infer<typeof packVisitSchema>;
 export type PackFollowUp = z.infer<typeof packFollowUpSchema>;

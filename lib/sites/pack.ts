@@ -6,7 +6,7 @@ import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/errors';
 import { packFollowUpsQuery, packHistoryQuery, packOpenVisitQuery, packUnitsQuery } from '@/lib/sites/pack-queries';
-import { SITE_PACK_VERSION, type PackEntry, type PackUnit, type SitePack } from '@/lib/sites/pack-schema';
+import { SITE_PACK_VERSION, type PackEntry, type PackUnit, type PackVisit, type SitePack } from '@/lib/sites/pack-schema';
 import { getSite } from '@/lib/sites/service';
 import { normalizeCode } from '@/lib/tags/code';
 import { siteEntryContexts } from '@/lib/visits/context';
@@ -33,32 +33,26 @@ export async function getSitePack(actor: Actor, siteId: string, db: Db = default
   ]);
 
   const history = new Map<string, PackEntry[]>();
+  const visits: SitePack['visits'] = {};
   for (const r of historyRows) {
     const list = history.get(r.equipment_id) ?? [];
     list.push({
       id: r.id,
       visitId: r.visit_id,
-      equipmentId: r.equipment_id,
-      equipmentName: r.equipment_name,
-      equipmentType: r.equipment_type,
       kind: r.kind as PackEntry['kind'],
       data: (r.data ?? {}) as Record<string, unknown>,
       computed: (r.computed as Record<string, unknown> | null) ?? null,
       recordedAt: iso(r.recorded_at),
-      createdBy: r.created_by,
       createdByName: r.author_name,
-      voidedAt: null,
-      voidReason: null,
-      clientEntryId: r.client_entry_id,
-      visit: {
-        reason: r.visit_reason as PackEntry['visit']['reason'],
-        startedAt: iso(r.visit_started_at),
-        technicianName: r.technician_name,
-        status: r.visit_status as 'open' | 'closed',
-        timeZone: r.visit_time_zone,
-      },
     });
     history.set(r.equipment_id, list);
+    visits[r.visit_id] ??= {
+      reason: r.visit_reason as PackVisit['reason'],
+      startedAt: iso(r.visit_started_at),
+      technicianName: r.technician_name,
+      status: r.visit_status as 'open' | 'closed',
+      timeZone: r.visit_time_zone,
+    };
   }
 
   const units: PackUnit[] = unitRows.map((r) => ({
@@ -89,6 +83,7 @@ export async function getSitePack(actor: Actor, siteId: string, db: Db = default
     site: { id: site.id, name: site.name, clientName: site.clientName, timeZone: site.timeZone, elevationM: site.elevationM },
     openVisitId: openVisit?.id ?? null,
     units,
+    visits,
     followUps: followUpRows.map((f) => ({
       id: f.id,
       equipmentId: f.equipment_id,

@@ -115,7 +115,9 @@ describe('site pack', () => {
     expect(cold.history).toHaveLength(20);
     expect(cold.history[0]!.data).toEqual({ text: 'Visit 23' });
     expect(cold.history.at(-1)!.data).toEqual({ text: 'Visit 4' });
-    expect(cold.history[0]!.visit).toMatchObject({ reason: 'maintenance', status: 'closed', technicianName: tech.name });
+    expect(body.visits[cold.history[0]!.visitId]).toMatchObject({ reason: 'maintenance', status: 'closed', technicianName: tech.name });
+    // Each kept entry's visit is in the pack, and only those.
+    expect(Object.keys(body.visits).sort()).toEqual([...new Set(cold.history.map((e) => e.visitId))].sort());
     expect(cold.history[0]!.createdByName).toBe(tech.name);
 
     expect(body.followUps.map((f) => f.title)).toEqual(['Fan blade chipped']);

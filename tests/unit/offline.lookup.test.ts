@@ -32,6 +32,7 @@ const pack = (siteId: string, takenAt: string, units: PackUnit[]): { pack: SiteP
     site: { id: siteId, name: `Site ${siteId.slice(-1)}`, clientName: 'Client', timeZone: 'UTC', elevationM: 0 },
     openVisitId: null,
     units,
+    visits: {},
     followUps: [],
     contexts: {},
   },

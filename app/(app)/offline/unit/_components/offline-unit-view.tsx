@@ -17,10 +17,8 @@ import { formatMoment } from '@/lib/format/moments';
 import { readKeptUnit } from '@/lib/offline/keep-site';
 import type { UnitQuery } from '@/lib/offline/lookup';
 import type { StoredPack } from '@/lib/offline/store';
-import type { PackEntry, PackUnit } from '@/lib/sites/pack-schema';
+import type { PackEntry, PackUnit, PackVisit, SitePack } from '@/lib/sites/pack-schema';
 import { checkCode, formatCode } from '@/lib/tags/code';
-import { cn } from '@/lib/utils';
-import type { EntryDto } from '@/lib/visits/dto';
 import { visitReasonLabels } from '@/lib/visits/terms';
 
 type State = { status: 'loading' } | { status: 'missing'; query: UnitQuery | null } | { status: 'found'; kept: StoredPack; unit: PackUnit };
@@ -34,12 +32,13 @@ function queryFromLocation(): UnitQuery | null {
   return id ? { id } : null;
 }
 
-function groupByVisit(entries: PackEntry[]): { visitId: string; visit: PackEntry['visit']; entries: PackEntry[] }[] {
-  const groups: { visitId: string; visit: PackEntry['visit']; entries: PackEntry[] }[] = [];
+/** Consecutive entries of one visit form a group (entries are newest first). */
+function groupByVisit(entries: PackEntry[], visits: SitePack['visits']): { visitId: string; visit: PackVisit | undefined; entries: PackEntry[] }[] {
+  const groups: { visitId: string; visit: PackVisit | undefined; entries: PackEntry[] }[] = [];
   for (const e of entries) {
     const last = groups.at(-1);
     if (last && last.visitId === e.visitId) last.entries.push(e);
-    else groups.push({ visitId: e.visitId, visit: e.visit, entries: [e] });
+    else groups.push({ visitId: e.visitId, visit: visits[e.visitId], entries: [e] });
   }
   return groups;
 }
@@ -120,7 +119,7 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
   const settings = currentSettings(unit.type, unit.nameplate as Nameplate, prefs);
   const followUps = pack.followUps.filter((f) => f.equipmentId === unit.id);
   const visitHref = pack.openVisitId ? `/visits/${pack.openVisitId}?equipment=${unit.id}` : `/visits/new?siteId=${pack.site.id}&equipmentId=${unit.id}`;
-  const groups = groupByVisit(unit.history);
+  const groups = groupByVisit(unit.history, pack.visits);
   const details = [
     { label: 'Make', value: unit.make },
     { label: 'Model', value: unit.model },
@@ -212,21 +211,27 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
             {groups.map((g, gi) => (
               <li key={`${g.visitId}-${gi}`} className="overflow-hidden rounded-lg border border-slate-200 bg-white">
                 <p className="border-b border-slate-200 bg-slate-50 px-3 py-1.5 text-sm">
-                  <span className="font-semibold text-slate-900">
-                    {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
-                  </span>
-                  <span className="text-slate-700">
-                    {' · '}
-                    {g.visit.technicianName}
-                    {g.visit.status === 'open' ? ' · visit still open' : ''}
-                  </span>
+                  {g.visit ? (
+                    <>
+                      <span className="font-semibold text-slate-900">
+                        {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
+                      </span>
+                      <span className="text-slate-700">
+                        {' · '}
+                        {g.visit.technicianName}
+                        {g.visit.status === 'open' ? ' · visit still open' : ''}
+                      </span>
+                    </>
+                  ) : (
+                    <span className="font-semibold text-slate-900">Visit</span>
+                  )}
                 </p>
                 <ul className="divide-y divide-slate-100">
                   {g.entries.map((e) => (
                     <li key={e.id} className="px-3 py-2" data-entry-kind={e.kind}>
                       <EntryKindLabel kind={e.kind} />
-                      <div className={cn('mt-0.5 text-sm')}>
-                        <EntrySummary entry={e as EntryDto} prefs={prefs} />
+                      <div className="mt-0.5 text-sm">
+                        <EntrySummary entry={e} prefs={prefs} />
                       </div>
                     </li>
                   ))}
