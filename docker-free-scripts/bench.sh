@@ -42,8 +42,12 @@ for arg in "$@"; do
 done
 
 rl_check_node
+# The bench profile, or a private lane (lane1…lane9) while someone else runs the tests.
+profile="${RIMELINE_BENCH_PROFILE:-bench}"
+case "$profile" in bench|lane[1-9]) ;; *) echo "bench.sh: RIMELINE_BENCH_PROFILE must be bench or lane1…lane9" >&2; exit 2 ;; esac
 # shellcheck source=docker-free-scripts/env.sh
-source docker-free-scripts/env.sh bench
+source docker-free-scripts/env.sh "$profile"
+RL_DIST="${NEXT_DIST_DIR:-.next}"
 
 TOTAL=6
 [ "$with_app" = 1 ] && TOTAL=8
@@ -60,7 +64,7 @@ stop_all() {
   echo "Stopping the bench services …"
   rl_stop_services
   printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
-  if bash docker-free-scripts/db-stop.sh bench --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
+  if bash docker-free-scripts/db-stop.sh "$profile" --quiet; then printf 'ok\n'; else printf 'failed\n'; fi
   rm -f "$RIMELINE_RUN/pg.owner"
   rl_unlock_all
   rl_stop_reaper
@@ -71,10 +75,10 @@ cleanup() {
   stop_all
   exit "$rc"
 }
-if holder="$(rl_lock_holder test)"; then
+if [ "$profile" = bench ] && holder="$(rl_lock_holder test)"; then
   rl_die "npm test is running (pid $holder); it uses the same ports as the benchmarks." "wait for it to finish, then run npm run bench again."
 fi
-rl_lock bench
+rl_lock "$profile"
 trap cleanup EXIT
 trap 'rl_close_line; echo; echo "Interrupted."; exit 130' INT
 trap 'rl_close_line; echo; echo "Terminated."; exit 143' TERM
@@ -83,18 +87,18 @@ rl_watch_parent
 
 
 # ------------------------------------------------------------------------------------ set-up
-next_step "Preparing .data/bench"
+next_step "Preparing .data/$profile"
 rl_stop_stale s3 "S3 fake"
 rl_stop_stale mail "mail catcher"
 rl_stop_stale app "app"
 if rl_pg_bindir >/dev/null; then
-  rl_pg_stop_profile test   # shares the port; not running a test (no lock), so a leftover
-  [ "$keep" = 0 ] && bash docker-free-scripts/db-stop.sh bench --quiet
+  [ "$profile" = bench ] && rl_pg_stop_profile test   # shares the port; not running a test (no lock), so a leftover
+  [ "$keep" = 0 ] && bash docker-free-scripts/db-stop.sh "$profile" --quiet
 fi
 if [ "$keep" = 0 ]; then
   rl_wipe_profile_data
   # shellcheck source=docker-free-scripts/env.sh
-  source docker-free-scripts/env.sh bench
+  source docker-free-scripts/env.sh "$profile"
 fi
 mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
 rl_start_reaper
@@ -111,7 +115,7 @@ fi
 
 next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
 echo "$$" >"$RIMELINE_RUN/pg.owner"
-rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh bench \
+rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh "$profile" \
   || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
 rl_ok "database $PG_DB"
 
