@@ -107,3 +107,29 @@ test('a NUL or a malformed callbackUrl in an address is a 400, not a 500', async
   expect((await request.get('/clients?q=%00')).status()).toBe(400);
   expect((await request.get('/api/auth/signin?callbackUrl=http%3A%2F%2F%5B')).status()).toBe(400);
 });
+
+test.describe('sessions end on the server', () => {
+  test('a copied cookie stops working once its browser signs out', async ({ browser }) => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signIn(page, 'tech@rimeline.test');
+    const copied = await context.storageState();
+    const thief = await playwrightRequest.newContext({ baseURL: appOrigin, storageState: copied });
+    expect((await thief.get('/api/me')).status()).toBe(200);
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in/);
+    expect((await thief.get('/api/me')).status()).toBe(401);
+    await context.close();
+  });
+
+  test('“Sign out everywhere” on My preferences ends the other browsers too', async ({ browser }) => {
+    const phone = await apiAs('tech@rimeline.test');
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signIn(page, 'tech@rimeline.test', undefined, '/settings');
+    await page.getByRole('button', { name: 'Sign out everywhere' }).click();
+    await page.waitForURL(/\/sign-in/);
+    expect((await phone.get('/api/me')).status()).toBe(401);
+    await context.close();
+  });
+});
