@@ -70,7 +70,7 @@ test('a technician reads R-404A from the P-T chart and uses the converter @phone
 
   // Out of range is said in words, in the user's units.
   await page.getByLabel('Temperature (°C)', { exact: true }).fill('90');
-  await expect(toPressure.getByText(/above its pseudo-critical temperature 72\.12 °C/)).toBeVisible();
+  await expect(toPressure.getByText(/above its pseudo-critical temperature 72\.1 °C/)).toBeVisible();
   await page.getByLabel('Temperature (°C)', { exact: true }).fill('-20');
 
   // A unit switch converts what was typed: 307.103 kPa abs is 29.846 psig at sea level (TRADE-REFERENCE §2).
@@ -83,6 +83,11 @@ test('a technician reads R-404A from the P-T chart and uses the converter @phone
   await page.getByLabel('Elevation (ft)').fill('5280');
   await expect(page.locator('#pt-barometer')).toContainText('5,280 ft');
   expect(await numberIn(chartRow(page, '-20').getByRole('cell').nth(0))).toBeGreaterThan(seaLevel + 2);
+  // The converter names the barometer and offers what a sea-level pocket chart reads (issue 14).
+  await expect(page.getByText(/corrected for the site’s elevation/)).toBeVisible();
+  const local = await numberIn(toTemperature.getByRole('definition').nth(1));
+  const seaDew = await numberIn(toTemperature.getByText('Sea-level chart (dew)').locator('xpath=following-sibling::dd'));
+  expect(seaDew).toBeGreaterThan(local + 1);
   await expect(page.getByText(/CoolProp 8\.0\.0 reference equation-of-state data/)).toBeVisible();
   await expect(page.getByText("local codes and licensed practice govern")).toBeVisible();
 
@@ -92,4 +97,14 @@ test('a technician reads R-404A from the P-T chart and uses the converter @phone
 
   await page.evaluate(() => window.scrollTo(0, 0));
   await shot(page, `pt-chart-${info.project.name}`);
+});
+
+test('R-407C: the chart stops at 50 °C (122 °F), where its fitted curve stops being checked, and says so @phone', async ({ page }) => {
+  await signIn(page, 'tech@rimeline.test');
+  await page.goto('/tools/pt-chart?refrigerant=R-407C');
+  await expect(page.getByText(/The chart stops at 50 °C \(122 °F\)/)).toBeVisible();
+  await page.getByLabel('To (°F)', { exact: true }).fill('190');
+  await expect(chartRow(page, '120')).toHaveCount(1);
+  await expect(chartRow(page, '125')).toHaveCount(0);
+  await expect(page.getByText(/Rows outside R-407C’s chart range/)).toBeVisible();
 });
