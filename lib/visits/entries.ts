@@ -96,6 +96,11 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
     .executeTakeFirstOrThrow();
   tools.entryId = row.id;
   await def.apply?.(data, tools);
+  if (equipment.status === 'removed') {
+    // Made on the phone before the unit was marked removed (or on the wrong record): the entry
+    // stands, and the office is told so it can check which unit it belongs to.
+    await tools.raiseFollowUp({ title: `Check: ${input.kind.replace('_', ' ')} recorded on ${equipment.name} after it was marked removed`.slice(0, 200), severity: 'minor' });
+  }
   const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
   await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
   return dto;

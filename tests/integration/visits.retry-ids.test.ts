@@ -47,3 +47,15 @@ describe('ids made on the phone', () => {
     await expect(closeVisit(tech, visit.id, { summary: 'Done', confirmBypassRemoved: false, clientCloseId: randomUUID() })).rejects.toMatchObject({ code: 'conflict' });
   });
 });
+
+describe('a unit changed on the server while the phone was offline', () => {
+  it('an entry on a unit marked removed still lands, and the office gets a follow-up to check it', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    await db.updateTable('equipment').set({ status: 'removed' }).where('id', '=', circuit.evaporatorId).execute();
+    const { addEntry } = await import('@/lib/visits/entries');
+    const saved = await addEntry(tech, visit.id, { equipmentId: circuit.evaporatorId, clientEntryId: randomUUID(), kind: 'note', data: { text: 'Coil cleaned' } });
+    expect(saved.equipmentId).toBe(circuit.evaporatorId);
+    const notes = await db.selectFrom('follow_ups').select(['title', 'severity', 'entry_id']).where('equipment_id', '=', circuit.evaporatorId).execute();
+    expect(notes).toEqual([{ title: 'Check: note recorded on Cooler evaporator after it was marked removed', severity: 'minor', entry_id: saved.id }]);
+  });
+});
