@@ -2,7 +2,7 @@
 // this table reads as the generic message, so no library or database text ever reaches the page.
 export const signInMessages: Record<string, string> = {
   CredentialsSignin: 'The e-mail or password is not right.',
-  SignInPaused: 'Too many failed sign-ins. Wait a minute and try again, or use “E-mail me a link”.',
+  SignInPaused: 'Too many failed sign-ins. Password sign-in is paused for a while; “E-mail me a link” always works.',
   Verification: 'That sign-in link has expired or was already used. Ask for a new one.',
   AccessDenied: 'This account cannot sign in. Ask your admin.',
   EmailSignin: 'The sign-in link could not be sent. Check the address and try again in a minute.',
