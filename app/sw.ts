@@ -7,7 +7,7 @@
 //   IndexedDB (lib/offline), not here.
 // A unit's own address (/T/<code>, /tag/<code>, /equipment/<id>) that fails for want of signal is
 // answered with the pack's unit page for it. The kept pages are wiped on sign-out (lib/offline/store).
-import { CacheFirst, ExpirationPlugin, NetworkFirst, NetworkOnly, Serwist, type PrecacheEntry, type SerwistPlugin } from 'serwist';
+import { CacheableResponsePlugin, CacheFirst, ExpirationPlugin, NetworkFirst, NetworkOnly, Serwist, type PrecacheEntry, type SerwistPlugin } from 'serwist';
 import { isFieldPage, OFFLINE_UNIT_PATH, offlineUnitTarget, PAGES_CACHE } from '@/lib/offline/cache-names';
 
 declare const self: { __SW_MANIFEST: (PrecacheEntry | string)[] | undefined; location: Location };
@@ -26,7 +26,8 @@ const pages = new NetworkFirst({
   networkTimeoutSeconds: 8,
   // Next varies pages on its router headers; a navigation never sends them.
   matchOptions: { ignoreVary: true },
-  plugins: [onePageCopy, new ExpirationPlugin({ maxEntries: 40, maxAgeSeconds: 30 * 24 * 3600 })],
+  // Only a page itself is kept: never a redirect to sign-in (status 0 to a worker) or an error page.
+  plugins: [onePageCopy, new CacheableResponsePlugin({ statuses: [200] }), new ExpirationPlugin({ maxEntries: 40, maxAgeSeconds: 30 * 24 * 3600 })],
 });
 
 const serwist = new Serwist({
@@ -50,7 +51,7 @@ const serwist = new Serwist({
     { matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === 'navigate' && isFieldPage(url.pathname), handler: pages },
     {
       matcher: ({ url, sameOrigin }) => sameOrigin && (url.pathname.startsWith('/_next/static/') || url.pathname.startsWith('/icons/')),
-      handler: new CacheFirst({ cacheName: 'rimeline-static', plugins: [new ExpirationPlugin({ maxEntries: 400 })] }),
+      handler: new CacheFirst({ cacheName: 'rimeline-static', plugins: [new CacheableResponsePlugin({ statuses: [200] }), new ExpirationPlugin({ maxEntries: 400 })] }),
     },
   ],
 });

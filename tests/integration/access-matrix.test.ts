@@ -156,6 +156,7 @@ const cases: Case[] = [
   { name: 'PATCH /api/sites/:id', route: () => import('@/app/api/sites/[id]/route'), method: 'PATCH', params: async () => ({ id: ids.siteOne }), body: () => ({ accessNotes: 'Matrix' }), expect: officeUp(200) },
   { name: 'POST /api/sites/:id/archive', route: () => import('@/app/api/sites/[id]/archive/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), expect: officeUp(200) },
   { name: 'POST /api/sites/:id/restore', route: () => import('@/app/api/sites/[id]/restore/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), expect: officeUp(200) },
+  { name: 'GET /api/sites/:id/pack', route: () => import('@/app/api/sites/[id]/pack/route'), method: 'GET', params: async () => ({ id: ids.siteOne }), expect: staffRead(200) },
   { name: 'GET /api/sites/:id/areas', route: () => import('@/app/api/sites/[id]/areas/route'), method: 'GET', params: async () => ({ id: ids.siteOne }), expect: all(200) },
   { name: 'POST /api/sites/:id/areas', route: () => import('@/app/api/sites/[id]/areas/route'), method: 'POST', params: async () => ({ id: ids.siteOne }), body: () => ({ name: `Matrix area ${++counter}`, kind: 'roof' }), expect: officeUp(201) },
   { name: 'PATCH /api/sites/:id/areas/:areaId', route: () => import('@/app/api/sites/[id]/areas/[areaId]/route'), method: 'PATCH', params: async () => ({ id: ids.siteOne, areaId: ids.areaOne }), body: () => ({ notes: 'Matrix' }), expect: officeUp(200) },
