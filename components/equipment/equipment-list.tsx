@@ -2,6 +2,7 @@ import { ChevronRight } from 'lucide-react';
 import Link from 'next/link';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { RemovalLine } from '@/components/equipment/removal-line';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import { EmptyState } from '@/components/ui/card';
 import type { EquipmentDto } from '@/lib/equipment/dto';
@@ -31,7 +32,7 @@ export function EquipmentList({
         const place = [showSite ? e.siteName : null, showArea ? e.areaName : null].filter(Boolean).join(' · ');
         const makeModel = [e.make, e.model].filter(Boolean).join(' ');
         return (
-          <li key={e.id}>
+          <li key={e.id} data-removed={e.status === 'removed' || undefined}>
             <Link href={`/equipment/${e.id}`} className="flex min-h-14 items-start gap-3 px-4 py-3 hover:bg-ice-50">
               <EquipmentTypeIcon type={e.type} className="mt-0.5" />
               <span className="min-w-0 flex-1">
@@ -55,6 +56,8 @@ export function EquipmentList({
               </span>
               <ChevronRight aria-hidden className="mt-0.5 size-5 shrink-0 text-slate-400" />
             </Link>
+            {/* Outside the card's link: a link inside a link is not allowed. */}
+            {e.status === 'removed' ? <RemovalLine equipment={e} className="block px-4 pb-3 pl-12" /> : null}
           </li>
         );
       })}

@@ -1,6 +1,6 @@
 'use client';
 
-import { Check, ChevronRight } from 'lucide-react';
+import { Check, ChevronRight, SlidersHorizontal } from 'lucide-react';
 import Link from 'next/link';
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
@@ -48,12 +48,15 @@ export function EquipmentHistory({
   prefs,
   initialPage,
   showEquipment = false,
+  title,
 }: {
   scope: HistoryScope;
   id: string;
   prefs: UnitPrefs;
   initialPage?: Page<EntryDto>;
   showEquipment?: boolean;
+  /** The section's heading, set on one row with the phone's filter button to save a line. */
+  title?: ReactNode;
 }) {
   const [kinds, setKinds] = useState<EntryKind[]>([]);
   const history = useHistory(scope, id, kinds, initialPage);
@@ -79,9 +82,31 @@ export function EquipmentHistory({
     setKinds((current) => (current.includes(kind) ? current.filter((k) => k !== kind) : ENTRY_KINDS.filter((k) => k === kind || current.includes(k))));
   }
 
+  const [filtersOpen, setFiltersOpen] = useState(false);
+
   return (
-    <div className="space-y-3">
-      <div role="group" aria-label="Show entries of kind" className="flex flex-wrap gap-2">
+    <div className="space-y-2">
+      {/* On a phone the kind filter folds behind one button, so the newest entries start on the first screen. */}
+      <div className="flex items-center justify-between gap-2">
+        {title}
+        <Button
+          variant="secondary"
+          className={cn('lg:hidden', !title && 'w-full justify-between')}
+          aria-expanded={filtersOpen}
+          aria-controls={`history-kinds-${id}`}
+          onClick={() => setFiltersOpen((o) => !o)}
+        >
+          <SlidersHorizontal aria-hidden className="size-4" />
+          Filter by kind
+          <span className="font-normal">{kinds.length === 0 ? '' : `(${kinds.length} chosen)`}</span>
+        </Button>
+      </div>
+      <div
+        id={`history-kinds-${id}`}
+        role="group"
+        aria-label="Show entries of kind"
+        className={cn('flex-wrap gap-2 lg:flex', filtersOpen ? 'flex' : 'hidden')}
+      >
         <FilterChip pressed={kinds.length === 0} onClick={() => setKinds([])}>
           All
         </FilterChip>
@@ -110,43 +135,43 @@ export function EquipmentHistory({
       ) : items.length === 0 ? (
         <EmptyState title={kinds.length ? 'No entries of that kind yet.' : 'No history yet.'}>Entries appear here as visits are recorded.</EmptyState>
       ) : (
-        <ol aria-label="History, newest first" className="space-y-3">
+        <ol aria-label="History, newest first" className="space-y-2">
           {groups.map((g, gi) => (
             <li key={`${g.visitId}-${gi}`} className="overflow-hidden rounded-lg border border-slate-200 bg-white" data-visit-group={g.visitId}>
-              <Link
-                href={`/visits/${g.visitId}`}
-                className="flex min-h-12 items-center gap-2 border-b border-slate-200 bg-slate-50 px-4 py-2 hover:bg-ice-50"
-              >
-                <span className="min-w-0 flex-1">
-                  <span className="block font-semibold text-slate-900">
+              <Link href={`/visits/${g.visitId}`} className="flex min-h-11 items-center gap-2 border-b border-slate-200 bg-slate-50 px-3 py-1.5 hover:bg-ice-50">
+                <span className="min-w-0 flex-1 text-sm leading-snug">
+                  <span className="font-semibold text-slate-900">
                     {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
                   </span>
-                  <span className="block text-sm text-slate-700">
+                  <span className="text-slate-700">
+                    {' · '}
                     {g.visit.technicianName}
                     {g.visit.status === 'open' ? ' · visit still open' : ''}
                   </span>
                 </span>
-                <span className="text-sm font-semibold text-ice-800">Open visit</span>
+                <span className="sr-only">Open visit</span>
                 <ChevronRight aria-hidden className="size-5 shrink-0 text-slate-500" />
               </Link>
               <ul className="divide-y divide-slate-100">
                 {g.entries.map((e) => (
-                  <li key={e.id} className={cn('px-4 py-3', e.voidedAt && 'bg-slate-50')} data-entry-kind={e.kind}>
-                    <div className="mb-1 flex flex-wrap items-baseline gap-x-3 gap-y-1">
-                      <EntryKindLabel kind={e.kind} />
-                      <time dateTime={e.recordedAt} className="text-sm text-slate-600">
-                        {timeIn(e.recordedAt, g.visit.timeZone)}
-                      </time>
-                      {showEquipment ? (
-                        <Link href={`/equipment/${e.equipmentId}`} className="text-sm font-medium text-ice-800 underline">
-                          {e.equipmentName}
-                        </Link>
-                      ) : null}
-                    </div>
-                    <div className={cn(e.voidedAt && 'text-slate-600 line-through')}>
-                      <EntrySummary entry={e} prefs={prefs} />
-                    </div>
-                    {e.voidedAt ? <p className="mt-1 text-sm font-semibold text-slate-800">Voided: {e.voidReason}</p> : null}
+                  <li key={e.id}>
+                    <article className={cn('px-3 py-2', e.voidedAt && 'bg-slate-50')} data-entry-kind={e.kind} aria-label={`${entryKindLabels[e.kind]}, ${timeIn(e.recordedAt, g.visit.timeZone)}`}>
+                      <div className="mb-0.5 flex flex-wrap items-baseline gap-x-2 gap-y-0.5">
+                        <EntryKindLabel kind={e.kind} />
+                        <time dateTime={e.recordedAt} className="text-xs text-slate-600">
+                          {timeIn(e.recordedAt, g.visit.timeZone)}
+                        </time>
+                        {showEquipment ? (
+                          <Link href={`/equipment/${e.equipmentId}`} className="text-sm font-medium text-ice-800 underline">
+                            {e.equipmentName}
+                          </Link>
+                        ) : null}
+                      </div>
+                      <div className={cn('text-sm', e.voidedAt && 'text-slate-600 line-through')}>
+                        <EntrySummary entry={e} prefs={prefs} />
+                      </div>
+                      {e.voidedAt ? <p className="mt-1 text-sm font-semibold text-slate-800">Voided: {e.voidReason}</p> : null}
+                    </article>
                   </li>
                 ))}
               </ul>

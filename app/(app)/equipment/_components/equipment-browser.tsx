@@ -1,6 +1,6 @@
 'use client';
 
-import { ArrowDownWideNarrow, ArrowUpNarrowWide, Download, Search, SlidersHorizontal, X } from 'lucide-react';
+import { ArrowDownWideNarrow, ArrowUpNarrowWide, Check, Download, Search, SlidersHorizontal, X } from 'lucide-react';
 import { useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { EquipmentList } from '@/components/equipment/equipment-list';
@@ -150,13 +150,15 @@ export function EquipmentBrowser({
             </CheckOption>
           ))}
         </DisclosureMenu>
-        <DisclosureMenu label="Status" count={filters.status.length}>
-          {EQUIPMENT_STATUSES.map((s) => (
-            <CheckOption key={s} checked={filters.status.includes(s)} onChange={(on) => update({ status: toggle(filters.status, s, on) })}>
-              {statusLabels[s]}
-            </CheckOption>
-          ))}
-        </DisclosureMenu>
+        {filters.removed ? null : (
+          <DisclosureMenu label="Status" count={filters.status.length}>
+            {EQUIPMENT_STATUSES.filter((s) => s !== 'removed').map((s) => (
+              <CheckOption key={s} checked={filters.status.includes(s)} onChange={(on) => update({ status: toggle(filters.status, s, on) })}>
+                {statusLabels[s]}
+              </CheckOption>
+            ))}
+          </DisclosureMenu>
+        )}
         {filters.systemId ? (
           <Button variant="secondary" onClick={() => update({ systemId: undefined })} aria-label={`Remove the system filter: ${systemName ?? 'one system'}`}>
             System: {systemName ?? 'one system'} <X aria-hidden className="size-4" />
@@ -168,6 +170,8 @@ export function EquipmentBrowser({
           </Button>
         ) : null}
       </div>
+
+      <RemovedToggle removed={Boolean(filters.removed)} onChange={(only) => update({ removed: only ? 'only' : undefined, status: [] })} />
 
       <PhoneSort sort={filters.sort} dir={filters.dir} onChange={(sort, dir) => update({ sort, dir })} />
 
@@ -185,7 +189,7 @@ export function EquipmentBrowser({
           {list.isPending ? 'Loading equipment…' : `${rows.length} shown${list.hasNextPage ? ', more to load' : ''}${filters.q ? ` for “${filters.q}”` : ''}.`}
         </p>
         {!list.isPending && rows.length === 0 ? (
-          <EmptyState title={active ? 'No equipment matches these filters.' : 'No equipment registered yet.'}>
+          <EmptyState title={filters.removed ? (active ? 'No removed equipment matches these filters.' : 'No equipment has been removed.') : active ? 'No equipment matches these filters.' : 'No equipment registered yet.'}>
             {active ? 'Search matches part of a name, make, model or serial.' : 'Register equipment from a site page, or import a CSV there.'}
           </EmptyState>
         ) : (
@@ -243,6 +247,30 @@ function SearchBox({ value, onSearch }: { value: string; onSearch: (q: string) =
         spellCheck={false}
         className="pl-10"
       />
+    </div>
+  );
+}
+
+/** Removed units are listed apart, so a replaced unit never sits beside its namesake in the current list. */
+function RemovedToggle({ removed, onChange }: { removed: boolean; onChange: (only: boolean) => void }) {
+  const option = (on: boolean, label: string) => (
+    <button
+      type="button"
+      aria-pressed={removed === on}
+      onClick={() => onChange(on)}
+      className={cn(
+        'inline-flex min-h-11 flex-1 items-center justify-center gap-1.5 px-4 text-sm font-semibold sm:flex-none',
+        removed === on ? 'bg-ice-900 text-white' : 'bg-white text-slate-900 hover:bg-slate-100',
+      )}
+    >
+      {removed === on ? <Check aria-hidden className="size-4" /> : null}
+      {label}
+    </button>
+  );
+  return (
+    <div role="group" aria-label="Which equipment" className="flex divide-x divide-slate-300 overflow-hidden rounded-md border border-slate-300 sm:inline-flex">
+      {option(false, 'Current equipment')}
+      {option(true, 'Removed')}
     </div>
   );
 }

@@ -6,6 +6,7 @@ import Link from 'next/link';
 import { useEffect, useMemo, useState } from 'react';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { RemovalLine } from '@/components/equipment/removal-line';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import type { EquipmentDto } from '@/lib/equipment/dto';
 import type { EquipmentSort } from '@/lib/equipment/schemas';
@@ -51,7 +52,16 @@ export const equipmentColumns = helper.columns([
   helper.accessor('serial', { header: 'Serial', cell: (info) => (info.getValue() ? <span className="whitespace-nowrap font-mono">{info.getValue()}</span> : dash) }),
   helper.accessor('refrigerant', { header: 'Refrigerant', enableSorting: false, cell: (info) => info.getValue() ?? dash }),
   helper.accessor('condition', { header: 'Condition', cell: (info) => <ConditionBadge condition={info.getValue()} /> }),
-  helper.accessor('status', { header: 'Status', enableSorting: false, cell: (info) => <EquipmentStatusBadge status={info.getValue()} /> }),
+  helper.accessor('status', {
+    header: 'Status',
+    enableSorting: false,
+    cell: (info) => (
+      <span className="flex flex-col items-start gap-1">
+        <EquipmentStatusBadge status={info.getValue()} />
+        {info.getValue() === 'removed' ? <RemovalLine equipment={info.row.original} /> : null}
+      </span>
+    ),
+  }),
   helper.accessor('installedOn', { header: 'Installed', cell: (info) => formatDayOrDash(info.getValue()) }),
   helper.accessor('updatedAt', { header: 'Updated', cell: (info) => formatDayOrDash(info.getValue()) }),
 ]);

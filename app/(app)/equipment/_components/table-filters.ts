@@ -26,7 +26,9 @@ export function parseFilters(params: Pick<URLSearchParams, 'get' | 'getAll'>): E
     type: oneOf<EquipmentType>(EQUIPMENT_TYPES, params.getAll('type')),
     condition: oneOf(['1', '2', '3', '4', '5'], params.getAll('condition')).map(Number),
     refrigerant: oneOf<RefrigerantId>(REFRIGERANT_IDS, params.getAll('refrigerant')),
-    status: oneOf<EquipmentStatus>(EQUIPMENT_STATUSES, params.getAll('status')),
+    // Removed units have a view of their own, not a status filter among current units.
+    status: oneOf<EquipmentStatus>(EQUIPMENT_STATUSES, params.getAll('status')).filter((s) => s !== 'removed'),
+    ...(params.get('removed') === 'only' ? { removed: 'only' as const } : {}),
     q: q || undefined,
     sort: (EQUIPMENT_SORTS as readonly string[]).includes(sort) ? (sort as EquipmentSort) : 'name',
     dir: params.get('dir') === 'desc' ? 'desc' : 'asc',

@@ -28,10 +28,11 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const { id } = await params;
   const actor = await requirePageActor(`/sites/${id}`);
   const site = await orNotFound(getSite(actor, id));
-  const [areas, systems, equipment] = await Promise.all([
+  const [areas, systems, equipment, removedEquipment] = await Promise.all([
     listAreas(actor, id, can(actor, 'areas.write')),
     listSystems(actor, { siteId: id, limit: 200, archived: 'exclude' }),
     listEquipment(actor, { siteId: id, limit: 200, sort: 'name', dir: 'asc' }),
+    listEquipment(actor, { siteId: id, removed: 'only', limit: 100, sort: 'updatedAt', dir: 'desc' }),
   ]);
   const canWrite = can(actor, 'sites.write');
   const canVisit = can(actor, 'visits.start') && !site.archivedAt;
@@ -133,6 +134,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
       <SiteEquipment
         siteId={site.id}
         items={equipment.items}
+        removed={removedEquipment.items}
         more={equipment.nextCursor !== null}
         areas={areas}
         canRegister={can(actor, 'equipment.write') && !site.archivedAt}

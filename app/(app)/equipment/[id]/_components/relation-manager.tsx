@@ -48,6 +48,8 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
   const [relations, setRelations] = useState(initial);
   const remove = useRemoveRelation(equipmentId);
   const [removeError, setRemoveError] = useState<string>();
+  // Editing tools show only when asked for: the list reads as plain links until then.
+  const [editing, setEditing] = useState(false);
 
   return (
     <div className="space-y-3">
@@ -67,7 +69,7 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
                 </Link>
                 <span className="block text-sm text-slate-600">{equipmentTypeLabels[r.other.type]}</span>
               </span>
-              {canWrite ? (
+              {canWrite && editing ? (
                 <Button
                   variant="ghost"
                   size="md"
@@ -91,7 +93,14 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
         </ul>
       )}
       {removeError ? <Alert tone="danger" title={removeError} /> : null}
-      {canWrite ? <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} /> : null}
+      {canWrite ? (
+        <details className="rounded-lg border border-slate-200 bg-white" onToggle={(e) => setEditing(e.currentTarget.open)}>
+          <summary className="flex min-h-11 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">Change relations</summary>
+          <div className="border-t border-slate-200">
+            <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} />
+          </div>
+        </details>
+      ) : null}
     </div>
   );
 }
@@ -102,7 +111,8 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
   const [banner, setBanner] = useState<string>();
   const form = useForm<RelationFormValues, unknown, CreateRelationInput>({ resolver: relationResolver, defaultValues: { way: 'controls:from', otherId: '' } });
   const errors = form.formState.errors;
-  const others = (candidates.data?.items ?? []).filter((e) => e.id !== equipmentId);
+  // The list API leaves removed units out; the check here keeps a stale cache from offering one.
+  const others = (candidates.data?.items ?? []).filter((e) => e.id !== equipmentId && e.status !== 'removed');
 
   const onSubmit = form.handleSubmit(async (input) => {
     setBanner(undefined);
@@ -120,9 +130,9 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end">
-      <h3 className="text-base font-semibold sm:col-span-3">Add a relation</h3>
-      {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3" /> : null}
+    <form onSubmit={onSubmit} noValidate className="grid gap-3 p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end lg:grid-cols-1 xl:grid-cols-[minmax(0,12rem)_minmax(0,1fr)] xl:[&>button]:col-span-2">
+      <h3 className="text-base font-semibold sm:col-span-3 lg:col-span-1 xl:col-span-2">Add a relation</h3>
+      {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3 lg:col-span-1 xl:col-span-2" /> : null}
       <Field id="relation-way" label="This equipment" error={errors.way?.message}>
         <Select id="relation-way" {...describedBy('relation-way', errors.way?.message)} {...form.register('way')}>
           {ways.map((w) => (
@@ -150,7 +160,7 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
       <Button type="submit" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? 'Adding…' : 'Add relation'}
       </Button>
-      {candidates.isError ? <p className="text-sm text-red-700 sm:col-span-3">The site’s equipment could not be loaded: {(candidates.error as Error).message}</p> : null}
+      {candidates.isError ? <p className="text-sm text-red-700 sm:col-span-3 lg:col-span-1 xl:col-span-2">The site’s equipment could not be loaded: {(candidates.error as Error).message}</p> : null}
     </form>
   );
 }

@@ -1,4 +1,4 @@
-import { Download, Plus, Upload } from 'lucide-react';
+import { Archive, Download, Plus, Upload } from 'lucide-react';
 import Link from 'next/link';
 import { EquipmentList } from '@/components/equipment/equipment-list';
 import { ButtonLink, buttonVariants } from '@/components/ui/button';
@@ -29,6 +29,7 @@ function groupByArea(items: EquipmentDto[], areas: AreaDto[]): Group[] {
 export function SiteEquipment({
   siteId,
   items,
+  removed,
   more,
   areas,
   canRegister,
@@ -36,6 +37,8 @@ export function SiteEquipment({
 }: {
   siteId: string;
   items: EquipmentDto[];
+  /** Removed units, listed apart with their removal date and what replaced them. */
+  removed: EquipmentDto[];
   more: boolean;
   areas: AreaDto[];
   canRegister: boolean;
@@ -79,6 +82,17 @@ export function SiteEquipment({
           </div>
         ))
       )}
+      {removed.length > 0 ? (
+        <details className="rounded-lg border border-slate-200 bg-slate-50" data-testid="site-removed-equipment">
+          <summary className="flex min-h-11 cursor-pointer items-center gap-2 px-4 font-semibold text-slate-900">
+            <Archive aria-hidden className="size-4" /> Removed <span className="font-normal text-slate-600">({removed.length})</span>
+          </summary>
+          <div className="space-y-2 border-t border-slate-200 p-2">
+            <p className="px-2 text-sm text-slate-700">Units taken out or replaced. Their history is kept on their own pages.</p>
+            <EquipmentList items={removed} empty="" showArea />
+          </div>
+        </details>
+      ) : null}
       {more ? (
         <p>
           <Link href={`/equipment?siteId=${siteId}`} className="font-semibold text-ice-800 underline">
