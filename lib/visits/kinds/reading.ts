@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isCalcError } from '@/lib/calc/errors';
-import { controlCircuitVoltage, supplyVoltageCheck, voltageUnbalance } from '@/lib/calc/electrical';
+import { controlCircuitVoltage, supplyVoltageLines, voltageUnbalance } from '@/lib/calc/electrical';
 import { computeReadings } from '@/lib/calc/readings';
 import { formatQuantity, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { amps, kpaG, tempC, volts } from '@/lib/visits/kinds/fields';
@@ -47,9 +47,19 @@ export function attempt<T>(problems: string[], fn: () => T): T | null {
   }
 }
 
+/** A computed value judged against its usual band (common practice, lib/calc/reading-bands). */
+export interface ValueLevel {
+  level: 'normal' | 'watch' | 'abnormal';
+  direction: 'low' | 'high' | null;
+  /** The usual band in SI (K, or a plain ratio), what it is for and where it comes from. */
+  band: { min: number | null; max: number | null; label: string; source: string } | null;
+}
+
 export interface ReadingComputed {
   refrigerant: string | null;
+  /** Always the dew point at the suction pressure (TD uses its own reference, in `references`). */
   evaporatingC: number | null;
+  /** Always the bubble point at the head pressure. */
   condensingC: number | null;
   superheatK: number | null;
   subcoolingK: number | null;
@@ -64,6 +74,11 @@ export interface ReadingComputed {
   supplyMessage: string | null;
   controlVoltageStatus: string | null;
   controlVoltageNotes: string[];
+  /** The saturation reference evaporator TD and condenser split were taken against. */
+  references?: { evaporatorTd: string | null; condenserSplit: string | null };
+  levels?: Partial<Record<'superheatK' | 'subcoolingK' | 'evaporatorTdK' | 'condenserSplitK' | 'compressionRatio' | 'unbalancePct' | 'supplyVerdict' | 'controlVoltageStatus', ValueLevel>>;
+  /** Likely causes from the combination of values: a guide (common practice), never a verdict. */
+  suggestions?: { title: string; reasoning: string; checks: string[] }[];
   bases: string[];
   problems: string[];
 }
@@ -107,6 +122,7 @@ export function computeReading(data: ReadingData, ctx: EntryContext): ReadingCom
         liquidLineTemp: orUndefined(data.liquidLineC),
         boxTemp: orUndefined(data.boxC),
         ambientTemp: orUndefined(data.ambientC),
+        designBoxTemp: ctx.designBoxTempC ?? undefined,
       }),
     );
     if (r) {
@@ -114,9 +130,23 @@ export function computeReading(data: ReadingData, ctx: EntryContext): ReadingCom
       out.subcoolingK = r.subcooling?.valueK ?? null;
       out.evaporatorTdK = r.evaporatorTd?.valueK ?? null;
       out.condenserSplitK = r.condenserSplit?.valueK ?? null;
-      out.evaporatingC = r.superheat?.saturation ?? r.evaporatorTd?.saturation ?? null;
-      out.condensingC = r.subcooling?.saturation ?? r.condenserSplit?.saturation ?? null;
+      // One reference each, whatever else was read: never a silent switch to the mid-point.
+      out.evaporatingC = r.evaporating?.dewC ?? null;
+      out.condensingC = r.condensing?.bubbleC ?? null;
       out.compressionRatio = r.compressionRatio?.ratio ?? null;
+      out.references = { evaporatorTd: r.evaporatorTd?.reference ?? null, condenserSplit: r.condenserSplit?.reference ?? null };
+      const judged = (v: { level: ValueLevel['level']; direction: ValueLevel['direction']; band: { label: string; source: string; normal: { min: number | null; max: number | null } } } | null | undefined): ValueLevel | undefined =>
+        v ? { level: v.level, direction: v.direction, band: { min: v.band.normal.min, max: v.band.normal.max, label: v.band.label, source: v.band.source } } : undefined;
+      out.levels = {
+        superheatK: judged(r.superheat),
+        subcoolingK: judged(r.subcooling),
+        evaporatorTdK: judged(r.evaporatorTd),
+        condenserSplitK: judged(r.condenserSplit),
+        compressionRatio: judged(r.compressionRatio),
+      };
+      out.suggestions = r.suggestions.map((x) => ({ title: x.title, reasoning: x.reasoning, checks: [...x.checks] }));
+      // One value that cannot be computed keeps every other one, and says why on its own.
+      for (const e of Object.values(r.errors)) if (e) problems.push(e.message);
       for (const part of [r.superheat, r.subcooling, r.evaporatorTd, r.condenserSplit, r.compressionRatio]) if (part) bases.add(part.basis);
     }
   }
@@ -131,8 +161,8 @@ export function computeReading(data: ReadingData, ctx: EntryContext): ReadingCom
       bases.add(u.basis);
     }
     if (ctx.nameplateVoltage) {
-      const average = (lines as number[]).reduce((a, b) => a + b, 0) / 3;
-      const s = attempt(problems, () => supplyVoltageCheck({ measuredV: average, nameplateV: ctx.nameplateVoltage!, point: 'utilization' }));
+      // Each line against ANSI C84.1; the worst line decides.
+      const s = attempt(problems, () => supplyVoltageLines({ lines: lines as number[], nameplateV: ctx.nameplateVoltage!, point: 'utilization' }));
       if (s) {
         out.supplyVerdict = s.verdict;
         out.supplyMessage = s.message;
@@ -144,7 +174,8 @@ export function computeReading(data: ReadingData, ctx: EntryContext): ReadingCom
     const c = attempt(problems, () => controlCircuitVoltage({ measuredV: data.controlVolts!, nominalV: ctx.controlVoltageNominal ?? 24 }));
     if (c) {
       out.controlVoltageStatus = c.status;
-      out.controlVoltageNotes = c.notes;
+      out.controlVoltageNotes = [c.message, ...c.notes];
+      out.levels = { ...out.levels, controlVoltageStatus: { level: c.level, direction: c.direction, band: null } };
       bases.add(c.basis);
     }
   }

@@ -4,7 +4,7 @@ import { useMemo, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { CERTIFIED_WORK_CAUTION, ENERGISED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
-import { computeReading, type ReadingComputed } from '@/lib/visits/kinds/reading';
+import { computeReading, type ReadingComputed, type ValueLevel } from '@/lib/visits/kinds/reading';
 import type { EntryContext } from '@/lib/visits/kinds/types';
 import type { ReadingData, ReadingKey } from '@/lib/visits/schemas';
 import { Cautions, ComputedPanel, FormActions, NumberInput, parseTyped, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
@@ -64,17 +64,33 @@ const statusWords: Record<string, string> = {
   do_not_operate: 'Do not operate',
   low: 'Low',
   high: 'High',
+  marginal: 'Marginal: re-check under load',
+  out: 'Out of the coil operating band',
   range_a: 'Range A (normal)',
   range_b: 'Range B (correct the supply)',
   outside: 'Outside Range B',
 };
+
+const levelWords = { normal: 'Usual', watch: 'Watch', abnormal: 'Out of the usual' } as const;
+
+/** A value's level in words beside its usual band, in the reader's units; never colour alone. */
+function levelLook(judged: ValueLevel | undefined, show: (v: number) => string, note?: string): Pick<ComputedRow, 'note' | 'tone'> {
+  if (!judged) return note ? { note } : {};
+  const b = judged.band;
+  const span = b ? (b.min !== null && b.max !== null ? `${show(b.min)}–${show(b.max)}` : b.max !== null ? `up to ${show(b.max)}` : b.min !== null ? `at least ${show(b.min)}` : '') : '';
+  const where = b ? `usual ${span} for ${b.label}`.replace(/\s+/g, ' ').trim() : '';
+  const word = `${levelWords[judged.level]}${judged.direction ? ` (${judged.direction})` : ''}`;
+  return { note: [note, `${word}${where ? ` · ${where}` : ''}`].filter(Boolean).join(' · '), tone: judged.level === 'normal' ? 'plain' : judged.level === 'watch' ? 'warning' : 'danger' };
+}
 
 /** Computed values as rows in the user's units; the same rounding the history and report use. */
 export function readingRows(c: ReadingComputed, prefs: UnitPrefs): ComputedRow[] {
   const rows: ComputedRow[] = [];
   const t = (key: keyof ReadingComputed, label: string, q: Quantity, note?: string) => {
     const v = c[key];
-    if (typeof v === 'number') rows.push({ key, label, value: formatQuantity(v, q, prefs), ...(note ? { note } : {}) });
+    if (typeof v !== 'number') return;
+    const judged = c.levels?.[key as keyof NonNullable<ReadingComputed['levels']>];
+    rows.push({ key, label, value: formatQuantity(v, q, prefs), ...levelLook(judged, (x) => formatQuantity(x, q, prefs), note) });
   };
   t('evaporatingC', 'Evaporating (saturation, dew point)', 'temperature');
   t('condensingC', 'Condensing (saturation, bubble point)', 'temperature');
@@ -82,7 +98,7 @@ export function readingRows(c: ReadingComputed, prefs: UnitPrefs): ComputedRow[]
   t('subcoolingK', 'Subcooling', 'temperatureDiff');
   t('evaporatorTdK', 'Evaporator TD', 'temperatureDiff');
   t('condenserSplitK', 'Condenser split', 'temperatureDiff');
-  if (c.compressionRatio !== null) rows.push({ key: 'compressionRatio', label: 'Compression ratio', value: c.compressionRatio.toFixed(2) });
+  if (c.compressionRatio !== null) rows.push({ key: 'compressionRatio', label: 'Compression ratio', value: c.compressionRatio.toFixed(2), ...levelLook(c.levels?.compressionRatio, (x) => x.toFixed(1)) });
   if (c.unbalancePct !== null) {
     rows.push({
       key: 'unbalancePct',
@@ -101,7 +117,7 @@ export function readingRows(c: ReadingComputed, prefs: UnitPrefs): ComputedRow[]
       label: 'Control voltage',
       value: statusWords[c.controlVoltageStatus] ?? c.controlVoltageStatus,
       note: c.controlVoltageNotes.join(' ') || undefined,
-      tone: c.controlVoltageStatus === 'ok' ? 'plain' : 'warning',
+      tone: c.controlVoltageStatus === 'ok' ? 'plain' : c.controlVoltageStatus === 'out' ? 'danger' : 'warning',
     });
   }
   return rows;
@@ -194,6 +210,23 @@ export function ReadingForm({
               problems={refrigerantSide.problems}
               empty="Enter pressures and line temperatures to see saturation temperatures, superheat and subcooling."
             />
+          ) : null}
+          {g.title === 'Temperatures' && computed.suggestions?.length ? (
+            <section aria-labelledby="suggest-h" className="rounded-lg border border-slate-300 bg-white p-3" data-testid="reading-suggestions">
+              <h4 id="suggest-h" className="font-bold text-slate-900">
+                What these readings suggest
+              </h4>
+              <p className="text-sm text-slate-700">A guide from common practice, not a verdict: confirm before acting.</p>
+              <ol className="mt-2 list-decimal space-y-2 pl-5">
+                {computed.suggestions.map((x) => (
+                  <li key={x.title}>
+                    <p className="font-semibold">{x.title}</p>
+                    <p className="text-sm">{x.reasoning}</p>
+                    <p className="text-sm text-slate-700">Check: {x.checks.join('; ')}</p>
+                  </li>
+                ))}
+              </ol>
+            </section>
           ) : null}
           {g.title === 'Electrical' ? (
             <>
