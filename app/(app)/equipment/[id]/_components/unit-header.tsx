@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
+import { QuickPhotoButton } from '@/components/photos/quick-photo';
 import { ButtonLink } from '@/components/ui/button';
 import { can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -143,6 +144,7 @@ export function UnitHeader({ actor, equipment, facts, prefs }: { actor: Actor; e
                 </ButtonLink>
               )
             ) : null}
+            <QuickPhotoButton equipmentId={equipment.id} canUpload={can(actor, 'photos.upload')} />
             {actor.role === 'client' && can(actor, 'requests.create') && !removed ? (
               // Where a scan lands an owner: what to do when the unit is not right.
               <ButtonLink href={`/requests/new?siteId=${equipment.siteId}&equipmentId=${equipment.id}`} size="lg">
