@@ -16,7 +16,7 @@ function when(iso: string, timeZone: string): string {
 }
 
 /** The equipment page's tag box: the tag on the unit, when it was last scanned, earlier tags, and "Replace tag". */
-export async function EquipmentTagPanel({ equipmentId, actor }: { equipmentId: string; actor: Actor }) {
+export async function EquipmentTagPanel({ equipmentId, actor, removed = false }: { equipmentId: string; actor: Actor; /** A removed unit gets no new tag. */ removed?: boolean }) {
   const info = await getEquipmentTagInfo(actor, equipmentId);
   const tz = info.timeZone;
   return (
@@ -69,7 +69,7 @@ export async function EquipmentTagPanel({ equipmentId, actor }: { equipmentId: s
           </ul>
         </details>
       ) : null}
-      {can(actor, 'tags.claim') ? (
+      {can(actor, 'tags.claim') && !removed ? (
         <div className="mt-4 space-y-2">
           <TagActions equipmentId={equipmentId} currentCode={info.current?.code ?? null} />
           {can(actor, 'tags.print') ? (

@@ -193,6 +193,7 @@ test('a removed unit is shown apart with its removal date and replacement, and i
   const noticeBox = await notice.boundingBox();
   expect(noticeBox!.y).toBeLessThan(300);
   await expect(page.getByRole('link', { name: /Log a visit/ })).toHaveCount(0);
+  await expect(page.getByTestId('equipment-tag-panel').getByRole('button')).toHaveCount(0);
   await shot(page, `unit-removed-page-${info.project.name}`);
   await notice.getByRole('link', { name }).click();
   await expect(page).toHaveURL(new RegExp(`/equipment/${current.id}$`));

@@ -120,7 +120,7 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
           <DetailList rows={fields.map((f) => ({ label: f.label, value: formatNameplateValue(f, equipment.nameplate[f.key], prefs) }))} />
         </Card>
 
-        <EquipmentTagPanel equipmentId={equipment.id} actor={actor} />
+        <EquipmentTagPanel equipmentId={equipment.id} actor={actor} removed={equipment.status === 'removed'} />
 
         <section aria-labelledby="relations-h" className="space-y-3">
           <h2 id="relations-h" className="text-lg font-semibold">
