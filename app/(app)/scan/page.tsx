@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { ScanPageScanner } from '@/app/(app)/scan/_components/scan-page-scanner';
 
@@ -8,9 +7,7 @@ export const metadata: Metadata = { title: 'Scan' };
 export default async function ScanPage() {
   await requirePageActor('/scan', 'tags.scan');
   return (
-    <>
-      <PageHeader title="Scan" subtitle="Scan an equipment tag to open the unit and its history." />
-      <ScanPageScanner />
-    </>
+    // The scanner holds the page's heading: without signal it gives its place to the kept unit.
+    <ScanPageScanner />
   );
 }

@@ -1,13 +1,34 @@
 'use client';
 
 import { useRouter } from 'next/navigation';
-import { useCallback } from 'react';
+import { useCallback, useEffect, useState } from 'react';
 import { TagScanner } from '@/components/tags/tag-scanner';
+import { PageHeader } from '@/components/ui/card';
+import { OFFLINE_UNIT_PATH } from '@/lib/offline/cache-names';
 import { openTagCode } from '@/lib/offline/open-unit';
+import { OfflineUnitView } from '@/app/(app)/offline/unit/_components/offline-unit-view';
 
-/** The Scan page's scanner: a code read opens what the tag leads to (and is logged there); without signal, the unit from the phone's kept sites. */
+/**
+ * The Scan page's scanner: a code read opens what the tag leads to (and is logged there); without
+ * signal, the unit from the phone's kept sites, shown here at once rather than by a page load
+ * (Back returns to the scanner).
+ */
 export function ScanPageScanner() {
   const router = useRouter();
-  const open = useCallback((code: string, via: 'camera' | 'typed') => openTagCode(code, via, router.push), [router]);
-  return <TagScanner onCode={open} />;
+  const [kept, setKept] = useState<string | null>(null);
+  const open = useCallback((code: string, via: 'camera' | 'typed') => openTagCode(code, via, router.push, setKept), [router]);
+  useEffect(() => {
+    const back = () => {
+      if (window.location.pathname !== OFFLINE_UNIT_PATH) setKept(null);
+    };
+    window.addEventListener('popstate', back);
+    return () => window.removeEventListener('popstate', back);
+  }, []);
+  if (kept) return <OfflineUnitView query={{ code: kept }} />;
+  return (
+    <>
+      <PageHeader title="Scan" subtitle="Scan an equipment tag to open the unit and its history." />
+      <TagScanner onCode={open} />
+    </>
+  );
 }

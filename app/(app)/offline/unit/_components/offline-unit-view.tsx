@@ -43,12 +43,15 @@ function groupByVisit(entries: PackEntry[], visits: SitePack['visits']): { visit
   return groups;
 }
 
-export function OfflineUnitView() {
+/** The unit named by `query`, else by the page's own address (?code= or ?id=). */
+export function OfflineUnitView({ query: given }: { query?: UnitQuery } = {}) {
   const [state, setState] = useState<State>({ status: 'loading' });
   const [online, setOnline] = useState(true);
+  const givenCode = given && 'code' in given ? given.code : null;
+  const givenId = given && 'id' in given ? given.id : null;
 
   useEffect(() => {
-    const query = queryFromLocation();
+    const query: UnitQuery | null = givenCode ? { code: givenCode } : givenId ? { id: givenId } : queryFromLocation();
     setOnline(navigator.onLine);
     const on = () => setOnline(navigator.onLine);
     window.addEventListener('online', on);
@@ -61,7 +64,7 @@ export function OfflineUnitView() {
       window.removeEventListener('online', on);
       window.removeEventListener('offline', on);
     };
-  }, []);
+  }, [givenCode, givenId]);
 
   if (state.status === 'loading') {
     return (
