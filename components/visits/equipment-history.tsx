@@ -42,6 +42,9 @@ function groupByVisit(items: EntryDto[]): VisitGroup[] {
  * An equipment item's (or a system's) history, newest first, grouped by visit, filterable by entry
  * kind. Older pages load when the end of the list scrolls into view, or with the button (keyboard).
  */
+
+/** Pages loaded by scrolling alone before the button takes over. */
+const AUTO_PAGES = 3;
 export function EquipmentHistory({
   scope,
   id,
@@ -64,10 +67,13 @@ export function EquipmentHistory({
   const groups = groupByVisit(items);
   const sentinel = useRef<HTMLDivElement>(null);
   const { hasNextPage, isFetchingNextPage, fetchNextPage } = history;
+  const pageCount = history.data?.pages.length ?? 0;
 
+  // Older pages load by themselves while scrolling, up to a few; after that a button does it, so
+  // what sits below the history (details, photos) stays within reach of a thumb.
   useEffect(() => {
     const el = sentinel.current;
-    if (!el || !hasNextPage || typeof IntersectionObserver === 'undefined') return;
+    if (!el || !hasNextPage || pageCount >= AUTO_PAGES || typeof IntersectionObserver === 'undefined') return;
     const observer = new IntersectionObserver(
       (seen) => {
         if (seen.some((s) => s.isIntersecting) && !isFetchingNextPage) void fetchNextPage();
@@ -76,7 +82,7 @@ export function EquipmentHistory({
     );
     observer.observe(el);
     return () => observer.disconnect();
-  }, [hasNextPage, isFetchingNextPage, fetchNextPage]);
+  }, [hasNextPage, isFetchingNextPage, fetchNextPage, pageCount]);
 
   function toggle(kind: EntryKind) {
     setKinds((current) => (current.includes(kind) ? current.filter((k) => k !== kind) : ENTRY_KINDS.filter((k) => k === kind || current.includes(k))));
