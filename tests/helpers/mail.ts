@@ -20,11 +20,16 @@ export async function mailTo(address: string): Promise<CaughtMessage[]> {
 }
 
 /** Waits until a message for the address arrives (the outbox sends asynchronously). */
-export async function waitForMail(address: string, timeoutMs = 15_000): Promise<CaughtMessage> {
+/**
+ * The newest message to `address` that `match` accepts. A message an earlier test queued can
+ * still arrive after the inbox was emptied (closing a visit wakes the outbox in the background),
+ * so a test names what it is waiting for.
+ */
+export async function waitForMail(address: string, timeoutMs = 15_000, match: (m: CaughtMessage) => boolean = () => true): Promise<CaughtMessage> {
   const end = Date.now() + timeoutMs;
   while (Date.now() < end) {
-    const list = await mailTo(address);
-    if (list[0]) return list[0];
+    const found = (await mailTo(address)).find(match);
+    if (found) return found;
     await new Promise((r) => setTimeout(r, 200));
   }
   throw new Error(`No mail for ${address} within ${timeoutMs} ms`);

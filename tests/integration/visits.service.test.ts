@@ -201,7 +201,7 @@ describe('visits', () => {
     await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'finding' as const, data: { text: 'Condenser coil plugged with grease', severity: 'down' as const, raiseFollowUp: false } }));
     await closeVisit(tech, visit.id, { summary: 'Cleaned condenser coil; box back to 36 °F.', confirmBypassRemoved: false });
     await deliverDueMail();
-    const mail = await waitForMail('owner@client-one.test');
+    const mail = await waitForMail('owner@client-one.test', 15_000, (m) => (m.text ?? '').includes(`/visits/${visit.id}`));
     expect(mail.subject).toContain('Service visit report — Pell Street Kitchen');
     expect(mail.text).toContain('Reason: No-cooling call');
     expect(mail.text).toContain('Finding (Down): Condenser coil plugged with grease');
