@@ -15,6 +15,7 @@ import { EntryRefusal, type EntryServerTools, type ServerEntryContext } from '@/
 import { entryQuery } from '@/lib/visits/queries';
 import { replaceComponent } from '@/lib/visits/replace-component';
 import type { CreateEntryInput } from '@/lib/visits/schemas';
+import { entryKindLabels } from '@/lib/visits/terms';
 import { getVisitSummary, openVisitForWriting, toEntryDto } from '@/lib/visits/service';
 
 // Entries are saved one by one as they are made, each with its computed values, and what they
@@ -99,7 +100,7 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
   if (equipment.status === 'removed') {
     // Made on the phone before the unit was marked removed (or on the wrong record): the entry
     // stands, and the office is told so it can check which unit it belongs to.
-    await tools.raiseFollowUp({ title: `Check: ${input.kind.replace('_', ' ')} recorded on ${equipment.name} after it was marked removed`.slice(0, 200), severity: 'minor' });
+    await tools.raiseFollowUp({ title: `Check: ${entryKindLabels[input.kind].toLowerCase()} recorded on ${equipment.name} after it was marked removed`.slice(0, 200), severity: 'minor' });
   }
   const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
   await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });

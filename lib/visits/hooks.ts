@@ -34,14 +34,6 @@ export function useStartVisit() {
   });
 }
 
-export function useCloseVisit(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CloseVisitInput) => apiFetch<VisitDto>(`/api/visits/${id}/close`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: visitKeys.all }),
-  });
-}
-
 export function useVisitCommand(id: string, command: 'reopen' | 'review') {
   const qc = useQueryClient();
   return useMutation({

@@ -3,7 +3,6 @@ import { equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
 import type { EntryDto, VisitDetailDto } from '@/lib/visits/dto';
 import { kindDef } from '@/lib/visits/kinds';
 import { visitReasonLabels } from '@/lib/visits/terms';
-export { describeLeakWork } from '@/lib/visits/kinds/leak';
 
 // The visit report as plain sections of text, shared by the e-mail and the PDF so both say the same.
 

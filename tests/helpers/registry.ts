@@ -1,5 +1,7 @@
 import type { Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
+import type { Actor } from '@/lib/auth/actor';
+import { actorFor, demoEmails, resetToDemo } from '@/tests/helpers/db';
 
 /**
  * A walk-in cooler circuit on a demo site, written straight to the database: a system with a
@@ -38,4 +40,12 @@ export async function createCoolerCircuit(db: Kysely<DB>, siteName = 'Pell Stree
     lowControlId: await add('pressure_control', 'Low-pressure control', { controlKind: 'low' }),
     thermostatId: await add('thermostat', 'Box thermostat', { controlVoltage: 24 }),
   };
+}
+
+export type CoolerCircuit = Awaited<ReturnType<typeof createCoolerCircuit>>;
+
+/** The visit tests' starting point: the demo, its technician and office, and a fresh cooler circuit. */
+export async function demoWithCircuit(db: Kysely<DB>): Promise<{ tech: Actor; office: Actor; circuit: CoolerCircuit }> {
+  await resetToDemo(db);
+  return { tech: await actorFor(db, demoEmails.technician), office: await actorFor(db, demoEmails.office), circuit: await createCoolerCircuit(db) };
 }

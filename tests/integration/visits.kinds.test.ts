@@ -12,19 +12,16 @@ import { addEntry, voidEntry } from '@/lib/visits/entries';
 import { kindsFor } from '@/lib/visits/kinds';
 import { controlsFor } from '@/lib/visits/kinds/setting-change';
 import { markReviewed, reopenVisit, startVisit } from '@/lib/visits/service';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { createTestDb } from '@/tests/helpers/db';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
 let tech: Actor;
 let office: Actor;
-let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+let circuit: CoolerCircuit;
 
 beforeEach(async () => {
-  await resetToDemo(db);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  circuit = await createCoolerCircuit(db);
+  ({ tech, office, circuit } = await demoWithCircuit(db));
 });
 afterAll(async () => {
   await db.destroy();

@@ -16,20 +16,17 @@ import { equipmentHistory, systemHistory } from '@/lib/visits/history';
 import { getVisit, reopenVisit, startVisit } from '@/lib/visits/service';
 import { KPA_PER_PSI, fahrenheitToCelsius } from '@/lib/calc/units';
 import { getObjectBytes, ensureBucket } from '@/storage/objects';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createTestDb, demoEmails } from '@/tests/helpers/db';
 import { clearMail, firstLink, waitForMail } from '@/tests/helpers/mail';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
 let tech: Actor;
 let office: Actor;
-let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+let circuit: CoolerCircuit;
 
 beforeEach(async () => {
-  await resetToDemo(db);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  circuit = await createCoolerCircuit(db);
+  ({ tech, office, circuit } = await demoWithCircuit(db));
 });
 afterAll(async () => {
   await db.destroy();
