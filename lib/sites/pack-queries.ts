@@ -105,7 +105,7 @@ export function packOpenVisitQuery(actor: Actor, db: Db, siteId: string) {
     .where('company_id', '=', actor.companyId)
     .where('technician_id', '=', actor.id)
     .where('status', '=', 'open')
-    .select('id')
+    .select(['id', 'reason', 'started_at'])
     .orderBy('started_at', 'desc')
     .limit(1);
 }

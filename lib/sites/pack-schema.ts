@@ -6,7 +6,7 @@ import { ENTRY_KINDS, SEVERITIES, VISIT_REASONS } from '@/lib/visits/terms';
 // the server describes what it sends and the phone checks what it stores with the same schema.
 
 /** Bumped when the shape changes; a phone drops a stored pack of another version and fetches anew. */
-export const SITE_PACK_VERSION = 1;
+export const SITE_PACK_VERSION = 2;
 
 /** The newest entries kept per unit. */
 export const PACK_HISTORY_PER_UNIT = 20;
@@ -81,6 +81,7 @@ export const sitePackSchema = z.object({
   /** Whose pack it is: a phone keeps it for this person only. */
   viewer: z.object({
     id: z.uuid(),
+    name: z.string(),
     role: z.enum(['admin', 'office', 'technician']),
     units: z.enum(['imperial', 'metric']),
     metricPressure: z.enum(['kPa', 'bar']),
@@ -94,6 +95,8 @@ export const sitePackSchema = z.object({
   }),
   /** The viewer's own open visit at this site, to continue rather than start another. */
   openVisitId: z.uuid().nullable(),
+  /** That visit, so the phone can show and continue it without signal. */
+  openVisit: z.object({ id: z.uuid(), reason: z.enum(VISIT_REASONS), startedAt: iso }).nullable(),
   /** Units still on site (removed and deleted ones left out), by name. */
   units: z.array(packUnitSchema),
   /** The visits the kept entries belong to, keyed by visit id. */

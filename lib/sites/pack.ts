@@ -79,9 +79,10 @@ export async function getSitePack(actor: Actor, siteId: string, db: Db = default
   return {
     version: SITE_PACK_VERSION,
     takenAt: new Date().toISOString(),
-    viewer: { id: actor.id, role: actor.role as SitePack['viewer']['role'], units: actor.units, metricPressure: actor.metricPressure },
+    viewer: { id: actor.id, name: actor.name, role: actor.role as SitePack['viewer']['role'], units: actor.units, metricPressure: actor.metricPressure },
     site: { id: site.id, name: site.name, clientName: site.clientName, timeZone: site.timeZone, elevationM: site.elevationM },
     openVisitId: openVisit?.id ?? null,
+    openVisit: openVisit ? { id: openVisit.id, reason: openVisit.reason as PackVisit['reason'], startedAt: iso(openVisit.started_at) } : null,
     units,
     visits,
     followUps: followUpRows.map((f) => ({

@@ -97,14 +97,36 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
     .executeTakeFirstOrThrow();
   tools.entryId = row.id;
   await def.apply?.(data, tools);
+  const what = entryKindLabels[input.kind].toLowerCase();
   if (equipment.status === 'removed') {
     // Made on the phone before the unit was marked removed (or on the wrong record): the entry
     // stands, and the office is told so it can check which unit it belongs to.
-    await tools.raiseFollowUp({ title: `Check: ${entryKindLabels[input.kind].toLowerCase()} recorded on ${equipment.name} after it was marked removed`.slice(0, 200), severity: 'minor' });
+    await tools.raiseFollowUp({ title: `Check: ${what} recorded on ${equipment.name} after it was marked removed`.slice(0, 200), severity: 'minor' });
+  } else if (await movedSince(trx, actor, equipment.id, recordedAt)) {
+    // Made on the phone before the office moved the unit to another system or area: the entry
+    // lands on the unit as it is now, and the office checks it belongs there (a refrigerant
+    // entry counts towards the new system's leak rate).
+    await tools.raiseFollowUp({ title: `Check: ${what} on ${equipment.name} was recorded before it moved to ${equipment.systemName ?? equipment.areaName ?? 'its new place'}`.slice(0, 200), severity: 'minor' });
   }
   const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
   await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
   return dto;
+}
+
+/** Did the office move the unit to another system or area after `at`? (Units never change site.) */
+async function movedSince(trx: Db, actor: Actor, equipmentId: string, at: Date): Promise<boolean> {
+  const moved = await trx
+    .selectFrom('audit_events')
+    .select('id')
+    .where('company_id', '=', actor.companyId)
+    .where('entity_type', '=', 'equipment')
+    .where('entity_id', '=', equipmentId)
+    .where('action', '=', 'update')
+    .where('created_at', '>', at)
+    .where(sql<boolean>`(before->>'systemId') is distinct from (after->>'systemId') or (before->>'areaId') is distinct from (after->>'areaId')`)
+    .limit(1)
+    .executeTakeFirst();
+  return Boolean(moved);
 }
 
 interface ToolScope {

@@ -124,6 +124,9 @@ describe('site pack', () => {
     expect(Object.keys(body.contexts).sort()).toEqual([units.cold, units.control].sort());
     expect(body.contexts[units.cold]).toMatchObject({ elevationM: 1609 });
     expect(body.openVisitId).toBe((units as unknown as { openVisit: string }).openVisit);
+    // The open visit itself and who the pack is for, so the phone can continue it without signal.
+    expect(body.openVisit).toMatchObject({ id: body.openVisitId });
+    expect(body.viewer.name).toBe(tech.name);
   });
 
   it('leaves removed and deleted units out, and units of other sites', async () => {
@@ -136,6 +139,7 @@ describe('site pack', () => {
     expect(JSON.stringify(body)).not.toContain('Elsewhere');
     // The office has no open visit of its own here.
     expect(body.openVisitId).toBeNull();
+    expect(body.openVisit).toBeNull();
   });
 
   it('refuses owners with 403, even for their own site', async () => {

@@ -55,4 +55,21 @@ describe('a unit changed on the server while the phone was offline', () => {
     const notes = await db.selectFrom('follow_ups').select(['title', 'severity', 'entry_id']).where('equipment_id', '=', circuit.evaporatorId).execute();
     expect(notes).toEqual([{ title: 'Check: note recorded on Cooler evaporator after it was marked removed', severity: 'minor', entry_id: saved.id }]);
   });
+
+  it('an entry made before the unit moved to another system lands on it, and the office gets a follow-up', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    const madeOffline = new Date(Date.now() - 60_000).toISOString();
+    const { createSystem } = await import('@/lib/systems/service');
+    const { updateEquipment } = await import('@/lib/equipment/service');
+    const other = await createSystem(office, { siteId: circuit.siteId, name: 'Prep cooler circuit', refrigerant: 'R-404A', application: 'commercial_refrigeration' });
+    await updateEquipment(office, circuit.evaporatorId, { systemId: other.id });
+    const { addEntry } = await import('@/lib/visits/entries');
+    const saved = await addEntry(tech, visit.id, { equipmentId: circuit.evaporatorId, clientEntryId: randomUUID(), recordedAt: madeOffline, kind: 'note', data: { text: 'Coil cleaned' } });
+    expect(saved.equipmentId).toBe(circuit.evaporatorId);
+    const notes = await db.selectFrom('follow_ups').select(['title', 'entry_id']).where('equipment_id', '=', circuit.evaporatorId).execute();
+    expect(notes).toEqual([{ title: 'Check: note on Cooler evaporator was recorded before it moved to Prep cooler circuit', entry_id: saved.id }]);
+    // Recorded after the move: nothing to check.
+    await addEntry(tech, visit.id, { equipmentId: circuit.evaporatorId, clientEntryId: randomUUID(), kind: 'note', data: { text: 'Fan guard refitted' } });
+    expect(await db.selectFrom('follow_ups').select('id').where('equipment_id', '=', circuit.evaporatorId).execute()).toHaveLength(1);
+  });
 });

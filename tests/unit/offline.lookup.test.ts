@@ -28,9 +28,10 @@ const pack = (siteId: string, takenAt: string, units: PackUnit[]): { pack: SiteP
   pack: {
     version: SITE_PACK_VERSION,
     takenAt,
-    viewer: { id: '00000000-0000-4000-8000-000000000001', role: 'technician', units: 'imperial', metricPressure: 'kPa' },
+    viewer: { id: '00000000-0000-4000-8000-000000000001', name: 'Tamsin Orrell', role: 'technician', units: 'imperial', metricPressure: 'kPa' },
     site: { id: siteId, name: `Site ${siteId.slice(-1)}`, clientName: 'Client', timeZone: 'UTC', elevationM: 0 },
     openVisitId: null,
+    openVisit: null,
     units,
     visits: {},
     followUps: [],
