@@ -4,7 +4,7 @@
 // data by docker-free-scripts/fit-saturation.ts. Checked to within 0.1 % of that data, −50 to +50 °C.
 // The hot path (used by charts and the benchmark) works on plain numbers and allocates nothing.
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
-import { CalcInputError, CalcRangeError, fmt } from '@/lib/calc/errors';
+import { CalcInputError, CalcRangeError, fmt, isCalcError } from '@/lib/calc/errors';
 import { formatPressure, formatTemperature } from '@/lib/calc/format';
 import { getRefrigerant, REFRIGERANTS, type Refrigerant, type RefrigerantId } from '@/lib/calc/refrigerants';
 import { SATURATION_COEFFICIENTS } from '@/lib/calc/saturation-coefficients';
@@ -479,4 +479,19 @@ export function saturationLookup(query: SaturationQuery): SaturationQueryResult 
     seaLevel,
     ...at,
   };
+}
+
+/**
+ * The saturation temperature (°C) a gauge reading (kPa gauge) gives against a barometer, or null when
+ * it lies outside the refrigerant's range: for the sea-level value shown beside a corrected one.
+ */
+export function gaugeSaturationC(ref: RefrigerantInput, pressureKpaG: number, curve: SaturationCurve, barometricKpa = STANDARD_ATMOSPHERE_KPA): number | null {
+  const abs = pressureKpaG + barometricKpa;
+  if (!Number.isFinite(abs) || abs <= 0) return null;
+  try {
+    return saturationTemperatureC(ref, abs, curve);
+  } catch (error) {
+    if (isCalcError(error)) return null;
+    throw error;
+  }
 }

@@ -79,3 +79,17 @@ export function formatQuantity(si: number | null | undefined, quantity: Quantity
   const value = c.fromSi(si);
   return `${value.toLocaleString('en-US', { maximumFractionDigits: c.decimals, minimumFractionDigits: 0 })} ${c.label}`;
 }
+
+/** The units lib/calc words its messages in for this reader (psig and °F, kPa(g) or bar(g) and °C). */
+export function calcUnitsFor(prefs: UnitPrefs): { pressureUnit: 'psig' | 'kPaG' | 'barG'; temperatureUnit: 'F' | 'C' } {
+  if (prefs.units === 'imperial') return { pressureUnit: 'psig', temperatureUnit: 'F' };
+  return { pressureUnit: prefs.metricPressure === 'bar' ? 'barG' : 'kPaG', temperatureUnit: 'C' };
+}
+
+/** An absolute pressure (a barometer) in the reader's units: psia, kPa abs or bar abs. */
+export function formatAbsolutePressure(kpaAbs: number, prefs: UnitPrefs): string {
+  if (!Number.isFinite(kpaAbs)) return '—';
+  const [value, label, decimals] =
+    prefs.units === 'imperial' ? [kpaAbs / KPA_PER_PSI, 'psia', 1] : prefs.metricPressure === 'bar' ? [kpaAbs / KPA_PER_BAR, 'bar abs', 3] : [kpaAbs, 'kPa abs', 1];
+  return `${value.toLocaleString('en-US', { maximumFractionDigits: decimals, minimumFractionDigits: 0 })} ${label}`;
+}

@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { isCalcError } from '@/lib/calc/errors';
 import { controlCircuitVoltage, supplyVoltageLines, voltageUnbalance } from '@/lib/calc/electrical';
 import { computeReadings } from '@/lib/calc/readings';
-import { formatQuantity, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
+import { formatElectrical, formatPercent, formatRatio } from '@/lib/format/numbers';
+import { calcUnitsFor, conversionFor, formatQuantity, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { amps, kpaG, tempC, volts } from '@/lib/visits/kinds/fields';
 import { defineKind, type EntryContext } from '@/lib/visits/kinds/types';
 
@@ -32,7 +33,6 @@ export const readingDataSchema = z
   .refine((d) => Object.values(d).some((v) => v !== null && v !== undefined), { message: 'Enter at least one reading.' });
 export type ReadingData = z.infer<typeof readingDataSchema>;
 
-const orUndefined = (v: number | null | undefined) => (v === null || v === undefined ? undefined : v);
 
 /** Runs one calculation; a calculation range error becomes a problem to show, anything else is a bug. */
 export function attempt<T>(problems: string[], fn: () => T): T | null {
@@ -83,7 +83,11 @@ export interface ReadingComputed {
   problems: string[];
 }
 
-export function computeReading(data: ReadingData, ctx: EntryContext): ReadingComputed {
+/**
+ * `prefs` words the calculation's messages (range problems, bases) in the reader's units; the values
+ * themselves are SI either way. Stored entries are computed without it (kPa gauge and °C).
+ */
+export function computeReading(data: ReadingData, ctx: EntryContext, prefs?: UnitPrefs): ReadingComputed {
   const problems: string[] = [];
   const bases = new Set<string>();
   const out: ReadingComputed = {
@@ -110,19 +114,23 @@ export function computeReading(data: ReadingData, ctx: EntryContext): ReadingCom
   if (hasPressure && !ctx.refrigerant) problems.push('No refrigerant is on record for this equipment’s system, so pressures cannot be turned into temperatures.');
   if (hasPressure && ctx.refrigerant) {
     // The discharge (head) pressure stands in for the liquid-line pressure when no liquid port is read.
+    // The inputs go in the reader's units so every message comes back in them; results read back as SI.
+    const units = prefs ? calcUnitsFor(prefs) : { pressureUnit: 'kPaG' as const, temperatureUnit: 'C' as const };
+    const p = (v: number | null | undefined) => (v == null ? undefined : prefs ? conversionFor('pressureGauge', prefs).fromSi(v) : v);
+    const t = (v: number | null | undefined) => (v == null ? undefined : prefs ? conversionFor('temperature', prefs).fromSi(v) : v);
     const r = attempt(problems, () =>
       computeReadings({
         refrigerant: ctx.refrigerant!,
-        pressureUnit: 'kPaG',
-        temperatureUnit: 'C',
+        pressureUnit: units.pressureUnit,
+        temperatureUnit: units.temperatureUnit,
         elevationM: ctx.elevationM,
-        suctionPressure: orUndefined(data.suctionKpaG),
-        headPressure: orUndefined(data.dischargeKpaG),
-        suctionLineTemp: orUndefined(data.suctionLineC),
-        liquidLineTemp: orUndefined(data.liquidLineC),
-        boxTemp: orUndefined(data.boxC),
-        ambientTemp: orUndefined(data.ambientC),
-        designBoxTemp: ctx.designBoxTempC ?? undefined,
+        suctionPressure: p(data.suctionKpaG),
+        headPressure: p(data.dischargeKpaG),
+        suctionLineTemp: t(data.suctionLineC),
+        liquidLineTemp: t(data.liquidLineC),
+        boxTemp: t(data.boxC),
+        ambientTemp: t(data.ambientC),
+        designBoxTemp: t(ctx.designBoxTempC),
       }),
     );
     if (r) {
@@ -200,7 +208,7 @@ const readingLabels: [ReadingKey, string, Quantity | 'V' | 'A'][] = [
 ];
 
 function shown(v: number, q: Quantity | 'V' | 'A', prefs: UnitPrefs): string {
-  if (q === 'V' || q === 'A') return `${v.toLocaleString('en-US', { maximumFractionDigits: 1 })} ${q}`;
+  if (q === 'V' || q === 'A') return formatElectrical(v, q);
   return formatQuantity(v, q, prefs);
 }
 
@@ -219,8 +227,8 @@ export const reading = defineKind({
       typeof c.subcoolingK === 'number' ? `subcooling ${formatQuantity(c.subcoolingK, 'temperatureDiff', prefs)}` : null,
       typeof c.evaporatorTdK === 'number' ? `evaporator TD ${formatQuantity(c.evaporatorTdK, 'temperatureDiff', prefs)}` : null,
       typeof c.condenserSplitK === 'number' ? `condenser split ${formatQuantity(c.condenserSplitK, 'temperatureDiff', prefs)}` : null,
-      typeof c.compressionRatio === 'number' ? `compression ratio ${c.compressionRatio.toFixed(2)}` : null,
-      typeof c.unbalancePct === 'number' ? `voltage unbalance ${c.unbalancePct.toFixed(2)} %` : null,
+      typeof c.compressionRatio === 'number' ? `compression ratio ${formatRatio(c.compressionRatio)}` : null,
+      typeof c.unbalancePct === 'number' ? `voltage unbalance ${formatPercent(c.unbalancePct)}` : null,
     ].filter(Boolean);
     return `Readings: ${parts.join(', ')}${derived.length ? `. Computed: ${derived.join(', ')}` : ''}.`;
   },

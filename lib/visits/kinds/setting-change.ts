@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
-import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
+import { controlWarningMessage, highPressureControl, lowPressureControl, type ControlWarningCode, type ControlWarningData } from '@/lib/calc/pressure-controls';
+import { calcUnitsFor, formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { kpaDiff, kpaG, tempC, tempDiffK } from '@/lib/visits/kinds/fields';
 import { attempt } from '@/lib/visits/kinds/reading';
 import { defineKind, type EntryContext, type UnitShape } from '@/lib/visits/kinds/types';
@@ -93,7 +93,8 @@ export interface SettingComputed extends SideComputed {
   refrigerant: string | null;
   /** A dual control: each side on its own (the top-level side values are the low side's). */
   sides?: { low: SideComputed; high: SideComputed };
-  warnings: { code: string; message: string }[];
+  /** `data` (SI, with the barometer) lets a page word a pressure-control warning in the reader's units. */
+  warnings: { code: string; message: string; data?: ControlWarningData }[];
   basis: string | null;
   problems: string[];
 }
@@ -122,7 +123,7 @@ function lowComputed(found: LowSettings, left: LowSettings, ctx: EntryContext, o
   side.asLeftOtherKpaG = l?.cutOut ?? left.cutInKpaG - left.differentialKpa;
   side.asFoundSaturation = { setting: f?.cutInSaturation?.dew ?? null, other: f?.cutOutSaturation?.dew ?? null };
   side.asLeftSaturation = { setting: l?.cutInSaturation?.dew ?? null, other: l?.cutOutSaturation?.dew ?? null };
-  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message })) ?? []));
+  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
   out.basis ??= l?.basis ?? null;
   return side;
 }
@@ -144,9 +145,14 @@ function highComputed(found: HighSettings, left: HighSettings, ctx: EntryContext
   side.asLeftOtherKpaG = l?.cutIn ?? left.cutOutKpaG - left.differentialKpa;
   side.asFoundSaturation = { setting: f?.cutOutSaturation?.bubble ?? null, other: f?.cutInSaturation?.bubble ?? null };
   side.asLeftSaturation = { setting: l?.cutOutSaturation?.bubble ?? null, other: l?.cutInSaturation?.bubble ?? null };
-  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message })) ?? []));
+  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
   out.basis ??= l?.basis ?? null;
   return side;
+}
+
+/** A stored warning in the reader's units (psig and °F for an imperial reader); its saved text when it has no data. */
+export function settingWarningText(w: SettingComputed['warnings'][number], prefs: UnitPrefs): string {
+  return w.data ? controlWarningMessage(w.code as ControlWarningCode, w.data, calcUnitsFor(prefs)) : w.message;
 }
 
 export function computeSettingChange(data: SettingChangeData, ctx: EntryContext): SettingComputed {

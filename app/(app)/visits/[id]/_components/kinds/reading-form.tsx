@@ -3,6 +3,9 @@
 import { useMemo, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { CERTIFIED_WORK_CAUTION, ENERGISED_WORK_CAUTION } from '@/lib/calc/cautions';
+import { gaugeSaturationC } from '@/lib/calc/saturation';
+import { gaugeBasis } from '@/lib/format/barometer';
+import { formatFactor, formatPercent, formatRatio } from '@/lib/format/numbers';
 import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { computeReading, type ReadingComputed, type ValueLevel } from '@/lib/visits/kinds/reading';
 import type { EntryContext } from '@/lib/visits/kinds/types';
@@ -83,28 +86,50 @@ function levelLook(judged: ValueLevel | undefined, show: (v: number) => string, 
   return { note: [note, `${word}${where ? ` · ${where}` : ''}`].filter(Boolean).join(' · '), tone: judged.level === 'normal' ? 'plain' : judged.level === 'watch' ? 'warning' : 'danger' };
 }
 
+const referenceWords: Record<string, string> = { midpoint: 'glide mid-point', dew: 'dew point', bubble: 'bubble point' };
+
+/** What the readings were taken with, for the notes beside saturation values (sea level, TD reference). */
+export interface RowContext {
+  data: ReadingData;
+  refrigerant: string | null;
+  elevationM: number;
+}
+
 /** Computed values as rows in the user's units; the same rounding the history and report use. */
-export function readingRows(c: ReadingComputed, prefs: UnitPrefs): ComputedRow[] {
+export function readingRows(c: ReadingComputed, prefs: UnitPrefs, at?: RowContext): ComputedRow[] {
   const rows: ComputedRow[] = [];
+  const temp = (v: number | null | undefined) => formatQuantity(v, 'temperature', prefs);
   const t = (key: keyof ReadingComputed, label: string, q: Quantity, note?: string) => {
     const v = c[key];
     if (typeof v !== 'number') return;
     const judged = c.levels?.[key as keyof NonNullable<ReadingComputed['levels']>];
     rows.push({ key, label, value: formatQuantity(v, q, prefs), ...levelLook(judged, (x) => formatQuantity(x, q, prefs), note) });
   };
-  t('evaporatingC', 'Evaporating (saturation, dew point)', 'temperature');
-  t('condensingC', 'Condensing (saturation, bubble point)', 'temperature');
-  t('superheatK', 'Superheat', 'temperatureDiff');
-  t('subcoolingK', 'Subcooling', 'temperatureDiff');
-  t('evaporatorTdK', 'Evaporator TD', 'temperatureDiff');
-  t('condenserSplitK', 'Condenser split', 'temperatureDiff');
-  if (c.compressionRatio !== null) rows.push({ key: 'compressionRatio', label: 'Compression ratio', value: c.compressionRatio.toFixed(2), ...levelLook(c.levels?.compressionRatio, (x) => x.toFixed(1)) });
+  // Away from sea level, the value a sea-level pocket chart gives for the same gauge reading.
+  const basis = at ? gaugeBasis(at.elevationM, prefs) : null;
+  const seaNote = (kpaG: number | null | undefined, curve: 'dew' | 'bubble') => {
+    if (!basis?.corrected || !at?.refrigerant || typeof kpaG !== 'number') return undefined;
+    const sea = gaugeSaturationC(at.refrigerant, kpaG, curve);
+    return sea === null ? undefined : `At sea level (pocket chart): ${temp(sea)}`;
+  };
+  // TD and split say which saturation temperature they were taken from, and show it.
+  const refNote = (what: string, reference: string | null | undefined, saturationC: number | null) =>
+    reference && saturationC !== null ? `${what} at the ${referenceWords[reference] ?? reference}, ${temp(saturationC)}` : undefined;
+  const box = at?.data.boxC;
+  const ambient = at?.data.ambientC;
+  t('evaporatingC', 'Evaporating (saturation, dew point)', 'temperature', seaNote(at?.data.suctionKpaG, 'dew'));
+  t('condensingC', 'Condensing (saturation, bubble point)', 'temperature', seaNote(at?.data.dischargeKpaG, 'bubble'));
+  t('superheatK', 'Superheat', 'temperatureDiff', c.superheatK !== null && c.evaporatingC !== null ? 'Suction line − evaporating (dew point) above' : undefined);
+  t('subcoolingK', 'Subcooling', 'temperatureDiff', c.subcoolingK !== null && c.condensingC !== null ? 'Condensing (bubble point) above − liquid line' : undefined);
+  t('evaporatorTdK', 'Evaporator TD', 'temperatureDiff', refNote('Box − evaporating', c.references?.evaporatorTd, typeof box === 'number' && c.evaporatorTdK !== null ? box - c.evaporatorTdK : null));
+  t('condenserSplitK', 'Condenser split', 'temperatureDiff', refNote('Condensing − ambient, condensing', c.references?.condenserSplit, typeof ambient === 'number' && c.condenserSplitK !== null ? ambient + c.condenserSplitK : null));
+  if (c.compressionRatio !== null) rows.push({ key: 'compressionRatio', label: 'Compression ratio', value: formatRatio(c.compressionRatio), ...levelLook(c.levels?.compressionRatio, formatRatio) });
   if (c.unbalancePct !== null) {
     rows.push({
       key: 'unbalancePct',
       label: 'Voltage unbalance',
-      value: `${c.unbalancePct.toFixed(2)} %`,
-      note: `${statusWords[c.unbalanceStatus ?? ''] ?? c.unbalanceStatus ?? ''}${c.deratingFactor !== null && c.deratingFactor < 1 ? ` · derating factor ${c.deratingFactor.toFixed(2)}` : ''}`,
+      value: formatPercent(c.unbalancePct),
+      note: `${statusWords[c.unbalanceStatus ?? ''] ?? c.unbalanceStatus ?? ''}${c.deratingFactor !== null && c.deratingFactor < 1 ? ` · derating factor ${formatFactor(c.deratingFactor)}` : ''}`,
       tone: c.doNotOperate ? 'danger' : c.unbalanceStatus === 'ok' ? 'plain' : 'warning',
     });
   }
@@ -148,12 +173,13 @@ export function ReadingForm({
     const only = (keys: readonly string[]) => Object.fromEntries(Object.entries(clean).filter(([k]) => keys.includes(k))) as ReadingData;
     // The whole set is what gets stored; each side alone names the bases and problems under its own panel.
     return {
-      computed: computeReading(clean, ctx),
-      refrigerantSide: computeReading(only(refrigerantKeys), ctx),
-      electricalSide: computeReading(only(electricalKeys), ctx),
+      computed: computeReading(clean, ctx, prefs),
+      refrigerantSide: computeReading(only(refrigerantKeys), ctx, prefs),
+      electricalSide: computeReading(only(electricalKeys), ctx, prefs),
     };
-  }, [data, ctx]);
-  const rows = readingRows(computed, prefs);
+  }, [data, ctx, prefs]);
+  const rows = readingRows(computed, prefs, { data, refrigerant: ctx.refrigerant, elevationM: ctx.elevationM });
+  const basis = gaugeBasis(ctx.elevationM, prefs);
 
   async function submit(e: FormEvent) {
     e.preventDefault();
@@ -181,7 +207,7 @@ export function ReadingForm({
         </Alert>
       ) : (
         <p className="text-sm text-slate-700">
-          Refrigerant <strong>{ctx.refrigerant}</strong>; gauge pressures read against the barometer at the site’s elevation ({Math.round(ctx.elevationM)} m).
+          Refrigerant <strong>{ctx.refrigerant}</strong>. <span data-testid="gauge-basis">{basis.text}</span>
         </p>
       )}
       {groups.map((g) => (

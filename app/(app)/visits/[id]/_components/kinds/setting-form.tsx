@@ -14,7 +14,10 @@ import {
   type SettingComputed,
   type SettingControl,
   type SideComputed,
+  settingWarningText,
 } from '@/lib/visits/kinds/setting-change';
+import { gaugeSaturationC } from '@/lib/calc/saturation';
+import { gaugeBasis } from '@/lib/format/barometer';
 import type { EntryContext, UnitShape } from '@/lib/visits/kinds/types';
 import { ChoiceCards, ComputedPanel, Cautions, FormActions, NumberInput, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
@@ -198,14 +201,19 @@ export function SettingForm({
       {fields('left', left, setLeft)}
       <ComputedPanel
         title={`${settingControlLabels[control]}: computed`}
-        rows={computed ? computedRows(control, computed, prefs) : []}
+        rows={computed ? computedRows(control, computed, prefs, data, ctx) : []}
         bases={computed?.basis ? [computed.basis] : []}
         problems={computed?.problems ?? []}
         empty={control === 'thermostat' ? 'A thermostat setting is checked against the system’s design box temperature.' : 'Fill in both sides to see the other setting and the saturation temperatures.'}
       />
+      {control !== 'thermostat' && ctx.refrigerant ? (
+        <p className="text-sm text-slate-700" data-testid="gauge-basis">
+          {gaugeBasis(ctx.elevationM, prefs).text}
+        </p>
+      ) : null}
       {computed?.warnings.map((w, i) => (
         <Alert key={`${w.code}-${i}`} tone="warning" title="Check this setting">
-          {w.message}
+          {settingWarningText(w, prefs)}
         </Alert>
       ))}
       <p className="text-sm text-slate-700">The unit’s current settings follow the as-left values when this is saved.</p>
@@ -219,19 +227,34 @@ export function SettingForm({
   );
 }
 
-function computedRows(control: SettingControl, computed: SettingComputed, prefs: UnitPrefs): ComputedRow[] {
+function computedRows(control: SettingControl, computed: SettingComputed, prefs: UnitPrefs, data: SettingChangeData, ctx: EntryContext): ComputedRow[] {
   if (control === 'thermostat') return [];
   const p = (v: number | null) => formatQuantity(v, 'pressureGauge', prefs);
   const t = (v: number | null) => formatQuantity(v, 'temperature', prefs);
+  const corrected = gaugeBasis(ctx.elevationM, prefs).corrected;
+  // Away from sea level, the value a sea-level pocket chart gives for the same gauge setting.
+  const sea = (kpaG: number | null | undefined, curve: 'dew' | 'bubble') => {
+    if (!corrected || !ctx.refrigerant || typeof kpaG !== 'number') return '';
+    const c = gaugeSaturationC(ctx.refrigerant, kpaG, curve);
+    return c === null ? '' : `; at sea level ${t(c)}`;
+  };
+  const asLeft = data.asLeft as Record<string, unknown>;
   const side = (s: 'low' | 'high', c: SideComputed): ComputedRow[] => {
     const shape = sideShapes[s];
     const point = s === 'low' ? 'dew' : 'bubble';
     const prefix = control === 'dual' ? `${shape.title}: ` : '';
     const key = (k: string) => (control === 'dual' ? `${s}-${k}` : k);
+    const left = (control === 'dual' ? asLeft[s] : asLeft) as Record<string, number | undefined> | undefined;
+    const seaSetting = sea(left?.[shape.setting.key], point);
     return [
-      { key: key('asFoundOther'), label: `${prefix}${shape.other} as found`, value: p(c.asFoundOtherKpaG), note: `Saturation (${point}) ${t(c.asFoundSaturation.other)}` },
-      { key: key('asLeftOther'), label: `${prefix}${shape.other} as left`, value: p(c.asLeftOtherKpaG), note: `Saturation (${point}) ${t(c.asLeftSaturation.other)}` },
-      { key: key('asLeftSetting'), label: `${prefix}${shape.setting.label} as left, saturation (${point})`, value: t(c.asLeftSaturation.setting) },
+      { key: key('asFoundOther'), label: `${prefix}${shape.other} as found`, value: p(c.asFoundOtherKpaG), note: `Saturation (${point}) ${t(c.asFoundSaturation.other)}${sea(c.asFoundOtherKpaG, point)}` },
+      { key: key('asLeftOther'), label: `${prefix}${shape.other} as left`, value: p(c.asLeftOtherKpaG), note: `Saturation (${point}) ${t(c.asLeftSaturation.other)}${sea(c.asLeftOtherKpaG, point)}` },
+      {
+        key: key('asLeftSetting'),
+        label: `${prefix}${shape.setting.label} as left, saturation (${point})`,
+        value: t(c.asLeftSaturation.setting),
+        ...(seaSetting ? { note: seaSetting.replace(/^; at/, 'At') } : {}),
+      },
     ];
   };
   if (control === 'dual' && computed.sides) return [...side('low', computed.sides.low), ...side('high', computed.sides.high)];

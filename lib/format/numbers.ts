@@ -1,0 +1,34 @@
+import { formatDecimal, MESSAGE_DECIMALS } from '@/lib/calc/format';
+
+// Plain numbers a person reads, at one precision per kind, shared with lib/calc's messages so a page,
+// a report and a calculation message show the same figure (never a raw float such as 208.33333333333334).
+
+/** A percentage: one decimal ("2.2 %"). */
+export function formatPercent(pct: number): string {
+  return `${formatDecimal(pct, MESSAGE_DECIMALS.percent)} %`;
+}
+
+/** A ratio such as a compression ratio: one decimal ("8.7"). */
+export function formatRatio(ratio: number): string {
+  return formatDecimal(ratio, MESSAGE_DECIMALS.ratio);
+}
+
+/** A multiplying factor such as a motor derating factor: two decimals ("0.95"). */
+export function formatFactor(factor: number): string {
+  return formatDecimal(factor, 2);
+}
+
+/** Volts or amps as read from a meter: one decimal ("208.3 V"). */
+export function formatElectrical(value: number, unit: 'V' | 'A'): string {
+  return `${formatDecimal(value, MESSAGE_DECIMALS.voltage)} ${unit}`;
+}
+
+/** A count with thousands separators ("1,204"). */
+export function formatCount(n: number): string {
+  return formatDecimal(n, 0);
+}
+
+/** Years to one decimal ("12.5 years"). */
+export function formatYears(years: number): string {
+  return `${formatDecimal(years, 1)} years`;
+}
