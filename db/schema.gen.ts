@@ -84,6 +84,7 @@ export interface Companies {
   id: Generated<string>;
   keep_photo_location: Generated<boolean>;
   label_line: string | null;
+  mail_visit_plans: Generated<boolean>;
   name: string;
   service_phone: string | null;
   updated_at: Generated<Timestamp>;
@@ -364,6 +365,35 @@ export interface Users {
   updated_at: Generated<Timestamp>;
 }
 
+export interface VisitPlanEquipment {
+  equipment_id: string;
+  plan_id: string;
+}
+
+export interface VisitPlans {
+  cancel_reason: string | null;
+  company_id: string;
+  created_at: Generated<Timestamp>;
+  created_by: string;
+  day: string;
+  id: Generated<string>;
+  note: string | null;
+  reason: string;
+  site_id: string;
+  status: Generated<string>;
+  technician_id: string;
+  updated_at: Generated<Timestamp>;
+  updated_by: string;
+  visit_id: string | null;
+  window_end: string;
+  window_start: string;
+}
+
+export interface VisitPlanSystems {
+  plan_id: string;
+  system_id: string;
+}
+
 export interface Visits {
   close_client_id: string | null;
   closed_by: string | null;
@@ -409,5 +439,8 @@ export interface DB {
   tags: Tags;
   user_sessions: UserSessions;
   users: Users;
+  visit_plan_equipment: VisitPlanEquipment;
+  visit_plan_systems: VisitPlanSystems;
+  visit_plans: VisitPlans;
   visits: Visits;
 }

@@ -55,6 +55,10 @@ export const permissions = {
   'reports.read': everyone,
   'overview.read': everyone,
   'due.read': officeUp,
+  // Planned visits: the office plans, moves and cancels; everyone reads within their scope
+  // (technicians their company's, owners their own sites').
+  'plans.read': everyone,
+  'plans.write': officeUp,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

@@ -1,11 +1,13 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { getRefrigerant } from '@/lib/calc/refrigerants';
+import { plannedCover } from '@/lib/plans/coverage';
+import type { VisitReason } from '@/lib/visits/terms';
 
 type Db = Kysely<DB> | Transaction<DB>;
 const DAY_MS = 86_400_000;
@@ -22,7 +24,15 @@ export interface DueItem {
   overdueDays: number;
   /** Why it is due: the interval and its basis. */
   basis: string;
+  /** A planned visit that covers it: then it counts as planned, not as due. */
+  planned: { planId: string; day: string; technicianName: string } | null;
 }
+
+/** The visit reasons whose visit does the work (the same reasons that count as done above). */
+const reasonsCovering: Record<DueItem['kind'], readonly VisitReason[]> = {
+  maintenance: ['maintenance'],
+  leak_inspection: ['leak_check', 'maintenance', 'inspection'],
+};
 
 /**
  * Periodic leak checks by charge in tonnes CO2-equivalent (charge × GWP), as in the EU F-gas
@@ -103,6 +113,7 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
       dueOn: due.toISOString().slice(0, 10),
       overdueDays: Math.max(0, -daysLeft),
       basis,
+      planned: null,
     });
   };
   for (const s of systems) {
@@ -116,6 +127,11 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
         push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP as EU 517/2014 counts it), per the F-gas rule table — confirm the rule that applies locally`);
       }
     }
+  }
+  const cover = await plannedCover(actor, [...new Set(items.map((i) => i.systemId))], db);
+  for (const item of items) {
+    const plan = cover.find((c) => c.systemId === item.systemId && reasonsCovering[item.kind].includes(c.reason));
+    if (plan) item.planned = { planId: plan.planId, day: plan.day, technicianName: plan.technicianName };
   }
   return items.sort((a, b) => b.overdueDays - a.overdueDays || a.dueOn.localeCompare(b.dueOn));
 }

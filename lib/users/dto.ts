@@ -31,4 +31,5 @@ export interface CompanyDto {
   labelLine: string | null;
   defaultUnits: 'imperial' | 'metric';
   keepPhotoLocation: boolean;
+  mailVisitPlans: boolean;
 }

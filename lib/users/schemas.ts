@@ -42,6 +42,8 @@ export const updateCompanySchema = z.object({
   labelLine: z.string().trim().max(60, 'Keep the label line to 60 characters so it fits small labels.').nullable().optional(),
   defaultUnits: z.enum(['imperial', 'metric']).optional(),
   keepPhotoLocation: z.boolean().optional(),
+  /** E-mail the client's contacts when a visit is planned, moved or cancelled. */
+  mailVisitPlans: z.boolean().optional(),
 });
 
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;

@@ -300,6 +300,7 @@ function toCompanyDto(row: {
   label_line: string | null;
   default_units: string;
   keep_photo_location: boolean;
+  mail_visit_plans: boolean;
 }): CompanyDto {
   return {
     id: row.id,
@@ -308,6 +309,7 @@ function toCompanyDto(row: {
     labelLine: row.label_line,
     defaultUnits: row.default_units as CompanyDto['defaultUnits'],
     keepPhotoLocation: row.keep_photo_location,
+    mailVisitPlans: row.mail_visit_plans,
   };
 }
 
@@ -328,6 +330,7 @@ export async function updateCompany(actor: Actor, input: UpdateCompanyInput, db:
         ...(input.labelLine !== undefined ? { label_line: input.labelLine || null } : {}),
         ...(input.defaultUnits !== undefined ? { default_units: input.defaultUnits } : {}),
         ...(input.keepPhotoLocation !== undefined ? { keep_photo_location: input.keepPhotoLocation } : {}),
+        ...(input.mailVisitPlans !== undefined ? { mail_visit_plans: input.mailVisitPlans } : {}),
         updated_at: sql`now()`,
       })
       .where('id', '=', actor.companyId)

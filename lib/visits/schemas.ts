@@ -67,6 +67,8 @@ export const startVisitSchema = z.object({
   siteId: z.uuid('Choose a site.'),
   reason: z.enum(VISIT_REASONS, { message: 'Choose the reason for the visit.' }),
   startedAt: dateTime.optional(),
+  /** The planned visit this one carries out (lib/plans); it is marked started with this visit. */
+  planId: z.uuid().optional(),
 });
 
 export const closeVisitSchema = z.object({

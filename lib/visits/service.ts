@@ -8,6 +8,7 @@ import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { AppError } from '@/lib/errors';
+import { linkPlanToVisit } from '@/lib/plans/service';
 import { getSite } from '@/lib/sites/service';
 import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
 import { entryQuery } from '@/lib/visits/queries';
@@ -164,6 +165,7 @@ export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysel
       })
       .returning('id')
       .executeTakeFirstOrThrow();
+    if (input.planId) await linkPlanToVisit(actor, input.planId, { id: row.id, siteId: input.siteId }, trx);
     const visit = await getVisitSummary(actor, row.id, trx);
     await recordAudit(trx, actor, { action: 'create', entityType: 'visit', entityId: row.id, after: visit });
     return visit;

@@ -21,7 +21,7 @@ export function CompanyForm({ company }: { company: CompanyDto }) {
   const [status, setStatus] = useState<{ tone: 'success' | 'danger'; text: string }>();
   const form = useForm<Values>({
     resolver: zodResolver(updateCompanySchema),
-    defaultValues: { name: company.name, servicePhone: company.servicePhone ?? '', labelLine: company.labelLine ?? '', defaultUnits: company.defaultUnits, keepPhotoLocation: company.keepPhotoLocation },
+    defaultValues: { name: company.name, servicePhone: company.servicePhone ?? '', labelLine: company.labelLine ?? '', defaultUnits: company.defaultUnits, keepPhotoLocation: company.keepPhotoLocation, mailVisitPlans: company.mailVisitPlans },
   });
   const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (values) => {
@@ -54,6 +54,10 @@ export function CompanyForm({ company }: { company: CompanyDto }) {
       <label className="flex min-h-11 items-center gap-2 text-sm font-medium">
         <input type="checkbox" className="size-5" {...form.register('keepPhotoLocation')} />
         Keep GPS location in stored photos (off by default: location is removed)
+      </label>
+      <label className="flex min-h-11 items-center gap-2 text-sm font-medium">
+        <input type="checkbox" className="size-5" {...form.register('mailVisitPlans')} />
+        E-mail the client&rsquo;s contacts when a visit is planned, moved or cancelled (contacts who receive visit reports)
       </label>
       <div>
         <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
