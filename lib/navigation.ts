@@ -19,7 +19,8 @@ export const navItems: NavItem[] = [
   { href: '/follow-ups', label: 'Follow-ups', icon: 'followUps', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/requests', label: 'Requests', icon: 'requests', roles: ['admin', 'office', 'client'] },
   { href: '/reports', label: 'Reports', icon: 'reports', roles: ['admin', 'office', 'technician', 'client'] },
-  { href: '/tools/pt-chart', label: 'P-T chart', icon: 'gauge', roles: ['admin', 'office', 'technician', 'client'] },
+  // A trade tool: owners do not read pressure–temperature tables, so it is not in their menu.
+  { href: '/tools/pt-chart', label: 'P-T chart', icon: 'gauge', roles: ['admin', 'office', 'technician'] },
   { href: '/tags', label: 'Tags', icon: 'tags', roles: ['admin', 'office'] },
   { href: '/clients', label: 'Clients', icon: 'clients', roles: ['admin', 'office'] },
   { href: '/settings', label: 'Settings', icon: 'settings', roles: ['admin', 'office', 'technician', 'client'] },

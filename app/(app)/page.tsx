@@ -15,6 +15,7 @@ import { listVisits } from '@/lib/visits/service';
 import { listFollowUps } from '@/lib/follow-ups/service';
 import { visitReasonLabels } from '@/lib/visits/schemas';
 import { listSites } from '@/lib/sites/service';
+import { getClient } from '@/lib/clients/service';
 import { AttentionList } from '@/components/overview/attention-list';
 import { OverviewCharts } from '@/components/overview/overview-charts';
 import { SiteSummaryCard } from '@/components/overview/site-summary-card';
@@ -47,10 +48,12 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
       ? [{ clients: 0, sites: 0, areas: 0, activeUsers: 0, openInvitations: 0 }, { items: [], nextCursor: null }]
       : await Promise.all([getHomeCounts(actor), listSites(actor, { limit: 8, archived: 'exclude' })]);
   const first = actor.name.split(' ')[0];
+  // An owner's home is their business's page: titled with the client's name, not a role.
+  const clientName = actor.role === 'client' && actor.clientId ? (await getClient(actor, actor.clientId)).name : null;
 
   return (
     <div className="space-y-6" data-home={actor.role}>
-      <PageHeader title={`Hello, ${first}`} subtitle={`${roleLabels[actor.role]} home`} />
+      {clientName ? <PageHeader title={clientName} subtitle={`Hello, ${first}`} /> : <PageHeader title={`Hello, ${first}`} subtitle={`${roleLabels[actor.role]} home`} />}
       {denied ? <Alert tone="warning" title="That page is not available to your role." /> : null}
 
       {actor.role === 'admin' ? (
@@ -93,7 +96,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
         <section aria-labelledby="sites-h" className="space-y-3">
           <div className="flex items-end justify-between">
             <h2 id="sites-h" className="text-lg font-semibold">Sites</h2>
-            <Link href="/sites" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">All sites</Link>
+            <Link href="/sites" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">All sites</Link>
           </div>
           <SiteList sites={sites.items} showClient empty="No sites yet." />
         </section>
@@ -129,8 +132,8 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
           <h2 id="attention-h" className="text-lg font-semibold">
             Needs attention
           </h2>
-          <Link href="/attention" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
-            How this is ranked · all
+          <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
+            How this list is ordered · all
           </Link>
         </div>
         <AttentionList units={attention.slice(0, 5)} />
@@ -159,14 +162,14 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
 async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
   const [attention, due, requests] = await Promise.all([needsAttention(actor), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
   return (
-    <div className="grid gap-6 lg:grid-cols-2">
+    <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
       <section aria-labelledby="office-attention-h" className="space-y-3">
         <div className="flex items-end justify-between">
           <h2 id="office-attention-h" className="text-lg font-semibold">
             Needs attention
           </h2>
-          <Link href="/attention" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
-            All, with the ranking rule
+          <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
+            All, and how they are ordered
           </Link>
         </div>
         <AttentionList units={attention.slice(0, 6)} />
@@ -177,8 +180,8 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
             <h2 id="requests-h" className="text-lg font-semibold">
               New service requests
             </h2>
-            <Link href="/requests" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
-              Queue
+            <Link href="/requests" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
+              All requests
             </Link>
           </div>
           {requests.length === 0 ? (

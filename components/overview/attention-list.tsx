@@ -1,7 +1,24 @@
-import { ArrowRight } from 'lucide-react';
+import { ArrowRight, Clock, Eye, Siren } from 'lucide-react';
 import Link from 'next/link';
 import { EmptyState } from '@/components/ui/card';
-import type { RankedUnit } from '@/lib/attention/rank';
+import { Pill } from '@/components/ui/pill';
+import { priorityLabels, type Priority, type RankedUnit } from '@/lib/attention/rank';
+
+// A word and an icon for each priority; the colour only repeats them.
+const priorityLook: Record<Priority, { Icon: typeof Siren; box: string }> = {
+  urgent: { Icon: Siren, box: 'border-red-300 bg-red-50 text-red-800' },
+  soon: { Icon: Clock, box: 'border-amber-300 bg-amber-50 text-amber-900' },
+  watch: { Icon: Eye, box: 'border-slate-300 bg-slate-50 text-slate-800' },
+};
+
+export function PriorityPill({ priority }: { priority: Priority }) {
+  const look = priorityLook[priority];
+  return (
+    <Pill Icon={look.Icon} box={look.box} srPrefix="Priority:" data-priority={priority}>
+      {priorityLabels[priority]}
+    </Pill>
+  );
+}
 
 /** The ranked units, each reason with a link to its evidence. */
 export function AttentionList({ units, showSite = true }: { units: RankedUnit[]; showSite?: boolean }) {
@@ -18,10 +35,7 @@ export function AttentionList({ units, showSite = true }: { units: RankedUnit[];
               </Link>
               {showSite ? <span className="block text-sm text-slate-600 sm:ml-2 sm:inline">{u.siteName}</span> : null}
             </div>
-            <span className="shrink-0 text-sm text-slate-700">
-              {u.score} <span className="sr-only">points</span>
-              <span aria-hidden>pts</span>
-            </span>
+            <PriorityPill priority={u.priority} />
           </div>
           <ul className="mt-1 space-y-1 text-sm">
             {u.reasons.map((r) => (

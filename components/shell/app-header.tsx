@@ -41,7 +41,7 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
             type="button"
             onClick={toggleContrast}
             aria-pressed={highContrast}
-            className="flex min-h-11 items-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
+            className="flex min-h-11 min-w-11 items-center justify-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
           >
             <Sun aria-hidden className="size-5" />
             <span className="hidden sm:inline">{highContrast ? 'Normal contrast' : 'Sunlight mode'}</span>
@@ -59,7 +59,7 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
               await signOutWipe().catch(() => undefined);
               await signOut({ callbackUrl: '/sign-in' });
             }}
-            className="flex min-h-11 items-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
+            className="flex min-h-11 min-w-11 items-center justify-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"
           >
             <LogOut aria-hidden className="size-5" />
             Sign out

@@ -1,11 +1,11 @@
 import { History, Printer, QrCode, ScanLine } from 'lucide-react';
 import Link from 'next/link';
 import { Card } from '@/components/ui/card';
+import { TagCode } from '@/components/tags/tag-code';
 import { TagStateBadge } from '@/components/tags/tag-state-badge';
 import { TagActions } from '@/components/tags/tag-actions';
 import { can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { formatCode } from '@/lib/tags/code';
 import { retireReasonLabels } from '@/lib/tags/schemas';
 import { getEquipmentTagInfo } from '@/lib/tags/service';
 
@@ -26,9 +26,7 @@ export async function EquipmentTagPanel({ equipmentId, actor, removed = false }:
       </h2>
       {info.current ? (
         <div className="mt-2 flex flex-wrap items-center gap-3">
-          <span className="font-mono text-2xl font-bold tracking-widest" data-testid="current-tag-code">
-            {info.current.displayCode}
-          </span>
+          <TagCode code={info.current.code} className="text-2xl font-bold tracking-widest" data-testid="current-tag-code" />
           <TagStateBadge state="attached" />
           {info.current.attachedAt ? (
             <span className="text-sm text-slate-600">
@@ -44,7 +42,7 @@ export async function EquipmentTagPanel({ equipmentId, actor, removed = false }:
         <ScanLine aria-hidden className="size-4" />
         {info.lastScan ? (
           <span>
-            Last scanned {when(info.lastScan.at, tz)} by {info.lastScan.byName} ({viaWords[info.lastScan.via]}, tag {formatCode(info.lastScan.code)}) ·{' '}
+            Last scanned {when(info.lastScan.at, tz)} by {info.lastScan.byName} ({viaWords[info.lastScan.via]}, tag <TagCode code={info.lastScan.code} className="font-normal" />) ·{' '}
             {info.scanCount} {info.scanCount === 1 ? 'scan' : 'scans'} in all
           </span>
         ) : (
@@ -59,11 +57,15 @@ export async function EquipmentTagPanel({ equipmentId, actor, removed = false }:
           <ul className="mt-1 space-y-1 text-sm text-slate-700">
             {info.previous.map((t) => (
               <li key={t.id} className="flex flex-wrap items-center gap-2">
-                <span className="font-mono font-semibold tracking-wider">{t.displayCode}</span>
+                <TagCode code={t.code} />
                 <TagStateBadge state={t.state} />
                 {t.retiredAt ? `${when(t.retiredAt, tz)}: ` : ''}
                 {t.retiredReason ? retireReasonLabels[t.retiredReason] : ''}
-                {t.replacedByCode ? ` by ${formatCode(t.replacedByCode)}` : ''}
+                {t.replacedByCode ? (
+                  <>
+                    {' '}by <TagCode code={t.replacedByCode} className="font-normal" />
+                  </>
+                ) : null}
               </li>
             ))}
           </ul>

@@ -6,7 +6,7 @@ import { cn } from '@/lib/utils';
 // Minimum 44 px targets (48 px "large") so gloved fingers hit them. Nothing to press on paper,
 // and a filled button prints as white text on white, so buttons are left out of print.
 export const buttonVariants = cva(
-  'inline-flex items-center justify-center gap-2 rounded-md font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60 print:hidden',
+  'inline-flex min-w-11 items-center justify-center gap-2 rounded-md font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60 print:hidden',
   {
     variants: {
       variant: {
@@ -15,7 +15,8 @@ export const buttonVariants = cva(
         danger: 'bg-red-700 text-white hover:bg-red-800',
         ghost: 'text-ice-900 hover:bg-ice-50',
       },
-      size: { md: 'min-h-11 px-4 text-sm', lg: 'min-h-12 px-5 text-base', sm: 'min-h-9 px-3 text-sm' },
+      // "sm" is a quieter button, never a smaller target: still 44 px tall.
+      size: { md: 'min-h-11 px-4 text-sm', lg: 'min-h-12 px-5 text-base', sm: 'min-h-11 px-3 text-sm' },
     },
     defaultVariants: { variant: 'primary', size: 'md' },
   },

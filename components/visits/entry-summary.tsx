@@ -57,13 +57,13 @@ export function LeakRateNotice({ computed }: { computed: Record<string, unknown>
         ) : (
           <p>Above the threshold for this application; no regime covers this appliance on this date, so no legal deadline is set.</p>
         )}
-        {leak.basis ? <p className="mt-1 text-xs">Basis: {leak.basis}</p> : null}
+        {leak.basis ? <p className="mt-1 text-xs">How this is worked out: {leak.basis}</p> : null}
       </Alert>
     );
   }
   return (
     <Alert tone="info" title={`Leak rate ${rate}: within the ${leak.thresholdPct} % threshold`} className="mt-2">
-      {leak.basis ? <p className="text-xs">Basis: {leak.basis}</p> : null}
+      {leak.basis ? <p className="text-xs">How this is worked out: {leak.basis}</p> : null}
     </Alert>
   );
 }

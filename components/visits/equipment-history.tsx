@@ -176,7 +176,7 @@ export function EquipmentHistory({
                       <div className={cn('text-sm', e.voidedAt && 'text-slate-600 line-through')}>
                         <EntrySummary entry={e} prefs={prefs} />
                       </div>
-                      {e.voidedAt ? <p className="mt-1 text-sm font-semibold text-slate-800">Voided: {e.voidReason}</p> : null}
+                      {e.voidedAt ? <p className="mt-1 text-sm font-semibold text-slate-800">Struck out (kept on record): {e.voidReason}</p> : null}
                     </article>
                   </li>
                 ))}

@@ -1,5 +1,6 @@
 // Which units need attention, and why. Pure: the service gathers the signals, this ranks them.
-// The rule is ours and is shown on the page in plain words (rankingRule below).
+// The rule is ours and is shown on the page in plain words (priorityRule below): a priority word
+// (urgent, soon, watch) per unit; the internal points only order units within one priority.
 
 export type Signal =
   | { kind: 'open_safety_finding'; followUpId: string; title: string; since: string }
@@ -28,20 +29,54 @@ export interface UnitSignals {
   signals: Signal[];
 }
 
+/** What an owner reads instead of a number: how soon the unit needs someone. */
+export type Priority = 'urgent' | 'soon' | 'watch';
+export const PRIORITIES: readonly Priority[] = ['urgent', 'soon', 'watch'];
+export const priorityLabels: Record<Priority, string> = { urgent: 'Urgent', soon: 'Soon', watch: 'Watch' };
+
 export interface RankedUnit extends UnitSignals {
+  priority: Priority;
+  /** Orders units within one priority (more, and more serious, problems first); never shown. */
   score: number;
   reasons: { text: string; kind: Signal['kind']; href: string | null }[];
 }
 
-export const rankingRule = [
-  'Each unit gets points for what is wrong with it, and the list is sorted by points, highest first:',
-  'an open safety finding 100; a refrigerant addition over the legal leak-rate threshold in the last 12 months 80,',
-  'or 40 once the repair is recorded, until its initial and follow-up verification tests have passed (then nothing);',
-  'two or more no-cooling visits within 90 days 60, plus 10 for each further one;',
-  'condition worse at the last rating than at the one before 20 per step down;',
-  'past its expected service life 15, plus 2 per year past it (at most 40).',
-  'Ties go to the unit whose problem has waited longest.',
-].join(' ');
+/** The ordering rule in words, one line per priority and one for the order within a priority. */
+export const priorityRule: readonly { priority: Priority | null; text: string }[] = [
+  {
+    priority: 'urgent',
+    text: 'an open safety finding, or a refrigerant addition over the legal leak-rate threshold in the last 12 months with no repair recorded yet (or whose verification test failed).',
+  },
+  {
+    priority: 'soon',
+    text: 'two or more no-cooling visits within 90 days, or a leak repaired whose initial and follow-up verification tests have not both passed yet.',
+  },
+  { priority: 'watch', text: 'condition worse at the last rating than at the one before, or past its expected service life.' },
+  {
+    priority: null,
+    text: 'A unit takes the highest priority among its reasons. Within a priority, a unit with more reasons, or a more serious one, comes first (a safety finding before a leak, a bigger drop in condition before a smaller one, longer past its expected life before newer); then the one whose problem has waited longest. A leak whose repair and verification tests are done drops off the list.',
+  },
+];
+
+export const rankingRule = priorityRule.map((l) => (l.priority ? `${priorityLabels[l.priority]}: ${l.text}` : l.text)).join(' ');
+
+export function signalPriority(s: Signal): Priority {
+  switch (s.kind) {
+    case 'open_safety_finding':
+      return 'urgent';
+    case 'leak_over_threshold':
+      return s.repairedOn && !s.verificationFailed ? 'soon' : 'urgent';
+    case 'repeat_no_cooling':
+      return 'soon';
+    case 'condition_worsening':
+    case 'past_expected_life':
+      return 'watch';
+  }
+}
+
+function unitPriority(signals: Signal[]): Priority {
+  return PRIORITIES.find((p) => signals.some((s) => signalPriority(s) === p)) ?? 'watch';
+}
 
 export function scoreSignal(s: Signal): number {
   switch (s.kind) {
@@ -92,8 +127,9 @@ export function rankUnits(units: UnitSignals[]): RankedUnit[] {
     .filter((u) => u.signals.length > 0)
     .map((u) => ({
       ...u,
+      priority: unitPriority(u.signals),
       score: u.signals.reduce((sum, s) => sum + scoreSignal(s), 0),
       reasons: [...u.signals].sort((a, b) => scoreSignal(b) - scoreSignal(a)).map((s) => ({ kind: s.kind, ...describeSignal(s) })),
     }))
-    .sort((a, b) => b.score - a.score || oldest(a).localeCompare(oldest(b)) || a.equipmentName.localeCompare(b.equipmentName));
+    .sort((a, b) => PRIORITIES.indexOf(a.priority) - PRIORITIES.indexOf(b.priority) || b.score - a.score || oldest(a).localeCompare(oldest(b)) || a.equipmentName.localeCompare(b.equipmentName));
 }

@@ -7,7 +7,7 @@ export const roleLabels: Record<Role, string> = {
   admin: 'Admin',
   office: 'Office',
   technician: 'Technician',
-  client: 'Owner (client user)',
+  client: 'Owner',
 };
 
 const staff: Role[] = ['admin', 'office', 'technician'];

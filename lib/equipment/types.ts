@@ -38,10 +38,14 @@ export const conditionLabels: Record<Condition, string> = {
 
 export const RELATION_KINDS = ['controls', 'serves'] as const;
 export type RelationKind = (typeof RELATION_KINDS)[number];
-/** How a relation reads from each end: "controls" ↔ "controlled by". */
+/**
+ * How a relation reads from each end, in the words a technician uses: a control is wired to what
+ * it switches (which is switched by it); a condensing unit feeds its evaporators (fed by it).
+ * The stored kinds keep their names.
+ */
 export const relationPhrases: Record<RelationKind, { forward: string; backward: string }> = {
-  controls: { forward: 'Controls', backward: 'Controlled by' },
-  serves: { forward: 'Serves', backward: 'Served by' },
+  controls: { forward: 'Wired to', backward: 'Switched by' },
+  serves: { forward: 'Feeds', backward: 'Fed by' },
 };
 
 export const APPLICATIONS = ['commercial_refrigeration', 'industrial_process', 'comfort_cooling'] as const;

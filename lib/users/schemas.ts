@@ -13,14 +13,14 @@ export const inviteUserSchema = z
     clientId: z.uuid().nullable().optional(),
   })
   .refine((v) => (v.role === 'client') === Boolean(v.clientId), {
-    message: 'An owner (client user) must belong to exactly one client; other roles belong to none.',
+    message: 'An owner must belong to exactly one client; other roles belong to none.',
     path: ['clientId'],
   });
 
 export const changeRoleSchema = z
   .object({ role: z.enum(roles), clientId: z.uuid().nullable().optional() })
   .refine((v) => (v.role === 'client') === Boolean(v.clientId), {
-    message: 'An owner (client user) must belong to exactly one client; other roles belong to none.',
+    message: 'An owner must belong to exactly one client; other roles belong to none.',
     path: ['clientId'],
   });
 

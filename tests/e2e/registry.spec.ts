@@ -25,13 +25,13 @@ async function register(page: Page, systemUrl: string, type: string, name: strin
 
 async function relate(page: Page, fromId: string, way: 'controls' | 'serves', otherId: string): Promise<void> {
   await page.goto(`/equipment/${fromId}`);
-  // The relation editor opens only when asked for.
-  await page.getByText('Change relations').click();
+  // The connection editor opens only when asked for.
+  await page.getByText('Change connections').click();
   await page.getByLabel('This equipment').selectOption(`${way}:from`);
   const other = page.getByLabel('Other equipment on this site');
   await expect(other).toBeEnabled();
   await other.selectOption(otherId);
-  await page.getByRole('button', { name: 'Add relation' }).click();
+  await page.getByRole('button', { name: 'Add connection' }).click();
 }
 
 /** Edit and Delete sit in a disclosure below the history, so they are never tapped by accident. */
@@ -40,7 +40,7 @@ async function openMore(page: Page): Promise<void> {
 }
 
 function relation(page: Page, phrase: string, name: string) {
-  return page.getByRole('list', { name: 'Relations' }).getByRole('listitem').filter({ hasText: `${phrase}: ${name}` });
+  return page.getByRole('list', { name: 'Connected equipment' }).getByRole('listitem').filter({ hasText: `${phrase}: ${name}` });
 }
 
 test('the office registers a system with related equipment and finds the unit by part of its serial', async ({ page }) => {
@@ -107,24 +107,24 @@ test('the office registers a system with related equipment and finds the unit by
   });
 
   await relate(page, thermostat, 'controls', solenoid);
-  await expect(relation(page, 'Controls', 'Liquid-line solenoid')).toBeVisible();
+  await expect(relation(page, 'Wired to', 'Liquid-line solenoid')).toBeVisible();
   await relate(page, cu, 'serves', evap1);
-  await expect(relation(page, 'Serves', 'Evaporator 1')).toBeVisible();
+  await expect(relation(page, 'Feeds', 'Evaporator 1')).toBeVisible();
   await page.getByLabel('Other equipment on this site').selectOption(evap2);
-  await page.getByRole('button', { name: 'Add relation' }).click();
-  await expect(relation(page, 'Serves', 'Evaporator 2')).toBeVisible();
+  await page.getByRole('button', { name: 'Add connection' }).click();
+  await expect(relation(page, 'Feeds', 'Evaporator 2')).toBeVisible();
   await relate(page, control, 'controls', cu);
-  await expect(relation(page, 'Controls', 'Condensing unit')).toBeVisible();
+  await expect(relation(page, 'Wired to', 'Condensing unit')).toBeVisible();
 
   // The other ends.
   await page.goto(`/equipment/${solenoid}`);
-  await expect(relation(page, 'Controlled by', 'Box thermostat')).toBeVisible();
+  await expect(relation(page, 'Switched by', 'Box thermostat')).toBeVisible();
   await page.goto(`/equipment/${evap2}`);
-  await expect(relation(page, 'Served by', 'Condensing unit')).toBeVisible();
+  await expect(relation(page, 'Fed by', 'Condensing unit')).toBeVisible();
   await page.goto(`/equipment/${cu}`);
-  await expect(relation(page, 'Controlled by', 'Dual pressure control')).toBeVisible();
-  await expect(relation(page, 'Serves', 'Evaporator 1')).toBeVisible();
-  await expect(relation(page, 'Serves', 'Evaporator 2')).toBeVisible();
+  await expect(relation(page, 'Switched by', 'Dual pressure control')).toBeVisible();
+  await expect(relation(page, 'Feeds', 'Evaporator 1')).toBeVisible();
+  await expect(relation(page, 'Feeds', 'Evaporator 2')).toBeVisible();
   await expect(page.getByText(serial)).toBeVisible();
   // A new unit has no history yet, and the page says so rather than showing an empty box.
   await expect(page.getByRole('heading', { name: 'History', exact: true })).toBeVisible();
@@ -228,7 +228,7 @@ test('an owner reads their equipment but cannot change it', async ({ page }) => 
   await expect(page.getByText('Fair')).toBeVisible();
   await expect(page.getByRole('link', { name: 'Edit' })).toHaveCount(0);
   await expect(page.getByRole('button', { name: 'Delete' })).toHaveCount(0);
-  await expect(page.getByRole('button', { name: 'Add relation' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Add connection' })).toHaveCount(0);
   await page.goto(`/sites/${siteId}`);
   await expect(page.getByRole('link', { name: /Freezer thermostat/ })).toBeVisible();
   await expect(page.getByRole('link', { name: 'Register equipment' })).toHaveCount(0);

@@ -54,7 +54,7 @@ test('the office prints blank tags; a technician claims one on site; the run cou
   // What the QR symbol holds: the upper-case URL.
   await tech.goto(`/T/${code}`);
   await expect(tech).toHaveURL(new RegExp(`/scan/${code}$`));
-  await expect(tech.getByRole('heading', { name: `Claim tag ${formatCode(code)}` })).toBeVisible();
+  await expect(tech.getByRole('heading', { name: `Attach tag ${formatCode(code)}` })).toBeVisible();
   await tech.getByLabel('Find equipment').fill('claim test');
   await tech.getByRole('radio', { name: new RegExp(unitName) }).check();
   await shot(tech, 'tags-claim-flow');

@@ -212,7 +212,7 @@ test('a removed unit is shown apart with its removal date and replacement, and i
 
   // Pickers for new things: the relation editor and an owner's service request.
   await page.goto(`/equipment/${current.id}`);
-  await page.getByText('Change relations').click();
+  await page.getByText('Change connections').click();
   const other = page.getByLabel('Other equipment on this site');
   await expect(other).toBeEnabled();
   await expect(other.locator(`option[value="${current.id}"]`)).toHaveCount(0);

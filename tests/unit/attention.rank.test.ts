@@ -1,6 +1,6 @@
 // The needs-attention ranking on a crafted set of units: the order follows the written rule.
 import { describe, expect, it } from 'vitest';
-import { rankUnits, rankingRule, scoreSignal, type UnitSignals } from '@/lib/attention/rank';
+import { priorityLabels, priorityRule, rankUnits, rankingRule, scoreSignal, signalPriority, type Signal, type UnitSignals } from '@/lib/attention/rank';
 
 const unit = (name: string, signals: UnitSignals['signals']): UnitSignals => ({
   equipmentId: `id-${name}`,
@@ -12,7 +12,7 @@ const unit = (name: string, signals: UnitSignals['signals']): UnitSignals => ({
 });
 
 describe('needs-attention ranking', () => {
-  it('ranks by the points the rule states, and drops units with nothing wrong', () => {
+  it('ranks urgent, then soon, then watch, by the rule in words; points only order units within a priority', () => {
     const ranked = rankUnits([
       unit('Old fan', [{ kind: 'past_expected_life', ageYears: 21.5, medianYears: 18 }]),
       unit('Leaking rack', [{ kind: 'leak_over_threshold', visitId: 'v1', ratePct: 36.5, thresholdPct: 20, repairDueDate: '2026-12-01', on: '2026-11-01' }]),
@@ -22,15 +22,42 @@ describe('needs-attention ranking', () => {
         { kind: 'condition_worsening', from: 4, to: 2, visitId: 'c' },
       ]),
       unit('Frayed wiring', [{ kind: 'open_safety_finding', followUpId: 'f1', title: 'Exposed conductor at disconnect', since: '2026-10-01' }]),
+      unit('Worn box', [{ kind: 'condition_worsening', from: 5, to: 1, visitId: 'd' }]),
     ]);
-    expect(ranked.map((u) => [u.equipmentName, u.score])).toEqual([
-      ['Hot box', 70 + 40],
-      ['Frayed wiring', 100],
-      ['Leaking rack', 80],
-      ['Old fan', 15 + 2 * 3],
+    // Hot box has more points (70 + 40) than Frayed wiring (100), but a safety finding is urgent and
+    // repeat no-cooling calls are "soon"; Worn box (80 points) is still only "watch".
+    expect(ranked.map((u) => [u.equipmentName, u.priority])).toEqual([
+      ['Frayed wiring', 'urgent'],
+      ['Leaking rack', 'urgent'],
+      ['Hot box', 'soon'],
+      ['Worn box', 'watch'],
+      ['Old fan', 'watch'],
     ]);
-    expect(ranked[0]!.reasons.map((r) => r.text)).toEqual(['3 no-cooling visits in the last 90 days', 'Condition fell from 4 to 2 (of 5)']);
-    expect(ranked[2]!.reasons[0]!.href).toBe('/visits/v1');
+    expect(ranked.find((u) => u.equipmentName === 'Hot box')!.reasons.map((r) => r.text)).toEqual(['3 no-cooling visits in the last 90 days', 'Condition fell from 4 to 2 (of 5)']);
+    expect(ranked[1]!.reasons[0]!.href).toBe('/visits/v1');
+  });
+
+  it('gives each signal the priority its line of the rule names', () => {
+    const leak: Signal = { kind: 'leak_over_threshold', visitId: 'v', ratePct: 30, thresholdPct: 20, repairDueDate: null, on: '2026-11-01' };
+    const cases: [Signal, string][] = [
+      [{ kind: 'open_safety_finding', followUpId: 'f', title: 't', since: '2026-01-01' }, 'urgent'],
+      [leak, 'urgent'],
+      [{ ...leak, repairedOn: '2026-11-05' }, 'soon'],
+      [{ ...leak, repairedOn: '2026-11-05', verificationFailed: true }, 'urgent'],
+      [{ kind: 'repeat_no_cooling', visitIds: ['a', 'b'] }, 'soon'],
+      [{ kind: 'condition_worsening', from: 3, to: 2, visitId: 'v' }, 'watch'],
+      [{ kind: 'past_expected_life', ageYears: 30, medianYears: 15 }, 'watch'],
+    ];
+    for (const [signal, priority] of cases) expect([signal.kind, signalPriority(signal)]).toEqual([signal.kind, priority]);
+    // A unit takes its highest priority, however many lesser reasons it has.
+    const mixed = rankUnits([
+      unit('Mixed', [
+        { kind: 'past_expected_life', ageYears: 40, medianYears: 15 },
+        { kind: 'condition_worsening', from: 5, to: 1, visitId: 'x' },
+        { ...leak, repairedOn: '2026-11-05' },
+      ]),
+    ]);
+    expect(mixed[0]!.priority).toBe('soon');
   });
 
   it('caps the age points and breaks ties by the longest-waiting problem', () => {
@@ -42,7 +69,13 @@ describe('needs-attention ranking', () => {
     expect(ranked.map((u) => u.equipmentName)).toEqual(['Older finding', 'Newer finding']);
   });
 
-  it('states the rule in plain words with the same numbers', () => {
-    for (const n of ['100', '80', '60', '20', '15', '40']) expect(rankingRule).toContain(n);
+  it('states the rule in words: each priority once, in order, and no points', () => {
+    expect(priorityRule.filter((l) => l.priority).map((l) => l.priority)).toEqual(['urgent', 'soon', 'watch']);
+    expect(rankingRule).toContain(`${priorityLabels.urgent}: an open safety finding`);
+    expect(rankingRule).toContain(`${priorityLabels.soon}: two or more no-cooling visits`);
+    expect(rankingRule).toContain(`${priorityLabels.watch}: condition worse`);
+    expect(rankingRule).not.toMatch(/points?\b|\bpts\b/i);
+    // The only numbers are the ones a person can check: the 12 months and the 90 days.
+    expect(rankingRule.match(/\d+/g)).toEqual(['12', '90']);
   });
 });

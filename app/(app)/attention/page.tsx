@@ -4,7 +4,7 @@ import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { needsAttention } from '@/lib/attention/service';
-import { rankingRule } from '@/lib/attention/rank';
+import { priorityLabels, priorityRule } from '@/lib/attention/rank';
 import { orNotFound } from '@/lib/api/page';
 import { getSite } from '@/lib/sites/service';
 
@@ -22,10 +22,17 @@ export default async function AttentionPage({ searchParams }: { searchParams: Pr
   const more = new URLSearchParams({ ...(site ? { siteId: site.id } : {}), show: String(shown + STEP) });
   return (
     <div className="space-y-4">
-      <PageHeader title="Needs attention" subtitle={site ? site.name : 'Every unit you can see, most urgent first'} />
+      <PageHeader title="Needs attention" subtitle={site ? site.name : 'Every unit you can see, urgent first, then soon, then watch'} />
       <Card className="text-sm">
-        <h2 className="font-semibold">How this list is ranked</h2>
-        <p className="mt-1 text-slate-700">{rankingRule}</p>
+        <h2 className="font-semibold">How this list is ordered</h2>
+        <ul className="mt-1 space-y-1 text-slate-700" data-testid="priority-rule">
+          {priorityRule.map((line) => (
+            <li key={line.priority ?? 'order'}>
+              {line.priority ? <span className="font-semibold text-slate-900">{priorityLabels[line.priority]}: </span> : null}
+              {line.text}
+            </li>
+          ))}
+        </ul>
       </Card>
       {units.length > 0 ? (
         <p className="text-sm text-slate-700" role="status">

@@ -4,14 +4,11 @@ import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
+import { formatStamp } from '@/lib/format/dates';
 import { listPrintRunsQuerySchema } from '@/lib/tags/schemas';
 import { listLayouts, listPrintRuns } from '@/lib/tags/service';
 
 export const metadata: Metadata = { title: 'Tags' };
-
-function when(iso: string): string {
-  return new Date(iso).toLocaleString('en-US', { year: 'numeric', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZone: 'UTC', timeZoneName: 'short' });
-}
 
 export default async function TagsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const actor = await requirePageActor('/tags', 'tags.print');
@@ -21,7 +18,7 @@ export default async function TagsPage({ searchParams }: { searchParams: Promise
     <>
       <PageHeader
         title="Tags"
-        subtitle="Print runs of QR tags: for registered equipment, or blank tags to claim on site."
+        subtitle="Print runs of QR tags: for registered equipment, or blank tags to attach on site."
         actions={
           <ButtonLink href="/tags/new" size="lg">
             <Printer aria-hidden className="size-5" /> New print run
@@ -42,7 +39,7 @@ export default async function TagsPage({ searchParams }: { searchParams: Promise
                     {r.siteName ? ` · ${r.siteName}` : ' · several sites'}
                   </span>
                   <span className="block text-sm text-slate-600">
-                    {r.claimedCount} of {r.labelCount} claimed · {r.layoutName} · {when(r.createdAt)}
+                    {r.claimedCount} of {r.labelCount} attached on site · {r.layoutName} · {formatStamp(r.createdAt, r.siteTimeZone ?? 'UTC')}
                     {r.createdByName ? ` · ${r.createdByName}` : ''}
                   </span>
                 </span>

@@ -4,9 +4,10 @@ import { notFound, redirect } from 'next/navigation';
 import { ButtonLink } from '@/components/ui/button';
 import { getActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
-import { codeFromPathSegment, formatCode } from '@/lib/tags/code';
+import { codeFromPathSegment } from '@/lib/tags/code';
 import { SCAN_VIA, type ScanVia } from '@/lib/tags/schemas';
 import { isRegisteredCode, resolveTag } from '@/lib/tags/service';
+import { TagCode } from '@/components/tags/tag-code';
 
 // The short route a tag's QR symbol holds: /T/<CODE> in upper case (QR alphanumeric mode; see
 // lib/tags/qr.ts). The code itself is read case-insensitively; /tag/<code> is a lower-case alias.
@@ -55,7 +56,7 @@ function SignedOutTag({ code }: { code: string }) {
             This unit is registered
           </h1>
           <p className="text-slate-700">
-            Tag <span className="font-mono text-lg font-bold tracking-wider">{formatCode(code)}</span> belongs to equipment serviced through Rimeline.
+            Tag <TagCode code={code} className="text-lg font-bold" /> belongs to equipment serviced through Rimeline.
             Service staff and the owner can sign in to see it.
           </p>
           <ButtonLink href={`/sign-in?callbackUrl=${encodeURIComponent(`/T/${code}`)}`} size="lg" className="min-h-14 w-full text-lg">

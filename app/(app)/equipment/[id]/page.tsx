@@ -124,7 +124,7 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
 
         <section aria-labelledby="relations-h" className="space-y-3">
           <h2 id="relations-h" className="text-lg font-semibold">
-            Related equipment
+            Connected equipment
           </h2>
           <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={canWrite && equipment.status !== 'removed'} />
         </section>

@@ -15,6 +15,7 @@ import { retireReasonLabels } from '@/lib/tags/schemas';
 import { resolveTag, siteTagCodes } from '@/lib/tags/service';
 import { ClaimFlow } from '@/app/(app)/scan/[code]/_components/claim-flow';
 import { formatDay } from '@/lib/format/dates';
+import { TagCode } from '@/components/tags/tag-code';
 
 export const metadata: Metadata = { title: 'Tag' };
 
@@ -51,7 +52,7 @@ export default async function TagStatePage({ params }: { params: Promise<{ code:
                 It was on <strong>{resolution.equipment.name}</strong>
                 {resolution.currentCode ? (
                   <>
-                    , which now carries tag <span className="font-mono font-bold tracking-wider">{formatCode(resolution.currentCode)}</span>.
+                    , which now carries tag <TagCode code={resolution.currentCode} className="font-bold" />.
                   </>
                 ) : (
                   ', which has no tag at the moment.'
@@ -93,7 +94,7 @@ export default async function TagStatePage({ params }: { params: Promise<{ code:
   return (
     <>
       <PageHeader
-        title={`Claim tag ${display}`}
+        title={`Attach tag ${display}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
             <TagStateBadge state="blank" /> Printed for {tag.siteName}. Choose the unit it goes on.

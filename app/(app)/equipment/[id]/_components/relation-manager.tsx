@@ -18,12 +18,12 @@ import { createRelationSchema, type CreateRelationInput } from '@/lib/equipment/
 import { equipmentTypeLabels, relationPhrases, type RelationKind } from '@/lib/equipment/types';
 
 // One choice covers both the kind and which end this equipment is, read as a sentence:
-// "This equipment controls …" / "This equipment is controlled by …".
+// "This equipment is wired to …" / "This equipment is switched by …".
 const ways: { value: string; kind: RelationKind; direction: 'from' | 'to'; text: string }[] = [
-  { value: 'controls:from', kind: 'controls', direction: 'from', text: 'controls' },
-  { value: 'controls:to', kind: 'controls', direction: 'to', text: 'is controlled by' },
-  { value: 'serves:from', kind: 'serves', direction: 'from', text: 'serves' },
-  { value: 'serves:to', kind: 'serves', direction: 'to', text: 'is served by' },
+  { value: 'controls:from', kind: 'controls', direction: 'from', text: 'is wired to (switches)' },
+  { value: 'controls:to', kind: 'controls', direction: 'to', text: 'is switched by' },
+  { value: 'serves:from', kind: 'serves', direction: 'from', text: 'feeds' },
+  { value: 'serves:to', kind: 'serves', direction: 'to', text: 'is fed by' },
 ];
 
 interface RelationFormValues {
@@ -54,11 +54,11 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
   return (
     <div className="space-y-3">
       {relations.length === 0 ? (
-        <EmptyState title="Not related to other equipment yet.">
-          Relations say what controls or serves what, e.g. a thermostat controls a liquid-line solenoid; a condensing unit serves its evaporators.
+        <EmptyState title="Not connected to other equipment yet.">
+          Say what is wired to what and what feeds what, e.g. a thermostat is wired to a liquid-line solenoid; a condensing unit feeds its evaporators.
         </EmptyState>
       ) : (
-        <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white" aria-label="Relations">
+        <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white" aria-label="Connected equipment">
           {relations.map((r) => (
             <li key={r.id} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2">
               <EquipmentTypeIcon type={r.other.type} />
@@ -73,7 +73,7 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
                 <Button
                   variant="ghost"
                   size="md"
-                  aria-label={`Remove relation: ${phrase(r)} ${r.other.name}`}
+                  aria-label={`Remove connection: ${phrase(r)} ${r.other.name}`}
                   disabled={remove.isPending}
                   onClick={async () => {
                     setRemoveError(undefined);
@@ -81,7 +81,7 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
                       await remove.mutateAsync(r.id);
                       setRelations((rs) => rs.filter((x) => x.id !== r.id));
                     } catch (e) {
-                      setRemoveError(e instanceof ApiError ? e.message : 'The relation was not removed. Try again.');
+                      setRemoveError(e instanceof ApiError ? e.message : 'The connection was not removed. Try again.');
                     }
                   }}
                 >
@@ -95,7 +95,7 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
       {removeError ? <Alert tone="danger" title={removeError} /> : null}
       {canWrite ? (
         <details className="rounded-lg border border-slate-200 bg-white" onToggle={(e) => setEditing(e.currentTarget.open)}>
-          <summary className="flex min-h-11 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">Change relations</summary>
+          <summary className="flex min-h-11 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">Change connections</summary>
           <div className="border-t border-slate-200">
             <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} />
           </div>
@@ -123,7 +123,7 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
     } catch (error) {
       setBanner(
         error instanceof ApiError && error.code === 'conflict'
-          ? 'These two are already related that way.'
+          ? 'These two are already connected that way.'
           : applyServerErrors(error, form.setError, ['otherId']),
       );
     }
@@ -131,7 +131,7 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-3 p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end lg:grid-cols-1 xl:grid-cols-[minmax(0,12rem)_minmax(0,1fr)] xl:[&>button]:col-span-2">
-      <h3 className="text-base font-semibold sm:col-span-3 lg:col-span-1 xl:col-span-2">Add a relation</h3>
+      <h3 className="text-base font-semibold sm:col-span-3 lg:col-span-1 xl:col-span-2">Add a connection</h3>
       {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3 lg:col-span-1 xl:col-span-2" /> : null}
       <Field id="relation-way" label="This equipment" error={errors.way?.message}>
         <Select id="relation-way" {...describedBy('relation-way', errors.way?.message)} {...form.register('way')}>
@@ -158,7 +158,7 @@ function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string
         </Select>
       </Field>
       <Button type="submit" disabled={form.formState.isSubmitting}>
-        {form.formState.isSubmitting ? 'Adding…' : 'Add relation'}
+        {form.formState.isSubmitting ? 'Adding…' : 'Add connection'}
       </Button>
       {candidates.isError ? <p className="text-sm text-red-700 sm:col-span-3 lg:col-span-1 xl:col-span-2">The site’s equipment could not be loaded: {(candidates.error as Error).message}</p> : null}
     </form>

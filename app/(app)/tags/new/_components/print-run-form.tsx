@@ -87,7 +87,7 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
         {(
           [
             ['equipment', 'Tags for registered equipment', 'Each label shows the unit’s type, name, site and area; the tag is attached now.'],
-            ['blank', 'Blank tags for a site', 'Technicians claim each tag on site by scanning it and choosing the unit.'],
+            ['blank', 'Blank tags for a site', 'Technicians attach each tag on site by scanning it and choosing the unit.'],
           ] as const
         ).map(([value, title, hint]) => (
           <label key={value} className="flex min-h-14 cursor-pointer items-start gap-3 rounded-md border border-slate-300 bg-white p-3 has-[:checked]:border-ice-700 has-[:checked]:bg-ice-50">

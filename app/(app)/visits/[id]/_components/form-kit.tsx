@@ -204,7 +204,7 @@ export function ComputedPanel({ title, rows, bases, problems, empty }: { title: 
       ))}
       {bases.length ? (
         <details className="mt-2 text-sm text-slate-800">
-          <summary className="min-h-11 cursor-pointer py-2 font-semibold">Basis of these values</summary>
+          <summary className="min-h-11 cursor-pointer py-2 font-semibold">How this is worked out</summary>
           <ul className="list-disc space-y-1 pl-5">
             {bases.map((b) => (
               <li key={b}>{b}</li>
