@@ -3,12 +3,13 @@
 // multipart service request; every page, route and static file carries the security headers;
 // and the pages still run under the nonce CSP (no console CSP violations while signing in).
 import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
 import { signIn } from './helpers';
 
 const appPort = Number(process.env.APP_PORT || 3100);
-// A fixed port beside the app's, never a random one.
-const otherPort = appPort + 50;
+// The other page's server listens on port 0 and reads back the port it got.
+let otherPort = 0;
 const appOrigin = `http://localhost:${appPort}`;
 
 async function apiAs(email: string): Promise<APIRequestContext> {
@@ -24,7 +25,13 @@ function serveOtherOrigin(html: string): Promise<Server> {
     res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' });
     res.end(html);
   });
-  return new Promise((resolve) => server.listen(otherPort, '127.0.0.1', () => resolve(server)));
+  return new Promise((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      otherPort = (server.address() as AddressInfo).port;
+      resolve(server);
+    });
+  });
 }
 
 test.describe('a page on another port', () => {

@@ -44,7 +44,7 @@ test.describe('sign-in', () => {
     await expect(page.getByRole('alert').filter({ hasText: 'Too many failed sign-ins' })).toContainText('E-mail me a link');
   });
 
-  test('a magic link from the mail catcher signs the technician in', async ({ page }) => {
+  test('a magic link from the mail catcher signs the technician in', async ({ page, browser }, info) => {
     await clearMail();
     await page.goto('/sign-in');
     await page.getByRole('tab', { name: 'E-mail me a link' }).click();
@@ -55,10 +55,16 @@ test.describe('sign-in', () => {
     expect(mail.subject).toBe('Your Rimeline sign-in link');
     await page.goto(firstLink(mail.text ?? '', '/api/auth/callback/email'));
     await expectHome(page, 'technician');
-    // The link works only once.
-    await page.context().clearCookies();
-    await page.goto(firstLink(mail.text ?? '', '/api/auth/callback/email'));
-    await expect(page.getByRole('alert').filter({ hasText: 'expired or was already used' })).toBeVisible();
+    // The link works only once. A fresh context rather than clearCookies(): a session refresh
+    // still in flight in the first page could put the cookie back after clearing.
+    const fresh = await browser.newContext({ baseURL: info.project.use.baseURL, viewport: page.viewportSize() });
+    try {
+      const again = await fresh.newPage();
+      await again.goto(firstLink(mail.text ?? '', '/api/auth/callback/email'));
+      await expect(again.getByRole('alert').filter({ hasText: 'expired or was already used' })).toBeVisible();
+    } finally {
+      await fresh.close();
+    }
   });
 
   test('signing out ends the session', async ({ page }) => {

@@ -4,9 +4,11 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { SMTPServer } from 'smtp-server';
 import { sql } from 'kysely';
 import { createTestDb, resetToDemo } from '@/tests/helpers/db';
+import { listenOnFreePort, openFrontPort, type FrontPort } from '@/tests/helpers/front-port';
 
 const db = createTestDb();
-const port = 46_000 + Math.floor(Math.random() * 1000);
+// The app is pointed at a front port that refuses connections until the SMTP server starts.
+let front: FrontPort;
 const received: string[] = [];
 
 function startSmtp(): Promise<SMTPServer> {
@@ -23,19 +25,24 @@ function startSmtp(): Promise<SMTPServer> {
       });
     },
   });
-  return new Promise((resolve) => server.listen(port, '127.0.0.1', () => resolve(server)));
+  return listenOnFreePort(server.server).then((port) => {
+    front.setTarget(port);
+    return server;
+  });
 }
 
 let outbox: typeof import('@/lib/mail/outbox');
 
 beforeAll(async () => {
   await resetToDemo(db);
-  vi.stubEnv('SMTP_URL', `smtp://127.0.0.1:${port}`);
+  front = await openFrontPort();
+  vi.stubEnv('SMTP_URL', `smtp://127.0.0.1:${front.port}`);
   vi.resetModules();
   delete (globalThis as { rimelineMail?: unknown }).rimelineMail;
   outbox = await import('@/lib/mail/outbox');
 });
 afterAll(async () => {
+  await front.close();
   vi.unstubAllEnvs();
   delete (globalThis as { rimelineMail?: unknown }).rimelineMail;
   await db.destroy();

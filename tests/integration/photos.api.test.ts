@@ -1,10 +1,7 @@
 // Photos through their route handlers against a real database and a private S3 fake that this
 // file starts and stops itself: uploads, every refused input changing nothing, location removal
 // read back from storage, scoping by URL, deletion, and an upload while the store is down.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
+import { rmSync } from 'node:fs';
 import { NextRequest } from 'next/server';
 import sharp from 'sharp';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
@@ -13,15 +10,21 @@ import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } f
 import { cameraImage, gifImage, hasLocation, heicHeader, isRed, pixelAt, pngBomb, readBack } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-// A private object store on its own port, set before any app module reads the environment.
-const S3_PORT = 47917;
-const previousEnv = vi.hoisted(() => {
+// A private object store on a port of its own (port 0 behind a front that stays put while the
+// store stops and starts), set before any app module reads the environment.
+const { store, s3Dir, previousEnv } = await vi.hoisted(async () => {
+  const { mkdtempSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const path = await import('node:path');
+  const { openTestObjectStore } = await import('@/tests/helpers/front-port');
+  const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
+  const store = await openTestObjectStore(s3Dir);
   const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = 'http://127.0.0.1:47917';
+  process.env.S3_ENDPOINT = store.endpoint;
   process.env.S3_BUCKET = 'photos-api-test';
   process.env.S3_FORCE_PATH_STYLE = 'true';
   delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
-  return previous;
+  return { store, s3Dir, previousEnv: previous };
 });
 vi.mock('@/lib/auth', () => mockAuthModule());
 
@@ -30,22 +33,12 @@ const { GET: getRoute, PATCH: patchRoute, DELETE: deleteRoute } = await import('
 const { GET: fileRoute } = await import('@/app/api/photos/[id]/[variant]/route');
 const { deleteObject, ensureBucket, listObjects } = await import('@/storage/objects');
 
-interface S3rverInstance {
-  run(): Promise<unknown>;
-  close(): Promise<void>;
-}
-const S3rver = createRequire(import.meta.url)('@20minutes/s3rver') as new (o: Record<string, unknown>) => S3rverInstance;
-const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
-let s3: S3rverInstance | null = null;
-
 async function startStore(): Promise<void> {
-  s3 = new S3rver({ address: '127.0.0.1', port: S3_PORT, directory: s3Dir, silent: true, allowMismatchedSignatures: true });
-  await s3.run();
+  await store.start();
   await ensureBucket();
 }
 async function stopStore(): Promise<void> {
-  await s3?.close();
-  s3 = null;
+  await store.stop();
 }
 
 const db = createTestDb();
@@ -74,7 +67,7 @@ beforeAll(async () => {
   await startStore();
 });
 afterAll(async () => {
-  await stopStore();
+  await store.close();
   rmSync(s3Dir, { recursive: true, force: true });
   await db.destroy();
   // Later test files get the shared store back.

@@ -1,10 +1,7 @@
 // The other side of a failed upload (the row fails after the objects were written), and the
 // storage check with its repair: through the service, the admin route and the script.
 import { execFile } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
+import { rmSync } from 'node:fs';
 import { promisify } from 'node:util';
 import type { KyselyPlugin } from 'kysely';
 import { NextRequest } from 'next/server';
@@ -16,14 +13,19 @@ import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers
 import { cameraImage } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const S3_PORT = 47918;
-const previousEnv = vi.hoisted(() => {
+const { store, s3Dir, previousEnv } = await vi.hoisted(async () => {
+  const { mkdtempSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const path = await import('node:path');
+  const { openTestObjectStore } = await import('@/tests/helpers/front-port');
+  const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
+  const store = await openTestObjectStore(s3Dir);
   const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = 'http://127.0.0.1:47918';
+  process.env.S3_ENDPOINT = store.endpoint;
   process.env.S3_BUCKET = 'photos-storage-test';
   process.env.S3_FORCE_PATH_STYLE = 'true';
   delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
-  return previous;
+  return { store, s3Dir, previousEnv: previous };
 });
 vi.mock('@/lib/auth', () => mockAuthModule());
 
@@ -33,10 +35,6 @@ const { GET: checkRoute } = await import('@/app/api/photos/consistency/route');
 const { POST: repairRoute } = await import('@/app/api/photos/consistency/repair/route');
 const { deleteObject, ensureBucket, getObjectBytes, listObjects, objectKey, putObject } = await import('@/storage/objects');
 
-const S3rver = createRequire(import.meta.url)('@20minutes/s3rver') as new (o: Record<string, unknown>) => { run(): Promise<unknown>; close(): Promise<void> };
-const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
-const s3 = new S3rver({ address: '127.0.0.1', port: S3_PORT, directory: s3Dir, silent: true, allowMismatchedSignatures: true });
-
 const db = createTestDb();
 let tech: Actor;
 let admin: Actor;
@@ -44,11 +42,11 @@ let equipmentId: string;
 const later = () => new Date(Date.now() + 20 * 60_000);
 
 beforeAll(async () => {
-  await s3.run();
+  await store.start();
   await ensureBucket();
 });
 afterAll(async () => {
-  await s3.close();
+  await store.close();
   rmSync(s3Dir, { recursive: true, force: true });
   await db.destroy();
   // Later test files get the shared store back.
