@@ -156,3 +156,17 @@ export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb, mar
 export function kickMailDelivery(): void {
   deliverDueMail().catch((error: unknown) => logger.warn({ err: String(error) }, 'mail delivery pass failed'));
 }
+
+/** Mail still waiting to go out (not sent, not given up) this long is a backlog worth reporting. */
+export const BACKLOG_AFTER_MINUTES = 5;
+
+/** How many messages have waited longer than BACKLOG_AFTER_MINUTES (for /api/health). */
+export async function countMailBacklog(db: Kysely<DB> = defaultDb): Promise<number> {
+  const row = await db
+    .selectFrom('mail_outbox')
+    .select((eb) => eb.fn.countAll<string>().as('n'))
+    .where('status', '=', 'pending')
+    .where('created_at', '<', sql<Date>`now() - make_interval(mins => ${BACKLOG_AFTER_MINUTES})`)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}
