@@ -1,5 +1,6 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { API_CSP, HSTS, pageCsp, staticSecurityHeaders } from '@/lib/api/security-headers';
+import { REQUEST_ID_HEADER, requestIdFrom } from '@/lib/api/request-id';
 import { isValidText } from '@/lib/api/text';
 import { isWellFormedCallbackUrl } from '@/lib/auth/redirect';
 
@@ -9,7 +10,9 @@ import { isWellFormedCallbackUrl } from '@/lib/auth/redirect';
 //   page parses it;
 // - sets the security headers, with a fresh CSP nonce per page request (Next puts the nonce on
 //   its own scripts when it finds it in the request's CSP header);
-// - passes the requested path on to server layouts so a signed-out visitor returns to it.
+// - passes the requested path on to server layouts so a signed-out visitor returns to it;
+// - gives every request an id (a well-formed incoming x-request-id is kept), passed on to the
+//   handlers and pages and returned in the response's x-request-id header.
 
 function badQuery(req: NextRequest): string | null {
   let pairs: [string, string][];
@@ -42,7 +45,8 @@ function safeDecode(value: string): string {
   }
 }
 
-function secure(res: NextResponse, req: NextRequest, csp: string): NextResponse {
+function secure(res: NextResponse, req: NextRequest, csp: string, requestId: string): NextResponse {
+  res.headers.set(REQUEST_ID_HEADER, requestId);
   for (const [name, value] of Object.entries(staticSecurityHeaders)) res.headers.set(name, value);
   res.headers.set('Content-Security-Policy', csp);
   // Browsers ignore HSTS over plain HTTP, so trusting the forwarded scheme here cannot hurt.
@@ -52,22 +56,24 @@ function secure(res: NextResponse, req: NextRequest, csp: string): NextResponse 
 
 export function proxy(req: NextRequest) {
   const isApi = req.nextUrl.pathname.startsWith('/api/');
+  const requestId = requestIdFrom(req.headers);
   const problem = badQuery(req);
   if (problem) {
     const res = isApi
       ? NextResponse.json({ error: { code: 'bad_request', message: problem } }, { status: 400 })
       : new NextResponse(problem, { status: 400, headers: { 'content-type': 'text/plain; charset=utf-8' } });
-    return secure(res, req, API_CSP);
+    return secure(res, req, API_CSP, requestId);
   }
-  if (isApi) return secure(NextResponse.next(), req, API_CSP);
+  const headers = new Headers(req.headers);
+  headers.set(REQUEST_ID_HEADER, requestId);
+  if (isApi) return secure(NextResponse.next({ request: { headers } }), req, API_CSP, requestId);
 
   const nonce = Buffer.from(crypto.randomUUID()).toString('base64');
   const csp = pageCsp(nonce, process.env.NODE_ENV === 'development');
-  const headers = new Headers(req.headers);
   headers.set('x-rimeline-path', `${req.nextUrl.pathname}${req.nextUrl.search}`);
   headers.set('x-nonce', nonce);
   headers.set('Content-Security-Policy', csp);
-  return secure(NextResponse.next({ request: { headers } }), req, csp);
+  return secure(NextResponse.next({ request: { headers } }), req, csp, requestId);
 }
 
 export const config = { matcher: ['/((?!_next/static|_next/image|favicon.ico).*)'] };

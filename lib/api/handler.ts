@@ -10,6 +10,8 @@ import { formFields, isMultipart, readMultipart } from '@/lib/api/multipart';
 import { assertSameOrigin, assertValidText } from '@/lib/api/guards';
 import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
+import { REQUEST_ID_HEADER, requestIdFrom } from '@/lib/api/request-id';
+import { runWithRequestId } from '@/lib/request-context';
 
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
@@ -70,6 +72,18 @@ async function readJson(req: NextRequest, maxBytes: number): Promise<unknown> {
   }
 }
 
+/** Sets x-request-id on a response; a response with fixed headers (a fetched one) is copied. */
+function withRequestIdHeader(res: Response, requestId: string): Response {
+  try {
+    res.headers.set(REQUEST_ID_HEADER, requestId);
+    return res;
+  } catch {
+    const copy = new Response(res.body, res);
+    copy.headers.set(REQUEST_ID_HEADER, requestId);
+    return copy;
+  }
+}
+
 /** Maps any thrown value to the one error shape; unknown errors are logged and hidden. */
 export function errorResponse(error: unknown): NextResponse {
   const appError = toAppError(error);
@@ -100,7 +114,14 @@ export function withApi<P = Record<string, never>, Q = Record<string, never>, B 
   options: Options<P, Q, B>,
   handler: (input: HandlerInput<P, Q, B>) => Promise<R>,
 ) {
+  // The proxy has already settled the id (kept or replaced); reading it again here also covers
+  // a handler called without the proxy (tests). Log lines inside carry it; so does the response.
   const route = async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
+    const requestId = requestIdFrom(req.headers);
+    const res = await runWithRequestId(requestId, () => handle(req, ctx));
+    return withRequestIdHeader(res, requestId);
+  };
+  const handle = async (req: NextRequest, ctx: RouteContext): Promise<Response> => {
     try {
       // Before any lookup: a forged cross-origin request learns nothing, not even 401 or 404.
       assertSameOrigin(req);
