@@ -6,18 +6,16 @@
 // - nothing from /api: answers there belong to one person and change; the site pack lives in
 //   IndexedDB (lib/offline), not here.
 // A unit's own address (/T/<code>, /tag/<code>, /equipment/<id>) that fails for want of signal is
-// answered with the pack's unit page for it. The kept pages are wiped on sign-out (lib/offline/store).
+// answered with the pack's unit page for it, and a visit page never kept here with the phone's copy
+// of the visit (/offline/visit). The kept pages are wiped on sign-out (lib/offline/store).
 import { CacheableResponsePlugin, CacheFirst, ExpirationPlugin, NetworkFirst, NetworkOnly, Serwist, type PrecacheEntry, type SerwistPlugin } from 'serwist';
-import { isFieldPage, OFFLINE_UNIT_PATH, offlineUnitTarget, PAGES_CACHE } from '@/lib/offline/cache-names';
+import { isFieldPage, offlineUnitTarget, offlineVisitTarget, pageCacheKey, PAGES_CACHE, VISIT_PAGE } from '@/lib/offline/cache-names';
 
 declare const self: { __SW_MANIFEST: (PrecacheEntry | string)[] | undefined; location: Location };
 
-/** The pack's unit page is one page whatever unit it shows: one copy, without its query. */
+/** Pages whose query only the browser reads (the phone's unit and visit pages, a visit page): one copy each. */
 const onePageCopy: SerwistPlugin = {
-  cacheKeyWillBeUsed: async ({ request }) => {
-    const url = new URL(request.url);
-    return url.pathname === OFFLINE_UNIT_PATH ? `${url.origin}${url.pathname}` : request;
-  },
+  cacheKeyWillBeUsed: async ({ request }) => pageCacheKey(new URL(request.url)) ?? request,
 };
 
 const pages = new NetworkFirst({
@@ -45,6 +43,17 @@ const serwist = new Serwist({
           return await fetch(request);
         } catch {
           return Response.redirect(new URL(offlineUnitTarget(url.pathname)!, url.origin).href, 302);
+        }
+      },
+    },
+    {
+      matcher: ({ request, url, sameOrigin }) => sameOrigin && request.mode === 'navigate' && VISIT_PAGE.test(url.pathname),
+      handler: async (options) => {
+        try {
+          return await pages.handle(options);
+        } catch {
+          // Neither the network nor a kept copy: the phone's own copy of the visit.
+          return Response.redirect(new URL(offlineVisitTarget(options.url)!, options.url.origin).href, 302);
         }
       },
     },

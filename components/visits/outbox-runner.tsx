@@ -2,25 +2,30 @@
 
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { visitKeys } from '@/lib/visits/hooks';
-import { drainOutbox } from '@/lib/visits/outbox-sender';
+import { outboxItems } from '@/lib/visits/outbox';
 
 const EVERY_MS = 30_000;
 
 /**
  * Sends whatever visit work the phone still holds, from any page of the app: when it opens, when
- * the connection comes back, and every half minute (each item after its back-off).
+ * the connection comes back, and every half minute (each item after its back-off). It is in every
+ * page, so it only looks into the outbox; the sender and the visit code it needs are fetched when
+ * there is something to send.
  */
 export function OutboxRunner() {
   const qc = useQueryClient();
   useEffect(() => {
     if (typeof indexedDB === 'undefined') return;
-    const run = (force: boolean) =>
-      void drainOutbox({ force, onSent: (item) => void qc.invalidateQueries({ queryKey: visitKeys.detail(item.visitId) }) }).catch(() => undefined);
-    run(true);
-    const online = () => run(true);
+    const run = async (force: boolean) => {
+      if ((await outboxItems()).length === 0) return;
+      const [{ drainOutbox }, { visitKeys }] = await Promise.all([import('@/lib/visits/outbox-sender'), import('@/lib/visits/hooks')]);
+      await drainOutbox({ force, onSent: (item) => void qc.invalidateQueries({ queryKey: visitKeys.detail(item.visitId) }) });
+    };
+    const go = (force: boolean) => void run(force).catch(() => undefined);
+    go(true);
+    const online = () => go(true);
     window.addEventListener('online', online);
-    const timer = window.setInterval(() => run(false), EVERY_MS);
+    const timer = window.setInterval(() => go(false), EVERY_MS);
     return () => {
       window.removeEventListener('online', online);
       window.clearInterval(timer);

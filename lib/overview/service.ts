@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { openLeaks } from '@/lib/attention/open-leaks';
 import { assertCan } from '@/lib/auth/access';
@@ -157,7 +157,7 @@ export async function chartData(actor: Actor, siteId: string | null, db: Db = de
     .where('entries.kind', '=', 'refrigerant')
     .where('entries.voided_at', 'is', null)
     .where(sql<boolean>`entries.data->>'direction' = 'added'`)
-    .$if(actor.role === 'client', (q) => q.where('visits.status', '=', 'closed'))
+    .where(visitVisibleTo(actor))
     .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
     .select([
       sql<number>`extract(year from entries.recorded_at)::int`.as('year'),

@@ -3,7 +3,7 @@ import Papa from 'papaparse';
 import { escapeFormulae } from '@/lib/equipment/csv-cells';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { entryVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -129,6 +129,7 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .selectFrom('entries')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .innerJoin('users as tech', 'tech.id', 'entries.created_by')
+    .where(entryVisibleTo(actor))
     .where('entries.system_id', '=', systemId)
     .where('entries.kind', 'in', ['refrigerant', 'leak'])
     .where('entries.voided_at', 'is', null)
@@ -137,7 +138,6 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .select(['entries.id', 'entries.kind', 'entries.recorded_at', 'entries.data', 'entries.computed', 'visits.id as visit_id', 'visits.reason', 'tech.name as tech_name'])
     .orderBy('entries.recorded_at')
     .orderBy('entries.id');
-  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
   const entries = await q.execute();
   const leakChecks = await db
     .selectFrom('visits')

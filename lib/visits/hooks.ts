@@ -8,6 +8,7 @@ import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
 import type { PhotoKind } from '@/lib/photos/schemas';
 import { adoptLegacyEntries, nextSeq, outboxItems, patchItem, putItem, removeItem, subscribeOutbox, type OutboxItem } from '@/lib/visits/outbox';
 import { drainOutbox, sendItem, type SendResult } from '@/lib/visits/outbox-sender';
+import { offlineUser } from '@/lib/offline/user';
 import { HISTORY_PAGE_SIZE, type CloseVisitInput, type CreateEntryInput, type EntryKind, type StartVisitInput } from '@/lib/visits/schemas';
 
 export const visitKeys = {
@@ -18,10 +19,12 @@ export const visitKeys = {
   readings: (equipmentId: string, key: string) => ['visits', 'readings', equipmentId, key] as const,
 };
 
-export function useVisit(id: string, initial?: VisitDetailDto) {
+/** `fromServer: false`: a visit shown from the phone's copy, not to be fetched (it may not exist there yet). */
+export function useVisit(id: string, initial?: VisitDetailDto, opts: { fromServer?: boolean } = {}) {
   return useQuery({
     queryKey: visitKeys.detail(id),
     queryFn: ({ signal }) => apiFetch<VisitDetailDto>(`/api/visits/${id}`, { signal }),
+    enabled: opts.fromServer ?? true,
     ...(initial ? { initialData: initial } : {}),
   });
 }
@@ -81,7 +84,11 @@ export function useVisitOutbox(visitId: string) {
   const [online, setOnline] = useState(true);
   const reload = useCallback(async () => setItems(await outboxItems(visitId)), [visitId]);
   const onSent = useCallback((item: OutboxItem, result: SendResult) => applySent(qc, item.visitId, result), [qc]);
-  const retryAll = useCallback(async () => drainOutbox({ visitId, force: true, onSent }), [visitId, onSent]);
+  const retryAll = useCallback(async () => {
+    // A refused start is tried again on request (e.g. once another open visit at the site is closed).
+    for (const i of await outboxItems(visitId)) if (i.type === 'start' && i.state === 'refused') await patchItem(i.id, { state: 'waiting', nextTryAt: 0 });
+    await drainOutbox({ visitId, userId: await offlineUser(), force: true, onSent });
+  }, [visitId, onSent]);
 
   useEffect(() => {
     setOnline(navigator.onLine);
@@ -91,7 +98,7 @@ export function useVisitOutbox(visitId: string) {
       // A 'sending' left by a page that was closed mid-request is really waiting.
       for (const i of await outboxItems(visitId)) if (i.state === 'sending') await patchItem(i.id, { state: 'waiting' });
       await reload();
-      await drainOutbox({ visitId, force: true, onSent });
+      await drainOutbox({ visitId, userId: await offlineUser(), force: true, onSent });
     })();
     const up = () => {
       setOnline(true);
@@ -110,20 +117,22 @@ export function useVisitOutbox(visitId: string) {
   const waitingCount = items.filter((i) => i.state !== 'refused').length;
   useEffect(() => {
     if (waitingCount === 0) return;
-    const timer = window.setInterval(() => void drainOutbox({ visitId, onSent }), RETRY_CHECK_MS);
+    const timer = window.setInterval(() => void offlineUser().then((userId) => drainOutbox({ visitId, userId, onSent })), RETRY_CHECK_MS);
     return () => window.clearInterval(timer);
   }, [waitingCount, visitId, onSent]);
 
   /** Keeps the entry on the phone first, then sends it. A refusal on the first try is handed back to the form. */
   const save = useCallback(
     async (input: CreateEntryInput): Promise<SaveOutcome> => {
-      const item: OutboxItem = { type: 'entry', id: input.clientEntryId, visitId, seq: nextSeq(), state: 'sending', attempts: 0, savedAt: input.recordedAt ?? new Date().toISOString(), nextTryAt: 0, input };
+      const userId = await offlineUser();
+      const item: OutboxItem = { type: 'entry', id: input.clientEntryId, visitId, userId, seq: nextSeq(), state: 'sending', attempts: 0, savedAt: input.recordedAt ?? new Date().toISOString(), nextTryAt: 0, input };
       await putItem(item);
-      const earlier = (await outboxItems(visitId)).some((i) => i.seq < item.seq && i.state !== 'refused');
+      // A visit started without signal holds everything behind its start, refused or not.
+      const earlier = (await outboxItems(visitId)).some((i) => i.seq < item.seq && (i.state !== 'refused' || i.type === 'start'));
       // Behind older work still waiting, it keeps its place in the queue.
       if (earlier) {
         await patchItem(item.id, { state: 'waiting' });
-        void drainOutbox({ visitId, force: true, onSent });
+        void drainOutbox({ visitId, userId, force: true, onSent });
         return { outcome: 'waiting' };
       }
       const sent = await sendItem(item);
@@ -140,8 +149,9 @@ export function useVisitOutbox(visitId: string) {
   /** A photo taken without signal: kept as a blob, uploaded and linked to the visit when it can be. */
   const savePhoto = useCallback(
     async (photo: { equipmentId: string; file: Blob; fileName: string; kind: PhotoKind; caption: string | null; uploadKey: string; clientEntryId: string }) => {
-      await putItem({ type: 'photo', id: photo.clientEntryId, visitId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, equipmentId: photo.equipmentId, file: photo.file, fileName: photo.fileName, photoKind: photo.kind, caption: photo.caption, uploadKey: photo.uploadKey });
-      void drainOutbox({ visitId, force: true, onSent });
+      const userId = await offlineUser();
+      await putItem({ type: 'photo', id: photo.clientEntryId, visitId, userId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, equipmentId: photo.equipmentId, file: photo.file, fileName: photo.fileName, photoKind: photo.kind, caption: photo.caption, uploadKey: photo.uploadKey });
+      void drainOutbox({ visitId, userId, force: true, onSent });
     },
     [visitId, onSent],
   );
@@ -149,8 +159,9 @@ export function useVisitOutbox(visitId: string) {
   /** The close goes into the outbox behind everything made before it, and is sent after them. */
   const queueClose = useCallback(
     async (input: CloseVisitInput & { clientCloseId: string }) => {
-      await putItem({ type: 'close', id: input.clientCloseId, visitId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, input });
-      await drainOutbox({ visitId, force: true, onSent });
+      const userId = await offlineUser();
+      await putItem({ type: 'close', id: input.clientCloseId, visitId, userId, seq: nextSeq(), state: 'waiting', attempts: 0, savedAt: new Date().toISOString(), nextTryAt: 0, input });
+      await drainOutbox({ visitId, userId, force: true, onSent });
       return (await outboxItems(visitId)).find((i) => i.id === input.clientCloseId) ?? null;
     },
     [visitId, onSent],

@@ -2,11 +2,12 @@ import { ApiError, apiFetch } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { uploadPhotoFile } from '@/lib/photos/hooks';
 import type { EntryDto, VisitDto } from '@/lib/visits/dto';
-import { outboxItems, patchItem, removeItem, type OutboxItem } from '@/lib/visits/outbox';
+import { forgetPhoneVisit, outboxItems, patchItem, removeItem, type OutboxItem } from '@/lib/visits/outbox';
 
 // Sends the outbox: a visit's items in the order they were made, one at a time. A send that fails
 // for want of signal stops the round (the rest would fail too) and backs off; a refusal waits for
 // the technician's fix and never blocks the entries after it, only the close, which goes last.
+// A visit started without signal goes first; until the server has it, nothing of it is sent.
 
 export type SendResult = { result: 'sent'; entry?: EntryDto; visit?: VisitDto } | { result: 'waiting' } | { result: 'refused'; error: ApiError };
 
@@ -28,6 +29,11 @@ const inFlight = new Set<string>();
 async function deliver(item: OutboxItem): Promise<{ entry?: EntryDto; visit?: VisitDto }> {
   const timeout = () => AbortSignal.timeout(SEND_TIMEOUT_MS);
   switch (item.type) {
+    case 'start': {
+      const visit = await apiFetch<VisitDto>('/api/visits', { method: 'POST', json: item.input, signal: timeout() });
+      await forgetPhoneVisit(item.visitId);
+      return { visit };
+    }
     case 'entry':
       return { entry: await apiFetch<EntryDto>(`/api/visits/${item.visitId}/entries`, { method: 'POST', json: item.input, signal: timeout() }) };
     case 'photo': {
@@ -73,14 +79,17 @@ export async function sendItem(item: OutboxItem): Promise<SendResult | null> {
  * Sends what is due, visit by visit, in order. `force` ignores the back-off (the technician pressed
  * "Try sending now", or the browser says the connection is back).
  */
-export async function drainOutbox(opts: { visitId?: string; force?: boolean; onSent?: (item: OutboxItem, result: SendResult) => void } = {}): Promise<void> {
-  const items = await outboxItems(opts.visitId);
+export async function drainOutbox(opts: { visitId?: string; userId?: string; force?: boolean; onSent?: (item: OutboxItem, result: SendResult) => void } = {}): Promise<void> {
+  // Another person's work waits for them: it is never sent under this session.
+  const items = (await outboxItems(opts.visitId)).filter((i) => !opts.userId || !i.userId || i.userId === opts.userId);
   const byVisit = new Map<string, OutboxItem[]>();
   for (const i of items) byVisit.set(i.visitId, [...(byVisit.get(i.visitId) ?? []), i]);
   for (const list of byVisit.values()) {
     let earlierOutstanding = false;
     for (const item of list) {
       if (item.state === 'refused') {
+        // A refused start holds the whole visit: its entries have nowhere to go yet.
+        if (item.type === 'start') break;
         earlierOutstanding = true;
         continue;
       }
@@ -96,7 +105,10 @@ export async function drainOutbox(opts: { visitId?: string; force?: boolean; onS
       opts.onSent?.(item, sent);
       // No signal: the rest of the outbox would fail the same way.
       if (sent.result === 'waiting') return;
-      if (sent.result === 'refused') earlierOutstanding = true;
+      if (sent.result === 'refused') {
+        if (item.type === 'start') break;
+        earlierOutstanding = true;
+      }
     }
   }
 }

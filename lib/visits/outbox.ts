@@ -1,19 +1,24 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { ErrorIssue } from '@/lib/errors';
 import type { PhotoKind } from '@/lib/photos/schemas';
-import type { CloseVisitInput, CreateEntryInput } from '@/lib/visits/schemas';
+import type { CloseVisitInput, CreateEntryInput, StartVisitInput } from '@/lib/visits/schemas';
+import type { VisitReason } from '@/lib/visits/terms';
 
-// The phone's one outbox for a visit's work: entries, photos (kept as blobs) and the close, in the
-// order they were made, in IndexedDB so a reload, a closed tab or a restarted phone loses nothing.
-// Each item carries an id made on the phone (clientEntryId, the photo's uploadKey, clientCloseId),
-// so a send repeated after a lost answer returns the first result. Browser-only.
+// The phone's one outbox for a visit's work: the start (of a visit begun without signal), entries,
+// photos (kept as blobs) and the close, in the order they were made, in IndexedDB so a reload, a
+// closed tab or a restarted phone loses nothing. Each item carries an id made on the phone (the
+// visit's id, clientEntryId, the photo's uploadKey, clientCloseId), so a send repeated after a lost
+// answer returns the first result. Items belong to the person who made them and are sent only
+// under their session. Browser-only.
 
 export type OutboxState = 'waiting' | 'sending' | 'refused';
 
 interface ItemBase {
-  /** The id made on the phone: the entry's clientEntryId, or the close's clientCloseId. */
+  /** The id made on the phone: the visit's id (start), the entry's clientEntryId, or the close's clientCloseId. */
   id: string;
   visitId: string;
+  /** Who made it: sent only while they are the one signed in (absent on items of older versions). */
+  userId?: string;
   /** Order of making; items of a visit are sent in this order. */
   seq: number;
   state: OutboxState;
@@ -50,10 +55,26 @@ export interface CloseItem extends ItemBase {
   input: CloseVisitInput & { clientCloseId: string };
 }
 
-export type OutboxItem = EntryItem | PhotoItem | CloseItem;
+/** A visit started without signal: sent first, and everything of the visit waits behind it. */
+export interface StartItem extends ItemBase {
+  type: 'start';
+  input: StartVisitInput & { id: string };
+}
+
+export type OutboxItem = StartItem | EntryItem | PhotoItem | CloseItem;
+
+/** What the phone knows of a visit it started without signal, to show it before the server has it. */
+export interface PhoneVisit {
+  id: string;
+  userId: string;
+  siteId: string;
+  reason: VisitReason;
+  startedAt: string;
+}
 
 interface OutboxDb extends DBSchema {
   items: { key: string; value: OutboxItem; indexes: { visitId: string } };
+  visits: { key: string; value: PhoneVisit; indexes: { siteId: string } };
 }
 
 const DB_NAME = 'rimeline-outbox';
@@ -62,9 +83,10 @@ const LEGACY_PREFIX = 'rimeline:pending-entries:';
 
 let dbPromise: Promise<IDBPDatabase<OutboxDb>> | null = null;
 function database(): Promise<IDBPDatabase<OutboxDb>> {
-  dbPromise ??= openDB<OutboxDb>(DB_NAME, 1, {
-    upgrade(db) {
-      db.createObjectStore('items', { keyPath: 'id' }).createIndex('visitId', 'visitId');
+  dbPromise ??= openDB<OutboxDb>(DB_NAME, 2, {
+    upgrade(db, oldVersion) {
+      if (oldVersion < 1) db.createObjectStore('items', { keyPath: 'id' }).createIndex('visitId', 'visitId');
+      if (oldVersion < 2) db.createObjectStore('visits', { keyPath: 'id' }).createIndex('siteId', 'siteId');
     },
   });
   return dbPromise;
@@ -123,6 +145,44 @@ export async function removeItem(id: string): Promise<void> {
   changed();
 }
 
+/** Keeps a visit started without signal on the phone, with its start at the head of its outbox. */
+export async function startOnPhone(visit: PhoneVisit): Promise<void> {
+  const db = await database();
+  const tx = db.transaction(['visits', 'items'], 'readwrite');
+  await tx.objectStore('visits').put(visit);
+  await tx.objectStore('items').put({
+    type: 'start',
+    id: visit.id,
+    visitId: visit.id,
+    userId: visit.userId,
+    seq: nextSeq(),
+    state: 'waiting',
+    attempts: 0,
+    savedAt: visit.startedAt,
+    nextTryAt: 0,
+    input: { id: visit.id, siteId: visit.siteId, reason: visit.reason, startedAt: visit.startedAt },
+  });
+  await tx.done;
+  changed();
+}
+
+/** A visit this person started on the phone (kept until its site's copy knows it). */
+export async function phoneVisit(userId: string, visitId: string): Promise<PhoneVisit | null> {
+  const v = await (await database()).get('visits', visitId);
+  return v && v.userId === userId ? v : null;
+}
+
+/** This person's visits started on the phone at a site, newest first. */
+export async function phoneVisitsAt(userId: string, siteId: string): Promise<PhoneVisit[]> {
+  const all = await (await database()).getAllFromIndex('visits', 'siteId', siteId);
+  return all.filter((v) => v.userId === userId).sort((a, b) => b.startedAt.localeCompare(a.startedAt));
+}
+
+/** The server has the visit and the phone's work on it: its local record is no longer needed. */
+export async function forgetPhoneVisit(visitId: string): Promise<void> {
+  await (await database()).delete('visits', visitId);
+}
+
 /** Entries kept in localStorage by an earlier version move into the outbox once. */
 export async function adoptLegacyEntries(): Promise<void> {
   if (typeof window === 'undefined') return;
@@ -156,7 +216,7 @@ export async function adoptLegacyEntries(): Promise<void> {
 
 /** "3 entries and 2 photos waiting" — what the phone still holds, in words. */
 export function waitingWords(items: readonly OutboxItem[]): string | null {
-  const waiting = items.filter((i) => i.state !== 'refused');
+  const waiting = items.filter((i) => i.state !== 'refused' && i.type !== 'start');
   const photos = waiting.filter((i) => i.type === 'photo' || (i.type === 'entry' && i.input.kind === 'photo')).length;
   const closes = waiting.filter((i) => i.type === 'close').length;
   const entries = waiting.length - photos - closes;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
 import { assertCan, can } from '@/lib/auth/access';
@@ -70,10 +70,9 @@ function toVisitDto(r: VisitRow): VisitDto {
   };
 }
 
-/** Owners see a visit only once it is closed: an open visit is work in progress. */
+/** Owners see a visit only once it is closed (lib/auth/scope.ts). */
 function visibleVisits(actor: Actor, db: Db) {
-  const q = visitQuery(actor, db);
-  return actor.role === 'client' ? q.where('visits.status', '=', 'closed') : q;
+  return visitQuery(actor, db).where(visitVisibleTo(actor));
 }
 
 export async function getVisitSummary(actor: Actor, id: string, db: Db = defaultDb): Promise<VisitDto> {

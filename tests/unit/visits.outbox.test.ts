@@ -3,7 +3,7 @@
 // never dropped; the close waits until everything before it has reached the server.
 import 'fake-indexeddb/auto';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { nextSeq, outboxItems, putItem, removeItem, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
+import { nextSeq, outboxItems, phoneVisit, phoneVisitsAt, putItem, removeItem, startOnPhone, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
 import { backoffMs, drainOutbox } from '@/lib/visits/outbox-sender';
 
 const visitId = '11111111-1111-4111-8111-111111111111';
@@ -110,5 +110,59 @@ describe('visit outbox', () => {
     const photo: OutboxItem = { ...entry(ids[3]!, 'p'), type: 'photo', equipmentId: unit, file: new Blob(['x']), fileName: 'plate.jpg', photoKind: 'nameplate', caption: null, uploadKey: ids[3]! } as OutboxItem;
     expect(waitingWords([entry(ids[0]!, 'a'), entry(ids[1]!, 'b'), entry(ids[2]!, 'c'), photo, close(ids[2]!)])).toBe('3 entries, 1 photo and the close waiting');
     expect(waitingWords([])).toBeNull();
+  });
+
+  it('sends a visit started without signal first, and forgets the phone’s record of it once the server has it', async () => {
+    const me = '33333333-3333-4333-8333-333333333333';
+    const site = '44444444-4444-4444-8444-444444444444';
+    await startOnPhone({ id: visitId, userId: me, siteId: site, reason: 'no_cooling', startedAt: '2026-12-04T08:15:00.000Z' });
+    await putItem({ ...entry(ids[0]!, 'after the start'), userId: me } as OutboxItem);
+    expect((await phoneVisitsAt(me, site)).map((v) => v.id)).toEqual([visitId]);
+    // What waits is said without the start: it is not the technician's work.
+    expect(waitingWords(await outboxItems(visitId))).toBe('1 entry waiting');
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      sent.push({ url, body: JSON.parse(String(init.body)) });
+      return answer(url === '/api/visits' ? 201 : 200, url === '/api/visits' ? { id: visitId, status: 'open' } : { id: 'e' });
+    });
+    await drainOutbox({ visitId, userId: me, force: true });
+    expect(sent.map((s) => s.url)).toEqual(['/api/visits', `/api/visits/${visitId}/entries`]);
+    expect(sent[0]!.body).toEqual({ id: visitId, siteId: site, reason: 'no_cooling', startedAt: '2026-12-04T08:15:00.000Z' });
+    expect(await outboxItems(visitId)).toEqual([]);
+    expect(await phoneVisit(me, visitId)).toBeNull();
+  });
+
+  it('holds everything of a visit whose start the server refused, and keeps it', async () => {
+    const me = '33333333-3333-4333-8333-333333333333';
+    await startOnPhone({ id: visitId, userId: me, siteId: '44444444-4444-4444-8444-444444444444', reason: 'maintenance', startedAt: '2026-12-04T08:15:00.000Z' });
+    await putItem({ ...entry(ids[0]!, 'held'), userId: me } as OutboxItem);
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      sent.push({ url, body: JSON.parse(String(init.body)) });
+      return answer(409, { error: { code: 'conflict', message: 'You already have an open visit at this site.' } });
+    });
+    await drainOutbox({ visitId, userId: me, force: true });
+    await drainOutbox({ visitId, userId: me, force: true });
+    expect(sent.map((s) => s.url)).toEqual(['/api/visits']);
+    expect((await outboxItems(visitId)).map((i) => [i.type, i.state])).toEqual([
+      ['start', 'refused'],
+      ['entry', 'waiting'],
+    ]);
+    expect(await phoneVisit(me, visitId)).toMatchObject({ reason: 'maintenance' });
+  });
+
+  it('never sends another person’s work under this session', async () => {
+    const me = '33333333-3333-4333-8333-333333333333';
+    const someoneElse = '55555555-5555-4555-8555-555555555555';
+    await putItem({ ...entry(ids[0]!, 'theirs'), userId: someoneElse } as OutboxItem);
+    await putItem({ ...entry(ids[1]!, 'mine'), userId: me } as OutboxItem);
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      sent.push({ url, body: JSON.parse(String(init.body)) });
+      return answer(200, { id: 'e' });
+    });
+    await drainOutbox({ userId: me, force: true });
+    expect(sent.map((s) => (s.body as { data: { text: string } }).data.text)).toEqual(['mine']);
+    expect((await outboxItems()).map((i) => i.userId)).toEqual([someoneElse]);
+    // The other person's record of a started visit is not theirs to read either.
+    await startOnPhone({ id: visitId, userId: someoneElse, siteId: '44444444-4444-4444-8444-444444444444', reason: 'maintenance', startedAt: '2026-12-04T08:15:00.000Z' });
+    expect(await phoneVisit(me, visitId)).toBeNull();
   });
 });

@@ -19,7 +19,11 @@ import type { UnitQuery } from '@/lib/offline/lookup';
 import type { StoredPack } from '@/lib/offline/store';
 import type { PackEntry, PackUnit, PackVisit, SitePack } from '@/lib/sites/pack-schema';
 import { checkCode, formatCode } from '@/lib/tags/code';
+import { offlineUser } from '@/lib/offline/user';
+import { phoneVisitsAt } from '@/lib/visits/outbox';
+import { phoneVisitHref } from '@/lib/visits/start-on-phone';
 import { visitReasonLabels } from '@/lib/visits/terms';
+import { StartVisitForm } from '@/app/(app)/visits/new/_components/start-visit-form';
 
 type State = { status: 'loading' } | { status: 'missing'; query: UnitQuery | null } | { status: 'found'; kept: StoredPack; unit: PackUnit };
 
@@ -121,7 +125,27 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
   const prefs = { units: pack.viewer.units, metricPressure: pack.viewer.metricPressure };
   const settings = currentSettings(unit.type, unit.nameplate as Nameplate, prefs);
   const followUps = pack.followUps.filter((f) => f.equipmentId === unit.id);
-  const visitHref = pack.openVisitId ? `/visits/${pack.openVisitId}?equipment=${unit.id}` : `/visits/new?siteId=${pack.site.id}&equipmentId=${unit.id}`;
+  // The person's open visit here: the server's (its page, or the phone's copy of it without signal),
+  // else one started on this phone and not yet known to the kept copy.
+  const [phoneVisitId, setPhoneVisitId] = useState<string | null>(null);
+  const [starting, setStarting] = useState(false);
+  useEffect(() => {
+    let live = true;
+    void offlineUser()
+      .then((userId) => phoneVisitsAt(userId, pack.site.id))
+      .then((visits) => live && setPhoneVisitId(visits[0]?.id ?? null))
+      .catch(() => undefined);
+    return () => {
+      live = false;
+    };
+  }, [pack.site.id]);
+  const openVisitId = pack.openVisit?.id ?? pack.openVisitId;
+  const continuing = openVisitId !== null || phoneVisitId !== null;
+  const visitHref = openVisitId
+    ? `/visits/${openVisitId}?equipment=${unit.id}`
+    : phoneVisitId
+      ? phoneVisitHref(phoneVisitId, unit.id)
+      : `/visits/new?siteId=${pack.site.id}&equipmentId=${unit.id}`;
   const groups = groupByVisit(unit.history, pack.visits);
   const details = [
     { label: 'Make', value: unit.make },
@@ -188,8 +212,18 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
         {unit.status !== 'removed' ? (
           <div className="flex flex-wrap gap-2 pt-1">
             {/* A full page load: the worker answers it from its copy when there is no signal. */}
-            <a href={visitHref} className={buttonVariants({ size: 'lg' })}>
-              {pack.openVisitId ? (
+            <a
+              href={visitHref}
+              className={buttonVariants({ size: 'lg' })}
+              onClick={(e) => {
+                // Without signal a visit starts here, on the phone.
+                if (!continuing && !navigator.onLine) {
+                  e.preventDefault();
+                  setStarting(true);
+                }
+              }}
+            >
+              {continuing ? (
                 <>
                   <ClipboardPen aria-hidden className="size-5" /> Continue visit
                 </>
@@ -200,6 +234,13 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
               )}
             </a>
           </div>
+        ) : null}
+        {starting ? (
+          <Card className="mt-2 space-y-3" data-testid="offline-start">
+            <h2 className="text-lg font-semibold">Start a visit at {pack.site.name}</h2>
+            <p className="text-sm text-slate-700">No signal: the visit starts on this phone and reaches the server, with everything recorded, when there is signal.</p>
+            <StartVisitForm siteId={pack.site.id} timeZone={pack.site.timeZone} equipmentId={unit.id} />
+          </Card>
         ) : null}
       </div>
 

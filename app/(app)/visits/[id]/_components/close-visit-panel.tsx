@@ -19,7 +19,10 @@ export function bypassesOf(visit: VisitDetailDto, items: readonly OutboxItem[]):
 /** What still stands between the visit and its close, in words (empty when nothing does). */
 export function stillMissing(visit: VisitDetailDto, items: readonly OutboxItem[]): string[] {
   const out: string[] = [];
-  const work = items.filter((i) => i.type !== 'close');
+  const start = items.find((i) => i.type === 'start');
+  if (start?.state === 'refused') out.push(`The server refused to start this visit: ${start.error ?? 'no reason given'}`);
+  else if (start) out.push('The visit itself is not on the server yet: it goes first when there is signal.');
+  const work = items.filter((i) => i.type !== 'close' && i.type !== 'start');
   const waiting = waitingWords(work);
   if (waiting) out.push(`${waiting.replace(/ waiting$/, '')} not yet sent: they wait for signal.`);
   const refused = work.filter((i) => i.state === 'refused').length;

@@ -14,6 +14,7 @@ import { EntryKindLabel, entryKindIcons, SaveStateBadge } from '@/components/vis
 import { EntrySummary } from '@/components/visits/entry-summary';
 import { refrigerantCautions as cautionsFor } from '@/lib/calc/cautions';
 import { useKeepSite } from '@/lib/offline';
+import { OFFLINE_VISIT_PATH } from '@/lib/offline/cache-names';
 import { findRefrigerant } from '@/lib/calc/refrigerants';
 import type { EquipmentDto } from '@/lib/equipment/dto';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
@@ -60,6 +61,7 @@ export function VisitWorkspace({
   prefs,
   actorId,
   canVoidAny,
+  phoneCopy = false,
 }: {
   visit: VisitDetailDto;
   equipment: EquipmentDto[];
@@ -69,10 +71,12 @@ export function VisitWorkspace({
   prefs: UnitPrefs;
   actorId: string;
   canVoidAny: boolean;
+  /** Shown from the phone's kept copy without signal (/offline/visit): its address keeps ?id=, nothing is fetched. */
+  phoneCopy?: boolean;
 }) {
   const router = useRouter();
   const search = useSearchParams();
-  const visitQuery = useVisit(initialVisit.id, initialVisit);
+  const visitQuery = useVisit(initialVisit.id, initialVisit, { fromServer: !phoneCopy });
   const visit = visitQuery.data ?? initialVisit;
   const { items, waitingCount, online, save, savePhoto, queueClose, retryAll, discard } = useVisitOutbox(visit.id);
   // A visit keeps its site on the phone, so its units open from a scan without signal.
@@ -95,13 +99,14 @@ export function VisitWorkspace({
   const go = useCallback(
     (to: { equipment?: string | null; kind?: EntryKind | null; step?: Step | null }) => {
       const params = new URLSearchParams();
+      if (phoneCopy) params.set('id', visit.id);
       if (to.equipment) params.set('equipment', to.equipment);
       if (to.kind) params.set('kind', to.kind);
       if (to.step) params.set('step', to.step);
       const qs = params.toString();
-      window.history.pushState(null, '', `/visits/${visit.id}${qs ? `?${qs}` : ''}`);
+      window.history.pushState(null, '', `${phoneCopy ? OFFLINE_VISIT_PATH : `/visits/${visit.id}`}${qs ? `?${qs}` : ''}`);
     },
-    [visit.id],
+    [visit.id, phoneCopy],
   );
 
   // The photo form is gone (left on purpose): nothing of it is left to guard.
@@ -134,7 +139,7 @@ export function VisitWorkspace({
       entry: e,
       saved: e,
     }));
-    const waiting: Row[] = unsent.flatMap((p) => (p.type === 'close' ? [] : [outboxRow(p, names)]));
+    const waiting: Row[] = unsent.flatMap((p) => (p.type === 'close' || p.type === 'start' ? [] : [outboxRow(p, names)]));
     return [...fromServer, ...waiting].sort((a, b) => b.recordedAt.localeCompare(a.recordedAt));
   }, [visit.entries, unsent, names]);
 
@@ -316,8 +321,19 @@ export function VisitWorkspace({
     );
   }
 
+  const refusedStart = items.find((i) => i.type === 'start' && i.state === 'refused');
+
   return (
     <div className="space-y-4 pb-28">
+      {refusedStart ? (
+        <Alert tone="danger" title="The server refused to start this visit">
+          <p>{refusedStart.error}</p>
+          <p className="mt-1">Everything recorded is kept on this phone and waits behind the start. Sort out the reason (for example, close your other open visit at this site), then try again.</p>
+          <button type="button" onClick={() => void retryAll()} className="mt-2 inline-flex min-h-11 items-center gap-2 rounded-md border border-red-600 bg-white px-3 font-semibold">
+            <RefreshCw aria-hidden className="size-4" /> Try starting it again
+          </button>
+        </Alert>
+      ) : null}
       {!online || waitingCount > 0 ? (
         <Alert tone="warning" title={online ? `${waitingWords(unsent) ?? 'Nothing'} to be sent` : `No signal${waitingCount > 0 ? `: ${waitingWords(unsent)}` : ''}`}>
           <p>
@@ -376,7 +392,7 @@ export function VisitWorkspace({
 }
 
 /** An item still on the phone, as a row of the visit's entries. */
-function outboxRow(p: Exclude<OutboxItem, { type: 'close' }>, names: Map<string, string>): Row {
+function outboxRow(p: Exclude<OutboxItem, { type: 'close' | 'start' }>, names: Map<string, string>): Row {
   const equipmentId = p.type === 'entry' ? p.input.equipmentId : p.equipmentId;
   return {
     key: p.id,

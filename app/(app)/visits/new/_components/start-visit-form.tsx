@@ -6,7 +6,11 @@ import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { describedBy, Field, Input } from '@/components/ui/field';
+import { ApiError } from '@/lib/api/client';
+import { readPack } from '@/lib/offline/store';
+import { offlineUser } from '@/lib/offline/user';
 import { useStartVisit } from '@/lib/visits/hooks';
+import { startVisitOnPhone } from '@/lib/visits/start-on-phone';
 import { VISIT_REASONS, visitReasonLabels, type VisitReason } from '@/lib/visits/schemas';
 import { ChoiceCards } from '@/app/(app)/visits/[id]/_components/form-kit';
 
@@ -36,6 +40,7 @@ export function StartVisitForm({ siteId, timeZone, equipmentId }: { siteId: stri
   const [when, setWhen] = useState<'now' | 'earlier'>('now');
   const [time, setTime] = useState('');
   const [errors, setErrors] = useState<{ reason?: string; time?: string }>({});
+  const [phoneProblem, setPhoneProblem] = useState<string | null>(null);
 
   function submit(e: FormEvent) {
     e.preventDefault();
@@ -45,10 +50,31 @@ export function StartVisitForm({ siteId, timeZone, equipmentId }: { siteId: stri
     if (when === 'earlier' && !startedAt) next.time = 'Give a time earlier today, like 07:30.';
     setErrors(next);
     if (Object.keys(next).length || !reason) return;
+    if (!navigator.onLine) {
+      void startHere(reason, startedAt);
+      return;
+    }
     start.mutate(
       { siteId, reason, ...(startedAt ? { startedAt } : {}) },
-      { onSuccess: (visit) => router.push(`/visits/${visit.id}${equipmentId ? `?equipment=${equipmentId}` : ''}`) },
+      {
+        onSuccess: (visit) => router.push(`/visits/${visit.id}${equipmentId ? `?equipment=${equipmentId}` : ''}`),
+        // The signal went while sending: start it on the phone instead.
+        onError: (error) => {
+          if (error instanceof ApiError && error.code === 'network') void startHere(reason, startedAt);
+        },
+      },
     );
+  }
+
+  /** No signal: the visit starts on the phone, if its site is kept here, and reaches the server later. */
+  async function startHere(r: VisitReason, startedAt: string | null | undefined) {
+    setPhoneProblem(null);
+    const kept = await readPack(await offlineUser(), siteId).catch(() => null);
+    if (!kept) {
+      setPhoneProblem('There is no signal, and this site is not kept on this phone. Keep a site on the phone while there is signal to start visits there without it.');
+      return;
+    }
+    window.location.assign(await startVisitOnPhone({ siteId, reason: r, startedAt: startedAt ?? undefined, equipmentId }));
   }
 
   return (
@@ -77,7 +103,11 @@ export function StartVisitForm({ siteId, timeZone, equipmentId }: { siteId: stri
           <Input id="arrived-at" type="time" value={time} onChange={(e) => setTime(e.target.value)} className="min-h-12 text-lg" {...describedBy('arrived-at', errors.time)} />
         </Field>
       ) : null}
-      {start.error ? (
+      {phoneProblem ? (
+        <Alert tone="danger" title="The visit was not started">
+          {phoneProblem}
+        </Alert>
+      ) : start.error && !(start.error instanceof ApiError && start.error.code === 'network') ? (
         <Alert tone="danger" title="The visit was not started">
           {start.error.message}
         </Alert>
