@@ -70,6 +70,8 @@ export interface PrintRunDto {
   kind: 'equipment' | 'blank';
   siteId: string | null;
   siteName: string | null;
+  /** The site's time zone when the run is for one site; dates are shown in it (UTC otherwise). */
+  siteTimeZone: string | null;
   layoutId: string;
   layoutName: string;
   startPosition: number;

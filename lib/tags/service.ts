@@ -27,6 +27,7 @@ import {
 } from '@/lib/tags/dto';
 import { renderCalibrationSheet, renderLabelSheet, type LabelContent } from '@/lib/tags/pdf';
 import { chooseErrorCorrection, tagUrl } from '@/lib/tags/qr';
+import { localDate } from '@/lib/format/dates';
 import { lastScanQuery, layoutQuery, printRunQuery, tagByCodeQuery, tagQuery, toLayout } from '@/lib/tags/queries';
 import type { AttachTagInput, CreatePrintRunInput, ListPrintRunsQuery, RetireTagInput, ScanVia } from '@/lib/tags/schemas';
 import { deleteObject, getObjectBytes, objectKey, putObject } from '@/storage/objects';
@@ -63,6 +64,7 @@ function toPrintRunDto(row: RunRow): PrintRunDto {
     kind: row.kind as PrintRunDto['kind'],
     siteId: row.site_id,
     siteName: row.site_name,
+    siteTimeZone: row.site_time_zone,
     layoutId: row.layout_id,
     layoutName: row.layout_name,
     startPosition: row.start_position,
@@ -101,12 +103,13 @@ export async function getPrintRunPdf(actor: Actor, id: string, db: Db = defaultD
   assertCan(actor, 'tags.print');
   const row = await db
     .selectFrom('print_runs')
-    .select(['pdf_key', 'created_at'])
-    .where('id', '=', id)
-    .where('company_id', '=', actor.companyId)
+    .leftJoin('sites', 'sites.id', 'print_runs.site_id')
+    .select(['print_runs.pdf_key', 'print_runs.created_at', 'sites.time_zone'])
+    .where('print_runs.id', '=', id)
+    .where('print_runs.company_id', '=', actor.companyId)
     .executeTakeFirst();
   if (!row?.pdf_key) throw new AppError('not_found', 'Print run not found.');
-  return { bytes: await getObjectBytes(row.pdf_key), filename: `tags-${row.created_at.toISOString().slice(0, 10)}-${id.slice(0, 8)}.pdf` };
+  return { bytes: await getObjectBytes(row.pdf_key), filename: `tags-${localDate(row.created_at, row.time_zone ?? 'UTC')}-${id.slice(0, 8)}.pdf` };
 }
 
 /** Inserts `count` fresh tags; a code that collides with any tag of the installation is drawn again. */

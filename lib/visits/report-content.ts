@@ -1,3 +1,4 @@
+import { formatStamp } from '@/lib/format/dates';
 import type { UnitPrefs } from '@/lib/units/quantities';
 import { equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
 import type { EntryDto, VisitDetailDto } from '@/lib/visits/dto';
@@ -19,21 +20,22 @@ export interface VisitReport {
   caution: string;
 }
 
-export function formatTime(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', {
-    timeZone,
-    year: 'numeric',
-    month: 'short',
-    day: 'numeric',
-    hour: 'numeric',
-    minute: '2-digit',
-    timeZoneName: 'short',
-  }).format(new Date(iso));
-}
+/** The visit pages' name for the document date style (lib/format/dates formatStamp). */
+export const formatTime = formatStamp;
 
 /** One entry in one sentence, in the reader's units; each kind's module says how. */
 export function describeEntry(e: Pick<EntryDto, 'kind' | 'data' | 'computed'>, prefs: UnitPrefs): string {
   return kindDef(e.kind).describe(e.data, e.computed, prefs);
+}
+
+/** A reading's likely causes, said as a guide from common practice (never a verdict), as on the readings form. */
+export function suggestionLines(e: Pick<EntryDto, 'kind' | 'computed'>): string[] {
+  const list = e.kind === 'reading' ? (e.computed as { suggestions?: { title: string; reasoning: string; checks: string[] }[] } | null)?.suggestions : undefined;
+  if (!list?.length) return [];
+  return [
+    'What these readings suggest (a guide from common practice, not a verdict; confirm before acting):',
+    ...list.map((x, i) => `${i + 1}. ${x.title}. ${x.reasoning} Check: ${x.checks.join('; ')}.`),
+  ];
 }
 
 export function buildVisitReport(visit: VisitDetailDto, prefs: UnitPrefs, companyName: string): VisitReport {
@@ -49,14 +51,14 @@ export function buildVisitReport(visit: VisitDetailDto, prefs: UnitPrefs, compan
       ['Site', visit.siteName],
       ['Reason', visitReasonLabels[visit.reason]],
       ['Technician', visit.technicianName],
-      ['Started', formatTime(visit.startedAt, visit.timeZone)],
-      ['Ended', visit.endedAt ? formatTime(visit.endedAt, visit.timeZone) : 'Open'],
+      ['Started', formatStamp(visit.startedAt, visit.timeZone)],
+      ['Ended', visit.endedAt ? formatStamp(visit.endedAt, visit.timeZone) : 'Open'],
       ['Service company', companyName],
     ],
     summary: visit.summary ?? '',
     sections: [...byEquipment.values()].map((entries) => ({
       heading: `${entries[0]!.equipmentName} (${equipmentTypeLabels[entries[0]!.equipmentType as EquipmentType] ?? entries[0]!.equipmentType})`,
-      lines: entries.map((e) => describeEntry(e, prefs)),
+      lines: entries.flatMap((e) => [describeEntry(e, prefs), ...suggestionLines(e)]),
     })),
     caution: 'Computed values are for service reference and name their basis in Rimeline; local codes and licensed practice govern.',
   };
