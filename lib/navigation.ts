@@ -3,7 +3,7 @@ import type { Role } from '@/lib/auth/permissions';
 export interface NavItem {
   href: string;
   label: string;
-  icon: 'home' | 'scan' | 'sites' | 'equipment' | 'visits' | 'followUps' | 'tags' | 'clients' | 'settings' | 'gauge' | 'requests' | 'reports';
+  icon: 'home' | 'scan' | 'sites' | 'equipment' | 'visits' | 'followUps' | 'tags' | 'clients' | 'settings' | 'gauge' | 'requests' | 'reports' | 'plans';
   /** Shown in the phone's always-visible row; the rest sit behind "More". */
   primary?: boolean;
   roles: readonly Role[];
@@ -16,6 +16,7 @@ export const navItems: NavItem[] = [
   { href: '/sites', label: 'Sites', icon: 'sites', roles: ['admin', 'office', 'technician', 'client'], primary: true },
   { href: '/equipment', label: 'Equipment', icon: 'equipment', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/visits', label: 'Visits', icon: 'visits', roles: ['admin', 'office', 'technician', 'client'], primary: true },
+  { href: '/plans', label: 'Planned visits', icon: 'plans', roles: ['admin', 'office', 'technician'] },
   { href: '/follow-ups', label: 'Follow-ups', icon: 'followUps', roles: ['admin', 'office', 'technician', 'client'] },
   { href: '/requests', label: 'Requests', icon: 'requests', roles: ['admin', 'office', 'client'] },
   { href: '/reports', label: 'Reports', icon: 'reports', roles: ['admin', 'office', 'technician', 'client'] },

@@ -20,6 +20,10 @@ import { AttentionList } from '@/components/overview/attention-list';
 import { OverviewCharts } from '@/components/overview/overview-charts';
 import { SiteSummaryCard } from '@/components/overview/site-summary-card';
 import { DueList } from '@/components/overview/due-list';
+import { PlanCard } from '@/components/plans/plan-card';
+import { StartPlanButton } from '@/components/plans/start-plan-button';
+import { can } from '@/lib/auth/access';
+import { plansForTechnician } from '@/lib/plans/service';
 
 export const metadata: Metadata = { title: 'Home' };
 
@@ -200,10 +204,15 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
           )}
         </section>
         <section aria-labelledby="due-h" className="space-y-3">
-          <h2 id="due-h" className="text-lg font-semibold">
-            Due in the next 30 days or overdue
-          </h2>
-          <DueList items={due} />
+          <div className="flex flex-wrap items-end justify-between gap-2">
+            <h2 id="due-h" className="text-lg font-semibold">
+              Due in the next 30 days or overdue
+            </h2>
+            <Link href="/plans" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+              Planned visits
+            </Link>
+          </div>
+          <DueList items={due} canPlan={can(actor, 'plans.write')} />
         </section>
       </div>
     </div>
@@ -211,10 +220,12 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
 }
 
 async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
-  const [open, followUps] = await Promise.all([
+  const [open, followUps, plans] = await Promise.all([
     listVisits(actor, { status: 'open', technicianId: actor.id, limit: 10 }),
     listFollowUps(actor, { limit: 5, severity: ['safety', 'down'] }),
+    plansForTechnician(actor),
   ]);
+  const startable = (p: (typeof plans)[number]) => p.canStart && p.day <= p.siteToday;
   return (
     <section aria-labelledby="work-h" className="space-y-3">
       <h2 id="work-h" className="text-lg font-semibold">
@@ -228,6 +239,29 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
           Start a visit
         </ButtonLink>
       </div>
+      <section aria-labelledby="planned-h" className="space-y-2">
+        <div className="flex flex-wrap items-end justify-between gap-2">
+          <h3 id="planned-h" className="font-semibold">
+            Planned for you
+          </h3>
+          <Link href="/plans" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+            All planned visits
+          </Link>
+        </div>
+        {plans.length === 0 ? (
+          <p className="text-slate-700">Nothing planned for you in the next 7 days.</p>
+        ) : (
+          <ul className="grid gap-2 md:grid-cols-2">
+            {plans.map((p) => (
+              <li key={p.id} className="min-w-0">
+                <PlanCard plan={p} showDay showTechnician={false}>
+                  {startable(p) ? <StartPlanButton plan={p} /> : null}
+                </PlanCard>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
       {open.items.length > 0 ? (
         <Card>
           <h3 className="font-semibold">Your open visits</h3>

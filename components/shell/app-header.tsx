@@ -1,6 +1,6 @@
 'use client';
 
-import { BellRing, Building2, ClipboardList, FileText, Gauge, Home, ListTodo, MapPin, Menu, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut, X } from 'lucide-react';
+import { BellRing, Building2, CalendarDays, ClipboardList, FileText, Gauge, Home, ListTodo, MapPin, Menu, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut, X } from 'lucide-react';
 import { signOut } from 'next-auth/react';
 import Link from 'next/link';
 import { usePathname, useRouter } from 'next/navigation';
@@ -10,7 +10,7 @@ import type { NavItem } from '@/lib/navigation';
 import { cn } from '@/lib/utils';
 import { signOutWipe } from '@/lib/offline/user';
 
-const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge, requests: BellRing, reports: FileText } as const;
+const icons = { home: Home, scan: ScanLine, sites: MapPin, equipment: Refrigerator, visits: ClipboardList, followUps: ListTodo, tags: QrCode, clients: Building2, settings: Settings, gauge: Gauge, requests: BellRing, reports: FileText, plans: CalendarDays } as const;
 
 function isActive(pathname: string, href: string): boolean {
   return href === '/' ? pathname === '/' : pathname === href || pathname.startsWith(`${href}/`);

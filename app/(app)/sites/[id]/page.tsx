@@ -4,6 +4,8 @@ import { ButtonLink } from '@/components/ui/button';
 import { KeepSitePanel } from '@/components/offline/keep-site-panel';
 import { Card, PageHeader } from '@/components/ui/card';
 import { FollowUpList } from '@/components/visits/follow-up-list';
+import { SitePlans } from '@/components/plans/site-plans';
+import { upcomingPlansForSite } from '@/lib/plans/service';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
@@ -38,11 +40,12 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const canVisit = can(actor, 'visits.start') && !site.archivedAt;
   // Owners ask for service here; the office records requests it takes by phone the same way.
   const canRequest = actor.role === 'client' && can(actor, 'requests.create') && !site.archivedAt;
-  const [followUps, myOpenVisit, recentVisits, recentPhotos] = await Promise.all([
+  const [followUps, myOpenVisit, recentVisits, recentPhotos, plans] = await Promise.all([
     listFollowUps(actor, { siteId: id, status: ['open', 'scheduled'], limit: 50 }),
     canVisit ? listVisits(actor, { siteId: id, status: 'open', technicianId: actor.id, limit: 1 }).then((p) => p.items[0]) : undefined,
     listVisits(actor, { siteId: id, status: 'closed', limit: 5 }),
     recentSitePhotos(actor, id, 8),
+    upcomingPlansForSite(actor, id),
   ]);
 
   return (
@@ -128,6 +131,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         </div>
         <FollowUpList items={followUps.items} canWrite={can(actor, 'followups.write')} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
       </section>
+      <SitePlans plans={plans} siteId={site.id} canPlan={can(actor, 'plans.write') && !site.archivedAt} />
       <SiteRecentVisits visits={recentVisits.items} siteId={site.id} />
       <SiteRecentPhotos photos={recentPhotos} timeZone={site.timeZone} />
       <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />

@@ -51,6 +51,11 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
         </div>
         <div className="flex flex-wrap gap-2">
           {can(actor, 'equipment.write') && !system.archivedAt ? <ButtonLink href={registerHref}>Register equipment</ButtonLink> : null}
+          {can(actor, 'plans.write') && !system.archivedAt ? (
+            <ButtonLink href={`/plans/new?siteId=${system.siteId}&systemId=${system.id}`} variant="secondary">
+              Plan a visit
+            </ButtonLink>
+          ) : null}
           {canWrite ? (
             <>
               <ButtonLink href={`/systems/${system.id}/edit`} variant="secondary">

@@ -1,0 +1,32 @@
+import Link from 'next/link';
+import { PlanCard } from '@/components/plans/plan-card';
+import type { PlanDto } from '@/lib/plans/dto';
+
+/** A site's coming planned visits (its own page: no site link, the owner reads "Visit planned"). */
+export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId: string; canPlan: boolean }) {
+  return (
+    <section aria-labelledby="site-plans-h" className="space-y-3">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="site-plans-h" className="text-lg font-semibold">
+          Planned visits
+        </h2>
+        {canPlan ? (
+          <Link href={`/plans/new?siteId=${siteId}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
+            Plan a visit here
+          </Link>
+        ) : null}
+      </div>
+      {plans.length === 0 ? (
+        <p className="text-slate-700">No visit planned yet.</p>
+      ) : (
+        <ul className="grid gap-2 md:grid-cols-2">
+          {plans.map((p) => (
+            <li key={p.id} className="min-w-0">
+              <PlanCard plan={p} showDay linkSite={false} />
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
