@@ -3,6 +3,7 @@ import { promises as fs } from 'node:fs';
 import path from 'node:path';
 import { FileMigrationProvider, Kysely, Migrator, PostgresDialect, type MigrationProvider, type MigrationResultSet } from 'kysely';
 import pg from 'pg';
+import { databaseUrl } from '@/db/url';
 
 export function createMigrator(db: Kysely<unknown>, provider?: MigrationProvider): Migrator {
   return new Migrator({
@@ -25,8 +26,7 @@ function report({ error, results }: MigrationResultSet): void {
 
 async function main(): Promise<void> {
   const command = process.argv[2] ?? 'latest';
-  const connectionString = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/rimeline';
-  const db = new Kysely<unknown>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max: 2 }) }) });
+  const db = new Kysely<unknown>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: databaseUrl(), max: 2 }) }) });
   const migrator = createMigrator(db);
   try {
     if (command === 'latest') report(await migrator.migrateToLatest());

@@ -2,15 +2,14 @@
 // A fresh demo also gets its history (equipment, visits, follow-ups, tags, photos, requests),
 // written through the app's services, so it needs the app's environment and the object store.
 import '@/docker-free-scripts/server-modules';
-import { Kysely, PostgresDialect } from 'kysely';
+import type { Kysely } from 'kysely';
 import nodemailer from 'nodemailer';
-import { pg } from '@/db/pg-types';
+import { connectDb } from '@/db/connect';
 import type { DB } from '@/db/schema.gen';
-import { demoExists, seedDemo } from '@/db/seeds/demo';
-import { seedDemoLeakWork } from '@/db/seeds/demo-leak-work';
+import { demoExists, seedDemo } from '@/docker-free-scripts/demo/scenario';
+import { seedDemoLeakWork } from '@/docker-free-scripts/demo/leak-work';
 
-const connectionString = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/rimeline';
-const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString, max: 2 }) }) });
+const db = connectDb();
 let appDb: Kysely<DB> | null = null;
 try {
   // Data already there is never added to.
@@ -21,7 +20,7 @@ try {
     // none of them (the transport module takes a transport cached here), and the history removes
     // its rows from the outbox when it is done.
     (globalThis as { rimelineMail?: unknown }).rimelineMail = nodemailer.createTransport({ jsonTransport: true });
-    const { seedDemoHistory } = await import('@/db/seeds/demo-history');
+    const { seedDemoHistory } = await import('@/docker-free-scripts/demo/history');
     const { ensureBucket } = await import('@/storage/objects');
     appDb = (await import('@/db')).db;
     // The object store is checked before anything is written, so a store that is down leaves no

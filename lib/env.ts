@@ -1,5 +1,6 @@
 import 'server-only';
 import { z } from 'zod';
+import { DEFAULT_DATABASE_URL } from '@/db/url';
 
 // The only place that reads server variables. Defaults fit the embedded single-machine setup;
 // production points these at managed services without code changes (see README).
@@ -10,7 +11,7 @@ const booleanFlag = z
 
 const serverEnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
-  DATABASE_URL: z.url().default('postgres://postgres@127.0.0.1:54329/rimeline'),
+  DATABASE_URL: z.url().default(DEFAULT_DATABASE_URL),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   S3_ENDPOINT: z.url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),

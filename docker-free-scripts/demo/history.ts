@@ -6,13 +6,13 @@
 // scenario (resetToDemo) stays empty of equipment.
 import { sql, type Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
-import { DEMO_COMPANY, demoUsers } from '@/db/seeds/demo';
-import { loadActor } from '@/db/seeds/history/actors';
-import { addMinutes, daysBefore, siteTime } from '@/db/seeds/history/clock';
-import { demoPlant } from '@/db/seeds/history/plant';
-import { seededRandom } from '@/db/seeds/history/readings';
-import type { DemoState, VisitLog } from '@/db/seeds/history/recorder';
-import { writeStory } from '@/db/seeds/history/story';
+import { DEMO_COMPANY, demoUsers } from '@/docker-free-scripts/demo/scenario';
+import { loadActor } from '@/docker-free-scripts/demo/history/actors';
+import { addMinutes, daysBefore, siteTime } from '@/docker-free-scripts/demo/history/clock';
+import { demoPlant } from '@/docker-free-scripts/demo/history/plant';
+import { seededRandom } from '@/docker-free-scripts/demo/history/readings';
+import type { DemoState, VisitLog } from '@/docker-free-scripts/demo/history/recorder';
+import { writeStory } from '@/docker-free-scripts/demo/history/story';
 import { addRelation, createEquipment } from '@/lib/equipment/service';
 import { createEquipmentSchema, createRelationSchema, createSystemSchema } from '@/lib/equipment/schemas';
 import { createRequest, updateRequest } from '@/lib/requests/service';

@@ -6,7 +6,7 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import { evaluateLeakEvent } from '@/lib/calc/leak-rate';
-import { DEMO_COMPANY } from '@/db/seeds/demo';
+import { DEMO_COMPANY } from '@/docker-free-scripts/demo/scenario';
 
 const SITE = 'Orchard Row Bistro';
 const SYSTEM = 'Walk-in cooler circuit';

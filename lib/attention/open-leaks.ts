@@ -1,6 +1,6 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
-import { siteVisibleTo } from '@/db/helpers';
+import { entryVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
 import { leakFollowThrough, type LeakFollowThrough, type LeakWorkItem } from '@/lib/attention/leak-follow-through';
@@ -33,6 +33,7 @@ export async function openLeaks(actor: Actor, siteId: string | null, db: Db, tod
     .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
     .where(siteVisibleTo(actor))
+    .where(entryVisibleTo(actor))
     .where('equipment.deleted_at', 'is', null)
     .where('equipment.status', '<>', 'removed')
     .where('entries.kind', '=', 'refrigerant')
@@ -60,7 +61,7 @@ export async function openLeaks(actor: Actor, siteId: string | null, db: Db, tod
     ? await db
         .selectFrom('entries')
         .where('entries.system_id', 'in', systems)
-        .where('entries.company_id', '=', actor.companyId)
+        .where(entryVisibleTo(actor))
         .where('entries.kind', '=', 'leak')
         .where('entries.voided_at', 'is', null)
         .where('entries.recorded_at', '>', new Date(today.getTime() - 2 * YEAR_MS))

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { entryVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -52,6 +52,7 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
   const noCooling = await base()
     .innerJoin('entries', 'entries.equipment_id', 'equipment.id')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
+    .where(visitVisibleTo(actor))
     .where('visits.reason', '=', 'no_cooling')
     .where('visits.started_at', '>', new Date(today.getTime() - 90 * 86_400_000))
     .select(['equipment.id', sql<string[]>`array_agg(distinct visits.id::text)`.as('visit_ids')])
@@ -67,6 +68,7 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
         .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
         .innerJoin('sites', 'sites.id', 'equipment.site_id')
         .where(siteVisibleTo(actor))
+        .where(entryVisibleTo(actor))
         .where('entries.kind', '=', 'condition')
         .where('entries.voided_at', 'is', null)
         .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))

@@ -11,10 +11,3 @@ export function can(actor: Actor, permission: Permission): boolean {
 export function assertCan(actor: Actor, permission: Permission): void {
   if (!can(actor, permission)) throw new AppError('forbidden');
 }
-
-/** Client users see only their own client's records; staff see their whole company. */
-export function clientScope(actor: Actor): string | null {
-  if (actor.role !== 'client') return null;
-  if (!actor.clientId) throw new AppError('forbidden', 'This account is not linked to a client.');
-  return actor.clientId;
-}

@@ -1,9 +1,11 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { clientVisibleTo, escapeLike } from '@/db/helpers';
+import { escapeLike } from '@/db/helpers';
+import { clientVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { decodeCursor, type Page } from '@/lib/api/cursor';
+import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -47,22 +49,9 @@ export async function listClients(actor: Actor, query: ListClientsQuery, db: Db 
   if (query.archived === 'exclude') q = q.where('clients.archived_at', 'is', null);
   if (query.archived === 'only') q = q.where('clients.archived_at', 'is not', null);
   if (query.q) q = q.where('clients.name', 'ilike', `%${escapeLike(query.q)}%`);
-  if (cursor) {
-    const key = String(cursor.k ?? '');
-    q = q.where((eb) =>
-      eb.or([
-        eb(sql`lower(clients.name)`, '>', key),
-        eb.and([eb(sql`lower(clients.name)`, '=', key), eb('clients.id', '>', cursor.id)]),
-      ]),
-    );
-  }
+  if (cursor) q = q.where(afterCursor(cursor, 'lower(clients.name)', 'clients.id', 'asc'));
   const rows = await q.orderBy(sql`lower(clients.name)`).orderBy('clients.id').limit(query.limit + 1).execute();
-  const items = rows.slice(0, query.limit).map(toClientDto);
-  const last = items.at(-1);
-  return {
-    items,
-    nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.name.toLowerCase(), id: last.id }) : null,
-  };
+  return toPage(rows, query.limit, toClientDto, (r) => ({ k: r.name.toLowerCase(), id: r.id }));
 }
 
 export async function getClient(actor: Actor, id: string, db: Db = defaultDb): Promise<ClientDto> {

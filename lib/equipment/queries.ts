@@ -1,5 +1,6 @@
 import { sql, type Expression, type Kysely, type RawBuilder, type Transaction } from 'kysely';
-import { escapeLike, siteVisibleTo } from '@/db/helpers';
+import { escapeLike } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import { decodeCursor } from '@/lib/api/cursor';
 import type { Actor } from '@/lib/auth/actor';

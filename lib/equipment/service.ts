@@ -5,6 +5,7 @@ import type { DB } from '@/db/schema.gen';
 import { encodeCursor, type Page } from '@/lib/api/cursor';
 import { zodIssues } from '@/lib/api/issues';
 import { assertCan, can } from '@/lib/auth/access';
+import { entryVisibleTo } from '@/lib/auth/scope';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto, type UnitFactsDto } from '@/lib/equipment/dto';
@@ -237,17 +238,16 @@ export async function removeRelation(actor: Actor, id: string, relationId: strin
 export async function getUnitFacts(actor: Actor, equipment: Pick<EquipmentDto, 'id' | 'siteId'>, db: Db = defaultDb): Promise<UnitFactsDto> {
   assertCan(actor, 'equipment.read');
   await assertEquipmentVisible(actor, equipment.id, db);
-  let last = db
+  const last = db
     .selectFrom('entries')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .innerJoin('sites', 'sites.id', 'visits.site_id')
     .where('entries.equipment_id', '=', equipment.id)
-    .where('entries.company_id', '=', actor.companyId)
+    .where(entryVisibleTo(actor))
     .where('entries.voided_at', 'is', null)
     .select(['visits.id', 'visits.started_at', 'sites.time_zone'])
     .orderBy('visits.started_at', 'desc')
     .limit(1);
-  if (actor.role === 'client') last = last.where('visits.status', '=', 'closed');
   const [lastRow, followUps, openVisit, tag] = await Promise.all([
     last.executeTakeFirst(),
     db

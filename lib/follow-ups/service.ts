@@ -1,9 +1,10 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { decodeCursor, type Page } from '@/lib/api/cursor';
+import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -81,11 +82,9 @@ export async function listFollowUps(actor: Actor, query: ListFollowUpsQuery, db:
   if (query.siteId) q = q.where('follow_ups.site_id', '=', query.siteId);
   if (query.equipmentId) q = q.where('follow_ups.equipment_id', '=', query.equipmentId);
   if (query.severity?.length) q = q.where('follow_ups.severity', 'in', query.severity);
-  if (cursor) q = q.where(sql<boolean>`(follow_ups.created_at, follow_ups.id) > (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
+  if (cursor) q = q.where(afterCursor(cursor, 'follow_ups.created_at', 'follow_ups.id', 'asc', 'timestamptz'));
   const rows = await q.orderBy('follow_ups.created_at').orderBy('follow_ups.id').limit(query.limit + 1).execute();
-  const items = rows.slice(0, query.limit).map(toDto);
-  const last = items.at(-1);
-  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.createdAt, id: last.id }) : null };
+  return toPage(rows, query.limit, toDto, (r) => ({ k: r.created_at.toISOString(), id: r.id }));
 }
 
 export async function getFollowUp(actor: Actor, id: string, db: Db = defaultDb): Promise<FollowUpDto> {

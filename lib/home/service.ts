@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { Actor } from '@/lib/auth/actor';
 
 export interface HomeCounts {

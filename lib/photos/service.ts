@@ -2,9 +2,10 @@ import 'server-only';
 import { randomUUID } from 'node:crypto';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import { decodeCursor, encodeCursor } from '@/lib/api/cursor';
+import { decodeCursor } from '@/lib/api/cursor';
+import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -80,10 +81,7 @@ export async function listPhotos(actor: Actor, equipmentId: string, query: ListP
     .where('photos.equipment_id', '=', equipmentId)
     .select([...dtoColumns, sql<string>`photos.sort_at::text`.as('sort_key')]);
   if (query.kind.length) q = q.where('photos.kind', 'in', query.kind);
-  if (cursor) {
-    const at = typeof cursor.k === 'string' ? cursor.k : '';
-    q = q.where(sql<boolean>`(photos.sort_at, photos.id) < (${at}::timestamptz, ${cursor.id}::uuid)`);
-  }
+  if (cursor) q = q.where(afterCursor(cursor, 'photos.sort_at', 'photos.id', 'desc', 'timestamptz'));
   const rows = await q.orderBy('photos.sort_at', 'desc').orderBy('photos.id', 'desc').limit(query.limit + 1).execute();
   const counts = await db
     .selectFrom('photos')
@@ -94,11 +92,8 @@ export async function listPhotos(actor: Actor, equipmentId: string, query: ListP
     .execute();
   const kindCounts = Object.fromEntries(photoKinds.map((k) => [k, 0])) as Record<PhotoKind, number>;
   for (const c of counts) kindCounts[c.kind as PhotoKind] = Number(c.n);
-  const page = rows.slice(0, query.limit);
-  const last = page.at(-1);
   return {
-    items: page.map((r) => toPhotoDto(r, canEdit(actor, r.uploaded_by))),
-    nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.sort_key, id: last.id }) : null,
+    ...toPage(rows, query.limit, (r) => toPhotoDto(r, canEdit(actor, r.uploaded_by)), (r) => ({ k: r.sort_key, id: r.id })),
     kindCounts,
     total: Object.values(kindCounts).reduce((a, b) => a + b, 0),
     canUpload: can(actor, 'photos.upload'),

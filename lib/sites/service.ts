@@ -1,9 +1,11 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { escapeLike, siteVisibleTo } from '@/db/helpers';
+import { escapeLike } from '@/db/helpers';
+import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import { decodeCursor, type Page } from '@/lib/api/cursor';
+import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -63,19 +65,9 @@ export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = de
     const like = `%${escapeLike(query.q)}%`;
     q = q.where((eb) => eb.or([eb('sites.name', 'ilike', like), eb('sites.city', 'ilike', like), eb('clients.name', 'ilike', like)]));
   }
-  if (cursor) {
-    const key = String(cursor.k ?? '');
-    q = q.where((eb) =>
-      eb.or([
-        eb(sql`lower(sites.name)`, '>', key),
-        eb.and([eb(sql`lower(sites.name)`, '=', key), eb('sites.id', '>', cursor.id)]),
-      ]),
-    );
-  }
+  if (cursor) q = q.where(afterCursor(cursor, 'lower(sites.name)', 'sites.id', 'asc'));
   const rows = await q.orderBy(sql`lower(sites.name)`).orderBy('sites.id').limit(query.limit + 1).execute();
-  const items = rows.slice(0, query.limit).map(toSiteDto);
-  const last = items.at(-1);
-  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.name.toLowerCase(), id: last.id }) : null };
+  return toPage(rows, query.limit, toSiteDto, (r) => ({ k: r.name.toLowerCase(), id: r.id }));
 }
 
 export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Promise<SiteDto> {

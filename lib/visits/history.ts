@@ -2,8 +2,10 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
-import { encodeCursor, type Page } from '@/lib/api/cursor';
+import type { Page } from '@/lib/api/cursor';
+import { toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
+import { entryVisibleTo } from '@/lib/auth/scope';
 import type { Actor } from '@/lib/auth/actor';
 import { assertEquipmentVisible } from '@/lib/equipment/service';
 import type { EntryDto } from '@/lib/visits/dto';
@@ -31,7 +33,7 @@ export async function systemHistory(actor: Actor, systemId: string, query: Histo
 
 async function historyPage(actor: Actor, db: Db, query: HistoryQuery, scope: HistoryScope): Promise<Page<EntryDto>> {
   const rows = await buildHistoryQuery(actor, db, query, scope).execute();
-  const items = rows.slice(0, query.limit).map((r) => ({
+  const toDto = (r: (typeof rows)[number]): EntryDto => ({
     ...toEntryDto(r),
     visit: {
       reason: r.visit_reason as VisitReason,
@@ -40,9 +42,8 @@ async function historyPage(actor: Actor, db: Db, query: HistoryQuery, scope: His
       status: r.visit_status as 'open' | 'closed',
       timeZone: r.visit_time_zone,
     },
-  }));
-  const last = items.at(-1);
-  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.recordedAt, id: last.id }) : null };
+  });
+  return toPage(rows, query.limit, toDto, (r) => ({ k: r.recorded_at.toISOString(), id: r.id }));
 }
 
 const COMPUTED_KEYS = new Set(['superheatK', 'subcoolingK', 'evaporatorTdK', 'condenserSplitK', 'compressionRatio', 'unbalancePct', 'evaporatingC', 'condensingC']);
@@ -52,16 +53,16 @@ export async function readingSeries(actor: Actor, equipmentId: string, key: stri
   assertCan(actor, 'visits.read');
   await assertEquipmentVisible(actor, equipmentId, db);
   const column = COMPUTED_KEYS.has(key) ? 'computed' : 'data';
-  let q = db
+  const q = db
     .selectFrom('entries')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .select(['entries.recorded_at', sql<number>`(entries.${sql.raw(column)}->>${key})::float8`.as('value')])
+    .where(entryVisibleTo(actor))
     .where('entries.equipment_id', '=', equipmentId)
     .where('entries.kind', '=', 'reading')
     .where('entries.voided_at', 'is', null)
     .where(sql<boolean>`entries.${sql.raw(column)} ? ${key}`)
     .where(sql<boolean>`jsonb_typeof(entries.${sql.raw(column)}->${key}) = 'number'`);
-  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
   const rows = await q.orderBy('entries.recorded_at').limit(500).execute();
   return rows.map((r) => ({ recordedAt: r.recorded_at.toISOString(), value: Number(r.value) }));
 }

@@ -1,7 +1,9 @@
 import { sql, type Kysely, type Transaction } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import { decodeCursor } from '@/lib/api/cursor';
+import { afterCursor } from '@/lib/api/paging';
 import type { Actor } from '@/lib/auth/actor';
+import { entryVisibleTo } from '@/lib/auth/scope';
 import type { HistoryQuery } from '@/lib/visits/schemas';
 
 // Query builders only: the service runs them, and the benchmark times the very same SQL.
@@ -49,13 +51,12 @@ export type HistoryScope = { equipmentId: string } | { systemId: string };
 /** One history page, newest first, keyset on (recorded_at, id); owners see closed visits only. */
 export function buildHistoryQuery(actor: Actor, db: Db, query: HistoryQuery, scope: HistoryScope) {
   const cursor = decodeCursor(query.cursor);
-  let q = historyBase(db).where('entries.company_id', '=', actor.companyId);
+  let q = historyBase(db).where(entryVisibleTo(actor));
   q =
     'equipmentId' in scope
       ? q.where('entries.equipment_id', '=', scope.equipmentId)
       : q.where((eb) => eb.or([eb('entries.system_id', '=', scope.systemId), eb('equipment.system_id', '=', scope.systemId)]));
-  if (actor.role === 'client') q = q.where('visits.status', '=', 'closed');
   if (query.kind?.length) q = q.where('entries.kind', 'in', query.kind);
-  if (cursor) q = q.where(sql<boolean>`(entries.recorded_at, entries.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
+  if (cursor) q = q.where(afterCursor(cursor, 'entries.recorded_at', 'entries.id', 'desc', 'timestamptz'));
   return q.orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1);
 }

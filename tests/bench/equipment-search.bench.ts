@@ -5,7 +5,7 @@ import { performance } from 'node:perf_hooks';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import type { Actor } from '@/lib/auth/actor';
 import { buildEquipmentListQuery } from '@/lib/equipment/queries';
 import { listEquipmentQuerySchema } from '@/lib/equipment/schemas';

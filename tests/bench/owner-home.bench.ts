@@ -6,7 +6,7 @@ import bcrypt from 'bcryptjs';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { DEMO_PASSWORD, seedDemo } from '@/db/seeds/demo';
+import { DEMO_PASSWORD, seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { benchRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const SITES = 50;

@@ -10,7 +10,7 @@ import { Kysely, PostgresDialect } from 'kysely';
 import sharp from 'sharp';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import type { Actor } from '@/lib/auth/actor';
 import { displayPipeline, sharpInputOptions, thumbPipeline } from '@/lib/photos/process';
 import { benchRow, signedInFetch } from '@/tests/bench/support/http';

@@ -8,7 +8,7 @@ import { chromium } from '@playwright/test';
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { actorFromRow } from '@/lib/auth/actor';
 import { packFollowUpsQuery, packHistoryQuery, packOpenVisitQuery, packUnitsQuery } from '@/lib/sites/pack-queries';
 import { checkSymbol, formatCode } from '@/lib/tags/code';

@@ -7,7 +7,7 @@ import { Kysely, PostgresDialect, sql } from 'kysely';
 import * as QRCode from 'qrcode';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import type { Actor } from '@/lib/auth/actor';
 import { equipmentBaseQuery, refrigerantExpr, selection } from '@/lib/equipment/queries';
 import { generateCode } from '@/lib/tags/code';

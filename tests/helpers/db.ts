@@ -1,7 +1,7 @@
 import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { actorFromRow, type Actor } from '@/lib/auth/actor';
 
 export const testDatabaseUrl = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54339/rimeline_test';

@@ -2,8 +2,8 @@
 // technician then find through the services. Ends with the plain demo, as other files expect.
 import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoHistory, TAGGED_SITE, type HistoryCounts } from '@/db/seeds/demo-history';
-import { seedDemoLeakWork } from '@/db/seeds/demo-leak-work';
+import { seedDemoHistory, TAGGED_SITE, type HistoryCounts } from '@/docker-free-scripts/demo/history';
+import { seedDemoLeakWork } from '@/docker-free-scripts/demo/leak-work';
 import type { Signal } from '@/lib/attention/rank';
 import { needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';

@@ -1,7 +1,7 @@
 // A second `npm start` runs the migrations and the demo loader again: both must keep all data.
 import { execFileSync } from 'node:child_process';
 import { afterAll, describe, expect, it } from 'vitest';
-import { seedDemo } from '@/db/seeds/demo';
+import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { createTestDb, resetToDemo } from '@/tests/helpers/db';
 
 const db = createTestDb();

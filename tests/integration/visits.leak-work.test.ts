@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { down as revertLeakKind } from '@/db/migrations/2026_12_02_0900_add_leak_entry_kind';
-import { seedDemoLeakWork } from '@/db/seeds/demo-leak-work';
+import { seedDemoLeakWork } from '@/docker-free-scripts/demo/leak-work';
 import type { Actor } from '@/lib/auth/actor';
 import { refrigerantReport, reportFile } from '@/lib/reports/service';
 import { describeEntry } from '@/lib/visits/report-content';

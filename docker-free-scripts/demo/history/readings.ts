@@ -8,7 +8,7 @@ import { barometricPressureKpa } from '@/lib/calc/atmosphere';
 import { bubblePressureKpa, dewPressureKpa } from '@/lib/calc/saturation';
 import { KPA_PER_PSI } from '@/lib/calc/units';
 import type { ReadingData } from '@/lib/visits/schemas';
-import type { SystemSpec } from '@/db/seeds/history/plant';
+import type { SystemSpec } from '@/docker-free-scripts/demo/history/plant';
 
 /** A small seeded generator (mulberry32), so the demo's scatter is the same on every load. */
 export function seededRandom(seed: number): () => number {

@@ -15,9 +15,9 @@ import { closeVisit } from '@/lib/visits/close';
 import { addEntry } from '@/lib/visits/entries';
 import { markReviewed, startVisit } from '@/lib/visits/service';
 import { closeVisitSchema, createEntrySchema, startVisitSchema, type EntryKind, type Severity, type VisitReason } from '@/lib/visits/schemas';
-import { addMinutes, dayOfYear, siteDate } from '@/db/seeds/history/clock';
-import type { SystemSpec } from '@/db/seeds/history/plant';
-import { operatingReading, type Deviation } from '@/db/seeds/history/readings';
+import { addMinutes, dayOfYear, siteDate } from '@/docker-free-scripts/demo/history/clock';
+import type { SystemSpec } from '@/docker-free-scripts/demo/history/plant';
+import { operatingReading, type Deviation } from '@/docker-free-scripts/demo/history/readings';
 
 export interface SiteInfo {
   id: string;

@@ -11,11 +11,11 @@
 // - Quarry Road Market: an overcharged frozen-aisle circuit has refrigerant recovered.
 // - Orchard Row Bistro: a bar reach-in's small repairs (its walk-in cooler's leak work comes from
 //   demo-leak-work.ts).
-import { exifTime, siteDate, siteTime } from '@/db/seeds/history/clock';
-import { damageImage, nameplateImage } from '@/db/seeds/history/images';
-import { fToC, lb, psig } from '@/db/seeds/history/plant';
-import type { Deviation } from '@/db/seeds/history/readings';
-import { logVisit, type DemoState, type VisitLog, type VisitPlan } from '@/db/seeds/history/recorder';
+import { exifTime, siteDate, siteTime } from '@/docker-free-scripts/demo/history/clock';
+import { damageImage, nameplateImage } from '@/docker-free-scripts/demo/history/images';
+import { fToC, lb, psig } from '@/docker-free-scripts/demo/history/plant';
+import type { Deviation } from '@/docker-free-scripts/demo/history/readings';
+import { logVisit, type DemoState, type VisitLog, type VisitPlan } from '@/docker-free-scripts/demo/history/recorder';
 
 const F_DIFF = (f: number) => f / 1.8;
 

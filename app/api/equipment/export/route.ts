@@ -1,3 +1,4 @@
+import { downloadResponse } from '@/lib/api/download';
 import { withApi } from '@/lib/api/handler';
 import { exportEquipmentCsv } from '@/lib/equipment/import';
 import { listEquipmentQuerySchema } from '@/lib/equipment/schemas';
@@ -8,7 +9,5 @@ const exportQuerySchema = listEquipmentQuerySchema.omit({ cursor: true, limit: t
 export const GET = withApi({ query: exportQuerySchema }, async ({ actor, query }) => {
   const csv = await exportEquipmentCsv(actor, query);
   const stamp = new Date().toISOString().slice(0, 10);
-  return new Response(csv, {
-    headers: { 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="equipment-${stamp}.csv"`, 'Cache-Control': 'no-store' },
-  });
+  return downloadResponse({ filename: `equipment-${stamp}.csv`, contentType: 'text/csv; charset=utf-8', body: csv });
 });

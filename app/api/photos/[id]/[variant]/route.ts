@@ -1,3 +1,4 @@
+import { contentDisposition } from '@/lib/api/download';
 import { withApi } from '@/lib/api/handler';
 import { photoVariantParamsSchema, photoVariantQuerySchema } from '@/lib/photos/schemas';
 import { openPhotoFile } from '@/lib/photos/service';
@@ -13,7 +14,7 @@ export const GET = withApi({ permission: 'photos.read', params: photoVariantPara
     'Cache-Control': 'private, max-age=86400, immutable',
     'X-Content-Type-Options': 'nosniff',
     'Content-Security-Policy': "default-src 'none'; sandbox",
-    'Content-Disposition': `${query.download ? 'attachment' : 'inline'}; filename="${file.fileName.replace(/[^\x20-\x7e]|"/g, '_')}"; filename*=UTF-8''${encodeURIComponent(file.fileName)}`,
+    'Content-Disposition': contentDisposition(query.download ? 'attachment' : 'inline', file.fileName),
   });
   if (file.contentLength !== null) headers.set('Content-Length', String(file.contentLength));
   return new Response(file.body, { status: 200, headers });

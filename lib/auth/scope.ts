@@ -1,0 +1,68 @@
+import { sql, type Expression, type SqlBool } from 'kysely';
+import type { Actor } from '@/lib/auth/actor';
+import { AppError } from '@/lib/errors';
+
+// Who sees what, stated once; every query that filters by visibility uses these.
+// - Staff (admin, office, technician) see everything of their own company.
+// - An owner (a client user) sees their own client, its sites and what hangs from them (areas,
+//   systems, units, photos, follow-ups, requests), and of the visits only the closed ones: an open
+//   visit is work in progress. So its entries reach an owner only once it closes, everywhere they
+//   show: history, charts, reports, attention lists and site cards.
+// Records outside the scope read as "not found". Each filter is SQL for `.where(…)`, written
+// against the table names (clients, sites, visits, entries, photos), so it fits any query that has
+// those tables, whatever else it joins.
+
+/** The client an owner is tied to; null for staff, who see every client of their company. */
+export function clientScope(actor: Actor): string | null {
+  if (actor.role !== 'client') return null;
+  if (!actor.clientId) throw new AppError('forbidden', 'This account is not linked to a client.');
+  return actor.clientId;
+}
+
+/** Whether open visits (and their entries) are shown to this actor. */
+export function seesOpenVisits(actor: Actor): boolean {
+  return actor.role !== 'client';
+}
+
+/** Clients: needs `clients` in the query. */
+export function clientVisibleTo(actor: Actor) {
+  const clientId = clientScope(actor);
+  return (): Expression<SqlBool> =>
+    clientId === null
+      ? sql<SqlBool>`clients.company_id = ${actor.companyId}`
+      : sql<SqlBool>`(clients.company_id = ${actor.companyId} and clients.id = ${clientId})`;
+}
+
+/** Sites, and anything reached through a site (areas, systems, units, follow-ups): needs `sites`. */
+export function siteVisibleTo(actor: Actor) {
+  const clientId = clientScope(actor);
+  return (): Expression<SqlBool> =>
+    clientId === null
+      ? sql<SqlBool>`sites.company_id = ${actor.companyId}`
+      : sql<SqlBool>`(sites.company_id = ${actor.companyId} and sites.client_id = ${clientId})`;
+}
+
+/** Visits: needs `visits` and `sites` (the visit's own site) in the query. */
+export function visitVisibleTo(actor: Actor) {
+  const site = siteVisibleTo(actor);
+  return (): Expression<SqlBool> =>
+    seesOpenVisits(actor) ? site() : sql<SqlBool>`(${site()} and visits.status = 'closed')`;
+}
+
+/**
+ * Entries: needs only `entries` in the query. An owner's filter looks the entry's visit and its
+ * site up itself, so it holds whatever the query joins (or does not).
+ */
+export function entryVisibleTo(actor: Actor) {
+  const clientId = clientScope(actor);
+  return (): Expression<SqlBool> =>
+    clientId === null
+      ? sql<SqlBool>`entries.company_id = ${actor.companyId}`
+      : sql<SqlBool>`(entries.company_id = ${actor.companyId} and exists (select 1 from visits as scope_visit inner join sites as scope_site on scope_site.id = scope_visit.site_id where scope_visit.id = entries.visit_id and scope_visit.status = 'closed' and scope_site.client_id = ${clientId}))`;
+}
+
+/** Photos belong to their unit and are seen with it: needs `photos` and `sites` (the unit's). */
+export function photoVisibleTo(actor: Actor) {
+  const site = siteVisibleTo(actor);
+  return (): Expression<SqlBool> => sql<SqlBool>`(photos.company_id = ${actor.companyId} and ${site()})`;
+}
