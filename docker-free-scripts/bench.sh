@@ -104,33 +104,7 @@ mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
 rl_start_reaper
 if [ "$keep" = 1 ]; then rl_ok "kept the previous data (--keep)"; else rl_ok "wiped"; fi
 
-next_step "Checking npm packages"
-if rl_need_npm_ci; then
-  printf 'installing with npm ci … '
-  rl_npm_ci "$RIMELINE_LOGS/npm-ci.log" || rl_die "npm ci failed." "check the network access to the npm registry." "$RIMELINE_LOGS/npm-ci.log"
-  rl_ok "installed"
-else
-  rl_ok "up to date"
-fi
-
-next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
-echo "$$" >"$RIMELINE_RUN/pg.owner"
-rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh "$profile" \
-  || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
-rl_ok "database $PG_DB"
-
-next_step "Starting the S3 fake on 127.0.0.1:$S3_PORT"
-rl_start_s3 || exit 1
-rl_ok "bucket $S3_BUCKET"
-
-next_step "Starting the mail catcher on 127.0.0.1:$SMTP_PORT (API on :$MAIL_HTTP_PORT)"
-rl_start_mail || exit 1
-rl_ok
-
-next_step "Running database migrations"
-rl_run_logged "$RIMELINE_LOGS/migrate.log" "$RL_TSX" db/migrate.ts latest \
-  || rl_die "The migrations failed." "fix the failing migration shown above." "$RIMELINE_LOGS/migrate.log"
-rl_ok
+rl_up next_step   # npm packages, PostgreSQL, S3 fake, mail catcher, migrations (lib.sh)
 
 # Benches that time the JSON API need the app over HTTP.
 if [ "$with_app" = 1 ]; then

@@ -37,7 +37,6 @@ const AZEOTROPES = new Set(['R507A']);
 // Square-root weights: an anchor point counts like 10,000 ordinary rows in the sum of squares.
 const ANCHOR_WEIGHT = 100;
 
-type Curve = 'bubble' | 'dew';
 type AnchorKind = 'critical' | 'pseudo-critical' | 'fitted-pseudo-critical';
 
 interface Point {

@@ -540,3 +540,64 @@ rl_pg_stop_profile() {
   [ -e "$RL_ROOT/.data/$1/pg" ] || return 0
   bash "$RL_SCRIPTS/db-stop.sh" "$1" --quiet
 }
+
+# ------------------------------------------------------------------ the start sequence
+# rl_up STEP_FN → the start sequence that start.sh, test.sh and bench.sh share, for the profile
+# env.sh set: npm packages, the PostgreSQL server (apt-get when absent) and the profile's cluster,
+# the S3 fake, the mail catcher, the migrations. STEP_FN "label" opens each step, so the caller
+# keeps its own numbering. Exits on a failure (the caller's EXIT trap stops what was started).
+# Sets RL_PG_OWNED=1 when this run started PostgreSQL (or took over a cluster an earlier, dead run
+# left): the caller stops it on exit. A cluster started by hand (npm run db:start) stays running.
+RL_PG_OWNED=0
+rl_up() {
+  local step_fn="$1" owner applied
+  "$step_fn" "Checking npm packages"
+  if rl_need_npm_ci; then
+    printf 'installing with npm ci (about a minute) … '
+    rl_npm_ci "$RIMELINE_LOGS/npm-ci.log" || rl_die "npm ci failed." \
+      "check the network access to the npm registry and the log above, then run this again." "$RIMELINE_LOGS/npm-ci.log"
+    rl_ok "installed"
+  else
+    rl_ok "up to date"
+  fi
+
+  "$step_fn" "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
+  if ! rl_pg_bindir >/dev/null; then
+    printf 'not installed, installing Debian'"'"'s postgresql package (apt-get) … '
+    rl_apt_install "$RIMELINE_LOGS/apt.log" postgresql || exit 1
+  fi
+  rl_pg_vars
+  if rl_pg_running; then
+    owner="$(cat "$RIMELINE_RUN/pg.owner" 2>/dev/null || true)"
+    if [ -n "$owner" ] && [ "$owner" != "$$" ] && ! rl_alive "$owner"; then
+      RL_PG_OWNED=1
+      echo "$$" >"$RIMELINE_RUN/pg.owner"
+      rl_ok "already running (left by an earlier run; it will be stopped on exit)"
+    else
+      rl_ok "already running (started with npm run db:start; it stays running on exit)"
+    fi
+  else
+    RL_PG_OWNED=1
+    echo "$$" >"$RIMELINE_RUN/pg.owner"
+    rl_run_logged "$RIMELINE_LOGS/db-start.log" bash "$RL_SCRIPTS/db-start.sh" "$RIMELINE_PROFILE" \
+      || rl_die "PostgreSQL did not start." "read the messages above; 'npm run db:start' shows the same steps." "$RIMELINE_LOGS/db-start.log"
+    rl_ok "database $PG_DB"
+  fi
+
+  "$step_fn" "Starting the S3 fake on 127.0.0.1:$S3_PORT"
+  rl_stop_stale s3 "S3 fake"
+  rl_start_s3 || exit 1
+  rl_ok "bucket $S3_BUCKET"
+
+  "$step_fn" "Starting the mail catcher on 127.0.0.1:$SMTP_PORT (API on :$MAIL_HTTP_PORT)"
+  rl_stop_stale mail "mail catcher"
+  rl_start_mail || exit 1
+  rl_ok
+
+  "$step_fn" "Running database migrations"
+  [ -f "$RL_ROOT/db/migrate.ts" ] || rl_die "db/migrate.ts is missing." "restore it from git (git checkout -- db/migrate.ts)."
+  rl_run_logged "$RIMELINE_LOGS/migrate.log" "$RL_TSX" "$RL_ROOT/db/migrate.ts" latest \
+    || rl_die "The migrations failed." "fix the failing migration shown above, then run this again." "$RIMELINE_LOGS/migrate.log"
+  applied="$(rl_last_run "$RIMELINE_LOGS/migrate.log" | grep -c ': Success' || true)"
+  if [ "$applied" -gt 0 ]; then rl_ok "$applied applied"; else rl_ok "already up to date"; fi
+}

@@ -33,9 +33,10 @@ rl_check_node
 source docker-free-scripts/env.sh dev
 mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
 LOGS="$RIMELINE_LOGS"
-TOTAL=9
+TOTAL=8
+step=0
+next_step() { step=$((step + 1)); rl_step "$step" "$TOTAL" "$1"; }
 
-pg_owned=0
 stopping=0
 
 cleanup() {
@@ -46,11 +47,11 @@ cleanup() {
   rl_stop_watcher
   rl_close_line
   rl_stop_child
-  if [ "${#RL_SERVICES[@]}" -gt 0 ] || [ "$pg_owned" = 1 ]; then
+  if [ "${#RL_SERVICES[@]}" -gt 0 ] || [ "$RL_PG_OWNED" = 1 ]; then
     echo "Stopping Rimeline …"
   fi
   rl_stop_services
-  if [ "$pg_owned" = 1 ]; then
+  if [ "$RL_PG_OWNED" = 1 ]; then
     printf '      stopping PostgreSQL (127.0.0.1:%s) … ' "$PG_PORT"
     if bash docker-free-scripts/db-stop.sh dev --quiet; then printf 'ok\n'; fi
     rm -f "$RIMELINE_RUN/pg.owner"
@@ -78,81 +79,22 @@ rl_lock dev
 rl_start_reaper
 echo "Rimeline ($mode) — data in $(rl_rel "$RIMELINE_DATA"), logs in $(rl_rel "$LOGS")"
 
-# ---------------------------------------------------------------------------------------- 1
-rl_step 1 $TOTAL "Checking npm packages"
-if rl_need_npm_ci; then
-  printf 'installing with npm ci (about a minute) … '
-  rl_npm_ci "$LOGS/npm-ci.log" || rl_die "npm ci failed." \
-    "check the network access to the npm registry and the log above; then run npm start again." "$LOGS/npm-ci.log"
-  rl_ok "installed"
-else
-  rl_ok "up to date"
-fi
+# ------------------------------------------------------------------- npm, PostgreSQL, S3, mail, migrations
+rl_up next_step
 
-# ---------------------------------------------------------------------------------------- 2
-rl_step 2 $TOTAL "Checking the PostgreSQL server"
-if pgbin="$(rl_pg_bindir)"; then
-  rl_ok "$(basename "$(dirname "$pgbin")") installed"
-else
-  printf 'not installed, installing Debian'"'"'s postgresql package (apt-get) … '
-  rl_apt_install "$LOGS/apt.log" postgresql || exit 1
-  rl_ok "installed"
-fi
-
-# ---------------------------------------------------------------------------------------- 3
-rl_step 3 $TOTAL "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
-rl_pg_vars
-if rl_pg_running; then
-  owner="$(cat "$RIMELINE_RUN/pg.owner" 2>/dev/null || true)"
-  if [ -n "$owner" ] && ! rl_alive "$owner"; then
-    # Left running by an earlier npm start that did not get to clean up: ours to stop at exit.
-    pg_owned=1
-    echo "$$" >"$RIMELINE_RUN/pg.owner"
-    rl_ok "already running (left by an earlier run; it will be stopped on exit)"
-  else
-    rl_ok "already running (started with npm run db:start; it stays running on exit)"
-  fi
-else
-  pg_owned=1
-  echo "$$" >"$RIMELINE_RUN/pg.owner"
-  rl_run_logged "$LOGS/db-start.log" bash docker-free-scripts/db-start.sh dev \
-    || rl_die "PostgreSQL did not start." "read the messages above; 'npm run db:start' shows the same steps." "$LOGS/db-start.log"
-  rl_ok
-fi
-
-# ---------------------------------------------------------------------------------------- 4
-rl_step 4 $TOTAL "Starting the S3 fake on 127.0.0.1:$S3_PORT"
-rl_stop_stale s3 "S3 fake"
-rl_start_s3 || exit 1
-rl_ok "bucket $S3_BUCKET"
-
-# ---------------------------------------------------------------------------------------- 5
-rl_step 5 $TOTAL "Starting the mail catcher on 127.0.0.1:$SMTP_PORT (API on :$MAIL_HTTP_PORT)"
-rl_stop_stale mail "mail catcher"
-rl_start_mail || exit 1
-rl_ok
-
-# ---------------------------------------------------------------------------------------- 6
-rl_step 6 $TOTAL "Running database migrations"
-[ -f db/migrate.ts ] || rl_die "db/migrate.ts is missing." "restore it from git (git checkout -- db/migrate.ts)."
-rl_run_logged "$LOGS/migrate.log" "$RL_TSX" db/migrate.ts latest \
-  || rl_die "The migrations failed." "fix the failing migration shown above, then run npm start again." "$LOGS/migrate.log"
-applied="$(rl_last_run "$LOGS/migrate.log" | grep -c ': Success' || true)"
-if [ "$applied" -gt 0 ]; then rl_ok "$applied applied"; else rl_ok "already up to date"; fi
-
-# ---------------------------------------------------------------------------------------- 7
-rl_step 7 $TOTAL "Loading the demo data (only when absent)"
+# ---------------------------------------------------------------------------------------- demo data
+next_step "Loading the demo data (only when absent)"
 [ -f docker-free-scripts/seed.ts ] || rl_die "docker-free-scripts/seed.ts is missing." "restore it from git."
 rl_run_logged "$LOGS/seed.log" "$RL_TSX" docker-free-scripts/seed.ts \
   || rl_die "Loading the demo data failed." "read the log above; 'npm run db:seed' runs the same step." "$LOGS/seed.log"
 rl_ok "$(rl_last_run "$LOGS/seed.log" | grep -v '^[[:space:]]*$' | tail -n 1 | sed 's/^[[:space:]]*//' | cut -c1-90)"
 
-# ---------------------------------------------------------------------------------------- 8
+# ---------------------------------------------------------------------------------------- build
 if [ "$mode" = dev ]; then
-  rl_step 8 $TOTAL "Building the app"
+  next_step "Building the app"
   rl_ok "skipped (next dev compiles on demand)"
 else
-  rl_step 8 $TOTAL "Building the app (next build)"
+  next_step "Building the app (next build)"
   why=""
   if [ "$rebuild" = 1 ]; then
     why="asked for with --rebuild"
@@ -178,8 +120,8 @@ else
   fi
 fi
 
-# ---------------------------------------------------------------------------------------- 9
-rl_step 9 $TOTAL "Starting the app on 127.0.0.1:$APP_PORT"
+# ---------------------------------------------------------------------------------------- app
+next_step "Starting the app on 127.0.0.1:$APP_PORT"
 rl_stop_stale app "app"
 rl_free_port "$APP_PORT" "app" || exit 1
 if [ "$mode" = dev ]; then

@@ -5,14 +5,18 @@
 #   npm test -- --unit-only               vitest only (no build, no browser)
 #   npm test -- --e2e-only                Playwright only (still builds the app)
 #   npm test -- --e2e-only --no-build     Playwright against the existing test build (.next or NEXT_DIST_DIR)
-#   npm test -- tests/unit/money          positional arguments are file filters for the runner(s)
+#   npm test -- tests/unit/money          positional arguments are file filters for the runner(s);
+#                                         such a targeted run skips the lint
+#   npm test -- --no-lint                 skip the lint (npm run lint runs it alone)
 #   npm test -- --e2e-only -- --grep "sign in" --project desktop
 #                                         everything after a second -- goes to the runner(s) verbatim
 #
 # Steps: stop anything an earlier test run left behind and wipe .data/test; install what is
 # missing (apt-get: chromium, zbar-tools, poppler-utils, postgresql; npm ci); start PostgreSQL
 # (127.0.0.1:54339, database rimeline_test, fsync off), the S3 fake (4571, bucket rimeline-test)
-# and the mail catcher (SMTP 1026, API 1081); run the migrations; vitest; next build with the
+# and the mail catcher (SMTP 1026, API 1081); run the migrations (that sequence is rl_up in lib.sh,
+# shared with npm start and npm run bench); the lint (ESLint, eslint.config.mjs: an error fails
+# the run, warnings are shown); vitest; next build with the
 # test environment; Playwright (its globalSetup resets the database to the demo scenario, its
 # webServer starts next on 127.0.0.1:3100).
 # Services are stopped on every exit path. The last line printed is always `N passed, N failed`
@@ -28,6 +32,7 @@ source docker-free-scripts/lib.sh
 run_unit=1
 run_e2e=1
 build=1
+lint=1
 filters=()
 runner_args=()
 while [ $# -gt 0 ]; do
@@ -35,7 +40,8 @@ while [ $# -gt 0 ]; do
     --unit-only) run_e2e=0 ;;
     --e2e-only) run_unit=0 ;;
     --no-build) build=0 ;;
-    -h|--help) sed -n '2,24p' "$0"; exit 0 ;;
+    --no-lint) lint=0 ;;
+    -h|--help) sed -n '2,26p' "$0"; exit 0 ;;
     --) shift; runner_args=("$@"); break ;;
     -*) echo "test.sh: unknown option $1 (runner options go after a second --, see --help)" >&2; exit 2 ;;
     *) filters+=("$1") ;;
@@ -55,7 +61,7 @@ case "$profile" in test|lane[1-9]) ;; *) echo "test.sh: RIMELINE_TEST_PROFILE mu
 source docker-free-scripts/env.sh "$profile"
 RL_DIST="${NEXT_DIST_DIR:-.next}"   # a lane builds into its own folder
 
-TOTAL=7
+TOTAL=8
 [ "$run_unit" = 1 ] && TOTAL=$((TOTAL + 1))
 [ "$run_e2e" = 1 ] && TOTAL=$((TOTAL + 2))
 step=0
@@ -206,33 +212,20 @@ else
   rl_ok "all present"
 fi
 
-next_step "Checking npm packages"
-if rl_need_npm_ci; then
-  printf 'installing with npm ci … '
-  rl_npm_ci "$RIMELINE_LOGS/npm-ci.log" || rl_die "npm ci failed." "check the network access to the npm registry and the log above." "$RIMELINE_LOGS/npm-ci.log"
-  rl_ok "installed"
+rl_up next_step   # npm packages, PostgreSQL, S3 fake, mail catcher, migrations (lib.sh)
+
+next_step "Linting (ESLint)"
+if [ "$lint" = 0 ]; then
+  rl_ok "skipped (--no-lint)"
+elif [ "${#filters[@]}" -gt 0 ]; then
+  rl_ok "skipped (a run of chosen files; npm run lint checks the tree)"
+elif rl_run_logged "$RIMELINE_LOGS/lint.log" node_modules/.bin/eslint --cache --cache-location ".data/eslint-$profile/" .; then
+  warnings="$(rl_last_run "$RIMELINE_LOGS/lint.log" | grep -oE '[0-9]+ warnings?' | tail -n 1 || true)"
+  rl_ok "${warnings:-clean}"
 else
-  rl_ok "up to date"
+  rl_fail "The lint found errors (eslint.config.mjs)." "fix them (npm run lint lists them); an import across a layer means the code belongs elsewhere." "$RIMELINE_LOGS/lint.log"
+  stage_failures+=("lint")
 fi
-
-next_step "Starting PostgreSQL on 127.0.0.1:$PG_PORT"
-echo "$$" >"$RIMELINE_RUN/pg.owner"
-rl_run_logged "$RIMELINE_LOGS/db-start.log" bash docker-free-scripts/db-start.sh "$profile" \
-  || rl_die "PostgreSQL did not start." "read the messages above." "$RIMELINE_LOGS/db-start.log"
-rl_ok "database $PG_DB"
-
-next_step "Starting the S3 fake on 127.0.0.1:$S3_PORT"
-rl_start_s3 || exit 1
-rl_ok "bucket $S3_BUCKET"
-
-next_step "Starting the mail catcher on 127.0.0.1:$SMTP_PORT (API on :$MAIL_HTTP_PORT)"
-rl_start_mail || exit 1
-rl_ok
-
-next_step "Running database migrations"
-rl_run_logged "$RIMELINE_LOGS/migrate.log" "$RL_TSX" db/migrate.ts latest \
-  || rl_die "The migrations failed." "fix the failing migration shown above." "$RIMELINE_LOGS/migrate.log"
-rl_ok
 
 # ------------------------------------------------------------------------------------ vitest
 if [ "$run_unit" = 1 ]; then

@@ -172,7 +172,7 @@ test('settings "as found" start empty, fill from the record on a tap, and a dual
   const siteId = await newSite(office.request, `Quillon Yard ${label}`);
   const systemId = await newSystem(office.request, siteId, 'Cooler circuit', 2);
   // 144.8 kPa is 21.0015 psig: the record was typed in kPa; the imperial form shows 21.
-  const control = await newUnit(office.request, {
+  await newUnit(office.request, {
     siteId,
     systemId,
     type: 'pressure_control',

@@ -9,7 +9,7 @@ import { promisify } from 'node:util';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateCode } from '@/lib/tags/code';
-import { mmToPt, ptToMm, type LabelLayout } from '@/lib/tags/layouts';
+import { ptToMm, type LabelLayout } from '@/lib/tags/layouts';
 import { renderCalibrationSheet, renderLabelSheet, type LabelContent } from '@/lib/tags/pdf';
 import { chooseErrorCorrection, tagUrl } from '@/lib/tags/qr';
 import { layoutQuery, toLayout } from '@/lib/tags/queries';
@@ -106,9 +106,9 @@ describe.each(['letter-30', 'a4-24', 'thermal-2x1'])('label sheet %s', (layoutId
         // The QR symbol: dark modules of at least 0.4 mm, with a 4-module quiet zone inside the label's
         // padding on every side and before the text.
         expect(block.rects.length).toBeGreaterThan(30);
-        const module = Math.min(...block.rects.flatMap((r) => [ptToMm(r.w), ptToMm(r.h)]));
-        expect(module).toBeGreaterThanOrEqual(0.4);
-        const quiet = 4 * module - 0.01;
+        const moduleMm = Math.min(...block.rects.flatMap((r) => [ptToMm(r.w), ptToMm(r.h)]));
+        expect(moduleMm).toBeGreaterThanOrEqual(0.4);
+        const quiet = 4 * moduleMm - 0.01;
         const xs = block.rects.flatMap((r) => [r.x, r.x + r.w]).map(ptToMm);
         const ys = block.rects.flatMap((r) => [r.y, r.y + r.h]).map(ptToMm);
         expect(Math.min(...xs) - layout.paddingMm).toBeGreaterThanOrEqual(quiet);
