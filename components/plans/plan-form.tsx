@@ -3,7 +3,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
@@ -45,8 +45,8 @@ export function PlanForm({ siteId, siteToday, systems, equipment, technicians, d
     },
   });
   const errors = form.formState.errors;
-  const systemIds = form.watch('systemIds') ?? [];
-  const equipmentIds = form.watch('equipmentIds') ?? [];
+  const systemIds = useWatch({ control: form.control, name: 'systemIds' }) ?? [];
+  const equipmentIds = useWatch({ control: form.control, name: 'equipmentIds' }) ?? [];
   const toggle = (field: 'systemIds' | 'equipmentIds', list: string[], id: string, on: boolean) =>
     form.setValue(field, on ? [...list, id] : list.filter((x) => x !== id), { shouldDirty: true });
 
