@@ -1,6 +1,7 @@
 import { Bandage, Cable, Camera, ClipboardCheck, ClipboardList, Droplets, Tag, type LucideIcon } from 'lucide-react';
 import { photoKindLabels, type PhotoKind } from '@/lib/photos/schemas';
 import { cn } from '@/lib/utils';
+import { formatDay, formatStamp, localDate } from '@/lib/format/dates';
 
 // A photo's kind is shown as a word with an icon, never as a colour alone.
 export const photoKindIcons: Record<PhotoKind, LucideIcon> = {
@@ -25,16 +26,16 @@ export function PhotoKindLabel({ kind, className }: { kind: PhotoKind; className
 
 /** A day as the site sees it: "Jun 14, 2024". */
 export function formatPhotoDay(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleDateString('en-US', { year: 'numeric', month: 'short', day: 'numeric', timeZone });
+  return formatDay(iso, timeZone);
 }
 
 export function formatPhotoTime(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleString('en-US', { year: 'numeric', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZone, timeZoneName: 'short' });
+  return formatStamp(iso, timeZone);
 }
 
 /** Calendar day in the site's zone, for "same day?" comparisons. */
 export function photoDayKey(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleDateString('en-CA', { timeZone });
+  return localDate(new Date(iso), timeZone);
 }
 
 /** "2 years 5 months apart", "3 weeks apart", "the same day". */

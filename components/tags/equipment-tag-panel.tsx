@@ -8,11 +8,12 @@ import { can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { retireReasonLabels } from '@/lib/tags/schemas';
 import { getEquipmentTagInfo } from '@/lib/tags/service';
+import { formatMoment } from '@/lib/format/moments';
 
 const viaWords = { link: 'phone camera link', camera: 'Scan page', typed: 'typed code' } as const;
 
 function when(iso: string, timeZone: string): string {
-  return new Date(iso).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short', timeZone });
+  return formatMoment(iso, timeZone);
 }
 
 /** The equipment page's tag box: the tag on the unit, when it was last scanned, earlier tags, and "Replace tag". */

@@ -14,6 +14,9 @@ import { equipmentTypeLabels, conditionLabels, type Condition } from '@/lib/equi
 import { AppError } from '@/lib/errors';
 import { renderTablePdf, type TableReport } from '@/lib/reports/table-pdf';
 import { getSite } from '@/lib/sites/service';
+import { localDate } from '@/lib/format/dates';
+import { formatPercent } from '@/lib/format/numbers';
+import { formatDecimal } from '@/lib/calc/format';
 import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { leakActivityLabels, leakMethodLabels, leakResultLabels, type LeakData } from '@/lib/visits/schemas';
 
@@ -60,7 +63,8 @@ export async function siteEquipmentReport(actor: Actor, siteId: string, db: Db =
     .orderBy('areas.name')
     .orderBy('equipment.name')
     .execute();
-  const asOf = today.toISOString().slice(0, 10);
+  // Days are the site's calendar days (a 7 PM visit in Denver is that day, not the next UTC one).
+  const asOf = localDate(today, site.timeZone);
   return {
     title: `Site equipment report — ${site.name}`,
     facts: [
@@ -96,12 +100,12 @@ export async function siteEquipmentReport(actor: Actor, siteId: string, db: Db =
         [r.make, r.model].filter(Boolean).join(' '),
         r.serial ?? '',
         r.installed_on ?? '',
-        outlook ? outlook.ageYears.toFixed(1) : '',
+        outlook ? formatDecimal(outlook.ageYears, 1) : '',
         outlook?.medianYears ? String(outlook.medianYears) : '',
         outlook ? outlook.outlook.replace(/_/g, ' ') : 'unknown',
         r.condition ? `${r.condition} ${conditionLabels[r.condition as Condition]}` : 'not rated',
         String(Number(r.open_follow_ups ?? 0)),
-        r.last_service ? new Date(r.last_service).toISOString().slice(0, 10) : '',
+        r.last_service ? localDate(new Date(r.last_service), site.timeZone) : '',
       ];
     }),
     notes: [
@@ -120,11 +124,13 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .where(siteVisibleTo(actor))
     .where('systems.id', '=', systemId)
-    .select(['systems.id', 'systems.name', 'systems.refrigerant', 'systems.full_charge_kg', 'systems.application', 'sites.name as site_name', 'clients.name as client_name'])
+    .select(['systems.id', 'systems.name', 'systems.refrigerant', 'systems.full_charge_kg', 'systems.application', 'sites.name as site_name', 'sites.time_zone', 'clients.name as client_name'])
     .executeTakeFirst();
   if (!system) throw new AppError('not_found', 'System not found.');
-  const from = new Date(Date.UTC(year, 0, 1));
-  const to = new Date(Date.UTC(year + 1, 0, 1));
+  // The year is the site's calendar year: midnight of Jan 1 where the site is.
+  const siteMidnight = (y: number) => sql<Date>`(${`${y}-01-01 00:00`}::timestamp at time zone ${system.time_zone})`;
+  const from = siteMidnight(year);
+  const to = siteMidnight(year + 1);
   let q = db
     .selectFrom('entries')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
@@ -155,7 +161,7 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
     .map((e) => ({ e, d: e.data as unknown as RefrigerantRecord }));
   const work = entries.filter((e) => e.kind === 'leak').map((e) => e.data as unknown as LeakRecord);
   const totals = yearlyTotals(
-    tx.map(({ e, d }) => ({ systemId, refrigerant: d.refrigerant, date: e.recorded_at.toISOString().slice(0, 10), kind: d.direction, amount: d.amountKg, unit: 'kg' as const })),
+    tx.map(({ e, d }) => ({ systemId, refrigerant: d.refrigerant, date: localDate(e.recorded_at, system.time_zone), kind: d.direction, amount: d.amountKg, unit: 'kg' as const })),
     system.full_charge_kg ? { [systemId]: Number(system.full_charge_kg) } : {},
   ).bySystem.find((t) => t.year === year);
   const rules = getComplianceRules();
@@ -168,9 +174,9 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
       ['Full charge', system.full_charge_kg ? formatQuantity(Number(system.full_charge_kg), 'mass', prefs) : 'not recorded'],
       ['Added in the year', formatQuantity(totals?.addedKg ?? 0, 'mass', prefs)],
       ['Recovered in the year', formatQuantity(totals?.recoveredKg ?? 0, 'mass', prefs)],
-      ['Added as share of full charge', totals?.addedPctOfCharge != null ? `${totals.addedPctOfCharge.toFixed(1)} %${totals.chronicLeaker ? ' — at or over 125 %: chronic leaker reporting applies' : ''}` : 'needs the full charge'],
+      ['Added as share of full charge', totals?.addedPctOfCharge != null ? `${formatPercent(totals.addedPctOfCharge)}${totals.chronicLeaker ? ' — at or over 125 %: chronic leaker reporting applies' : ''}` : 'needs the full charge'],
       ['Leak work in the year', leakWorkCounts(work)],
-      ['Leak-check visits', leakChecks.length ? leakChecks.map((v) => new Date(v.at).toISOString().slice(0, 10)).join(', ') : 'none recorded'],
+      ['Leak-check visits', leakChecks.length ? leakChecks.map((v) => localDate(new Date(v.at), system.time_zone)).join(', ') : 'none recorded'],
     ],
     columns: [
       { label: 'Date', width: 8 },
@@ -186,7 +192,7 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
       { label: 'Details', width: 25 },
     ],
     rows: entries.map((e) => {
-      const day = e.recorded_at.toISOString().slice(0, 10);
+      const day = localDate(e.recorded_at, system.time_zone);
       if (e.kind === 'leak') {
         const d = e.data as unknown as LeakRecord;
         return [day, leakActivityLabels[d.activity] ?? d.activity, '', '', '', e.tech_name, '', '', '', '', leakDetails(d, e.computed as RepairDeadline | null)];
@@ -201,7 +207,7 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
         d.cylinderId ?? '',
         e.tech_name,
         d.technicianCert ?? '',
-        leak ? `${leak.ratePct.toFixed(1)} %${leak.exceedsThreshold ? ' OVER' : ''}` : '',
+        leak ? `${formatPercent(leak.ratePct)}${leak.exceedsThreshold ? ' OVER' : ''}` : '',
         leak ? `${leak.thresholdPct} %` : '',
         leak?.repairDueDate ?? '',
         '',

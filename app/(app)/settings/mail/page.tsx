@@ -5,6 +5,7 @@ import { EmptyState, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
 import { getCaughtMail, listCaughtMail, mailCatcherEnabled, type CaughtMail } from '@/lib/mail/catcher';
+import { formatStamp } from '@/lib/format/dates';
 
 export const metadata: Metadata = { title: 'Mail inbox' };
 export const dynamic = 'force-dynamic';
@@ -36,7 +37,7 @@ export default async function MailInboxPage({ searchParams }: { searchParams: Pr
                 <a href={`/settings/mail?id=${encodeURIComponent(m.id)}`} aria-current={open?.id === m.id ? 'true' : undefined} className={`block px-3 py-2 hover:bg-ice-50 ${open?.id === m.id ? 'bg-ice-50' : ''}`}>
                   <span className="block truncate text-sm font-semibold">{m.subject}</span>
                   <span className="block truncate text-xs text-slate-600">To {m.to.join(', ')}</span>
-                  <span className="block text-xs text-slate-600">{new Date(m.date).toLocaleString('en-US', { timeZone: 'UTC' })} UTC</span>
+                  <span className="block text-xs text-slate-600">{formatStamp(m.date)}</span>
                 </a>
               </li>
             ))}

@@ -7,6 +7,7 @@ import { isAppError } from '@/lib/errors';
 import type { StorageReportDto } from '@/lib/photos/dto';
 import { formatBytes, photoKindLabels } from '@/lib/photos/schemas';
 import { checkPhotoStorage } from '@/lib/photos/service';
+import { formatStamp } from '@/lib/format/dates';
 import { RepairStorageButton } from '@/app/(app)/settings/storage/_components/repair-storage-button';
 
 export const metadata: Metadata = { title: 'Photo storage' };
@@ -20,7 +21,7 @@ const repairWords = {
 } as const;
 
 function when(iso: string | null): string {
-  return iso ? new Date(iso).toLocaleString('en-US', { year: 'numeric', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }) : 'unknown time';
+  return iso ? formatStamp(iso) : 'unknown time';
 }
 
 export default async function StorageSettingsPage() {

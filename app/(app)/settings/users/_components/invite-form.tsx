@@ -13,6 +13,7 @@ import { roleLabels, roles } from '@/lib/auth/permissions';
 import type { InvitationDto } from '@/lib/users/dto';
 import { useInvite, useRevokeInvitation } from '@/lib/users/hooks';
 import { inviteUserSchema } from '@/lib/users/schemas';
+import { formatDay } from '@/lib/format/dates';
 
 type Values = z.input<typeof inviteUserSchema>;
 
@@ -79,7 +80,7 @@ export function InviteForm({ clients, invitations }: { clients: { id: string; na
             {invitations.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-3 px-4 py-2 text-sm">
                 <span className="flex-1">
-                  <strong>{i.name}</strong> · {i.email} · {roleLabels[i.role]} · expires {new Date(i.expiresAt).toISOString().slice(0, 10)}
+                  <strong>{i.name}</strong> · {i.email} · {roleLabels[i.role]} · expires {formatDay(i.expiresAt)}
                 </span>
                 <Button
                   variant="ghost"
