@@ -11,6 +11,7 @@ import { parseArgs } from 'node:util';
 import path from 'node:path';
 import { bucketConfigFromEnv, describeBucket } from '@/docker-free-scripts/backup/bucket';
 import { createBackup } from '@/docker-free-scripts/backup/create';
+import { ensureLocalServices, type LocalServices } from '@/docker-free-scripts/backup/local-services';
 import { applyProfile, describeDatabase } from '@/docker-free-scripts/backup/profile-env';
 
 const { values: args } = parseArgs({
@@ -25,8 +26,11 @@ if (args.help) {
   process.exit(0);
 }
 
+let services: LocalServices | null = null;
+let code = 0;
 try {
   const profile = applyProfile(args.profile);
+  if (profile) services = await ensureLocalServices(profile, (line) => console.log(line));
   const databaseUrl = process.env.DATABASE_URL!;
   const bucket = bucketConfigFromEnv();
   const stamp = new Date().toISOString().replace(/\.\d+Z$/, 'Z').replace(/:/g, '-');
@@ -38,8 +42,10 @@ try {
   if (m.problems.orphanObjects.length) console.log(`  ${m.problems.orphanObjects.length} object(s) no row refers to (listed in manifest.json, restored as they are)`);
   if (m.problems.missingObjects.length) console.log(`  ${m.problems.missingObjects.length} row(s) name an object the bucket did not have (listed in manifest.json)`);
   if (m.problems.afterSnapshot.length) console.log(`  ${m.problems.afterSnapshot.length} object(s) written after the snapshot (kept, not restored)`);
-  process.exit(0);
 } catch (error) {
   console.error(`backup failed: ${error instanceof Error ? error.message : String(error)}`);
-  process.exit(1);
+  code = 1;
+} finally {
+  await services?.stop();
 }
+process.exit(code);

@@ -13,6 +13,7 @@
 import '@/docker-free-scripts/server-modules';
 import { parseArgs } from 'node:util';
 import { bucketConfigFromEnv, describeBucket } from '@/docker-free-scripts/backup/bucket';
+import { ensureLocalServices, type LocalServices } from '@/docker-free-scripts/backup/local-services';
 import { applyProfile, describeDatabase } from '@/docker-free-scripts/backup/profile-env';
 import { RestoreRefused, restoreBackup } from '@/docker-free-scripts/backup/restore';
 
@@ -31,8 +32,10 @@ if (args.help || positionals.length !== 1) {
 }
 
 let code = 0;
+let services: LocalServices | null = null;
 try {
   const profile = applyProfile(args.profile);
+  if (profile) services = await ensureLocalServices(profile, (line) => console.log(line));
   const databaseUrl = process.env.DATABASE_URL!;
   const bucket = bucketConfigFromEnv();
   console.log(`Restoring ${positionals[0]} into the ${describeDatabase(databaseUrl)} and ${describeBucket(bucket)}${profile ? ` (profile ${profile})` : ''}`);
@@ -61,5 +64,7 @@ try {
 } catch (error) {
   code = error instanceof RestoreRefused ? 2 : 1;
   console.error(`${code === 2 ? '' : 'restore failed: '}${error instanceof Error ? error.message : String(error)}`);
+} finally {
+  await services?.stop();
 }
 process.exit(code);

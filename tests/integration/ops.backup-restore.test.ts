@@ -39,7 +39,6 @@ const targetName = `${new URL(sourceUrl).pathname.slice(1)}_restored`;
 const targetUrl = sourceUrl.replace(/\/[^/]+$/, `/${targetName}`);
 const adminUrl = sourceUrl.replace(/\/[^/]+$/, '/postgres');
 const sourceBucket = bucketConfigFromEnv({ ...process.env, S3_BUCKET: buckets.source });
-const targetBucket = { ...sourceBucket, bucket: buckets.target };
 const minio = bucketClient(sourceBucket);
 const work = mkdtempSync(path.join(tmpdir(), 'rimeline-backup-'));
 const db = createTestDb();
