@@ -34,7 +34,8 @@ try {
   const databaseUrl = process.env.DATABASE_URL!;
   const bucket = bucketConfigFromEnv();
   const stamp = new Date().toISOString().replace(/\.\d+Z$/, 'Z').replace(/:/g, '-');
-  const out = path.resolve(args.out ?? path.join('backups', stamp));
+  // Relative to where the person typed the command (npm runs scripts from the package root).
+  const out = args.out ? path.resolve(process.env.INIT_CWD ?? process.cwd(), args.out) : path.resolve('backups', stamp);
   console.log(`Backing up the ${describeDatabase(databaseUrl)} and ${describeBucket(bucket)}${profile ? ` (profile ${profile})` : ''} into ${out}`);
   const m = await createBackup({ databaseUrl, bucket, out, log: (line) => console.log(line) });
   const rows = Object.values(m.database.tables).reduce((a, n) => a + n, 0);

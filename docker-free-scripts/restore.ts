@@ -11,6 +11,7 @@
 // Exit status: 0 restored and consistent (problems the backup already listed are reported, not
 // counted); 1 failed, or the check found problems the backup did not have; 2 refused, nothing changed.
 import '@/docker-free-scripts/server-modules';
+import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { bucketConfigFromEnv, describeBucket } from '@/docker-free-scripts/backup/bucket';
 import { ensureLocalServices, type LocalServices } from '@/docker-free-scripts/backup/local-services';
@@ -38,8 +39,10 @@ try {
   if (profile) services = await ensureLocalServices(profile, (line) => console.log(line));
   const databaseUrl = process.env.DATABASE_URL!;
   const bucket = bucketConfigFromEnv();
-  console.log(`Restoring ${positionals[0]} into the ${describeDatabase(databaseUrl)} and ${describeBucket(bucket)}${profile ? ` (profile ${profile})` : ''}`);
-  const result = await restoreBackup({ archive: positionals[0]!, databaseUrl, bucket, replace: args.replace || args.force, log: (line) => console.log(line) });
+  // Relative to where the person typed the command (npm runs scripts from the package root).
+  const archive = path.resolve(process.env.INIT_CWD ?? process.cwd(), positionals[0]!);
+  console.log(`Restoring ${archive} into the ${describeDatabase(databaseUrl)} and ${describeBucket(bucket)}${profile ? ` (profile ${profile})` : ''}`);
+  const result = await restoreBackup({ archive, databaseUrl, bucket, replace: args.replace || args.force, log: (line) => console.log(line) });
 
   console.log('Photo storage check …');
   const { Kysely, PostgresDialect } = await import('kysely');

@@ -173,6 +173,9 @@ export async function wipeDatabase(url: string): Promise<void> {
     await client.query('commit');
   } catch (error) {
     await client.query('rollback').catch(() => undefined);
+    if ((error as { code?: string }).code === '55P03') {
+      throw new Error(`The ${databaseName(url)} database is in use (something holds its tables): stop the app that uses it, then run the restore again.`);
+    }
     throw error;
   } finally {
     await client.end();

@@ -117,6 +117,9 @@ export async function restoreBackup(opts: RestoreOptions): Promise<RestoreResult
     const put = await client.fPutObject(opts.bucket.bucket, o.key, file, o.contentType ? { 'Content-Type': o.contentType } : {});
     const { md5 } = await hashFile(file);
     if (!etagMatches(put.etag?.replace(/"/g, '') ?? null, md5)) throw new Error(`The store reported other bytes for ${o.key} than were sent.`);
+  }).catch((error: unknown) => {
+    const why = error instanceof Error ? error.message : String(error);
+    throw new Error(`${why}\nThe database is loaded but the bucket is not complete; once the cause is fixed, run the restore again with --replace.`);
   });
   const skipped = manifest.objects.items.length - toRestore.length;
   if (skipped) log(`  ${skipped} object(s) written after the snapshot stay in the folder only (no restored row refers to them)`);

@@ -33,12 +33,14 @@ const { deleteObject, ensureBucket, getObjectBytes, listObjects, objectKey, putO
 const { createBackup } = await import('@/docker-free-scripts/backup/create');
 const { bucketConfigFromEnv, bucketClient, listAll } = await import('@/docker-free-scripts/backup/bucket');
 const { countRows } = await import('@/docker-free-scripts/backup/postgres');
+const { RestoreRefused, restoreBackup } = await import('@/docker-free-scripts/backup/restore');
 
 const sourceUrl = testDatabaseUrl;
 const targetName = `${new URL(sourceUrl).pathname.slice(1)}_restored`;
 const targetUrl = sourceUrl.replace(/\/[^/]+$/, `/${targetName}`);
 const adminUrl = sourceUrl.replace(/\/[^/]+$/, '/postgres');
 const sourceBucket = bucketConfigFromEnv({ ...process.env, S3_BUCKET: buckets.source });
+const targetBucket = { ...sourceBucket, bucket: buckets.target };
 const minio = bucketClient(sourceBucket);
 const work = mkdtempSync(path.join(tmpdir(), 'rimeline-backup-'));
 const db = createTestDb();
@@ -251,16 +253,18 @@ describe('npm run backup → npm run restore', () => {
     expect(await bucketChecksums(buckets.target)).toEqual(sourceObjects);
   }, 120_000);
 
-  it('refuses an empty database beside a bucket that holds objects', async () => {
+  // The last two call the restore in-process: the command's refusal (exit 2) is checked above.
+  it('refuses an empty database beside a bucket that holds objects, and creates no database', async () => {
     await dropTarget();
-    const run = await runScript('restore', [archive], { url: targetUrl, bucket: buckets.target });
-    expect(run.code).toBe(2);
-    expect(run.stderr).toMatch(/bucket \S+-backup-to holds \d+ objects/);
+    const restore = restoreBackup({ archive, databaseUrl: targetUrl, bucket: targetBucket, replace: false });
+    await expect(restore).rejects.toThrow(RestoreRefused);
+    await expect(restore).rejects.toThrow(/bucket \S+-backup-to holds \d+ objects/);
     const admin = new pg.Client({ connectionString: adminUrl });
     await admin.connect();
     const exists = await admin.query('select 1 from pg_database where datname = $1', [targetName]);
     await admin.end();
     expect(exists.rowCount).toBe(0);
+    expect(await bucketChecksums(buckets.target)).toEqual(sourceObjects);
   }, 120_000);
 
   it('refuses a folder whose files differ from its manifest, before touching the target', async () => {
@@ -268,11 +272,10 @@ describe('npm run backup → npm run restore', () => {
     await promisify(execFile)('cp', ['-r', archive, damaged]);
     const item = manifest.objects.items[0]!;
     writeFileSync(path.join(damaged, item.file), 'other bytes');
-    await dropTarget();
-    await emptyBucket(buckets.target);
-    const run = await runScript('restore', [damaged], { url: targetUrl, bucket: buckets.target });
-    expect(run.code).toBe(2);
-    expect(run.stderr).toContain('missing or damaged');
-    expect(await listAll(minio, buckets.target)).toEqual([]);
+    // Even told to replace, it deletes nothing when the folder is not whole.
+    const restore = restoreBackup({ archive: damaged, databaseUrl: targetUrl, bucket: targetBucket, replace: true });
+    await expect(restore).rejects.toThrow(RestoreRefused);
+    await expect(restore).rejects.toThrow('1 object file(s) are missing or damaged');
+    expect(await bucketChecksums(buckets.target)).toEqual(sourceObjects);
   }, 120_000);
 });
