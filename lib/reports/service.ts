@@ -131,7 +131,7 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
   const siteMidnight = (y: number) => sql<Date>`(${`${y}-01-01 00:00`}::timestamp at time zone ${system.time_zone})`;
   const from = siteMidnight(year);
   const to = siteMidnight(year + 1);
-  let q = db
+  const q = db
     .selectFrom('entries')
     .innerJoin('visits', 'visits.id', 'entries.visit_id')
     .innerJoin('users as tech', 'tech.id', 'entries.created_by')
