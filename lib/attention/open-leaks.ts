@@ -1,11 +1,9 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { entryVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import type { Actor } from '@/lib/auth/actor';
 import { leakFollowThrough, type LeakFollowThrough, type LeakWorkItem } from '@/lib/attention/leak-follow-through';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 const YEAR_MS = 365.25 * 86_400_000;
 

@@ -1,15 +1,13 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { entryVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { openLeaks } from '@/lib/attention/open-leaks';
 import { rankUnits, type RankedUnit, type Signal, type UnitSignals } from '@/lib/attention/rank';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 const YEAR_MS = 365.25 * 86_400_000;
 

@@ -24,6 +24,11 @@ export function seesOpenVisits(actor: Actor): boolean {
   return actor.role !== 'client';
 }
 
+/** Site access notes (keys, codes, who to ask on arrival) are for the people who go there. */
+export function seesSiteAccessNotes(actor: Actor): boolean {
+  return actor.role !== 'client';
+}
+
 /** Clients: needs `clients` in the query. */
 export function clientVisibleTo(actor: Actor) {
   const clientId = clientScope(actor);

@@ -1,9 +1,10 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
 import { clientVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
@@ -18,8 +19,6 @@ import type {
   UpdateContactInput,
 } from '@/lib/clients/schemas';
 import { AppError } from '@/lib/errors';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function clientQuery(actor: Actor, db: Db) {
   return db

@@ -1,14 +1,13 @@
-import { sql, type Expression, type Kysely, type RawBuilder, type Transaction } from 'kysely';
+import { sql, type Expression, type RawBuilder } from 'kysely';
 import { escapeLike } from '@/db/helpers';
 import { siteVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
 import type { Actor } from '@/lib/auth/actor';
 import type { EquipmentSort, ListEquipmentQuery } from '@/lib/equipment/schemas';
 
 // Query builders only (no connection of their own): the service executes them, and the
 // benchmark compiles the very same SQL to time it straight through pg.
-type Db = Kysely<DB> | Transaction<DB>;
 
 export function equipmentBaseQuery(actor: Actor, db: Db) {
   return db

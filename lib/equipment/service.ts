@@ -1,7 +1,8 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { encodeCursor, type Page } from '@/lib/api/cursor';
 import { zodIssues } from '@/lib/api/issues';
 import { assertCan, can } from '@/lib/auth/access';
@@ -15,8 +16,6 @@ import type { CreateEquipmentInput, CreateRelationInput, ListEquipmentQuery, Upd
 import type { EquipmentType, RelationKind } from '@/lib/equipment/types';
 import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 export async function listEquipment(actor: Actor, query: ListEquipmentQuery, db: Db = defaultDb): Promise<Page<EquipmentDto>> {
   assertCan(actor, 'equipment.read');
@@ -232,7 +231,6 @@ export async function removeRelation(actor: Actor, id: string, relationId: strin
     await recordAudit(trx, actor, { action: 'delete', entityType: 'equipment_relation', entityId: relationId, before: row });
   });
 }
-
 
 /** What the unit page's header says at a glance, for a unit the caller has already been shown. */
 export async function getUnitFacts(actor: Actor, equipment: Pick<EquipmentDto, 'id' | 'siteId'>, db: Db = defaultDb): Promise<UnitFactsDto> {

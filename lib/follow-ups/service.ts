@@ -1,8 +1,9 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
@@ -14,8 +15,6 @@ import type { CreateFollowUpInput, FollowUpStatus, ListFollowUpsQuery, UpdateFol
 import { getSite } from '@/lib/sites/service';
 import type { FollowUpDto } from '@/lib/visits/dto';
 import type { Severity } from '@/lib/visits/schemas';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function followUpQuery(actor: Actor, db: Db) {
   return db

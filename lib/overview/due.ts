@@ -1,15 +1,14 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { getRefrigerant } from '@/lib/calc/refrigerants';
 import { plannedCover } from '@/lib/plans/coverage';
 import type { VisitReason } from '@/lib/visits/terms';
 
-type Db = Kysely<DB> | Transaction<DB>;
 const DAY_MS = 86_400_000;
 
 export interface DueItem {

@@ -4,6 +4,7 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan, can } from '@/lib/auth/access';
@@ -16,8 +17,6 @@ import { toPhotoDto, type PhotoDto, type PhotoListDto, type StorageReportDto, ty
 import { checkPhoto } from '@/lib/photos/process';
 import { photoKinds, type ListPhotosQuery, type PhotoKind, type PhotoVariant, type UpdatePhotoInput } from '@/lib/photos/schemas';
 import { deleteObject, getObjectStream, objectKey, putObject, storageErrorKind } from '@/storage/objects';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 const storeDown = () => new AppError('unavailable', 'The photo store cannot be reached right now. Nothing was saved; try again in a moment.');
 

@@ -2,6 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -20,8 +21,6 @@ import type { VisitReason } from '@/lib/visits/terms';
 // Planned visits: the office plans, moves and cancels; a technician starts one (through
 // startVisit, which calls linkPlanToVisit in its transaction). Every change is audited in the same
 // transaction, and the client's contacts' e-mail is queued there too when the company wants it.
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function planQuery(actor: Actor, db: Db) {
   return db

@@ -3,6 +3,7 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -22,8 +23,6 @@ import {
   type Urgency,
 } from '@/lib/requests/schemas';
 import { getSite } from '@/lib/sites/service';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function requestQuery(actor: Actor, db: Db) {
   return db

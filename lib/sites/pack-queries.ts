@@ -1,12 +1,11 @@
-import { sql, type Kysely, type Transaction } from 'kysely';
-import type { DB } from '@/db/schema.gen';
+import { sql } from 'kysely';
+import type { Db } from '@/db/types';
 import type { Actor } from '@/lib/auth/actor';
 import { equipmentBaseQuery, refrigerantExpr } from '@/lib/equipment/queries';
 import { PACK_HISTORY_PER_UNIT } from '@/lib/sites/pack-schema';
 
 // Query builders of the site pack (no connection of their own): the service runs them, and the
 // benchmark times the very same SQL through pg. One query per kind of thing, never one per unit.
-type Db = Kysely<DB> | Transaction<DB>;
 
 /** Units still on the site (removed and deleted ones left out), with their attached tag's code. */
 export function packUnitsQuery(actor: Actor, db: Db, siteId: string) {

@@ -1,7 +1,6 @@
 import 'server-only';
-import type { Kysely, Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/errors';
@@ -13,8 +12,6 @@ import { siteEntryContexts } from '@/lib/visits/context';
 
 // What a phone keeps of one site to work there without signal (lib/sites/pack-schema.ts). Staff
 // who record entries only: an owner never gets a pack.
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 const iso = (d: Date | string) => (d instanceof Date ? d.toISOString() : new Date(d).toISOString());
 

@@ -1,9 +1,10 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { seesSiteAccessNotes, siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
@@ -19,8 +20,6 @@ import type {
   UpdateAreaInput,
   UpdateSiteInput,
 } from '@/lib/sites/schemas';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function siteQuery(actor: Actor, db: Db) {
   return db
@@ -67,14 +66,22 @@ export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = de
   }
   if (cursor) q = q.where(afterCursor(cursor, 'lower(sites.name)', 'sites.id', 'asc'));
   const rows = await q.orderBy(sql`lower(sites.name)`).orderBy('sites.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, toSiteDto, (r) => ({ k: r.name.toLowerCase(), id: r.id }));
+  return toPage(rows, query.limit, siteDtoFor(actor), (r) => ({ k: r.name.toLowerCase(), id: r.id }));
 }
 
 export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Promise<SiteDto> {
   assertCan(actor, 'sites.read');
   const row = await siteQuery(actor, db).where('sites.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Site not found.');
-  return toSiteDto(row);
+  return siteDtoFor(actor)(row);
+}
+
+/** What this actor sees of a site: the page and GET /api/sites/:id alike (lib/auth/scope.ts). */
+function siteDtoFor(actor: Actor) {
+  return (row: Parameters<typeof toSiteDto>[0]): SiteDto => {
+    const dto = toSiteDto(row);
+    return seesSiteAccessNotes(actor) ? dto : { ...dto, accessNotes: null };
+  };
 }
 
 export async function createSite(actor: Actor, input: CreateSiteInput, db: Kysely<DB> = defaultDb): Promise<SiteDto> {

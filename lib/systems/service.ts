@@ -1,9 +1,10 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -11,8 +12,6 @@ import type { SystemDto } from '@/lib/equipment/dto';
 import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/equipment/schemas';
 import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 function systemQuery(actor: Actor, db: Db) {
   return db

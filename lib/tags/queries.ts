@@ -1,10 +1,9 @@
-import { sql, type Kysely, type Transaction } from 'kysely';
-import type { DB } from '@/db/schema.gen';
+import { sql } from 'kysely';
+import type { Db } from '@/db/types';
 import type { LabelLayout } from '@/lib/tags/layouts';
 
 // Query builders only (no connection of their own, no 'server-only'): the service executes them,
 // and the benchmark times the very same SQL straight through pg.
-type Db = Kysely<DB> | Transaction<DB>;
 
 /** Tags with the names people read beside them. */
 export function tagQuery(db: Db, companyId: string) {

@@ -2,6 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { encodeCursor, decodeCursor, type Page } from '@/lib/api/cursor';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -31,8 +32,6 @@ import { localDate } from '@/lib/format/dates';
 import { lastScanQuery, layoutQuery, printRunQuery, tagByCodeQuery, tagQuery, toLayout } from '@/lib/tags/queries';
 import type { AttachTagInput, CreatePrintRunInput, ListPrintRunsQuery, RetireTagInput, ScanVia } from '@/lib/tags/schemas';
 import { deleteObject, getObjectBytes, objectKey, putObject } from '@/storage/objects';
-
-type Db = Kysely<DB> | Transaction<DB>;
 
 // ------------------------------------------------------------------------------ layouts
 
@@ -498,7 +497,6 @@ export async function getEquipmentTagInfo(actor: Actor, equipmentId: string, db:
     scanCount: Number(count.n),
   };
 }
-
 
 /** For the signed-out tag page: does any tag of the installation carry this code? Says nothing more. */
 export async function isRegisteredCode(code: string, db: Db = defaultDb): Promise<boolean> {

@@ -1,8 +1,9 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { hashPassword } from '@/lib/auth/password';
@@ -22,7 +23,6 @@ import type {
   UpdateProfileInput,
 } from '@/lib/users/schemas';
 
-type Db = Kysely<DB> | Transaction<DB>;
 const INVITATION_DAYS = 7;
 
 export function hashToken(token: string): string {

@@ -2,7 +2,7 @@
 // entries (attention list, site cards, history, reading charts, the unit header, refrigerant
 // report); staff see them while the visit is open. Closing the visit shows them to the owner.
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';
 import { getUnitFacts } from '@/lib/equipment/service';
@@ -14,6 +14,9 @@ import { equipmentHistory } from '@/lib/visits/history';
 import { getVisitSummary, startVisit } from '@/lib/visits/service';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { call, mockAuthModule, session } from '@/tests/helpers/session';
+
+vi.mock('@/lib/auth', () => mockAuthModule());
 
 const db = createTestDb();
 const lb = 0.45359237;
@@ -81,5 +84,21 @@ describe('entries of an open visit', () => {
     );
     expect((await pell(owner)).systemsOverLeakThreshold).toBe(1);
     expect((await equipmentHistory(owner, circuit.condensingUnitId, { limit: 50 })).items).toHaveLength(2);
+  });
+});
+
+describe('site fields by role', () => {
+  it('GET /api/sites/:id sends access notes to staff, not to the owner (as the site page)', async () => {
+    await db.updateTable('sites').set({ access_notes: 'Key safe 4471 by the loading door' }).where('id', '=', circuit.siteId).execute();
+    const route = await import('@/app/api/sites/[id]/route');
+    const read = async (actor: Actor) => {
+      session.actor = actor;
+      const res = await call(route.GET as never, { path: `/api/sites/${circuit.siteId}`, params: { id: circuit.siteId } });
+      expect(res.status).toBe(200);
+      return (res.body as { accessNotes: string | null }).accessNotes;
+    };
+    expect(await read(tech)).toBe('Key safe 4471 by the loading door');
+    expect(await read(office)).toBe('Key safe 4471 by the loading door');
+    expect(await read(owner)).toBeNull();
   });
 });

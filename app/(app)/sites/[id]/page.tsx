@@ -104,7 +104,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
               <dt className="font-medium text-slate-600">Elevation</dt>
               <dd>{formatElevation(site.elevationM, actor.units)}</dd>
             </div>
-            {site.accessNotes && actor.role !== 'client' ? (
+            {site.accessNotes ? (
               <div>
                 <dt className="font-medium text-slate-600">Access notes</dt>
                 <dd className="whitespace-pre-line">{site.accessNotes}</dd>
