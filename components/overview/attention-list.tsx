@@ -2,6 +2,7 @@ import { ArrowRight, Clock, Eye, Siren } from 'lucide-react';
 import Link from 'next/link';
 import { EmptyState } from '@/components/ui/card';
 import { Pill } from '@/components/ui/pill';
+import { TextLink } from '@/components/ui/text-link';
 import { priorityLabels, type Priority, type RankedUnit } from '@/lib/attention/rank';
 
 // A word and an icon for each priority; the colour only repeats them.
@@ -30,23 +31,26 @@ export function AttentionList({ units, showSite = true }: { units: RankedUnit[];
           <div className="flex items-start gap-2">
             <span className="text-sm font-bold text-slate-600">#{i + 1}</span>
             <div className="min-w-0 flex-1">
-              <Link href={`/equipment/${u.equipmentId}`} className="font-semibold underline-offset-2 hover:underline">
+              <TextLink href={`/equipment/${u.equipmentId}`} className="text-slate-900 no-underline hover:underline">
                 {u.equipmentName}
-              </Link>
+              </TextLink>
               {showSite ? <span className="block text-sm text-slate-600 sm:ml-2 sm:inline">{u.siteName}</span> : null}
             </div>
             <PriorityPill priority={u.priority} />
           </div>
-          <ul className="mt-1 space-y-1 text-sm">
+          <ul className="mt-1 text-sm">
             {u.reasons.map((r) => (
-              <li key={r.kind} className="flex items-start gap-1">
-                <ArrowRight aria-hidden className="mt-0.5 size-4 shrink-0 text-slate-500" />
+              <li key={r.kind}>
                 {r.href ? (
-                  <Link href={r.href} className="underline underline-offset-2">
-                    {r.text}
+                  <Link href={r.href} className="flex min-h-11 items-center gap-1 underline underline-offset-2">
+                    <ArrowRight aria-hidden className="size-4 shrink-0 text-slate-500" />
+                    <span className="min-w-0">{r.text}</span>
                   </Link>
                 ) : (
-                  <span>{r.text}</span>
+                  <span className="flex items-start gap-1 py-1">
+                    <ArrowRight aria-hidden className="mt-0.5 size-4 shrink-0 text-slate-500" />
+                    <span className="min-w-0">{r.text}</span>
+                  </span>
                 )}
               </li>
             ))}

@@ -22,7 +22,7 @@ export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary;
   return (
     <article className="rounded-lg border border-slate-200 bg-white p-4 shadow-sm" aria-labelledby={`site-${summary.siteId}`}>
       <h3 id={`site-${summary.siteId}`} className="text-lg font-semibold">
-        <Link href={`/sites/${summary.siteId}`} className="underline-offset-2 hover:underline">
+        <Link href={`/sites/${summary.siteId}`} className="inline-flex min-h-11 items-center underline-offset-2 hover:underline">
           {summary.siteName}
         </Link>
       </h3>

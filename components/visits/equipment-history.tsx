@@ -168,7 +168,7 @@ export function EquipmentHistory({
                           {timeIn(e.recordedAt, g.visit.timeZone)}
                         </time>
                         {showEquipment ? (
-                          <Link href={`/equipment/${e.equipmentId}`} className="text-sm font-medium text-ice-800 underline">
+                          <Link href={`/equipment/${e.equipmentId}`} className="inline-flex min-h-11 items-center text-sm font-medium text-ice-800 underline">
                             {e.equipmentName}
                           </Link>
                         ) : null}

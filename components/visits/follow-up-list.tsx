@@ -1,7 +1,7 @@
 'use client';
 
 import { CalendarClock, CircleCheck, Ban, Undo2 } from 'lucide-react';
-import Link from 'next/link';
+import { TextLink } from '@/components/ui/text-link';
 import { useRouter } from 'next/navigation';
 import { useId, useState, type FormEvent } from 'react';
 import { Alert } from '@/components/ui/alert';
@@ -64,30 +64,14 @@ function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: Follo
       </div>
       <p className="break-words text-base font-semibold text-slate-900">{f.title}</p>
       <p className="text-sm text-slate-700">
-        {showSite ? (
-          <Link href={`/sites/${f.siteId}`} className="font-medium text-ice-800 underline">
-            {f.siteName}
-          </Link>
-        ) : null}
-        {showSite && f.equipmentName ? ' · ' : ''}
-        {f.equipmentId && f.equipmentName ? (
-          <Link href={`/equipment/${f.equipmentId}`} className="font-medium text-ice-800 underline">
-            {f.equipmentName}
-          </Link>
-        ) : null}
-        {' · raised by '}
-        {f.createdByName} on {formatDay(f.createdAt)}
-        {f.raisedVisitId ? (
-          <>
-            {' '}
-            (
-            <Link href={`/visits/${f.raisedVisitId}`} className="text-ice-800 underline">
-              visit
-            </Link>
-            )
-          </>
-        ) : null}
+        Raised by {f.createdByName} on {formatDay(f.createdAt)}
       </p>
+      {/* Where it is and where it came from, each a whole tap target rather than a word in a line. */}
+      <div className="flex flex-wrap gap-x-4 text-sm">
+        {showSite ? <TextLink href={`/sites/${f.siteId}`}>{f.siteName}</TextLink> : null}
+        {f.equipmentId && f.equipmentName ? <TextLink href={`/equipment/${f.equipmentId}`}>{f.equipmentName}</TextLink> : null}
+        {f.raisedVisitId ? <TextLink href={`/visits/${f.raisedVisitId}`}>The visit that raised it</TextLink> : null}
+      </div>
       {f.status === 'scheduled' && f.scheduledFor ? (
         <p className="flex items-center gap-1.5 text-sm font-semibold text-ice-900">
           <CalendarClock aria-hidden className="size-4" /> Planned for {formatDay(f.scheduledFor)}
@@ -97,17 +81,14 @@ function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: Follo
         <p className="text-sm text-slate-800">
           {f.status === 'resolved' ? 'Resolved' : 'Declined'} by {f.closedByName ?? 'someone'}
           {f.closedAt ? ` on ${formatDay(f.closedAt)}` : ''}
-          {f.closedVisitId ? (
-            <>
-              {' '}
-              on a{' '}
-              <Link href={`/visits/${f.closedVisitId}`} className="text-ice-800 underline">
-                visit
-              </Link>
-            </>
-          ) : null}
+          {f.closedVisitId ? ' on a visit' : ''}
           {f.resolution ? `: ${f.resolution}` : ''}
         </p>
+      ) : null}
+      {!live && f.closedVisitId ? (
+        <TextLink href={`/visits/${f.closedVisitId}`} className="text-sm">
+          The visit that closed it
+        </TextLink>
       ) : null}
       {canWrite && live ? (
         step === null ? (

@@ -100,9 +100,10 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
               { label: 'Model', value: equipment.model },
               { label: 'Serial', value: equipment.serial ? <span className="font-mono text-lg">{equipment.serial}</span> : null },
               {
-                label: 'System',
+                // The unit is one part of a circuit: the words a technician uses.
+                label: 'Part of',
                 value: equipment.systemId ? (
-                  <Link href={`/systems/${equipment.systemId}`} className="text-ice-800 underline">
+                  <Link href={`/systems/${equipment.systemId}`} className="inline-flex min-h-11 items-center text-ice-800 underline">
                     {equipment.systemName}
                   </Link>
                 ) : null,

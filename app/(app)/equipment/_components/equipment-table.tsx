@@ -30,7 +30,7 @@ export const equipmentColumns = helper.columns([
     header: 'Name',
     enableHiding: false,
     cell: (info) => (
-      <Link href={`/equipment/${info.row.original.id}`} className="font-semibold text-ice-800 underline decoration-ice-300 underline-offset-2 hover:decoration-ice-800">
+      <Link href={`/equipment/${info.row.original.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline decoration-ice-300 underline-offset-2 hover:decoration-ice-800">
         {info.getValue()}
       </Link>
     ),

@@ -68,7 +68,7 @@ export default async function NewEquipmentPage({ searchParams }: { searchParams:
         subtitle={
           <>
             At{' '}
-            <Link href={`/sites/${site.id}`} className="font-medium text-ice-800 underline">
+            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
               {site.name}
             </Link>
             {actor.role !== 'client' ? ` · ${site.clientName}` : ''}

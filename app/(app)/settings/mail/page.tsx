@@ -56,7 +56,7 @@ export default async function MailInboxPage({ searchParams }: { searchParams: Pr
               )}
               {open.text ? (
                 <details className="mt-3">
-                  <summary className="cursor-pointer text-sm font-semibold">Plain text</summary>
+                  <summary className="flex min-h-11 cursor-pointer items-center text-sm font-semibold">Plain text</summary>
                   <pre className="mt-2 whitespace-pre-wrap text-sm" data-testid="mail-text">{open.text}</pre>
                 </details>
               ) : null}

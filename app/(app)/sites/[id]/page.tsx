@@ -57,7 +57,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
             siteAddress(site)
           ) : (
             <>
-              <Link href={`/clients/${site.clientId}`} className="font-medium text-ice-800 underline">
+              <Link href={`/clients/${site.clientId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
                 {site.clientName}
               </Link>
               {siteAddress(site) ? ` · ${siteAddress(site)}` : ''}

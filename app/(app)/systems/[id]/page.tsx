@@ -43,7 +43,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
           <p className="text-sm font-semibold uppercase tracking-wide text-slate-600">Refrigeration system</p>
           <h1 className="text-2xl font-bold tracking-tight text-slate-900">{system.name}</h1>
           <p className="mt-1 text-slate-700">
-            <Link href={`/sites/${system.siteId}`} className="font-medium text-ice-800 underline">
+            <Link href={`/sites/${system.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
               {system.siteName}
             </Link>
             {system.areaName ? ` · serves ${system.areaName}` : ''}
@@ -76,7 +76,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
           <Detail label="Design box temperature">{formatQuantity(system.designBoxTempC, 'temperature', prefs)}</Detail>
           <Detail label="Condensing unit">
             {system.condensingUnit ? (
-              <Link href={`/equipment/${system.condensingUnit.id}`} className="text-ice-800 underline">
+              <Link href={`/equipment/${system.condensingUnit.id}`} className="inline-flex min-h-11 items-center text-ice-800 underline">
                 {system.condensingUnit.name}
               </Link>
             ) : (
@@ -94,7 +94,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
         </h2>
         <EquipmentList items={members.items} showArea showLife empty="No equipment registered in this system yet." />
         {members.nextCursor ? (
-          <Link href={`/equipment?systemId=${system.id}`} className="inline-block font-semibold text-ice-800 underline">
+          <Link href={`/equipment?systemId=${system.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
             See all {system.equipmentCount} in the equipment table
           </Link>
         ) : null}

@@ -23,7 +23,7 @@ export default async function NewSystemPage({ searchParams }: { searchParams: Pr
         subtitle={
           <>
             One refrigeration circuit at{' '}
-            <Link href={`/sites/${site.id}`} className="font-medium text-ice-800 underline">
+            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
               {site.name}
             </Link>
             : a condensing unit or rack and the evaporators and controls it serves.

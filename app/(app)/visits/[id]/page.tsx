@@ -36,7 +36,7 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
     <header className="space-y-2">
       <p className="text-sm font-semibold uppercase tracking-wide text-slate-600">Service visit · {visitReasonLabels[visit.reason]}</p>
       <h1 className="break-words text-2xl font-bold tracking-tight text-slate-900">
-        <Link href={`/sites/${visit.siteId}`} className="hover:underline">
+        <Link href={`/sites/${visit.siteId}`} className="inline-flex min-h-11 items-center hover:underline">
           {visit.siteName}
         </Link>
       </h1>
@@ -64,7 +64,7 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
         {/* A phone's first screen is for the work: the visit in two lines. */}
         <header>
           <h1 className="break-words text-xl font-bold tracking-tight text-slate-900">
-            <Link href={`/sites/${visit.siteId}`} className="hover:underline">
+            <Link href={`/sites/${visit.siteId}`} className="inline-flex min-h-11 items-center hover:underline">
               {visit.siteName}
             </Link>
           </h1>

@@ -48,12 +48,12 @@ export function ContactManager({ clientId, contacts, canWrite }: { clientId: str
                 </span>
                 <span className="flex flex-wrap gap-x-4 text-sm text-slate-700">
                   {c.email ? (
-                    <a className="inline-flex items-center gap-1 underline" href={`mailto:${c.email}`}>
+                    <a className="inline-flex min-h-11 items-center gap-1 underline" href={`mailto:${c.email}`}>
                       <Mail aria-hidden className="size-4" /> {c.email}
                     </a>
                   ) : null}
                   {c.phone ? (
-                    <a className="inline-flex items-center gap-1 underline" href={`tel:${c.phone}`}>
+                    <a className="inline-flex min-h-11 min-w-11 items-center gap-1 underline" href={`tel:${c.phone}`}>
                       <Phone aria-hidden className="size-4" /> {c.phone}
                     </a>
                   ) : null}

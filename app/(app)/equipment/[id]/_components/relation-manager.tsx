@@ -64,7 +64,7 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
               <EquipmentTypeIcon type={r.other.type} />
               <span className="min-w-0 flex-1">
                 <span className="font-semibold text-slate-700">{phrase(r)}:</span>{' '}
-                <Link href={`/equipment/${r.other.id}`} className="font-semibold text-ice-800 underline">
+                <Link href={`/equipment/${r.other.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
                   {r.other.name}
                 </Link>
                 <span className="block text-sm text-slate-600">{equipmentTypeLabels[r.other.type]}</span>

@@ -27,7 +27,7 @@ export default async function EditEquipmentPage({ params }: { params: Promise<{ 
       <PageHeader
         title={`Edit ${equipment.name}`}
         subtitle={
-          <Link href={`/sites/${equipment.siteId}`} className="font-medium text-ice-800 underline">
+          <Link href={`/sites/${equipment.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
             {equipment.siteName}
           </Link>
         }

@@ -22,7 +22,7 @@ export default async function ImportEquipmentPage({ params }: { params: Promise<
         subtitle={
           <>
             Into{' '}
-            <Link href={`/sites/${site.id}`} className="font-medium text-ice-800 underline">
+            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
               {site.name}
             </Link>{' '}
             · {site.clientName}

@@ -19,7 +19,7 @@ export default async function EditSystemPage({ params }: { params: Promise<{ id:
       <PageHeader
         title={`Edit ${system.name}`}
         subtitle={
-          <Link href={`/sites/${system.siteId}`} className="font-medium text-ice-800 underline">
+          <Link href={`/sites/${system.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
             {system.siteName}
           </Link>
         }

@@ -69,7 +69,7 @@ export default async function PrintRunPage({ params }: { params: Promise<{ id: s
           <thead className="bg-slate-50 text-slate-700">
             <tr>
               <th scope="col" className="px-3 py-2">Code</th>
-              <th scope="col" className="px-3 py-2">State</th>
+              <th scope="col" className="hidden px-3 py-2 sm:table-cell">State</th>
               <th scope="col" className="px-3 py-2">Equipment</th>
             </tr>
           </thead>
@@ -78,13 +78,17 @@ export default async function PrintRunPage({ params }: { params: Promise<{ id: s
               <tr key={t.id}>
                 <td className="px-3 py-2">
                   <TagCode code={t.code} className="text-base" />
+                  {/* On a phone the state sits under the code, leaving the width to the unit's name. */}
+                  <div className="mt-1 sm:hidden">
+                    <TagStateBadge state={t.state} />
+                  </div>
                 </td>
-                <td className="px-3 py-2">
+                <td className="hidden px-3 py-2 sm:table-cell">
                   <TagStateBadge state={t.state} />
                 </td>
                 <td className="px-3 py-2">
                   {t.equipmentId ? (
-                    <Link href={`/equipment/${t.equipmentId}`} className="text-ice-800 underline">
+                    <Link href={`/equipment/${t.equipmentId}`} className="inline-flex min-h-11 items-center text-ice-800 underline">
                       {t.equipmentName}
                     </Link>
                   ) : (
