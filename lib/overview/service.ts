@@ -116,7 +116,8 @@ export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = ne
 export interface ChartData {
   conditionDistribution: { rating: string; count: number }[];
   ageVsLife: { name: string; ageYears: number; medianYears: number }[];
-  refrigerantAddedByYear: { year: number; system: string; kg: number }[];
+  /** Per circuit (its system, or the unit when it has none) and the site it is on. */
+  refrigerantAddedByYear: { year: number; system: string; site: string; kg: number }[];
   visitsPerMonth: { month: string; visits: number }[];
 }
 
@@ -162,9 +163,10 @@ export async function chartData(actor: Actor, siteId: string | null, db: Db = de
     .select([
       sql<number>`extract(year from entries.recorded_at)::int`.as('year'),
       sql<string>`coalesce(systems.name, equipment.name)`.as('system'),
+      'sites.name as site',
       sql<number>`sum((entries.data->>'amountKg')::float8)`.as('kg'),
     ])
-    .groupBy([sql`1`, sql`2`])
+    .groupBy([sql`1`, sql`2`, 'sites.id', 'sites.name'])
     .orderBy(sql`1`)
     .execute();
   const since = new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth() - 11, 1));
@@ -186,7 +188,7 @@ export async function chartData(actor: Actor, siteId: string | null, db: Db = de
   return {
     conditionDistribution: [...counts].map(([k, n]) => ({ rating: labels[k]!, count: n })),
     ageVsLife,
-    refrigerantAddedByYear: added.map((a) => ({ year: Number(a.year), system: a.system, kg: Math.round(Number(a.kg) * 100) / 100 })),
+    refrigerantAddedByYear: added.map((a) => ({ year: Number(a.year), system: a.system, site: a.site, kg: Math.round(Number(a.kg) * 100) / 100 })),
     visitsPerMonth: months.map((m) => ({ month: m, visits: perMonth.get(m) ?? 0 })),
   };
 }
