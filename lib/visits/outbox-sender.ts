@@ -80,6 +80,9 @@ export async function sendItem(item: OutboxItem): Promise<SendResult | null> {
  * "Try sending now", or the browser says the connection is back).
  */
 export async function drainOutbox(opts: { visitId?: string; userId?: string; force?: boolean; onSent?: (item: OutboxItem, result: SendResult) => void } = {}): Promise<void> {
+  // The browser knows there is no connection: nothing is tried (and no back-off is earned) until
+  // it says the connection is back.
+  if (typeof navigator !== 'undefined' && navigator.onLine === false) return;
   // Another person's work waits for them: it is never sent under this session.
   const items = (await outboxItems(opts.visitId)).filter((i) => !opts.userId || !i.userId || i.userId === opts.userId);
   const byVisit = new Map<string, OutboxItem[]>();
@@ -98,10 +101,8 @@ export async function drainOutbox(opts: { visitId?: string; userId?: string; for
       // Still backing off: the items after it keep their place behind it.
       if (!opts.force && item.nextTryAt > Date.now()) break;
       const sent = await sendItem(item);
-      if (!sent) {
-        earlierOutstanding = true;
-        continue;
-      }
+      // Another round is sending this item: that round keeps the visit's order, this one stops.
+      if (!sent) break;
       opts.onSent?.(item, sent);
       // No signal: the rest of the outbox would fail the same way.
       if (sent.result === 'waiting') return;

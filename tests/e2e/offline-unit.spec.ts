@@ -144,3 +144,41 @@ test('owners get no pack: no button on the site page and 403 from the API @phone
   await expect(page.getByTestId('keep-site')).toHaveCount(0);
   expect((await page.request.get(`/api/sites/${siteId}/pack`)).status()).toBe(403);
 });
+
+test('another person signing in on the same phone wipes the first one’s kept sites and pages @phone', async ({ page, context, browser }, info) => {
+  test.setTimeout(180_000);
+  const label = String(Date.now()).slice(-6);
+  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
+  const office = await officeContext.newPage();
+  await signIn(office, 'office@rimeline.test');
+  const { site } = await keptSite(office.request, label);
+  await officeContext.close();
+
+  await signIn(page, 'tech@rimeline.test');
+  await page.goto(`/sites/${site.id}`);
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  const panel = page.getByTestId('keep-site');
+  await panel.getByRole('button', { name: 'Keep this site on the phone' }).click();
+  await expect(panel.getByTestId('keep-site-status')).toContainText('Ready without signal', { timeout: 30_000 });
+  expect(await packDatabases(page)).toHaveLength(1);
+  expect(await page.evaluate(async () => (await caches.keys()).includes('rimeline-pages'))).toBe(true);
+
+  // The session ends without a sign-out (it expired, or the cookies were cleared); someone else signs in.
+  await context.clearCookies();
+  await signIn(page, 'office@rimeline.test');
+  await page.goto('/scan');
+  await expect(page.getByLabel('Tag code')).toBeVisible();
+  await expect.poll(() => packDatabases(page), { timeout: 30_000 }).toEqual([]);
+  // The technician's kept pages are gone (the office's own visit to /scan may be kept anew).
+  const keptPaths = () =>
+    page.evaluate(async () => {
+      if (!(await caches.has('rimeline-pages'))) return [];
+      return (await (await caches.open('rimeline-pages')).keys()).map((r) => new URL(r.url).pathname);
+    });
+  await expect.poll(keptPaths, { timeout: 30_000 }).not.toContain('/offline/unit');
+  // Nothing of the technician's copy answers the office's lookups either.
+  await page.goto(`/sites/${site.id}`);
+  await expect(page.getByTestId('keep-site').getByRole('button', { name: 'Keep this site on the phone' })).toBeVisible();
+});

@@ -136,3 +136,110 @@ test('a visit recorded and closed without signal reaches the server once, after 
   expect(photos.items).toHaveLength(1);
   expect(detail.summary).toBe('Low-pressure control reset; drain pan heater to replace.');
 });
+
+test('a visit started without signal at a kept site reaches the server once, even when the answer to its start is lost @phone', async ({ page, context, browser }, info) => {
+  test.setTimeout(300_000);
+  const label = String(Date.now()).slice(-5);
+  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
+  const office = await officeContext.newPage();
+  await signIn(office, 'office@rimeline.test');
+  const { siteId, cu, control, evaporator } = await offlineSite(office.request, label);
+  await officeContext.close();
+
+  // With signal: keep the site from its page; the worker keeps the field pages.
+  await signIn(page, 'tech@rimeline.test');
+  await page.goto(`/sites/${siteId}`);
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  const panel = page.getByTestId('keep-site');
+  await panel.getByRole('button', { name: 'Keep this site on the phone' }).click();
+  await expect(panel.getByTestId('keep-site-status')).toContainText('Ready without signal', { timeout: 30_000 });
+  await page.goto('/scan');
+  await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller))).toBe(true);
+
+  // No signal from here. A unit never opened, by its typed code; the visit starts on the phone.
+  await context.setOffline(true);
+  await page.reload();
+  await page.getByLabel('Tag code').fill(cu.code);
+  await page.getByRole('button', { name: 'Open' }).click();
+  await expect(page.getByTestId('offline-unit').getByRole('heading', { level: 1, name: cu.name })).toBeVisible();
+  await page.getByRole('link', { name: /Log a visit/ }).click();
+  const start = page.getByTestId('offline-start');
+  await start.getByRole('radio', { name: 'No-cooling call' }).check();
+  await start.getByRole('button', { name: 'Start visit' }).click();
+  await expect(page).toHaveURL(/\/offline\/visit\?id=[0-9a-f-]{36}&equipment=/);
+  const visitId = new URL(page.url()).searchParams.get('id')!;
+  await expect(page.getByTestId('offline-visit-source')).toContainText('Started on this phone without signal.');
+  await expect(page.getByRole('heading', { level: 2, name: cu.name })).toBeVisible();
+  await shot(page, 'offline-visit-started-on-phone');
+
+  await page.getByRole('button', { name: 'Readings', exact: true }).click();
+  await page.getByLabel('Suction pressure (psig)', { exact: true }).fill('22');
+  await page.getByLabel('Discharge pressure (psig)', { exact: true }).fill('230');
+  await page.getByLabel('Suction-line temperature (°F)', { exact: true }).fill('40');
+  await page.getByRole('button', { name: 'Save readings' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
+
+  await changeUnit(page, 'low-pressure', control.name);
+  await page.getByRole('button', { name: 'Setting change' }).click();
+  await page.getByRole('button', { name: /^Same as recorded/ }).click();
+  await page.getByLabel('Cut-in as left (psig)', { exact: true }).fill('28');
+  await page.getByLabel('Differential as left (psi)', { exact: true }).fill('12');
+  await page.getByRole('button', { name: 'Save setting change' }).click();
+  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+
+  await changeUnit(page, 'coil', evaporator.name);
+  await page.getByRole('button', { name: 'Finding', exact: true }).click();
+  await page.getByLabel('What was found').fill(`Fan motor bearing noise (${label})`);
+  await page.getByRole('radio', { name: /^Degraded/ }).check();
+  await page.getByRole('checkbox', { name: /Raise a follow-up/ }).check();
+  await page.getByRole('button', { name: 'Save finding' }).click();
+  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+
+  await page.getByRole('button', { name: 'Photo', exact: true }).click();
+  await page.getByTestId('offline-photo-input').setInputFiles({ name: 'fan.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('KELVRIN FM-9')).jpeg().toBuffer() });
+  await expect(page.getByText('1 photo kept on this phone for this visit.')).toBeVisible();
+  await page.getByRole('button', { name: 'Done with photos' }).click();
+
+  await page.getByTestId('visit-bar').getByRole('button', { name: 'Close visit' }).click();
+  await expect(page.getByTestId('close-missing')).toContainText('The visit itself is not on the server yet');
+  await page.getByLabel('Summary for the client').fill('Fan motor noisy; replacement to be quoted.');
+  await page.getByRole('button', { name: 'Close visit', exact: true }).last().click();
+  await expect(page.getByTestId('close-queued')).toBeVisible();
+
+  // A reload without signal: the phone's copy of the visit, everything still waiting.
+  await page.reload();
+  await expect(page.getByTestId('visit-bar')).toContainText('Closing when there is signal');
+  await expect(page.getByRole('alert').filter({ hasText: 'No signal' })).toContainText('3 entries, 1 photo and the close waiting');
+
+  // Signal back; the answer to the start is lost on the way, so the start is sent twice.
+  let lost = 0;
+  await context.route('**/api/visits', async (route) => {
+    if (route.request().method() === 'POST' && lost === 0) {
+      lost += 1;
+      await route.fetch();
+      await route.abort('connectionreset');
+    } else {
+      await route.continue();
+    }
+  });
+  await context.setOffline(false);
+  await expect(async () => {
+    const detail = await visitDetail(page.request, visitId);
+    expect(detail.status).toBe('closed');
+  }).toPass({ timeout: 120_000 });
+  await context.unroute('**/api/visits');
+  expect(lost).toBe(1);
+
+  const detail = await visitDetail(page.request, visitId);
+  expect(detail.reason).toBe('no_cooling');
+  expect(detail.entries.filter((e) => !e.voidedAt).map((e) => e.kind).sort()).toEqual(['finding', 'photo', 'reading', 'setting_change']);
+  const visits = await api<{ items: { id: string }[] }>(page.request, 'GET', `/api/visits?siteId=${siteId}`);
+  expect(visits.items.map((v) => v.id)).toEqual([visitId]);
+  const followUps = await api<{ items: { title: string }[] }>(page.request, 'GET', `/api/follow-ups?siteId=${siteId}`);
+  expect(followUps.items.filter((f) => f.title.includes(label))).toHaveLength(1);
+  expect(detail.summary).toBe('Fan motor noisy; replacement to be quoted.');
+  // With signal, the phone's copy gives way to the visit's own page.
+  await expect(page).toHaveURL(new RegExp(`/visits/${visitId}`), { timeout: 30_000 });
+});

@@ -165,4 +165,25 @@ describe('visit outbox', () => {
     await startOnPhone({ id: visitId, userId: someoneElse, siteId: '44444444-4444-4444-8444-444444444444', reason: 'maintenance', startedAt: '2026-12-04T08:15:00.000Z' });
     expect(await phoneVisit(me, visitId)).toBeNull();
   });
+
+  it('a second round never overtakes an item still being sent by the first', async () => {
+    const me = '33333333-3333-4333-8333-333333333333';
+    await startOnPhone({ id: visitId, userId: me, siteId: '44444444-4444-4444-8444-444444444444', reason: 'maintenance', startedAt: '2026-12-04T08:15:00.000Z' });
+    await putItem({ ...entry(ids[0]!, 'after the start'), userId: me } as OutboxItem);
+    let releaseStart!: () => void;
+    const startAnswered = new Promise<void>((resolve) => (releaseStart = resolve));
+    vi.stubGlobal('fetch', async (url: string, init: RequestInit) => {
+      sent.push({ url, body: JSON.parse(String(init.body)) });
+      if (url === '/api/visits') await startAnswered;
+      return answer(url === '/api/visits' ? 201 : 200, url === '/api/visits' ? { id: visitId } : { id: 'e' });
+    });
+    const first = drainOutbox({ visitId, userId: me, force: true });
+    // Let the first round reach its fetch of the start.
+    await vi.waitFor(() => expect(sent).toHaveLength(1));
+    await drainOutbox({ visitId, userId: me, force: true });
+    expect(sent.map((s) => s.url)).toEqual(['/api/visits']);
+    releaseStart();
+    await first;
+    expect(sent.map((s) => s.url)).toEqual(['/api/visits', `/api/visits/${visitId}/entries`]);
+  });
 });

@@ -335,7 +335,7 @@ export function VisitWorkspace({
         </Alert>
       ) : null}
       {!online || waitingCount > 0 ? (
-        <Alert tone="warning" title={online ? `${waitingWords(unsent) ?? 'Nothing'} to be sent` : `No signal${waitingCount > 0 ? `: ${waitingWords(unsent)}` : ''}`}>
+        <Alert tone="warning" title={online ? `${capitalised(waitingWords(unsent) ?? 'Nothing')} to be sent` : `No signal${waitingCount > 0 ? `: ${waitingWords(unsent)}` : ''}`}>
           <p>
             {waitingCount > 0
               ? 'They are kept on this phone and sent as soon as there is a connection. Do not clear this browser’s data until they are sent.'
@@ -390,6 +390,8 @@ export function VisitWorkspace({
     </div>
   );
 }
+
+const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** An item still on the phone, as a row of the visit's entries. */
 function outboxRow(p: Exclude<OutboxItem, { type: 'close' | 'start' }>, names: Map<string, string>): Row {
