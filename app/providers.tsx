@@ -1,7 +1,6 @@
 'use client';
 
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { SessionProvider } from 'next-auth/react';
 import { useState, type ReactNode } from 'react';
 
 export function Providers({ children }: { children: ReactNode }) {
@@ -15,9 +14,7 @@ export function Providers({ children }: { children: ReactNode }) {
         },
       }),
   );
-  return (
-    <SessionProvider refetchOnWindowFocus={false}>
-      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
-    </SessionProvider>
-  );
+  // No next-auth SessionProvider: nothing reads the session in the browser (the server decides
+  // every page), and its script would be in every page; sign-in and sign-out import it when used.
+  return <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
 }

@@ -1,7 +1,6 @@
 'use client';
 
 import { BellRing, Building2, CalendarDays, ClipboardList, FileText, Gauge, Home, ListTodo, MapPin, Menu, QrCode, Refrigerator, ScanLine, Settings, Snowflake, Sun, LogOut, X } from 'lucide-react';
-import { signOut } from 'next-auth/react';
 import Link from 'next/link';
 import { usePathname, useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -57,6 +56,7 @@ export function AppHeader({ items, name, role, highContrast }: { items: NavItem[
             onClick={async () => {
               // The phone's kept sites and pages belong to this person: they go before the session does.
               await signOutWipe().catch(() => undefined);
+              const { signOut } = await import('next-auth/react');
               await signOut({ callbackUrl: '/sign-in' });
             }}
             className="flex min-h-11 min-w-11 items-center justify-center gap-1 rounded px-2 text-sm text-slate-200 hover:bg-slate-800"

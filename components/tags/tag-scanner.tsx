@@ -19,6 +19,8 @@ export function TagScanner({ onCode, compact = false }: { onCode: (code: string,
   const video = useRef<HTMLVideoElement>(null);
   const controls = useRef<IScannerControls | null>(null);
   const handled = useRef(false);
+  // Counts camera starts, so a start that finishes after a stop or a newer start lets go of its camera.
+  const attempts = useRef(0);
   const [state, setState] = useState<CameraState>('starting');
   const [torch, setTorch] = useState<{ supported: boolean; on: boolean }>({ supported: false, on: false });
   const [foreign, setForeign] = useState<string | null>(null);
@@ -33,6 +35,7 @@ export function TagScanner({ onCode, compact = false }: { onCode: (code: string,
   );
 
   const stop = useCallback(() => {
+    attempts.current++;
     controls.current?.stop();
     controls.current = null;
   }, []);
@@ -47,10 +50,20 @@ export function TagScanner({ onCode, compact = false }: { onCode: (code: string,
       setState('unavailable');
       return;
     }
+    const attempt = ++attempts.current;
+    let stream: MediaStream | null = null;
     try {
+      stream = await navigator.mediaDevices.getUserMedia({ audio: false, video: { facingMode: { ideal: 'environment' } } });
+      // The decoder (the largest script of the page) is fetched only once a camera is running, so
+      // a phone without one, or with the camera blocked, never downloads it.
       const { TagQrReader } = await import('@/components/tags/qr-reader');
+      // Stopped or started again meanwhile: this camera is no longer wanted.
+      if (attempt !== attempts.current || !video.current) {
+        stream.getTracks().forEach((t) => t.stop());
+        return;
+      }
       const reader = new TagQrReader(undefined, { delayBetweenScanAttempts: 100 });
-      const c = await reader.decodeFromConstraints({ audio: false, video: { facingMode: { ideal: 'environment' } } }, video.current, (result) => {
+      const c = await reader.decodeFromStream(stream, video.current, (result) => {
         if (!result || handled.current) return;
         const code = codeFromScan(result.getText());
         if (!code) {
@@ -61,10 +74,16 @@ export function TagScanner({ onCode, compact = false }: { onCode: (code: string,
         controls.current?.stop();
         open(code, 'camera');
       });
+      if (attempt !== attempts.current) {
+        c.stop();
+        return;
+      }
       controls.current = c;
       setTorch({ supported: typeof c.switchTorch === 'function', on: false });
       setState('running');
     } catch (error) {
+      stream?.getTracks().forEach((t) => t.stop());
+      if (attempt !== attempts.current) return;
       const name = (error as { name?: string })?.name;
       setState(name === 'NotAllowedError' || name === 'SecurityError' ? 'denied' : 'unavailable');
     }

@@ -1,11 +1,37 @@
 'use client';
 
-import { useId, useState } from 'react';
-import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import dynamic from 'next/dynamic';
+import { useEffect, useId, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Field, Select } from '@/components/ui/field';
 import { conversionFor, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { useReadingSeries } from '@/lib/visits/hooks';
+
+// The chart library is the largest script of the unit page and the chart sits below the history:
+// it is fetched when the chart comes near the screen (or the page is printed), not on first load.
+const ReadingChartPlot = dynamic(() => import('@/components/visits/reading-chart-plot').then((m) => m.ReadingChartPlot), { ssr: false });
+
+/** True once the element is within a screen of the viewport, or the page is about to print. */
+function useNearScreen(): [(el: HTMLDivElement | null) => void, boolean] {
+  const [el, setEl] = useState<HTMLDivElement | null>(null);
+  const [near, setNear] = useState(false);
+  useEffect(() => {
+    if (!el || near) return;
+    const show = () => setNear(true);
+    window.addEventListener('beforeprint', show);
+    if (typeof IntersectionObserver === 'undefined') {
+      show();
+      return () => window.removeEventListener('beforeprint', show);
+    }
+    const io = new IntersectionObserver((seen) => seen.some((e) => e.isIntersecting) && show(), { rootMargin: '100% 0px' });
+    io.observe(el);
+    return () => {
+      io.disconnect();
+      window.removeEventListener('beforeprint', show);
+    };
+  }, [el, near]);
+  return [setEl, near];
+}
 
 type Unit = Quantity | 'V' | 'A' | '%' | 'ratio';
 
@@ -37,12 +63,12 @@ function converter(unit: Unit, prefs: UnitPrefs): { label: string; fromSi: (v: n
   return conversionFor(unit, prefs);
 }
 
-const shortDate = (ms: number) => new Date(ms).toLocaleDateString('en-US', { month: 'short', day: 'numeric', year: '2-digit' });
-const longDate = (ms: number) => new Date(ms).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
+export const longDate = (ms: number) => new Date(ms).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
 
 /** One reading over time for one piece of equipment, in the viewer's units; a table goes with it for print and screen readers. */
 export function ReadingChart({ equipmentId, prefs, initialKey = 'superheatK' }: { equipmentId: string; prefs: UnitPrefs; initialKey?: string }) {
   const [key, setKey] = useState(initialKey);
+  const [plotRef, near] = useNearScreen();
   const selectId = useId();
   const series = useReadingSeries(equipmentId, key);
   const meta = chartableReadings.find((r) => r.key === key) ?? chartableReadings[0]!;
@@ -75,16 +101,8 @@ export function ReadingChart({ equipmentId, prefs, initialKey = 'superheatK' }: 
             {meta.label}
             {unitText} over time
           </figcaption>
-          <div className="h-64 w-full print:h-56" data-testid="reading-chart">
-            <ResponsiveContainer width="100%" height="100%">
-              <LineChart data={points} margin={{ top: 8, right: 12, bottom: 8, left: 0 }}>
-                <CartesianGrid stroke="#cbd5e1" strokeDasharray="4 4" />
-                <XAxis dataKey="t" type="number" scale="time" domain={['dataMin', 'dataMax']} tickFormatter={shortDate} tick={{ fontSize: 13, fill: '#0f172a' }} stroke="#334155" minTickGap={24} />
-                <YAxis tick={{ fontSize: 13, fill: '#0f172a' }} stroke="#334155" width={48} domain={['auto', 'auto']} />
-                <Tooltip labelFormatter={(v) => longDate(Number(v))} formatter={(v) => [`${v}${conv.label ? ` ${conv.label}` : ''}`, meta.label]} />
-                <Line type="linear" dataKey="v" stroke="#0f3a56" strokeWidth={3} dot={{ r: 4, fill: '#0f3a56' }} activeDot={{ r: 6 }} isAnimationActive={false} />
-              </LineChart>
-            </ResponsiveContainer>
+          <div ref={plotRef} className="h-64 w-full print:h-56" data-testid="reading-chart">
+            {near ? <ReadingChartPlot points={points} unitLabel={conv.label} readingLabel={meta.label} /> : null}
           </div>
           <details className="mt-2 px-1 print:hidden">
             <summary className="min-h-11 cursor-pointer py-2 font-semibold text-ice-800">Show the values as a table</summary>

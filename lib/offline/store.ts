@@ -2,7 +2,8 @@
 
 import { deleteDB, openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import { PAGES_CACHE } from '@/lib/offline/cache-names';
-import { SITE_PACK_VERSION, type SitePack } from '@/lib/sites/pack-schema';
+import type { SitePack } from '@/lib/sites/pack-schema';
+import { SITE_PACK_VERSION } from '@/lib/sites/pack-version';
 
 // Kept site packs in IndexedDB: one database per signed-in person, so one person's copy can never
 // answer another's lookups, and a whole person's copy goes at once on sign-out.

@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import { EQUIPMENT_STATUSES, EQUIPMENT_TYPES } from '@/lib/equipment/types';
 import { ENTRY_KINDS, SEVERITIES, VISIT_REASONS } from '@/lib/visits/terms';
+import { SITE_PACK_VERSION } from '@/lib/sites/pack-version';
 
 // A site pack: what a phone keeps of one site to work there without signal. Pure (zod only), so
 // the server describes what it sends and the phone checks what it stores with the same schema.
 
-/** Bumped when the shape changes; a phone drops a stored pack of another version and fetches anew. */
-export const SITE_PACK_VERSION = 2;
+export { SITE_PACK_VERSION };
 
 /** The newest entries kept per unit. */
 export const PACK_HISTORY_PER_UNIT = 20;

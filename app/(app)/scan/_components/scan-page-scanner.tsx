@@ -1,12 +1,15 @@
 'use client';
 
+import dynamic from 'next/dynamic';
 import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useState } from 'react';
 import { TagScanner } from '@/components/tags/tag-scanner';
 import { PageHeader } from '@/components/ui/card';
 import { OFFLINE_UNIT_PATH } from '@/lib/offline/cache-names';
 import { openTagCode } from '@/lib/offline/open-unit';
-import { OfflineUnitView } from '@/app/(app)/offline/unit/_components/offline-unit-view';
+
+// Only shown without signal, so its script waits until then (the service worker keeps a copy).
+const OfflineUnitView = dynamic(() => import('@/app/(app)/offline/unit/_components/offline-unit-view').then((m) => m.OfflineUnitView));
 
 /**
  * The Scan page's scanner: a code read opens what the tag leads to (and is logged there); without
