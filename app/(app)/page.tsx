@@ -208,7 +208,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
             <h2 id="due-h" className="text-lg font-semibold">
               Due in the next 30 days or overdue
             </h2>
-            <Link href="/plans" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+            <Link href="/plans" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
               Planned visits
             </Link>
           </div>
@@ -244,7 +244,7 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
           <h3 id="planned-h" className="font-semibold">
             Planned for you
           </h3>
-          <Link href="/plans" className="min-h-11 py-2 text-sm font-semibold text-ice-800 underline">
+          <Link href="/plans" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
             All planned visits
           </Link>
         </div>
@@ -284,13 +284,16 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
       {followUps.items.length > 0 ? (
         <Card>
           <h3 className="font-semibold">Open safety and down follow-ups</h3>
-          <ul className="mt-2 space-y-1 text-sm">
+          <ul className="mt-2 divide-y divide-slate-200 text-sm">
             {followUps.items.map((f) => (
               <li key={f.id}>
-                <Link className="underline" href={f.equipmentId ? `/equipment/${f.equipmentId}` : `/sites/${f.siteId}`}>
-                  {f.title}
-                </Link>{' '}
-                · {f.siteName} · open {f.ageDays} days
+                {/* The whole row is the target, not only the title's words. */}
+                <Link className="block min-h-12 py-2" href={f.equipmentId ? `/equipment/${f.equipmentId}` : `/sites/${f.siteId}`}>
+                  <span className="font-medium underline underline-offset-2">{f.title}</span>
+                  <span className="block text-slate-700">
+                    {f.siteName} · open {f.ageDays} days
+                  </span>
+                </Link>
               </li>
             ))}
           </ul>
