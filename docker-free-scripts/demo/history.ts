@@ -14,7 +14,8 @@ import { seededRandom } from '@/docker-free-scripts/demo/history/readings';
 import type { DemoState, VisitLog } from '@/docker-free-scripts/demo/history/recorder';
 import { writeStory } from '@/docker-free-scripts/demo/history/story';
 import { addRelation, createEquipment } from '@/lib/equipment/service';
-import { createEquipmentSchema, createRelationSchema, createSystemSchema } from '@/lib/equipment/schemas';
+import { createEquipmentSchema, createRelationSchema } from '@/lib/equipment/schemas';
+import { createSystemSchema } from '@/lib/systems/schemas';
 import { createRequest, updateRequest } from '@/lib/requests/service';
 import { createRequestSchema, updateRequestSchema } from '@/lib/requests/schemas';
 import { createSystem } from '@/lib/systems/service';
@@ -121,7 +122,6 @@ export async function seedDemoHistory(db: Kysely<DB>, now = new Date()): Promise
   await db.updateTable('systems').set({ created_at: registeredAt, updated_at: registeredAt }).where('id', 'in', [...state.systems.values()].map((s) => s.id)).execute();
 
   // A tag sheet for every unit on the first site, printed and put on before the first visit there.
-  const tagged = state.sites.get(TAGGED_SITE)!;
   const taggedIds = demoPlant.filter((s) => s.site === TAGGED_SITE).flatMap((s) => s.equipment.map((e) => state.equipment.get(`${s.key}.${e.key}`)!));
   const sheet = await createPrintRun(state.office, createPrintRunSchema.parse({ kind: 'equipment', equipmentIds: taggedIds, layoutId: 'letter-30' }), db);
   const printedAt = daysBefore(now, 455);

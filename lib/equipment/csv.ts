@@ -1,9 +1,11 @@
 import Papa from 'papaparse';
 import { escapeFormulae, unescapeCell } from '@/lib/equipment/csv-cells';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
-import type { EquipmentDto, SystemDto } from '@/lib/equipment/dto';
+import type { EquipmentDto } from '@/lib/equipment/dto';
+import type { SystemDto } from '@/lib/systems/dto';
 import { nameplateFields } from '@/lib/equipment/nameplate';
-import { createEquipmentSchema, createSystemSchema } from '@/lib/equipment/schemas';
+import { createEquipmentSchema } from '@/lib/equipment/schemas';
+import { createSystemSchema } from '@/lib/systems/schemas';
 import { APPLICATIONS, EQUIPMENT_TYPES, type EquipmentType } from '@/lib/equipment/types';
 
 // One CSV layout for export and import. Values are SI, and each nameplate column's name carries

@@ -4,12 +4,13 @@ import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClie
 import { apiFetch } from '@/lib/api/client';
 import type { Page } from '@/lib/api/cursor';
 import type { RefrigerantId } from '@/lib/calc/refrigerants';
-import type { EquipmentDetailDto, EquipmentDto, RelationDto, SystemDto } from '@/lib/equipment/dto';
+import type { EquipmentDetailDto, EquipmentDto, RelationDto } from '@/lib/equipment/dto';
 import type { ImportPreview } from '@/lib/equipment/import';
-import type { CreateEquipmentInput, CreateRelationInput, CreateSystemInput, EquipmentSort, UpdateEquipmentInput, UpdateSystemInput } from '@/lib/equipment/schemas';
+import type { CreateEquipmentInput, CreateRelationInput, EquipmentSort, UpdateEquipmentInput } from '@/lib/equipment/schemas';
 import type { EquipmentStatus, EquipmentType } from '@/lib/equipment/types';
 import type { AreaDto } from '@/lib/sites/dto';
 import { siteKeys } from '@/lib/sites/hooks';
+import { systemKeys } from '@/lib/systems/keys';
 
 /** What the equipment table asks the API for; also what its URL carries. */
 export interface EquipmentListFilters {
@@ -32,12 +33,6 @@ export const equipmentKeys = {
   lists: () => ['equipment', 'list'] as const,
   list: (filters: EquipmentListFilters | Record<string, unknown>) => ['equipment', 'list', filters] as const,
   detail: (id: string) => ['equipment', 'detail', id] as const,
-};
-
-export const systemKeys = {
-  all: ['systems'] as const,
-  list: (q: Record<string, unknown>) => ['systems', 'list', q] as const,
-  detail: (id: string) => ['systems', 'detail', id] as const,
 };
 
 /** Query string for GET /api/equipment and its CSV export (repeated keys for several values). */
@@ -125,23 +120,6 @@ export function useRemoveRelation(id: string) {
   return useMutation({
     mutationFn: (relationId: string) => apiFetch<void>(`/api/equipment/${id}/relations/${relationId}`, { method: 'DELETE' }),
     onSuccess: () => qc.invalidateQueries({ queryKey: equipmentKeys.all }),
-  });
-}
-
-export function useSaveSystem(id?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateSystemInput | UpdateSystemInput) =>
-      id ? apiFetch<SystemDto>(`/api/systems/${id}`, { method: 'PATCH', json: input }) : apiFetch<SystemDto>('/api/systems', { method: 'POST', json: input }),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: systemKeys.all }), qc.invalidateQueries({ queryKey: equipmentKeys.all })]),
-  });
-}
-
-export function useArchiveSystem(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (archived: boolean) => apiFetch<SystemDto>(`/api/systems/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: systemKeys.all }),
   });
 }
 

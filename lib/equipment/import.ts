@@ -6,7 +6,7 @@ import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { equipmentToCsv, parseEquipmentCsv, systemInputProblems, type CsvProblem } from '@/lib/equipment/csv';
-import type { SystemDto } from '@/lib/equipment/dto';
+import type { SystemDto } from '@/lib/systems/dto';
 import type { ListEquipmentQuery } from '@/lib/equipment/schemas';
 import { insertEquipment, listEquipment } from '@/lib/equipment/service';
 import { AppError } from '@/lib/errors';

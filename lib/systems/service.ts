@@ -8,8 +8,8 @@ import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
-import type { SystemDto } from '@/lib/equipment/dto';
-import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/equipment/schemas';
+import type { SystemDto } from '@/lib/systems/dto';
+import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/systems/schemas';
 import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
 

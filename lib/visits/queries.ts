@@ -1,4 +1,4 @@
-import { sql, type Kysely, type Transaction } from 'kysely';
+import type { Kysely, Transaction } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import { decodeCursor } from '@/lib/api/cursor';
 import { afterCursor } from '@/lib/api/paging';

@@ -2,7 +2,8 @@
 // CSV export → import round trip, an import with one bad row changing nothing, scoping, audit.
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { exportEquipmentCsv, importEquipmentCsv } from '@/lib/equipment/import';
-import { createEquipmentSchema, createSystemSchema } from '@/lib/equipment/schemas';
+import { createEquipmentSchema } from '@/lib/equipment/schemas';
+import { createSystemSchema } from '@/lib/systems/schemas';
 import { addRelation, createEquipment, deleteEquipment, getEquipment, listEquipment, updateEquipment } from '@/lib/equipment/service';
 import { createSite, listSites } from '@/lib/sites/service';
 import { createSiteSchema } from '@/lib/sites/schemas';

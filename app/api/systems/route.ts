@@ -1,5 +1,5 @@
 import { withApi } from '@/lib/api/handler';
-import { createSystemSchema, listSystemsQuerySchema } from '@/lib/equipment/schemas';
+import { createSystemSchema, listSystemsQuerySchema } from '@/lib/systems/schemas';
 import { createSystem, listSystems } from '@/lib/systems/service';
 
 // GET /api/systems: refrigeration systems visible to the caller (filter by siteId).

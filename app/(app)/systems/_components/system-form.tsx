@@ -9,9 +9,9 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
-import type { SystemDto } from '@/lib/equipment/dto';
-import { useSaveSystem } from '@/lib/equipment/hooks';
-import { createSystemSchema, type CreateSystemInput } from '@/lib/equipment/schemas';
+import type { SystemDto } from '@/lib/systems/dto';
+import { useSaveSystem } from '@/lib/systems/hooks';
+import { createSystemSchema, type CreateSystemInput } from '@/lib/systems/schemas';
 import { APPLICATIONS, applicationLabels } from '@/lib/equipment/types';
 import { conversionFor, formatQuantity, fromDisplayValue, toDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
 

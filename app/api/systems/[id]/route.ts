@@ -1,6 +1,6 @@
 import { idParamsSchema } from '@/lib/api/schemas';
 import { withApi } from '@/lib/api/handler';
-import { updateSystemSchema } from '@/lib/equipment/schemas';
+import { updateSystemSchema } from '@/lib/systems/schemas';
 import { getSystem, updateSystem } from '@/lib/systems/service';
 
 // GET /api/systems/:id: one system.

@@ -2,7 +2,7 @@ import { ChevronRight, Waypoints } from 'lucide-react';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import type { SystemDto } from '@/lib/equipment/dto';
+import type { SystemDto } from '@/lib/systems/dto';
 import { applicationLabels } from '@/lib/equipment/types';
 
 export function SiteSystems({ siteId, systems, canWrite }: { siteId: string; systems: SystemDto[]; canWrite: boolean }) {

@@ -2,7 +2,7 @@
 
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
-import { useArchiveSystem } from '@/lib/equipment/hooks';
+import { useArchiveSystem } from '@/lib/systems/hooks';
 
 export function ArchiveSystemButton({ systemId, archived }: { systemId: string; archived: boolean }) {
   const router = useRouter();
