@@ -74,7 +74,7 @@ export default async function PlanVisitPage({ searchParams }: { searchParams: Pr
         title="Plan a visit"
         subtitle={
           <>
-            <Link href={`/sites/${site.id}`} className="font-semibold text-ice-800 underline">
+            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
               {site.name}
             </Link>{' '}
             · {site.clientName} · times in the site’s time zone ({site.timeZone})

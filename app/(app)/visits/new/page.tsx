@@ -62,7 +62,7 @@ export default async function StartVisitPage({ searchParams }: { searchParams: P
         title="Start a visit"
         subtitle={
           <>
-            <Link href={`/sites/${site.id}`} className="font-semibold text-ice-800 underline">
+            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
               {site.name}
             </Link>{' '}
             · {site.clientName}
