@@ -71,3 +71,15 @@ export function photoVisibleTo(actor: Actor) {
   const site = siteVisibleTo(actor);
   return (): Expression<SqlBool> => sql<SqlBool>`(photos.company_id = ${actor.companyId} and ${site()})`;
 }
+
+/**
+ * Planned visits: needs `visit_plans` and `sites`. Staff see their company's plans, technicians
+ * included; an owner sees their own client's sites' plans, and never a cancelled one.
+ */
+export function planVisibleTo(actor: Actor) {
+  const site = siteVisibleTo(actor);
+  return (): Expression<SqlBool> =>
+    actor.role === 'client'
+      ? sql<SqlBool>`(visit_plans.company_id = ${actor.companyId} and ${site()} and visit_plans.status <> 'cancelled')`
+      : sql<SqlBool>`(visit_plans.company_id = ${actor.companyId} and ${site()})`;
+}

@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
-import { planVisibleTo } from '@/lib/plans/scope';
+import { planVisibleTo } from '@/lib/auth/scope';
 import type { VisitReason } from '@/lib/visits/terms';
 
 export interface PlannedCover {

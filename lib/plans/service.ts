@@ -14,7 +14,7 @@ import { addDays, isOverdue } from '@/lib/plans/days';
 import type { PlanDto } from '@/lib/plans/dto';
 import { queuePlanMail, type PlanMailEvent } from '@/lib/plans/mail';
 import type { CancelPlanInput, CreatePlanInput, ListPlansQuery, MovePlanInput } from '@/lib/plans/schemas';
-import { planVisibleTo } from '@/lib/plans/scope';
+import { planVisibleTo } from '@/lib/auth/scope';
 import type { PlanStatus } from '@/lib/plans/terms';
 import type { VisitReason } from '@/lib/visits/terms';
 

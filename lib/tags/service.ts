@@ -3,7 +3,9 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { encodeCursor, decodeCursor, type Page } from '@/lib/api/cursor';
+import { decodeCursor, type Page } from '@/lib/api/cursor';
+import { afterCursor, toPage } from '@/lib/api/paging';
+import { clientScope } from '@/lib/auth/scope';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -80,14 +82,9 @@ export async function listPrintRuns(actor: Actor, query: ListPrintRunsQuery, db:
   assertCan(actor, 'tags.print');
   const cursor = decodeCursor(query.cursor);
   let q = printRunQuery(db, actor.companyId);
-  if (cursor) q = q.where(sql<boolean>`(print_runs.created_at, print_runs.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
+  if (cursor) q = q.where(afterCursor(cursor, 'print_runs.created_at', 'print_runs.id', 'desc', 'timestamptz'));
   const rows = await q.orderBy('print_runs.created_at', 'desc').orderBy('print_runs.id', 'desc').limit(query.limit + 1).execute();
-  const page = rows.slice(0, query.limit);
-  const last = page.at(-1);
-  return {
-    items: page.map(toPrintRunDto),
-    nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.created_at.toISOString(), id: last.id }) : null,
-  };
+  return toPage(rows, query.limit, toPrintRunDto, (r) => ({ k: r.created_at.toISOString(), id: r.id }));
 }
 
 export async function getPrintRun(actor: Actor, id: string, db: Db = defaultDb): Promise<PrintRunDetailDto> {
@@ -317,7 +314,8 @@ async function equipmentVisible(db: Db, actor: Actor, equipmentId: string): Prom
 
 /** Can this viewer see the site (company and client scope)? */
 async function siteVisible(db: Db, actor: Actor, siteId: string | null): Promise<boolean> {
-  if (!siteId) return actor.role !== 'client';
+  // A tag printed for no site is the company's own: staff only.
+  if (!siteId) return clientScope(actor) === null;
   return getSite(actor, siteId, db).then(
     () => true,
     () => false,
