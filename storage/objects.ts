@@ -8,7 +8,6 @@ import {
   ListObjectsV2Command,
   PutObjectCommand,
 } from '@aws-sdk/client-s3';
-import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { randomUUID } from 'node:crypto';
 import { bucket, s3 } from '@/storage/client';
 
@@ -29,18 +28,6 @@ export async function getObjectBytes(key: string): Promise<Uint8Array> {
 
 export async function deleteObject(key: string): Promise<void> {
   await s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
-}
-
-export function presignDownload(key: string, filename?: string, expiresIn = 300): Promise<string> {
-  return getSignedUrl(
-    s3,
-    new GetObjectCommand({
-      Bucket: bucket,
-      Key: key,
-      ...(filename ? { ResponseContentDisposition: `attachment; filename="${filename.replace(/"/g, '')}"` } : {}),
-    }),
-    { expiresIn },
-  );
 }
 
 export async function checkBucket(): Promise<void> {
