@@ -74,3 +74,10 @@ export function formatInput(value: number): string {
   if (!Number.isFinite(value)) return String(value);
   return formatDecimal(value, Math.abs(value) >= 100 ? 1 : 2);
 }
+
+const DIFFERENCE_LABELS: Readonly<Record<PressureUnit, string>> = { psig: 'psi', psia: 'psi', kPaG: 'kPa', kPaAbs: 'kPa', barG: 'bar', bar: 'bar' };
+
+/** A pressure difference (a control differential) in the unit of its gauge: psi, kPa or bar, no g/abs. */
+export function formatPressureDifference(valueInUnit: number, unit: PressureUnit): string {
+  return `${formatDecimal(valueInUnit, PRESSURE_DECIMALS[unit])} ${DIFFERENCE_LABELS[unit]}`;
+}

@@ -2,8 +2,8 @@
 // Relation (both types): low event = high event − differential; the differential adjustment moves
 // only the low event (trade training material, common practice).
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
-import { CalcInputError, isCalcError, fmt, requireFinite, requirePositive } from '@/lib/calc/errors';
-import { formatPressure, formatTemperature } from '@/lib/calc/format';
+import { CalcInputError, isCalcError, requireFinite, requirePositive } from '@/lib/calc/errors';
+import { formatPressure, formatPressureDifference, formatTemperature } from '@/lib/calc/format';
 import { getRefrigerant, type Refrigerant, type RefrigerantId } from '@/lib/calc/refrigerants';
 import { saturationTemperatureC, type MessageUnits } from '@/lib/calc/saturation';
 import {
@@ -164,7 +164,7 @@ export function lowPressureControl(input: LowPressureControlInput): LowPressureC
   const cutOutKpaAbs = cutInKpaAbs - pressureDifferenceToKpa(input.differential, input.unit);
   if (cutOutKpaAbs <= 0) {
     throw new CalcInputError(
-      `a differential of ${fmt(input.differential, 2)} from a cut-in of ${formatPressure(input.cutIn, input.unit)} puts the cut-out below a perfect vacuum`,
+      `a differential of ${formatPressureDifference(input.differential, input.unit)} from a cut-in of ${formatPressure(input.cutIn, input.unit)} puts the cut-out below a perfect vacuum`,
       'differential',
     );
   }
@@ -257,7 +257,7 @@ export function highPressureControl(input: HighPressureControlInput): HighPressu
   const cutInKpaAbs = cutOutKpaAbs - pressureDifferenceToKpa(input.differential, input.unit);
   if (cutInKpaAbs <= 0) {
     throw new CalcInputError(
-      `a differential of ${fmt(input.differential, 2)} from a cut-out of ${formatPressure(input.cutOut, input.unit)} puts the cut-in below a perfect vacuum`,
+      `a differential of ${formatPressureDifference(input.differential, input.unit)} from a cut-out of ${formatPressure(input.cutOut, input.unit)} puts the cut-in below a perfect vacuum`,
       'differential',
     );
   }

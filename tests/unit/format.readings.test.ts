@@ -128,8 +128,26 @@ describe('calculation messages in the reader’s units', () => {
     const text = settingWarningText(w, imperial);
     expect(text).toMatch(/\(-10 °F\)/);
     expect(text).not.toMatch(/°C|kPa/);
+    // Worked in the reader's units from the start, the form's warning already reads in °F.
+    const live = computeSettingChange({ control: 'low', asFound: s, asLeft: s } as never, ctx({ elevationM: 0, designBoxTempC: (-10 - 32) / 1.8 }), imperial);
+    expect(live.warnings.find((x) => x.code === 'cut_in_above_box')!.message).toMatch(/\(-10 °F\)/);
+    // …and its values are the same SI numbers.
+    expect(live.asLeftOtherKpaG).toBeCloseTo(c.asLeftOtherKpaG!, 9);
+    expect(live.asLeftSaturation.setting).toBeCloseTo(c.asLeftSaturation.setting!, 9);
     // A warning without data (stored before warnings carried it) keeps its saved words.
     expect(settingWarningText({ code: 'x', message: 'Saved words.' }, imperial)).toBe('Saved words.');
+  });
+});
+
+describe('pressure-control problems in the reader’s units', () => {
+  it('a cut-out below a perfect vacuum: the problem names psig for an imperial reader, kPa(g) otherwise', () => {
+    // −14 psig cut-in less a 5 psi differential is −19 psig: below −14.7 psig, the perfect vacuum at sea level (NIST SP 811).
+    const s = { cutInKpaG: psigToKpaG(-14), differentialKpa: psigToKpaG(5) };
+    const data = { control: 'low', asFound: s, asLeft: s } as never;
+    const imperialProblems = computeSettingChange(data, ctx({ elevationM: 0 }), imperial).problems.join(' ');
+    expect(imperialProblems).toMatch(/a differential of 5 psi from a cut-in of -14 psig puts the cut-out below a perfect vacuum/);
+    expect(imperialProblems).not.toMatch(/kPa/);
+    expect(computeSettingChange(data, ctx({ elevationM: 0 })).problems.join(' ')).toMatch(/kPa\(g\)/);
   });
 });
 

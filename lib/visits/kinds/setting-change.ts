@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { controlWarningMessage, highPressureControl, lowPressureControl, type ControlWarningCode, type ControlWarningData } from '@/lib/calc/pressure-controls';
-import { calcUnitsFor, formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
+import { calcUnitsFor, conversionFor, formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { kpaDiff, kpaG, tempC, tempDiffK } from '@/lib/visits/kinds/fields';
 import { attempt } from '@/lib/visits/kinds/reading';
 import { defineKind, type EntryContext, type UnitShape } from '@/lib/visits/kinds/types';
@@ -106,45 +106,77 @@ const emptySide = (): SideComputed => ({
   asFoundSaturation: { setting: null, other: null },
 });
 
-function lowComputed(found: LowSettings, left: LowSettings, ctx: EntryContext, out: SettingComputed): SideComputed {
+const same = (v: number) => v;
+const orNull = (v: number | null | undefined, f: (x: number) => number) => (v === null || v === undefined ? null : f(v));
+
+/**
+ * The units the pressure-control calculation runs in: the reader's (so its range messages and
+ * warnings read in psig and °F for an imperial reader), kPa gauge and °C when none is given. Inputs
+ * are converted from SI and the results back, so the stored values are SI either way.
+ */
+function controlUnits(prefs?: UnitPrefs) {
+  if (!prefs) return { pressureUnit: 'kPaG' as const, temperatureUnit: 'C' as const, p: same, dp: same, t: same, pSi: same, tSi: same };
+  const [p, dp, t] = [conversionFor('pressureGauge', prefs), conversionFor('pressureDiff', prefs), conversionFor('temperature', prefs)];
+  return { ...calcUnitsFor(prefs), p: p.fromSi, dp: dp.fromSi, t: t.fromSi, pSi: p.toSi, tSi: t.toSi };
+}
+
+function lowComputed(found: LowSettings, left: LowSettings, ctx: EntryContext, out: SettingComputed, prefs?: UnitPrefs): SideComputed {
   const side = emptySide();
   if (!ctx.refrigerant) {
     side.asFoundOtherKpaG = found.cutInKpaG - found.differentialKpa;
     side.asLeftOtherKpaG = left.cutInKpaG - left.differentialKpa;
     return side;
   }
+  const u = controlUnits(prefs);
   const run = (s: LowSettings) =>
     attempt(out.problems, () =>
-      lowPressureControl({ refrigerant: ctx.refrigerant!, unit: 'kPaG', temperatureUnit: 'C', elevationM: ctx.elevationM, cutIn: s.cutInKpaG, differential: s.differentialKpa, designBoxTemp: ctx.designBoxTempC ?? undefined }),
+      lowPressureControl({
+        refrigerant: ctx.refrigerant!,
+        unit: u.pressureUnit,
+        temperatureUnit: u.temperatureUnit,
+        elevationM: ctx.elevationM,
+        cutIn: u.p(s.cutInKpaG),
+        differential: u.dp(s.differentialKpa),
+        designBoxTemp: orNull(ctx.designBoxTempC, u.t) ?? undefined,
+      }),
     );
   const f = run(found);
   const l = run(left);
-  side.asFoundOtherKpaG = f?.cutOut ?? found.cutInKpaG - found.differentialKpa;
-  side.asLeftOtherKpaG = l?.cutOut ?? left.cutInKpaG - left.differentialKpa;
-  side.asFoundSaturation = { setting: f?.cutInSaturation?.dew ?? null, other: f?.cutOutSaturation?.dew ?? null };
-  side.asLeftSaturation = { setting: l?.cutInSaturation?.dew ?? null, other: l?.cutOutSaturation?.dew ?? null };
+  side.asFoundOtherKpaG = orNull(f?.cutOut, u.pSi) ?? found.cutInKpaG - found.differentialKpa;
+  side.asLeftOtherKpaG = orNull(l?.cutOut, u.pSi) ?? left.cutInKpaG - left.differentialKpa;
+  side.asFoundSaturation = { setting: orNull(f?.cutInSaturation?.dew, u.tSi), other: orNull(f?.cutOutSaturation?.dew, u.tSi) };
+  side.asLeftSaturation = { setting: orNull(l?.cutInSaturation?.dew, u.tSi), other: orNull(l?.cutOutSaturation?.dew, u.tSi) };
   out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
   out.basis ??= l?.basis ?? null;
   return side;
 }
 
-function highComputed(found: HighSettings, left: HighSettings, ctx: EntryContext, out: SettingComputed): SideComputed {
+function highComputed(found: HighSettings, left: HighSettings, ctx: EntryContext, out: SettingComputed, prefs?: UnitPrefs): SideComputed {
   const side = emptySide();
   if (!ctx.refrigerant) {
     side.asFoundOtherKpaG = found.cutOutKpaG - found.differentialKpa;
     side.asLeftOtherKpaG = left.cutOutKpaG - left.differentialKpa;
     return side;
   }
+  const u = controlUnits(prefs);
   const run = (s: HighSettings) =>
     attempt(out.problems, () =>
-      highPressureControl({ refrigerant: ctx.refrigerant!, unit: 'kPaG', temperatureUnit: 'C', elevationM: ctx.elevationM, cutOut: s.cutOutKpaG, differential: s.differentialKpa, designPressure: ctx.designPressureHighKpaG ?? undefined }),
+      highPressureControl({
+        refrigerant: ctx.refrigerant!,
+        unit: u.pressureUnit,
+        temperatureUnit: u.temperatureUnit,
+        elevationM: ctx.elevationM,
+        cutOut: u.p(s.cutOutKpaG),
+        differential: u.dp(s.differentialKpa),
+        designPressure: orNull(ctx.designPressureHighKpaG, u.p) ?? undefined,
+      }),
     );
   const f = run(found);
   const l = run(left);
-  side.asFoundOtherKpaG = f?.cutIn ?? found.cutOutKpaG - found.differentialKpa;
-  side.asLeftOtherKpaG = l?.cutIn ?? left.cutOutKpaG - left.differentialKpa;
-  side.asFoundSaturation = { setting: f?.cutOutSaturation?.bubble ?? null, other: f?.cutInSaturation?.bubble ?? null };
-  side.asLeftSaturation = { setting: l?.cutOutSaturation?.bubble ?? null, other: l?.cutInSaturation?.bubble ?? null };
+  side.asFoundOtherKpaG = orNull(f?.cutIn, u.pSi) ?? found.cutOutKpaG - found.differentialKpa;
+  side.asLeftOtherKpaG = orNull(l?.cutIn, u.pSi) ?? left.cutOutKpaG - left.differentialKpa;
+  side.asFoundSaturation = { setting: orNull(f?.cutOutSaturation?.bubble, u.tSi), other: orNull(f?.cutInSaturation?.bubble, u.tSi) };
+  side.asLeftSaturation = { setting: orNull(l?.cutOutSaturation?.bubble, u.tSi), other: orNull(l?.cutInSaturation?.bubble, u.tSi) };
   out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
   out.basis ??= l?.basis ?? null;
   return side;
@@ -155,7 +187,8 @@ export function settingWarningText(w: SettingComputed['warnings'][number], prefs
   return w.data ? controlWarningMessage(w.code as ControlWarningCode, w.data, calcUnitsFor(prefs)) : w.message;
 }
 
-export function computeSettingChange(data: SettingChangeData, ctx: EntryContext): SettingComputed {
+/** `prefs` words range problems and warnings in the reader's units; the values are SI either way. */
+export function computeSettingChange(data: SettingChangeData, ctx: EntryContext, prefs?: UnitPrefs): SettingComputed {
   const out: SettingComputed = { refrigerant: ctx.refrigerant, ...emptySide(), warnings: [], basis: null, problems: [] };
   if (data.control === 'thermostat') {
     if (ctx.designBoxTempC !== null && data.asLeft.setpointC > ctx.designBoxTempC + 1) {
@@ -166,15 +199,15 @@ export function computeSettingChange(data: SettingChangeData, ctx: EntryContext)
   if (!ctx.refrigerant) out.problems.push('No refrigerant is on record for this system, so settings cannot be turned into temperatures.');
   // Each side fills in out's warnings and basis first, then its values are laid over out.
   if (data.control === 'low') {
-    const side = lowComputed(data.asFound, data.asLeft, ctx, out);
+    const side = lowComputed(data.asFound, data.asLeft, ctx, out, prefs);
     return { ...out, ...side };
   }
   if (data.control === 'high') {
-    const side = highComputed(data.asFound, data.asLeft, ctx, out);
+    const side = highComputed(data.asFound, data.asLeft, ctx, out, prefs);
     return { ...out, ...side };
   }
-  const low = lowComputed(data.asFound.low, data.asLeft.low, ctx, out);
-  const high = highComputed(data.asFound.high, data.asLeft.high, ctx, out);
+  const low = lowComputed(data.asFound.low, data.asLeft.low, ctx, out, prefs);
+  const high = highComputed(data.asFound.high, data.asLeft.high, ctx, out, prefs);
   return { ...out, ...low, sides: { low, high } };
 }
 

@@ -109,7 +109,7 @@ export function SettingForm({
 
   const data = useMemo(() => ({ control, asFound: toSi(control, found, prefs), asLeft: toSi(control, left, prefs) }) as SettingChangeData, [control, found, left, prefs]);
   // Live values once both sides are filled in; the server computes the same on save.
-  const computed = useMemo(() => (filled(data.asFound) && filled(data.asLeft) ? computeSettingChange(data, ctx) : null), [data, ctx]);
+  const computed = useMemo(() => (filled(data.asFound) && filled(data.asLeft) ? computeSettingChange(data, ctx, prefs) : null), [data, ctx, prefs]);
 
   async function submit(e: FormEvent) {
     e.preventDefault();
