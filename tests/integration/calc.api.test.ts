@@ -1,6 +1,6 @@
 // The calculation JSON API (issue 4): the route handlers called directly with a stubbed session.
 // Every value check names its external source: the CoolProp 8.0.0 reference data
-// (tests/fixtures/reference/saturation.csv) or a section of ../shared/TRADE-REFERENCE.md ("TR §n").
+// (tests/fixtures/reference/saturation.csv) or a section of tests/fixtures/reference/TRADE-REFERENCE.md ("TR §n").
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';

@@ -15,7 +15,7 @@ import {
 import { KPA_PER_PSI, STANDARD_ATMOSPHERE_KPA } from '@/lib/calc/units';
 import { fluidRows, saturationRows } from '@/tests/helpers/reference-data';
 
-// Tolerances suggested by TRADE-REFERENCE (header) and shared/reference/README.md.
+// Tolerances suggested by tests/fixtures/reference/TRADE-REFERENCE.md (header) and tests/fixtures/reference/README.md.
 const HFO_CLASS = new Set(['R-407A', 'R-448A', 'R-449A', 'R-454C', 'R-455A']);
 const tolerancePct = (id: string): number => (HFO_CLASS.has(id) ? 1.5 : 0.3);
 const relErrPct = (actual: number, expected: number): number => (Math.abs(actual - expected) / expected) * 100;
