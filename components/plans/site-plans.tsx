@@ -1,9 +1,13 @@
 import Link from 'next/link';
 import { PlanCard } from '@/components/plans/plan-card';
+import { StartPlanButton } from '@/components/plans/start-plan-button';
 import type { PlanDto } from '@/lib/plans/dto';
 
-/** A site's coming planned visits (its own page: no site link, the owner reads "Visit planned"). */
-export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId: string; canPlan: boolean }) {
+/**
+ * A site's coming planned visits (on its own page, so no site link). `viewerId` lets the technician
+ * a plan names start it here on its day.
+ */
+export function SitePlans({ plans, siteId, canPlan, viewerId }: { plans: PlanDto[]; siteId: string; canPlan: boolean; viewerId: string }) {
   return (
     <section aria-labelledby="site-plans-h" className="space-y-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
@@ -22,7 +26,9 @@ export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId
         <ul className="grid gap-2 md:grid-cols-2">
           {plans.map((p) => (
             <li key={p.id} className="min-w-0">
-              <PlanCard plan={p} showDay linkSite={false} />
+              <PlanCard plan={p} showDay linkSite={false}>
+                {p.canStart && p.technicianId === viewerId && p.day <= p.siteToday ? <StartPlanButton plan={p} /> : null}
+              </PlanCard>
             </li>
           ))}
         </ul>

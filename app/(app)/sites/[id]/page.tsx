@@ -131,7 +131,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         </div>
         <FollowUpList items={followUps.items} canWrite={can(actor, 'followups.write')} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
       </section>
-      <SitePlans plans={plans} siteId={site.id} canPlan={can(actor, 'plans.write') && !site.archivedAt} />
+      <SitePlans plans={plans} siteId={site.id} canPlan={can(actor, 'plans.write') && !site.archivedAt} viewerId={actor.id} />
       <SiteRecentVisits visits={recentVisits.items} siteId={site.id} />
       <SiteRecentPhotos photos={recentPhotos} timeZone={site.timeZone} />
       <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />
