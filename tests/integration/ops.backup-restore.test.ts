@@ -278,4 +278,17 @@ describe('npm run backup → npm run restore', () => {
     await expect(restore).rejects.toThrow('1 object file(s) are missing or damaged');
     expect(await bucketChecksums(buckets.target)).toEqual(sourceObjects);
   }, 120_000);
+
+  it('puts back what the snapshot knew and leaves objects written after it in the folder', async () => {
+    const folder = path.join(work, 'with-late-photo');
+    const late = parseManifest(readFileSync(path.join(folder, 'manifest.json'), 'utf8'));
+    await dropTarget();
+    await emptyBucket(buckets.target);
+    const result = await restoreBackup({ archive: folder, databaseUrl: targetUrl, bucket: targetBucket, replace: false });
+    expect(result.objectsSkipped).toBe(3);
+    expect((await rowCounts(targetUrl))['public.photos']).toBe(2);
+    const restoredKeys = (await listAll(minio, buckets.target)).map((o) => o.key);
+    expect(restoredKeys).toEqual(late.objects.items.filter((o) => o.state !== 'after_snapshot').map((o) => o.key));
+    for (const key of late.problems.afterSnapshot) expect(restoredKeys).not.toContain(key);
+  }, 120_000);
 });
