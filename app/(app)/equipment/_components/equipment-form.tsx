@@ -4,11 +4,11 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState, type ReactNode } from 'react';
 import { useForm, type FieldErrors, type Resolver, type ResolverResult, type UseFormRegister } from 'react-hook-form';
+import { FormFooter } from '@/components/forms/form-footer';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { conditionLook } from '@/components/equipment/condition-badge';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
 import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
 import type { EquipmentDetailDto } from '@/lib/equipment/dto';
 import { useSaveEquipment } from '@/lib/equipment/hooks';
@@ -217,14 +217,7 @@ export function EquipmentForm({
             ))}
           </Section>
 
-          <div className="flex flex-wrap gap-2">
-            <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
-              {form.formState.isSubmitting ? 'Saving…' : equipment ? 'Save changes' : 'Register equipment'}
-            </Button>
-            <Button variant="secondary" size="lg" onClick={() => router.back()}>
-              Cancel
-            </Button>
-          </div>
+          <FormFooter submitting={form.formState.isSubmitting} submitLabel={equipment ? 'Save changes' : 'Register equipment'} />
         </>
       ) : null}
     </form>

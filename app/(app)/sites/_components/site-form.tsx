@@ -5,10 +5,11 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
-import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
+import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import { useSaveSite } from '@/lib/sites/hooks';
 import { createSiteSchema } from '@/lib/sites/schemas';
 import type { SiteDto } from '@/lib/sites/dto';
@@ -130,17 +131,8 @@ export function SiteForm({
           <Input id="elevation" inputMode="numeric" value={elevation} onChange={(e) => onElevation(e.target.value)} {...describedBy('elevation', errors.elevationM?.message)} />
         </Field>
       </div>
-      <Field id="accessNotes" label="Access notes" error={errors.accessNotes?.message} hint="Roof hatch, keys, hours, who to ask on arrival.">
-        <Textarea id="accessNotes" {...describedBy('accessNotes', errors.accessNotes?.message)} {...form.register('accessNotes')} />
-      </Field>
-      <div className="flex gap-2">
-        <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
-          {form.formState.isSubmitting ? 'Saving…' : site ? 'Save changes' : 'Create site'}
-        </Button>
-        <Button variant="secondary" size="lg" onClick={() => router.back()}>
-          Cancel
-        </Button>
-      </div>
+      <BoundField form={form} name="accessNotes" label="Access notes" hint="Roof hatch, keys, hours, who to ask on arrival." multiline />
+      <FormFooter submitting={form.formState.isSubmitting} submitLabel={site ? 'Save changes' : 'Create site'} />
     </form>
   );
 }

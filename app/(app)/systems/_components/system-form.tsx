@@ -4,10 +4,11 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
 import { useForm, type FieldErrors, type Resolver, type ResolverResult } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
-import { Button } from '@/components/ui/button';
-import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
+import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import type { SystemDto } from '@/lib/systems/dto';
 import { useSaveSystem } from '@/lib/systems/hooks';
@@ -140,17 +141,8 @@ export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDt
           <Input id="maintenanceIntervalDays" inputMode="numeric" autoComplete="off" {...describedBy('maintenanceIntervalDays', errors.maintenanceIntervalDays?.message)} {...form.register('maintenanceIntervalDays')} />
         </Field>
       </div>
-      <Field id="notes" label="Notes" error={errors.notes?.message}>
-        <Textarea id="notes" {...describedBy('notes', errors.notes?.message)} {...form.register('notes')} />
-      </Field>
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
-          {form.formState.isSubmitting ? 'Saving…' : system ? 'Save changes' : 'Create system'}
-        </Button>
-        <Button variant="secondary" size="lg" onClick={() => router.back()}>
-          Cancel
-        </Button>
-      </div>
+      <BoundField form={form} name="notes" label="Notes" multiline />
+      <FormFooter submitting={form.formState.isSubmitting} submitLabel={system ? 'Save changes' : 'Create system'} />
     </form>
   );
 }
