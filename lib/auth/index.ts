@@ -1,11 +1,11 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
 import { redirect } from 'next/navigation';
 import { cache } from 'react';
 import { AppError } from '@/lib/errors';
 import type { Actor } from '@/lib/auth/actor';
 import { authOptions } from '@/lib/auth/options';
 import { roleCan, type Permission } from '@/lib/auth/permissions';
+import { requestSessionClaims } from '@/lib/auth/session-token';
 import { actorForSession } from '@/lib/auth/sessions';
 
 export { authOptions };
@@ -13,12 +13,12 @@ export type { Actor };
 
 /** The signed-in, active user, or null. Read fresh from the database once per request. */
 export const getActor = cache(async (): Promise<Actor | null> => {
-  const session = await getServerSession(authOptions);
-  const user = session?.user as { id?: string; sid?: string } | undefined;
+  // The session cookie read directly (lib/auth/session-token.ts), not through getServerSession.
+  const claims = await requestSessionClaims();
   // A cookie without a live server-side session (signed out, ended everywhere, credentials
   // changed, or older than sessions) is no sign-in.
-  if (!user?.id || !user.sid) return null;
-  return actorForSession(user.id, user.sid);
+  if (!claims) return null;
+  return actorForSession(claims.userId, claims.sessionId);
 });
 
 /** For route handlers and actions: 401 when signed out. */

@@ -1,3 +1,4 @@
+import { performance } from 'node:perf_hooks';
 // Signs a demo user in over HTTP and returns a fetch that carries the session cookie.
 export async function signedInFetch(baseUrl: string, email: string, password = 'rimeline-demo') {
   const jar = new Map<string, string>();
@@ -31,4 +32,24 @@ export function percentile(sorted: number[], p: number): number {
 
 export function benchRow(name: string, measured: string, baseline: string, ratio: string, goal: string): void {
   console.log(['BENCH', name, measured, baseline, ratio, goal].join('\t'));
+}
+
+/** The route floor: a signed-in GET /api/me (session and actor lookup, no other work), timed once. */
+export async function timeFloor(api: (path: string) => Promise<Response>): Promise<number> {
+  const t = performance.now();
+  const res = await api('/api/me');
+  await res.json();
+  if (!res.ok) throw new Error(`GET /api/me answered ${res.status}`);
+  return performance.now() - t;
+}
+
+/**
+ * What a route costs beyond the floor, per unit of its SQL: (API − floor) ÷ SQL at p50, from
+ * samples taken interleaved in the same run. Goal ≤ 1.5 (issue 17).
+ */
+export function floorRow(name: string, apiSorted: number[], floorSorted: number[], sqlSorted: number[]): void {
+  const a = percentile(apiSorted, 50);
+  const f = percentile(floorSorted, 50);
+  const s = percentile(sqlSorted, 50);
+  benchRow(`${name}, beyond the floor p50`, `API − floor ${(a - f).toFixed(1)} ms (floor ${f.toFixed(1)} ms)`, `SQL via pg ${s.toFixed(1)} ms`, `${((a - f) / s).toFixed(2)}×`, '≤ 1.5');
 }
