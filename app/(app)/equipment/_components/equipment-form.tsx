@@ -18,6 +18,7 @@ import { CONDITIONS, EQUIPMENT_STATUSES, EQUIPMENT_TYPES, equipmentTypeLabels, s
 import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
 import { fieldLabel, nameplateFromForm, nameplateToForm, rangeText, type NameplateFormValues } from '@/app/(app)/equipment/_components/nameplate-values';
+import { BoundField } from '@/components/forms/bound-field';
 
 /** Everything as the user typed it; numbers become SI only on their way to the schema. */
 export interface EquipmentFormValues {
@@ -188,9 +189,7 @@ export function EquipmentForm({
 
           <Section title="Condition and status">
             <ConditionChoice register={form.register} error={errors.condition?.message} />
-            <Field id="conditionNote" label="Condition note" error={errors.conditionNote?.message} hint="What you saw, e.g. “coil fins corroded on the left side”." className="sm:col-span-2">
-              <Textarea id="conditionNote" {...describedBy('conditionNote', errors.conditionNote?.message)} {...form.register('conditionNote')} />
-            </Field>
+            <BoundField form={form} name="conditionNote" label="Condition note" hint="What you saw, e.g. “coil fins corroded on the left side”." className="sm:col-span-2" multiline />
             <Field id="status" label="Status" error={errors.status?.message}>
               <Select id="status" {...describedBy('status', errors.status?.message)} {...form.register('status')}>
                 {EQUIPMENT_STATUSES.map((s) => (

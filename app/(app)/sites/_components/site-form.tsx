@@ -89,9 +89,7 @@ export function SiteForm({
           </Select>
         </Field>
       ) : null}
-      <Field id="name" label="Site name" error={errors.name?.message} hint="How technicians and the owner call it, e.g. “Harbor Street kitchen”.">
-        <Input id="name" {...describedBy('name', errors.name?.message)} {...form.register('name')} />
-      </Field>
+      <BoundField form={form} name="name" label="Site name" hint="How technicians and the owner call it, e.g. “Harbor Street kitchen”." />
       <Field id="addressLine1" label="Street address" error={errors.addressLine1?.message}>
         <Input id="addressLine1" autoComplete="address-line1" {...describedBy('addressLine1', errors.addressLine1?.message)} {...form.register('addressLine1')} />
       </Field>
@@ -99,15 +97,9 @@ export function SiteForm({
         <Input id="addressLine2" autoComplete="address-line2" {...describedBy('addressLine2', errors.addressLine2?.message)} {...form.register('addressLine2')} />
       </Field>
       <div className="grid gap-4 sm:grid-cols-3">
-        <Field id="city" label="City" error={errors.city?.message}>
-          <Input id="city" {...describedBy('city', errors.city?.message)} {...form.register('city')} />
-        </Field>
-        <Field id="region" label="State / region" error={errors.region?.message}>
-          <Input id="region" {...describedBy('region', errors.region?.message)} {...form.register('region')} />
-        </Field>
-        <Field id="postalCode" label="Postal code" error={errors.postalCode?.message}>
-          <Input id="postalCode" {...describedBy('postalCode', errors.postalCode?.message)} {...form.register('postalCode')} />
-        </Field>
+        <BoundField form={form} name="city" label="City" />
+        <BoundField form={form} name="region" label="State / region" />
+        <BoundField form={form} name="postalCode" label="Postal code" />
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
         <Field id="country" label="Country code" error={errors.country?.message}>
