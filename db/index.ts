@@ -17,12 +17,16 @@ const globalForDb = globalThis as unknown as { rimelineDb?: Kysely<DB> };
  */
 export function watchPool(pool: InstanceType<typeof pg.Pool>, log: Pick<typeof logger, 'error' | 'info'> = logger): void {
   let failing = false;
-  pool.on('error', (err: Error) => {
+  const lost = (err: Error) => {
     if (failing) return;
     failing = true;
     log.error({ err: err.message }, 'database connection lost; the pool reconnects on the next query');
-  });
-  pool.on('connect', () => {
+  };
+  pool.on('error', lost);
+  pool.on('connect', (client?: InstanceType<typeof pg.Client>) => {
+    // The pool listens only while a client is idle: one lost while checked out (between the
+    // queries of a transaction) would otherwise be an uncaught error. Its query fails by itself.
+    client?.on('error', lost);
     if (!failing) return;
     failing = false;
     log.info('database connection restored');

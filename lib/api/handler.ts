@@ -91,11 +91,24 @@ export function errorResponse(error: unknown): NextResponse {
   return NextResponse.json(appError.toBody(), { status: appError.status });
 }
 
+// A lost or refused connection (a database restart, a failover) is temporary: 503 tells the
+// caller to try again, where 500 would say something is broken. SQLSTATE class 08 is "connection
+// exception", 57P01–57P03 the server shutting down or starting (PostgreSQL docs, Appendix A).
+const CONNECTION_LOST_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT']);
+function isConnectionLost(error: unknown): boolean {
+  const e = error as { code?: unknown; message?: unknown };
+  if (typeof e?.code === 'string' && (CONNECTION_LOST_CODES.has(e.code) || e.code.startsWith('08') || /^57P0[123]$/.test(e.code))) return true;
+  // node-postgres reports a dropped connection without a code: during a query, or on the next
+  // query (a rollback, say) of a client whose connection broke while checked out.
+  return typeof e?.message === 'string' && /^(Connection terminated|Client has encountered a connection error|Client was closed)/.test(e.message);
+}
+
 export function toAppError(error: unknown): AppError {
   if (error instanceof AppError) return error;
   if (error instanceof z.ZodError) return validationError(error);
   // Calculation input and range errors (unknown refrigerant, above the critical point, …) are the caller's to fix.
   if (isCalcError(error)) return new AppError('validation_failed', error.message, [{ path: error.field ?? '', message: error.message }]);
+  if (isConnectionLost(error)) return new AppError('unavailable', 'A service Rimeline needs cannot be reached right now. Try again in a moment.');
   const pg = error as { code?: unknown; constraint?: unknown };
   if (typeof pg?.code === 'string') {
     if (pg.code === '23505') return new AppError('conflict', 'A record with these details already exists.');
