@@ -16,7 +16,7 @@ import { parseArgs } from 'node:util';
 import { bucketConfigFromEnv, describeBucket } from '@/docker-free-scripts/backup/bucket';
 import { ensureLocalServices, type LocalServices } from '@/docker-free-scripts/backup/local-services';
 import { applyProfile, describeDatabase } from '@/docker-free-scripts/backup/profile-env';
-import { RestoreRefused, restoreBackup } from '@/docker-free-scripts/backup/restore';
+import { readArchive, RestoreRefused, restoreBackup } from '@/docker-free-scripts/backup/restore';
 
 const { values: args, positionals } = parseArgs({
   allowPositionals: true,
@@ -35,12 +35,13 @@ if (args.help || positionals.length !== 1) {
 let code = 0;
 let services: LocalServices | null = null;
 try {
+  // Relative to where the person typed the command (npm runs scripts from the package root).
+  const archive = path.resolve(process.env.INIT_CWD ?? process.cwd(), positionals[0]!);
+  await readArchive(archive); // a wrong folder is refused before any service starts
   const profile = applyProfile(args.profile);
   if (profile) services = await ensureLocalServices(profile, (line) => console.log(line));
   const databaseUrl = process.env.DATABASE_URL!;
   const bucket = bucketConfigFromEnv();
-  // Relative to where the person typed the command (npm runs scripts from the package root).
-  const archive = path.resolve(process.env.INIT_CWD ?? process.cwd(), positionals[0]!);
   console.log(`Restoring ${archive} into the ${describeDatabase(databaseUrl)} and ${describeBucket(bucket)}${profile ? ` (profile ${profile})` : ''}`);
   const result = await restoreBackup({ archive, databaseUrl, bucket, replace: args.replace || args.force, log: (line) => console.log(line) });
 
