@@ -8,23 +8,21 @@ import type { Actor } from '@/lib/auth/actor';
 import { openLeaks } from '@/lib/attention/open-leaks';
 import { rankUnits, type RankedUnit, type Signal, type UnitSignals } from '@/lib/attention/rank';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
+import { pastExpectedLifeSql, serviceLifeTable } from '@/lib/overview/service-life-sql';
 
 const YEAR_MS = 365.25 * 86_400_000;
 
-/** Signals for every unit the actor can see (optionally one site), gathered in a few grouped queries (no per-unit round trips). */
+/** Signals of the units the actor can see (optionally one site) that have any, gathered in a few grouped queries (no per-unit round trips). */
 export async function gatherSignals(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<UnitSignals[]> {
   const base = () => {
     let q = db.selectFrom('equipment').innerJoin('sites', 'sites.id', 'equipment.site_id').where(siteVisibleTo(actor)).where('equipment.deleted_at', 'is', null).where('equipment.status', '<>', 'removed');
     if (siteId) q = q.where('equipment.site_id', '=', siteId);
     return q;
   };
-  const units = await base().select(['equipment.id', 'equipment.name', 'equipment.type', 'equipment.installed_on', 'equipment.site_id', 'sites.name as site_name']).execute();
-  const byId = new Map<string, UnitSignals>(
-    units.map((u) => [u.id, { equipmentId: u.id, equipmentName: u.name, equipmentType: u.type, siteId: u.site_id, siteName: u.site_name, signals: [] as Signal[] }]),
-  );
-  const push = (id: string | null, s: Signal) => {
-    if (id) byId.get(id)?.signals.push(s);
-  };
+  // Signals first, then only the units that have one (or are past their expected life, found in
+  // SQL): at tens of thousands of units most have none, and loading them all was the cost.
+  const found: { id: string | null; signal: Signal }[] = [];
+  const push = (id: string | null, signal: Signal) => found.push({ id, signal });
 
   const safety = await base()
     .innerJoin('follow_ups', 'follow_ups.equipment_id', 'equipment.id')
@@ -85,12 +83,23 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
     .execute();
   for (const r of ratings) push(r.equipment_id, { kind: 'condition_worsening', from: Number(r.from), to: Number(r.to), visitId: r.visit_id });
 
+  const withSignal = [...new Set(found.flatMap((f) => (f.id ? [f.id] : [])))];
+  const units = await base()
+    .leftJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+    .where((eb) => eb.or([eb(pastExpectedLifeSql(today), '=', true), ...(withSignal.length > 0 ? [eb('equipment.id', 'in', withSignal)] : [])]))
+    .select(['equipment.id', 'equipment.name', 'equipment.type', 'equipment.installed_on', 'equipment.site_id', 'sites.name as site_name'])
+    .execute();
+  const byId = new Map<string, UnitSignals>(
+    units.map((u) => [u.id, { equipmentId: u.id, equipmentName: u.name, equipmentType: u.type, siteId: u.site_id, siteName: u.site_name, signals: [] as Signal[] }]),
+  );
+  for (const f of found) if (f.id) byId.get(f.id)?.signals.push(f.signal);
+
   for (const u of units) {
     if (!u.installed_on) continue;
     const life = medianServiceLife(u.type as EquipmentType);
     if (!life) continue;
     const age = (today.getTime() - Date.parse(`${u.installed_on}T00:00:00Z`)) / YEAR_MS;
-    if (age > life.medianYears) push(u.id, { kind: 'past_expected_life', ageYears: age, medianYears: life.medianYears });
+    if (age > life.medianYears) byId.get(u.id)?.signals.push({ kind: 'past_expected_life', ageYears: age, medianYears: life.medianYears });
   }
   return [...byId.values()];
 }

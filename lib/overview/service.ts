@@ -6,11 +6,10 @@ import type { DB } from '@/db/schema.gen';
 import { openLeaks } from '@/lib/attention/open-leaks';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
+import { ageYearsSql, pastExpectedLifeSql as pastExpectedLife, serviceLifeTable } from '@/lib/overview/service-life-sql';
 import type { Severity } from '@/lib/visits/schemas';
 
 type Db = Kysely<DB> | Transaction<DB>;
-const YEAR_MS = 365.25 * 86_400_000;
 
 export interface SiteSummary {
   siteId: string;
@@ -55,22 +54,32 @@ export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = ne
   );
   if (sites.length === 0) return [];
 
+  // Counted in SQL, one row per site: an owner with thousands of units gets 50 rows, not 5,000.
   const equipment = await db
     .selectFrom('equipment')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .leftJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
     .where(siteVisibleTo(actor))
     .where('equipment.deleted_at', 'is', null)
     .where('equipment.status', '<>', 'removed')
-    .select(['equipment.site_id', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
+    .select([
+      'equipment.site_id',
+      sql<number>`count(*)::int`.as('n'),
+      sql<number>`(count(*) filter (where equipment.condition = 1))::int`.as('c1'),
+      sql<number>`(count(*) filter (where equipment.condition = 2))::int`.as('c2'),
+      sql<number>`(count(*) filter (where equipment.condition = 3))::int`.as('c3'),
+      sql<number>`(count(*) filter (where equipment.condition = 4))::int`.as('c4'),
+      sql<number>`(count(*) filter (where equipment.condition = 5))::int`.as('c5'),
+      sql<number>`(count(*) filter (where ${pastExpectedLife(today)}))::int`.as('past_life'),
+    ])
+    .groupBy('equipment.site_id')
     .execute();
   for (const e of equipment) {
     const s = out.get(e.site_id);
     if (!s) continue;
-    s.equipmentCount++;
-    if (e.condition && e.condition >= 1 && e.condition <= 5) s.byCondition[e.condition as 1 | 2 | 3 | 4 | 5]++;
-    else s.byCondition.unrated++;
-    const life = e.installed_on ? medianServiceLife(e.type as EquipmentType) : null;
-    if (life && e.installed_on && (today.getTime() - Date.parse(`${e.installed_on}T00:00:00Z`)) / YEAR_MS > life.medianYears) s.pastExpectedLife++;
+    s.equipmentCount = e.n;
+    s.byCondition = { 1: e.c1, 2: e.c2, 3: e.c3, 4: e.c4, 5: e.c5, unrated: e.n - e.c1 - e.c2 - e.c3 - e.c4 - e.c5 };
+    s.pastExpectedLife = e.past_life;
   }
 
   const follow = await db
@@ -124,30 +133,36 @@ export interface ChartData {
 /** What the owner's charts plot, for all visible sites or one. */
 export async function chartData(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<ChartData> {
   assertCan(actor, 'overview.read');
-  const equipment = await db
-    .selectFrom('equipment')
-    .innerJoin('sites', 'sites.id', 'equipment.site_id')
-    .where(siteVisibleTo(actor))
-    .where('equipment.deleted_at', 'is', null)
-    .where('equipment.status', '<>', 'removed')
-    .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
-    .select(['equipment.name', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
-    .execute();
+  // Counted and ranked in SQL: the charts need six counts and the 40 oldest units, not every unit.
+  const units = () =>
+    db
+      .selectFrom('equipment')
+      .innerJoin('sites', 'sites.id', 'equipment.site_id')
+      .where(siteVisibleTo(actor))
+      .where('equipment.deleted_at', 'is', null)
+      .where('equipment.status', '<>', 'removed')
+      .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!));
+  const [byCondition, oldest] = await Promise.all([
+    units()
+      .select(['equipment.condition', sql<number>`count(*)::int`.as('n')])
+      .groupBy('equipment.condition')
+      .execute(),
+    units()
+      .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+      .where('equipment.installed_on', 'is not', null)
+      .select(['equipment.name', ageYearsSql(today).as('age_years'), 'life.median_years'])
+      .orderBy(sql`${ageYearsSql(today)} / life.median_years`, 'desc')
+      .orderBy('equipment.name')
+      .limit(40)
+      .execute(),
+  ]);
   const labels: Record<string, string> = { '5': '5 like new', '4': '4 good', '3': '3 fair', '2': '2 poor', '1': '1 failing', unrated: 'not rated' };
   const counts = new Map<string, number>(Object.keys(labels).map((k) => [k, 0]));
-  for (const e of equipment) {
-    const key = e.condition ? String(e.condition) : 'unrated';
-    counts.set(key, (counts.get(key) ?? 0) + 1);
+  for (const c of byCondition) {
+    const key = c.condition ? String(c.condition) : 'unrated';
+    counts.set(key, (counts.get(key) ?? 0) + c.n);
   }
-  const ageVsLife = equipment
-    .filter((e) => e.installed_on && medianServiceLife(e.type as EquipmentType))
-    .map((e) => ({
-      name: e.name,
-      ageYears: Math.round(((today.getTime() - Date.parse(`${e.installed_on}T00:00:00Z`)) / YEAR_MS) * 10) / 10,
-      medianYears: medianServiceLife(e.type as EquipmentType)!.medianYears,
-    }))
-    .sort((a, b) => b.ageYears / b.medianYears - a.ageYears / a.medianYears)
-    .slice(0, 40);
+  const ageVsLife = oldest.map((e) => ({ name: e.name, ageYears: Math.round(Number(e.age_years) * 10) / 10, medianYears: Number(e.median_years) }));
   const added = await db
     .selectFrom('entries')
     .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')

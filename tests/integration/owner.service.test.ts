@@ -8,7 +8,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { needsAttention } from '@/lib/attention/service';
 import { deliverDueMail } from '@/lib/mail/outbox';
-import { siteSummaries } from '@/lib/overview/service';
+import { chartData, siteSummaries } from '@/lib/overview/service';
+import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
 import { createRequest, listRequests } from '@/lib/requests/service';
 import { refrigerantReport, reportFile, siteEquipmentReport } from '@/lib/reports/service';
 import { closeVisit } from '@/lib/visits/close';
@@ -66,6 +67,43 @@ describe('owner view', () => {
     expect(pell.systemsOverLeakThreshold).toBe(1);
     expect(pell.pastExpectedLife).toBe(1);
     expect(pell.lastVisitAt).not.toBeNull();
+  });
+
+  it('counts conditions and ranks the oldest units in SQL as the unit rows say', async () => {
+    // The charts are aggregated in the database; here the same figures from every unit row.
+    const today = new Date('2026-06-15T12:00:00Z');
+    const charts = await chartData(owner, null, db, today);
+    const units = await db
+      .selectFrom('equipment')
+      .innerJoin('sites', 'sites.id', 'equipment.site_id')
+      .innerJoin('clients', 'clients.id', 'sites.client_id')
+      .where('sites.client_id', '=', owner.clientId!)
+      .where('equipment.deleted_at', 'is', null)
+      .where('equipment.status', '<>', 'removed')
+      .select(['equipment.name', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
+      .execute();
+    const summed = Object.fromEntries(charts.conditionDistribution.map((c) => [c.rating, c.count]));
+    expect(summed['2 poor']).toBe(units.filter((u) => u.condition === 2).length);
+    expect(summed['not rated']).toBe(units.filter((u) => !u.condition).length);
+    expect(charts.conditionDistribution.reduce((n, c) => n + c.count, 0)).toBe(units.length);
+    const expected = units
+      .filter((u) => u.installed_on && medianServiceLife(u.type as EquipmentType))
+      .map((u) => {
+        const age = (today.getTime() - Date.parse(`${u.installed_on}T00:00:00Z`)) / (365.25 * 86_400_000);
+        return { name: u.name, ageYears: Math.round(age * 10) / 10, medianYears: medianServiceLife(u.type as EquipmentType)!.medianYears, ratio: age / medianServiceLife(u.type as EquipmentType)!.medianYears };
+      })
+      .sort((a, b) => b.ratio - a.ratio || a.name.localeCompare(b.name))
+      .slice(0, 40)
+      .map(({ ratio: _ratio, ...rest }) => rest);
+    expect(expected.length).toBeGreaterThan(0);
+    // Same units and figures; equal ratios may come in either order (collation), so compare sorted.
+    const byName = (a: { name: string; ageYears: number }, b: { name: string; ageYears: number }) => a.name.localeCompare(b.name) || a.ageYears - b.ageYears;
+    expect([...charts.ageVsLife].sort(byName)).toEqual([...expected].sort(byName));
+    // Oldest for its expected life first (ages are rounded to 0.1 year, hence the allowance).
+    for (let i = 1; i < charts.ageVsLife.length; i++) {
+      const [a, b] = [charts.ageVsLife[i - 1]!, charts.ageVsLife[i]!];
+      expect(a.ageYears / a.medianYears).toBeGreaterThanOrEqual(b.ageYears / b.medianYears - 0.05 / b.medianYears);
+    }
   });
 
   it('ranks the units that need attention with their evidence', async () => {
