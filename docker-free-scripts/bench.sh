@@ -5,6 +5,7 @@
 #   npm run bench                     all benchmarks
 #   npm run bench -- pricing          only files whose name contains "pricing"
 #   npm run bench -- --keep           reuse .data/bench from the previous run (no wipe)
+#   npm run bench -- --no-build       start the app from the profile's last build (no next build)
 #   npm run bench -- --no-app         skip building and starting the app (benches that measure the
 #                                     HTTP API then print an error row); by default the app is built
 #                                     and run on 127.0.0.1:3100 and BENCH_APP_URL=http://localhost:3100
@@ -29,12 +30,14 @@ source docker-free-scripts/lib.sh
 
 keep=0
 with_app=1
+build=1
 filters=()
 for arg in "$@"; do
   case "$arg" in
     --keep) keep=1 ;;
     --with-app) with_app=1 ;;
     --no-app) with_app=0 ;;
+    --no-build) build=0 ;;
     -h|--help) sed -n '2,25p' "$0"; exit 0 ;;
     -*) echo "bench.sh: unknown option $arg" >&2; exit 2 ;;
     *) filters+=("$arg") ;;
@@ -108,12 +111,18 @@ rl_up next_step   # npm packages, PostgreSQL, S3 fake, mail catcher, migrations 
 
 # Benches that time the JSON API need the app over HTTP.
 if [ "$with_app" = 1 ]; then
-  next_step "Building the app for the bench profile (next build)"
-  rm -f "$RL_DIST/rimeline-profile"
-  rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build \
-    || rl_die "next build failed." "fix the build error above." "$RIMELINE_LOGS/build.log"
-  echo bench >"$RL_DIST/rimeline-profile"
-  rl_ok
+  if [ "$build" = 1 ]; then
+    next_step "Building the app for the bench profile (next build)"
+    rm -f "$RL_DIST/rimeline-profile"
+    rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build \
+      || rl_die "next build failed." "fix the build error above." "$RIMELINE_LOGS/build.log"
+    echo bench >"$RL_DIST/rimeline-profile"
+    rl_ok
+  else
+    next_step "Reusing the last build in $RL_DIST (--no-build)"
+    [ -f "$RL_DIST/BUILD_ID" ] || rl_die "There is no build in $RL_DIST." "run once without --no-build."
+    rl_ok
+  fi
   next_step "Starting the app on 127.0.0.1:$APP_PORT"
   rl_free_port "$APP_PORT" "app" || exit 1
   RL_READY_TIMEOUT=90 rl_service_start app "app" "http://127.0.0.1:$APP_PORT/api/health" \
