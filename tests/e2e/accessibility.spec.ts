@@ -62,6 +62,12 @@ test.describe('accessibility (axe: no serious or critical violations) @phone', (
     await tech.dispose();
   });
 
+  test('the check itself: a page with known faults fails it', async ({ page }) => {
+    await page.setContent('<!doctype html><html lang="en"><title>t</title><main><img src="data:image/gif;base64,R0lGODlhAQABAAAAACw="><button></button></main></html>');
+    const rules = (await new AxeBuilder({ page }).analyze()).violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id);
+    expect(rules).toEqual(expect.arrayContaining(['image-alt', 'button-name']));
+  });
+
   test('signed-out pages', async ({ page }) => {
     await auditAll(page, ['/sign-in']);
   });
