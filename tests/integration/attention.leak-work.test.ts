@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import { needsAttention } from '@/lib/attention/service';
 import { dueWork } from '@/lib/overview/due';
-import { siteSummaries } from '@/lib/overview/service';
+import { chartData, siteSummaries } from '@/lib/overview/service';
 import { closeVisit } from '@/lib/visits/close';
 import { addEntry } from '@/lib/visits/entries';
 import { startVisit } from '@/lib/visits/service';
@@ -31,6 +31,7 @@ async function leakVisit(at: number, items: { equipmentId: string; data: LeakDat
 const leakReason = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.reasons.find((r) => r.kind === 'leak_over_threshold');
 const leakingSystems = async () => (await siteSummaries(owner)).find((s) => s.siteId === circuit.siteId)?.systemsOverLeakThreshold;
 const leakScore = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.score ?? 0;
+const leakPriority = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.priority;
 
 beforeAll(async () => {
   await resetToDemo(db);
@@ -50,9 +51,17 @@ afterAll(async () => {
 });
 
 describe('leak work and the attention list', () => {
+  it('the owner\'s refrigerant chart names the circuit with its site', async () => {
+    const site = await db.selectFrom('sites').select('name').where('id', '=', circuit.siteId).executeTakeFirstOrThrow();
+    const system = await db.selectFrom('systems').select('name').where('id', '=', circuit.systemId).executeTakeFirstOrThrow();
+    const rows = (await chartData(owner, null)).refrigerantAddedByYear;
+    expect(rows).toContainEqual({ year: new Date(daysAgo(12)).getUTCFullYear(), system: system.name, site: site.name, kg: Math.round(30 * lb * 100) / 100 });
+  });
+
   it('an unrepaired leak over the threshold scores 80 with its repair deadline', async () => {
     expect((await leakReason())?.text).toMatch(/over the 20 % threshold; repair due by \d{4}-\d{2}-\d{2}$/);
     expect(await leakScore()).toBe(80);
+    expect(await leakPriority()).toBe('urgent');
     // No leak check yet: the six-monthly one is overdue (the due-list test below sees it go).
     expect((await dueWork(office)).find((d) => d.systemId === circuit.systemId && d.kind === 'leak_inspection')?.lastDoneAt).toBeNull();
   });
@@ -65,6 +74,7 @@ describe('leak work and the attention list', () => {
     ]);
     expect((await leakReason())?.text).toContain(`repaired on ${daysAgo(10).slice(0, 10)}, verification tests still to pass`);
     expect(await leakScore()).toBe(40);
+    expect(await leakPriority()).toBe('soon');
     expect(await leakingSystems()).toBe(1);
   });
 
@@ -72,6 +82,7 @@ describe('leak work and the attention list', () => {
     await leakVisit(5, [{ equipmentId: circuit.evaporatorId, data: { activity: 'follow_up_verification', method: 'electronic_detector', result: 'failed' } }]);
     expect((await leakReason())?.text).toContain('a verification test failed — repair again');
     expect(await leakScore()).toBe(80);
+    expect(await leakPriority()).toBe('urgent');
   });
 
   it('a new repair with both tests passed takes the leak off the list', async () => {
