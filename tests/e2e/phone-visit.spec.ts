@@ -262,7 +262,7 @@ test('the whole freezer no-cooling call from a scanned tag, taps counted @phone'
     await expect(page.getByRole('heading', { level: 2, name })).toBeVisible();
   };
   const kind = (name: string) => tap(page.getByRole('group', { name: 'Add an entry' }).getByRole('button', { name, exact: true }));
-  const savedAs = (text: string) => expect(page.getByTestId('just-saved')).toContainText(text);
+  const savedAs = (text: string) => expect(page.getByTestId('just-saved')).toContainText(text, { timeout: 30_000 });
 
   await signIn(page, 'tech@rimeline.test');
   // The scan: the tag's QR symbol holds /T/<code>.
