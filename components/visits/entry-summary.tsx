@@ -6,6 +6,7 @@ import type { EntryDto } from '@/lib/visits/dto';
 import { describeEntry } from '@/lib/visits/report-content';
 import { leakResultLabels, type LeakResult as LeakWorkOutcome, type Severity } from '@/lib/visits/schemas';
 import { formatDay } from '@/lib/format/dates';
+import { formatLeakRate } from '@/lib/format/numbers';
 
 interface LeakResult {
   ratePct?: number;
@@ -46,7 +47,7 @@ export function LeakRateNotice({ computed }: { computed: Record<string, unknown>
       </Alert>
     ) : null;
   }
-  const rate = typeof leak.ratePct === 'number' ? `${leak.ratePct.toFixed(1)} % per year` : '—';
+  const rate = typeof leak.ratePct === 'number' ? formatLeakRate(leak.ratePct) : '—';
   if (leak.exceedsThreshold) {
     return (
       <Alert tone="danger" title={`Leak rate ${rate}: over the ${leak.thresholdPct} % threshold`} className="mt-2">

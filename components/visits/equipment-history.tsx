@@ -14,12 +14,10 @@ import { cn } from '@/lib/utils';
 import type { EntryDto } from '@/lib/visits/dto';
 import { useHistory, type HistoryScope } from '@/lib/visits/hooks';
 import { ENTRY_KINDS, entryKindLabels, visitReasonLabels, type EntryKind } from '@/lib/visits/schemas';
-import { formatDay } from '@/lib/format/dates';
+import { formatClockWithZone, formatDay } from '@/lib/format/dates';
 
 
-function timeIn(iso: string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }).format(new Date(iso));
-}
+const timeIn = formatClockWithZone;
 
 interface VisitGroup {
   visitId: string;

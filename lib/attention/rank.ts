@@ -1,3 +1,6 @@
+import { formatDay } from '@/lib/format/dates';
+import { formatLeakRate, formatYears } from '@/lib/format/numbers';
+
 // Which units need attention, and why. Pure: the service gathers the signals, this ranks them.
 // The rule is ours and is shown on the page in plain words (priorityRule below): a priority word
 // (urgent, soon, watch) per unit; the internal points only order units within one priority.
@@ -99,7 +102,7 @@ export function describeSignal(s: Signal): { text: string; href: string | null }
       return { text: `Open safety finding: ${s.title}`, href: `/follow-ups?focus=${s.followUpId}` };
     case 'leak_over_threshold':
       return {
-        text: `Leak rate ${s.ratePct.toFixed(1)} % per year on ${s.on}, over the ${s.thresholdPct} % threshold${leakProgress(s)}`,
+        text: `Leak rate ${formatLeakRate(s.ratePct)} on ${formatDay(s.on)}, over the ${s.thresholdPct} % threshold${leakProgress(s)}`,
         href: `/visits/${s.visitId}`,
       };
     case 'repeat_no_cooling':
@@ -107,14 +110,14 @@ export function describeSignal(s: Signal): { text: string; href: string | null }
     case 'condition_worsening':
       return { text: `Condition fell from ${s.from} to ${s.to} (of 5)`, href: `/visits/${s.visitId}` };
     case 'past_expected_life':
-      return { text: `${s.ageYears.toFixed(1)} years old; expected service life ${s.medianYears} years`, href: null };
+      return { text: `${formatYears(s.ageYears)} old; expected service life ${formatYears(s.medianYears)}`, href: null };
   }
 }
 
 function leakProgress(s: Extract<Signal, { kind: 'leak_over_threshold' }>): string {
-  if (s.repairedOn && s.verificationFailed) return `; repaired on ${s.repairedOn} but a verification test failed — repair again`;
-  if (s.repairedOn) return `; repaired on ${s.repairedOn}, verification tests still to pass`;
-  return s.repairDueDate ? `; repair due by ${s.repairDueDate}` : '';
+  if (s.repairedOn && s.verificationFailed) return `; repaired on ${formatDay(s.repairedOn)} but a verification test failed — repair again`;
+  if (s.repairedOn) return `; repaired on ${formatDay(s.repairedOn)}, verification tests still to pass`;
+  return s.repairDueDate ? `; repair due by ${formatDay(s.repairDueDate)}` : '';
 }
 
 function oldest(u: UnitSignals): string {

@@ -20,6 +20,11 @@ export function formatClock(value: string, timeZone = 'UTC'): string {
   return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit' }).format(new Date(value));
 }
 
+/** The time of day with its zone ("2:05 PM CST"), for history read away from the site. */
+export function formatClockWithZone(value: string, timeZone = 'UTC'): string {
+  return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }).format(new Date(value));
+}
+
 /**
  * An instant with its time of day and zone ("Dec 4, 2026, 4:06 PM MST"), for documents and lists
  * read away from the site (reports, e-mails, print runs): the site's time zone, UTC when none.

@@ -28,6 +28,16 @@ export function formatCount(n: number): string {
   return formatDecimal(n, 0);
 }
 
+/** An annualised leak rate, always with its one decimal ("30.0 % per year"), as entries and lists show it. */
+export function formatLeakRate(pct: number): string {
+  return `${pct.toLocaleString('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 })} % per year`;
+}
+
+/** A mass of CO2 equivalent in tonnes, one decimal ("10.4 t CO2e"). */
+export function formatTonnesCo2e(tonnes: number): string {
+  return `${formatDecimal(tonnes, 1)} t CO2e`;
+}
+
 /** Years to one decimal ("12.5 years"). */
 export function formatYears(years: number): string {
   return `${formatDecimal(years, 1)} years`;

@@ -8,6 +8,7 @@ import type { Actor } from '@/lib/auth/actor';
 import { getRefrigerant } from '@/lib/calc/refrigerants';
 import { plannedCover } from '@/lib/plans/coverage';
 import type { VisitReason } from '@/lib/visits/terms';
+import { formatTonnesCo2e } from '@/lib/format/numbers';
 
 const DAY_MS = 86_400_000;
 
@@ -121,9 +122,9 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
       const gwp = getRefrigerant(s.refrigerant).gwpEu517;
       const months = leakCheckIntervalMonths(Number(s.full_charge_kg), gwp);
       if (months) {
-        const tonnes = ((Number(s.full_charge_kg) * gwp) / 1000).toFixed(1);
+        const tonnes = formatTonnesCo2e((Number(s.full_charge_kg) * gwp) / 1000);
         const checks = [s.last_leak_check, s.last_leak_work].filter(Boolean).map((d) => new Date(d!).getTime());
-        push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} t CO2e (charge × GWP as EU 517/2014 counts it), per the F-gas rule table — confirm the rule that applies locally`);
+        push(s, 'leak_inspection', checks.length ? new Date(Math.max(...checks)) : null, Math.round(months * 30.44), `Leak check every ${months} months for ${tonnes} (charge × GWP as EU 517/2014 counts it), per the F-gas rule table — confirm the rule that applies locally`);
       }
     }
   }

@@ -38,9 +38,9 @@ describe('leak follow-through', () => {
   it('scores and words the signal by where the leak stands (the rule on the attention page)', () => {
     const base = { kind: 'leak_over_threshold' as const, visitId: 'v1', ratePct: 30, thresholdPct: 20, repairDueDate: '2026-12-02', on: '2026-11-02' };
     expect(scoreSignal(base)).toBe(80);
-    expect(describeSignal(base).text).toBe('Leak rate 30.0 % per year on 2026-11-02, over the 20 % threshold; repair due by 2026-12-02');
+    expect(describeSignal(base).text).toBe('Leak rate 30.0 % per year on Nov 2, 2026, over the 20 % threshold; repair due by Dec 2, 2026');
     expect(scoreSignal({ ...base, repairedOn: '2026-11-05' })).toBe(40);
-    expect(describeSignal({ ...base, repairedOn: '2026-11-05' }).text).toContain('repaired on 2026-11-05, verification tests still to pass');
+    expect(describeSignal({ ...base, repairedOn: '2026-11-05' }).text).toContain('repaired on Nov 5, 2026, verification tests still to pass');
     expect(scoreSignal({ ...base, repairedOn: '2026-11-05', verificationFailed: true })).toBe(80);
     expect(describeSignal({ ...base, repairedOn: '2026-11-05', verificationFailed: true }).text).toContain('a verification test failed — repair again');
   });

@@ -4,6 +4,8 @@ import { evaluateLeakEvent } from '@/lib/calc/leak-rate';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import { formatQuantity } from '@/lib/units/quantities';
 import { defineKind, EntryRefusal } from '@/lib/visits/kinds/types';
+import { formatDay } from '@/lib/format/dates';
+import { formatLeakRate } from '@/lib/format/numbers';
 
 // Refrigerant added to or recovered from a system. An addition gets its annualized leak rate and,
 // over the threshold, its repair deadline (lib/calc/leak-rate, 40 CFR 82.152 and 82.157).
@@ -28,8 +30,8 @@ export const refrigerant = defineKind({
   data: refrigerantDataSchema,
   describe(d, computed, prefs) {
     const leak = computed?.leak as { ratePct?: number; thresholdPct?: number; exceedsThreshold?: boolean; repairDueDate?: string | null } | null | undefined;
-    const rate = leak && typeof leak.ratePct === 'number' ? `; leak rate ${leak.ratePct.toFixed(1)} % per year (threshold ${leak.thresholdPct} %)` : '';
-    const due = leak?.exceedsThreshold && leak.repairDueDate ? `; OVER THRESHOLD — repair due by ${leak.repairDueDate}` : '';
+    const rate = leak && typeof leak.ratePct === 'number' ? `; leak rate ${formatLeakRate(leak.ratePct)} (threshold ${leak.thresholdPct} %)` : '';
+    const due = leak?.exceedsThreshold && leak.repairDueDate ? `; OVER THRESHOLD — repair due by ${formatDay(leak.repairDueDate)}` : '';
     return `Refrigerant ${d.direction}: ${formatQuantity(d.amountKg, 'mass', prefs)} of ${d.refrigerant}${d.cylinderId ? `, cylinder ${d.cylinderId}` : ''}${rate}${due}`;
   },
   async compute(d, tools) {
