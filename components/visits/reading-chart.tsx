@@ -6,6 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import { Field, Select } from '@/components/ui/field';
 import { conversionFor, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { useReadingSeries } from '@/lib/visits/hooks';
+import { formatStamp } from '@/lib/format/dates';
 
 // The chart library is the largest script of the unit page and the chart sits below the history:
 // it is fetched when the chart comes near the screen (or the page is printed), not on first load.
@@ -41,7 +42,7 @@ export const chartableReadings: { key: string; label: string; unit: Unit }[] = [
   { key: 'subcoolingK', label: 'Subcooling', unit: 'temperatureDiff' },
   { key: 'suctionKpaG', label: 'Suction pressure', unit: 'pressureGauge' },
   { key: 'dischargeKpaG', label: 'Discharge pressure', unit: 'pressureGauge' },
-  { key: 'evaporatingC', label: 'Evaporating (saturation) temperature', unit: 'temperature' },
+  { key: 'evaporatingC', label: 'Evaporating (dew point) temperature', unit: 'temperature' },
   { key: 'condensingC', label: 'Condensing (saturation) temperature', unit: 'temperature' },
   { key: 'evaporatorTdK', label: 'Evaporator TD', unit: 'temperatureDiff' },
   { key: 'condenserSplitK', label: 'Condenser split', unit: 'temperatureDiff' },
@@ -63,10 +64,10 @@ function converter(unit: Unit, prefs: UnitPrefs): { label: string; fromSi: (v: n
   return conversionFor(unit, prefs);
 }
 
-export const longDate = (ms: number) => new Date(ms).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' });
 
 /** One reading over time for one piece of equipment, in the viewer's units; a table goes with it for print and screen readers. */
-export function ReadingChart({ equipmentId, prefs, initialKey = 'superheatK' }: { equipmentId: string; prefs: UnitPrefs; initialKey?: string }) {
+/** `timeZone`: the site's, so a reading shows the time it was on site. */
+export function ReadingChart({ equipmentId, prefs, timeZone, initialKey = 'superheatK' }: { equipmentId: string; prefs: UnitPrefs; timeZone: string; initialKey?: string }) {
   const [key, setKey] = useState(initialKey);
   const [plotRef, near] = useNearScreen();
   const selectId = useId();
@@ -102,14 +103,14 @@ export function ReadingChart({ equipmentId, prefs, initialKey = 'superheatK' }: 
             {unitText} over time
           </figcaption>
           <div ref={plotRef} className="h-64 w-full print:h-56" data-testid="reading-chart">
-            {near ? <ReadingChartPlot points={points} unitLabel={conv.label} readingLabel={meta.label} /> : null}
+            {near ? <ReadingChartPlot points={points} unitLabel={conv.label} readingLabel={meta.label} timeZone={timeZone} /> : null}
           </div>
           <details className="mt-2 px-1 print:hidden">
             <summary className="min-h-11 cursor-pointer py-2 font-semibold text-ice-800">Show the values as a table</summary>
-            <ValuesTable points={points} unit={conv.label} label={meta.label} />
+            <ValuesTable points={points} unit={conv.label} label={meta.label} timeZone={timeZone} />
           </details>
           <div className="hidden print:block">
-            <ValuesTable points={points} unit={conv.label} label={meta.label} />
+            <ValuesTable points={points} unit={conv.label} label={meta.label} timeZone={timeZone} />
           </div>
         </figure>
       )}
@@ -117,7 +118,7 @@ export function ReadingChart({ equipmentId, prefs, initialKey = 'superheatK' }: 
   );
 }
 
-function ValuesTable({ points, unit, label }: { points: { t: number; v: number }[]; unit: string; label: string }) {
+function ValuesTable({ points, unit, label, timeZone }: { points: { t: number; v: number }[]; unit: string; label: string; timeZone: string }) {
   return (
     <table className="mt-2 w-full text-left text-sm">
       <thead>
@@ -134,7 +135,7 @@ function ValuesTable({ points, unit, label }: { points: { t: number; v: number }
       <tbody>
         {[...points].reverse().map((p, i) => (
           <tr key={`${p.t}-${i}`} className="border-b border-slate-100">
-            <td className="py-1 pr-4">{longDate(p.t)}</td>
+            <td className="py-1 pr-4">{formatStamp(new Date(p.t).toISOString(), timeZone)}</td>
             <td className="py-1 font-semibold tabular-nums">{p.v}</td>
           </tr>
         ))}

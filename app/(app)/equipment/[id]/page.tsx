@@ -136,7 +136,7 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
           <h2 id="trend-h" className="text-lg font-semibold">
             Readings over time
           </h2>
-          <ReadingChart equipmentId={equipment.id} prefs={prefs} />
+          <ReadingChart equipmentId={equipment.id} prefs={prefs} timeZone={equipment.siteTimeZone} />
         </section>
 
         {canWrite || canDelete || officeRequest ? (
