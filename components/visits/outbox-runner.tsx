@@ -18,8 +18,10 @@ export function OutboxRunner() {
     if (typeof indexedDB === 'undefined') return;
     const run = async (force: boolean) => {
       if ((await outboxItems()).length === 0) return;
-      const [{ drainOutbox }, { visitKeys }] = await Promise.all([import('@/lib/visits/outbox-sender'), import('@/lib/visits/hooks')]);
-      await drainOutbox({ force, onSent: (item) => void qc.invalidateQueries({ queryKey: visitKeys.detail(item.visitId) }) });
+      const [{ drainOutbox }, { visitKeys }, { offlineUser }] = await Promise.all([import('@/lib/visits/outbox-sender'), import('@/lib/visits/hooks'), import('@/lib/offline/user')]);
+      // Only the signed-in person's own work is sent under their session.
+      const userId = await offlineUser();
+      await drainOutbox({ userId, force, onSent: (item) => void qc.invalidateQueries({ queryKey: visitKeys.detail(item.visitId) }) });
     };
     const go = (force: boolean) => void run(force).catch(() => undefined);
     go(true);
