@@ -20,6 +20,11 @@ export function formatClock(value: string, timeZone = 'UTC'): string {
   return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit' }).format(new Date(value));
 }
 
+/** A short day for chart axes ("Dec 4, 26"), on a time zone's calendar. */
+export function formatShortDay(value: string, timeZone = 'UTC'): string {
+  return new Intl.DateTimeFormat('en-US', { timeZone, month: 'short', day: 'numeric', year: '2-digit' }).format(new Date(value));
+}
+
 /** The time of day with its zone ("2:05 PM CST"), for history read away from the site. */
 export function formatClockWithZone(value: string, timeZone = 'UTC'): string {
   return new Intl.DateTimeFormat('en-US', { timeZone, hour: 'numeric', minute: '2-digit', timeZoneName: 'short' }).format(new Date(value));

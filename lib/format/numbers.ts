@@ -38,6 +38,18 @@ export function formatTonnesCo2e(tonnes: number): string {
   return `${formatDecimal(tonnes, 1)} t CO2e`;
 }
 
+/** A file or download size ("512 B", "169 KB", "1.6 MB"). */
+export function formatBytes(bytes: number): string {
+  if (bytes < 1024) return `${formatDecimal(bytes, 0)} B`;
+  if (bytes < 1024 * 1024) return `${formatDecimal(bytes / 1024, 0)} KB`;
+  return `${formatDecimal(bytes / (1024 * 1024), 1)} MB`;
+}
+
+/** A plain number as typed on a nameplate, to at most three decimals ("2,030.5"). */
+export function formatPlain(value: number): string {
+  return formatDecimal(value, 3);
+}
+
 /** Years to one decimal ("12.5 years"). */
 export function formatYears(years: number): string {
   return `${formatDecimal(years, 1)} years`;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatBytes } from '@/lib/format/numbers';
 
 // Photo contracts shared by the uploader, the route handlers and the services.
 
@@ -88,9 +89,5 @@ export function cleanFileName(name: string | null | undefined): string | null {
   return cleaned === '' ? null : cleaned;
 }
 
-export function formatBytes(bytes: number): string {
-  if (bytes < 1024) return `${bytes} B`;
-  if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(0)} KB`;
-  const mb = bytes / (1024 * 1024);
-  return `${Number.isInteger(mb) ? mb : mb.toFixed(1)} MB`;
-}
+/** Kept here for the photo code that reads it from this module; the formatting lives in lib/format. */
+export { formatBytes };

@@ -7,6 +7,7 @@ import { needsAttention } from '@/lib/attention/service';
 import { priorityLabels, priorityRule } from '@/lib/attention/rank';
 import { orNotFound } from '@/lib/api/page';
 import { getSite } from '@/lib/sites/service';
+import { formatCount } from '@/lib/format/numbers';
 
 export const metadata: Metadata = { title: 'Needs attention' };
 
@@ -36,8 +37,8 @@ export default async function AttentionPage({ searchParams }: { searchParams: Pr
       </Card>
       {units.length > 0 ? (
         <p className="text-sm text-slate-700" role="status">
-          {units.length === 1 ? '1 unit needs attention.' : `${units.length.toLocaleString('en-US')} units need attention.`}
-          {shown < units.length ? ` Showing the first ${shown.toLocaleString('en-US')}.` : ''}
+          {units.length === 1 ? '1 unit needs attention.' : `${formatCount(units.length)} units need attention.`}
+          {shown < units.length ? ` Showing the first ${formatCount(shown)}.` : ''}
         </p>
       ) : null}
       <AttentionList units={units.slice(0, shown)} showSite={!site} />

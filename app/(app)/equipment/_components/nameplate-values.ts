@@ -1,6 +1,7 @@
 import { nameplateFields, type Nameplate, type NameplateField } from '@/lib/equipment/nameplate';
 import type { EquipmentType } from '@/lib/equipment/types';
 import { conversionFor, formatQuantity, fromDisplayValue, toDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
+import { formatPlain } from '@/lib/format/numbers';
 
 // The nameplate form holds text exactly as typed, in the user's units; these convert it to the
 // SI values the schema and API take, and back, so a reopened form shows what was typed.
@@ -60,7 +61,7 @@ export function formatNameplateValue(field: NameplateField, value: Nameplate[str
     case 'number': {
       if (typeof value !== 'number') return String(value);
       if (field.quantity) return formatQuantity(value, field.quantity, prefs);
-      const n = value.toLocaleString('en-US', { maximumFractionDigits: 3 });
+      const n = formatPlain(value);
       return field.unit ? `${n} ${field.unit}` : n;
     }
     case 'enum':
@@ -77,5 +78,5 @@ export function rangeText(field: NameplateField, prefs: UnitPrefs): string | nul
   if (field.kind !== 'number') return null;
   if (field.quantity) return `between ${formatQuantity(field.min, field.quantity, prefs)} and ${formatQuantity(field.max, field.quantity, prefs)}`;
   const unit = field.unit ? ` ${field.unit}` : '';
-  return `between ${field.min.toLocaleString('en-US')}${unit} and ${field.max.toLocaleString('en-US')}${unit}`;
+  return `between ${formatPlain(field.min)}${unit} and ${formatPlain(field.max)}${unit}`;
 }
