@@ -39,6 +39,32 @@ async function changeUnit(page: Page, search: string, name: string) {
   await expect(page.getByRole('heading', { level: 2, name })).toBeVisible();
 }
 
+/** Without signal, from the condensing unit: readings, a setting change on the control, a finding with a follow-up on the coil; each waits on the phone. */
+async function recordWithoutSignal(page: Page, control: string, evaporator: string, finding: string) {
+  await page.getByRole('button', { name: 'Readings', exact: true }).click();
+  await page.getByLabel('Suction pressure (psig)', { exact: true }).fill('22');
+  await page.getByLabel('Discharge pressure (psig)', { exact: true }).fill('230');
+  await page.getByLabel('Suction-line temperature (°F)', { exact: true }).fill('40');
+  await page.getByRole('button', { name: 'Save readings' }).click();
+  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
+
+  await changeUnit(page, 'low-pressure', control);
+  await page.getByRole('button', { name: 'Setting change' }).click();
+  await page.getByRole('button', { name: /^Same as recorded/ }).click();
+  await page.getByLabel('Cut-in as left (psig)', { exact: true }).fill('28');
+  await page.getByLabel('Differential as left (psi)', { exact: true }).fill('12');
+  await page.getByRole('button', { name: 'Save setting change' }).click();
+  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+
+  await changeUnit(page, 'coil', evaporator);
+  await page.getByRole('button', { name: 'Finding', exact: true }).click();
+  await page.getByLabel('What was found').fill(`${finding}`);
+  await page.getByRole('radio', { name: /^Degraded/ }).check();
+  await page.getByRole('checkbox', { name: /Raise a follow-up/ }).check();
+  await page.getByRole('button', { name: 'Save finding' }).click();
+  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+}
+
 test('a visit recorded and closed without signal reaches the server once, after a reload and a lost answer @phone', async ({ page, context, browser }, info) => {
   test.setTimeout(240_000);
   const label = String(Date.now()).slice(-5);
@@ -67,28 +93,7 @@ test('a visit recorded and closed without signal reaches the server once, after 
   await page.getByRole('button', { name: 'Open' }).click();
   await expect(page.getByRole('heading', { level: 2, name: cu.name })).toBeVisible();
 
-  await page.getByRole('button', { name: 'Readings', exact: true }).click();
-  await page.getByLabel('Suction pressure (psig)', { exact: true }).fill('22');
-  await page.getByLabel('Discharge pressure (psig)', { exact: true }).fill('230');
-  await page.getByLabel('Suction-line temperature (°F)', { exact: true }).fill('40');
-  await page.getByRole('button', { name: 'Save readings' }).click();
-  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
-
-  await changeUnit(page, 'low-pressure', control.name);
-  await page.getByRole('button', { name: 'Setting change' }).click();
-  await page.getByRole('button', { name: /^Same as recorded/ }).click();
-  await page.getByLabel('Cut-in as left (psig)', { exact: true }).fill('28');
-  await page.getByLabel('Differential as left (psi)', { exact: true }).fill('12');
-  await page.getByRole('button', { name: 'Save setting change' }).click();
-  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
-
-  await changeUnit(page, 'coil', evaporator.name);
-  await page.getByRole('button', { name: 'Finding', exact: true }).click();
-  await page.getByLabel('What was found').fill(`Drain pan heater open circuit (${label})`);
-  await page.getByRole('radio', { name: /^Degraded/ }).check();
-  await page.getByRole('checkbox', { name: /Raise a follow-up/ }).check();
-  await page.getByRole('button', { name: 'Save finding' }).click();
-  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+  await recordWithoutSignal(page, control.name, evaporator.name, `Drain pan heater open circuit (${label})`);
 
   await page.getByRole('button', { name: 'Photo', exact: true }).click();
   await page.getByTestId('offline-photo-input').setInputFiles({ name: 'coil.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('FROSTWELL DC-20')).jpeg().toBuffer() });
@@ -174,28 +179,7 @@ test('a visit started without signal at a kept site reaches the server once, eve
   await expect(page.getByRole('heading', { level: 2, name: cu.name })).toBeVisible();
   await shot(page, 'offline-visit-started-on-phone');
 
-  await page.getByRole('button', { name: 'Readings', exact: true }).click();
-  await page.getByLabel('Suction pressure (psig)', { exact: true }).fill('22');
-  await page.getByLabel('Discharge pressure (psig)', { exact: true }).fill('230');
-  await page.getByLabel('Suction-line temperature (°F)', { exact: true }).fill('40');
-  await page.getByRole('button', { name: 'Save readings' }).click();
-  await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
-
-  await changeUnit(page, 'low-pressure', control.name);
-  await page.getByRole('button', { name: 'Setting change' }).click();
-  await page.getByRole('button', { name: /^Same as recorded/ }).click();
-  await page.getByLabel('Cut-in as left (psig)', { exact: true }).fill('28');
-  await page.getByLabel('Differential as left (psi)', { exact: true }).fill('12');
-  await page.getByRole('button', { name: 'Save setting change' }).click();
-  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
-
-  await changeUnit(page, 'coil', evaporator.name);
-  await page.getByRole('button', { name: 'Finding', exact: true }).click();
-  await page.getByLabel('What was found').fill(`Fan motor bearing noise (${label})`);
-  await page.getByRole('radio', { name: /^Degraded/ }).check();
-  await page.getByRole('checkbox', { name: /Raise a follow-up/ }).check();
-  await page.getByRole('button', { name: 'Save finding' }).click();
-  await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
+  await recordWithoutSignal(page, control.name, evaporator.name, `Fan motor bearing noise (${label})`);
 
   await page.getByRole('button', { name: 'Photo', exact: true }).click();
   await page.getByTestId('offline-photo-input').setInputFiles({ name: 'fan.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('KELVRIN FM-9')).jpeg().toBuffer() });
