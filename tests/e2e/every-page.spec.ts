@@ -6,6 +6,7 @@ import { expect, request as playwrightRequest, test, type APIRequestContext, typ
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { siteLike } from '../helpers/sites';
 import { DEMO_PASSWORD, screenshotDir, signIn } from './helpers';
 
 const appDir = path.resolve(import.meta.dirname, '../../app/(app)');
@@ -75,8 +76,9 @@ test.beforeAll(async ({ baseURL }) => {
   const tech = await apiAs(baseURL!, emails.technician);
   const owner = await apiAs(baseURL!, emails.owner);
   const label = randomUUID().slice(0, 6);
-  const sites = await ok<{ items: { id: string; clientId: string }[] }>(office.get('/api/sites?q=Orchard'));
-  const site = sites.items[0]!;
+  // A site of its own for client one (so its owner walks it too): the visit left open here never
+  // blocks another spec's visit at a demo site, and a rerun of this set-up gets a fresh one.
+  const site = await siteLike(office, 'Orchard Row Bistro', label);
   const system = await ok<{ id: string }>(
     office.post('/api/systems', { data: { siteId: site.id, name: `Walk-in cooler circuit with a long name ${label}`, refrigerant: 'R-404A', fullChargeKg: 6.5, application: 'commercial_refrigeration', designBoxTempC: 2 } }),
   );
@@ -89,11 +91,7 @@ test.beforeAll(async ({ baseURL }) => {
     }),
   );
   await ok(office.post(`/api/equipment/${control.id}/relations`, { data: { kind: 'controls', direction: 'from', otherId: unit.id } }));
-  // A technician has one open visit per site: close one left by an earlier try of this set-up
-  // (Playwright runs beforeAll again in a new worker after a failed test).
   const techId = (await ok<{ id: string }>(tech.get('/api/me'))).id;
-  const left = await ok<{ items: { id: string }[] }>(tech.get(`/api/visits?status=open&siteId=${site.id}&technicianId=${techId}`));
-  for (const v of left.items) await ok(tech.post(`/api/visits/${v.id}/close`, { data: { summary: 'Closed by the page walk set-up.' } }));
   // A closed visit (what an owner may read) with a finding that raised a follow-up and refrigerant added.
   const visit = await ok<{ id: string }>(tech.post('/api/visits', { data: { siteId: site.id, reason: 'no_cooling' } }));
   await ok(tech.post(`/api/visits/${visit.id}/entries`, { data: { kind: 'finding', equipmentId: unit.id, clientEntryId: randomUUID(), data: { text: 'Condenser coil matted with grease from the kitchen exhaust; fan blade chipped', severity: 'degraded', raiseFollowUp: true, followUpTitle: `Replace condenser fan blade and clean the coil ${label}` } } }));

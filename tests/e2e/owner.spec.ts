@@ -9,6 +9,7 @@ import sharp from 'sharp';
 import { lifeLine } from '../../lib/equipment/life-line';
 import { clearMail, waitForMail } from '../helpers/mail';
 import { cameraImage } from '../helpers/photo-images';
+import { siteLike } from '../helpers/sites';
 import { shot, signIn } from './helpers';
 
 const base = process.env.APP_URL ?? 'http://localhost:3100';
@@ -25,8 +26,9 @@ async function apiAs(email: string): Promise<APIRequestContext> {
 test('an owner opens a site and a unit’s history, downloads the refrigerant report and asks for service with a photo; the office sees it @phone', async ({ page }, info) => {
   const office = await apiAs('office@rimeline.test');
   const tech = await apiAs('tech@rimeline.test');
-  const sites = (await (await office.get('/api/sites?q=Orchard')).json()) as { items: { id: string }[] };
-  const siteId = sites.items[0]!.id;
+  // A site of its own for client one: a visit left open at a demo site by another spec never blocks this one's.
+  const site = await siteLike(office, 'Orchard Row Bistro', `${info.project.name} ${Date.now()}`);
+  const siteId = site.id;
   const system = (await (await office.post('/api/systems', { data: { siteId, name: `Bar cooler circuit ${info.project.name}`, refrigerant: 'R-134a', fullChargeKg: 2.5, application: 'commercial_refrigeration', designBoxTempC: 3 } })).json()) as { id: string };
   const unit = (await (await office.post('/api/equipment', { data: { siteId, systemId: system.id, type: 'condensing_unit', name: `Bar condensing unit ${info.project.name}`, installedOn: '2004-06-01', condition: 2 } })).json()) as { id: string };
   const visit = (await (await tech.post('/api/visits', { data: { siteId, reason: 'no_cooling' } })).json()) as { id: string };
@@ -38,8 +40,8 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
   await signIn(page, 'owner@client-one.test');
   await expect(page.getByRole('heading', { name: 'Needs attention', level: 2 })).toBeVisible();
   await shot(page, `owner-home-${info.project.name}`);
-  await page.getByRole('link', { name: 'Orchard Row Bistro' }).first().click();
-  await expect(page.getByRole('heading', { name: 'Orchard Row Bistro' })).toBeVisible();
+  await page.getByRole('link', { name: site.name }).first().click();
+  await expect(page.getByRole('heading', { name: site.name })).toBeVisible();
   // The site page: each unit's age against its expected life, and the recent visits.
   await expect(page.getByRole('link', { name: new RegExp(`Bar condensing unit ${info.project.name}`) }).getByText(lifeLine({ type: 'condensing_unit', installedOn: '2004-06-01' }, new Date()))).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Recent visits' })).toBeVisible();
@@ -50,7 +52,7 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
   await expect(page.getByText('CYL-0101').first()).toBeVisible();
 
   await page.goto('/reports');
-  await page.getByLabel('System', { exact: true }).selectOption({ label: `Bar cooler circuit ${info.project.name} — Orchard Row Bistro (R-134a)` });
+  await page.getByLabel('System', { exact: true }).selectOption({ label: `Bar cooler circuit ${info.project.name} — ${site.name} (R-134a)` });
   await page.getByLabel('Year', { exact: true }).fill(String(new Date().getFullYear()));
   const download = page.waitForEvent('download');
   await page.getByRole('link', { name: 'CSV' }).last().click();

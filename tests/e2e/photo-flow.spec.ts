@@ -7,10 +7,11 @@ import { expect, test, type Page, type Route } from '@playwright/test';
 import type { PhotoListDto } from '../../lib/photos/dto';
 import type { VisitDetailDto } from '../../lib/visits/dto';
 import { cameraImage, nameplateImage } from '../helpers/photo-images';
+import { siteLike } from '../helpers/sites';
 import { shot, signIn } from './helpers';
 
 async function siteId(page: Page, name: string): Promise<string> {
-  const sites = await (await page.request.get('/api/sites?limit=50')).json();
+  const sites = await (await page.request.get(`/api/sites?q=${encodeURIComponent(name)}`)).json();
   return (sites.items as { id: string; name: string }[]).find((s) => s.name === name)!.id;
 }
 
@@ -125,11 +126,14 @@ test('leaving with a photo not yet sent asks first; after Stay the failed upload
 
 test('the visit photo form links each photo as it is stored; Done asks while one is not sent @phone', async ({ page }, info) => {
   await signIn(page, 'office@rimeline.test');
-  const id = await newEquipment(page, 'Quarry Road Market', `Dairy case condensing unit ${Date.now() % 100000}`);
-  const started = await page.request.post('/api/visits', { data: { siteId: await siteId(page, 'Quarry Road Market'), reason: 'maintenance' } });
-  // An earlier run may have left this person's visit here open: continue it.
-  const visitId =
-    started.status() === 201 ? ((await started.json()) as { id: string }).id : /\(([0-9a-f-]{36})\)/.exec(((await started.json()) as { error: { message: string } }).error.message)![1]!;
+  // A site of its own, so no visit left open at a demo site stands in the way of this one.
+  const site = await siteLike(page.request, 'Quarry Road Market', `${info.project.name} ${Date.now()}`);
+  const made = await page.request.post('/api/equipment', { data: { siteId: site.id, type: 'condensing_unit', name: `Dairy case condensing unit ${Date.now() % 100000}`, make: 'Kelvrin', model: 'KCU-300' } });
+  expect(made.status()).toBe(201);
+  const id = ((await made.json()) as { id: string }).id;
+  const started = await page.request.post('/api/visits', { data: { siteId: site.id, reason: 'maintenance' } });
+  expect(started.status()).toBe(201);
+  const visitId = ((await started.json()) as { id: string }).id;
   const photoEntries = async () => {
     const visit = (await (await page.request.get(`/api/visits/${visitId}`)).json()) as VisitDetailDto;
     return visit.entries.filter((e) => e.kind === 'photo' && e.equipmentId === id);

@@ -15,7 +15,7 @@ import { screenshotDir, shot, signIn } from './helpers';
 const screen = (page: Page, name: string) => page.screenshot({ path: path.join(screenshotDir, `${name}.png`) });
 
 async function newEquipment(page: Page, name: string): Promise<string> {
-  const sites = await (await page.request.get('/api/sites?limit=50')).json();
+  const sites = await (await page.request.get(`/api/sites?q=${encodeURIComponent('Pell Street Kitchen')}`)).json();
   const site = (sites.items as { id: string; name: string }[]).find((s) => s.name === 'Pell Street Kitchen')!;
   const res = await page.request.post('/api/equipment', { data: { siteId: site.id, type: 'condensing_unit', name, make: 'Kelvrin', model: 'KCU-300' } });
   expect(res.status()).toBe(201);

@@ -19,7 +19,7 @@ async function apiAs(playwright: PlaywrightWorkerArgs['playwright'], baseURL: st
 }
 
 async function siteId(api: APIRequestContext, name: string): Promise<string> {
-  const body = (await (await api.get('/api/sites?limit=200')).json()) as { items: { id: string; name: string }[] };
+  const body = (await (await api.get(`/api/sites?q=${encodeURIComponent(name)}`)).json()) as { items: { id: string; name: string }[] };
   return body.items.find((s) => s.name === name)!.id;
 }
 

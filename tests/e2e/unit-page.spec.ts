@@ -4,6 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import { expect, test, type APIRequestContext, type Page, type PlaywrightWorkerArgs } from '@playwright/test';
 import { createTestDb } from '../helpers/db';
+import { siteLike } from '../helpers/sites';
 import path from 'node:path';
 import { DEMO_PASSWORD, screenshotDir, shot, signIn } from './helpers';
 
@@ -29,10 +30,6 @@ async function siteNamed(api: APIRequestContext, name: string): Promise<{ id: st
   return body.items.find((s) => s.name === name)!;
 }
 
-async function siteId(api: APIRequestContext, name: string): Promise<string> {
-  return (await siteNamed(api, name)).id;
-}
-
 async function tagFor(office: APIRequestContext, equipmentId: string): Promise<string> {
   const run = await ok<{ id: string }>(office.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [equipmentId], layoutId: 'thermal-2x1' } }));
   return (await ok<{ tags: { code: string }[] }>(office.get(`/api/print-runs/${run.id}`))).tags[0]!.code;
@@ -42,7 +39,8 @@ async function tagFor(office: APIRequestContext, equipmentId: string): Promise<s
 async function unitWithHistory(playwright: PlaywrightWorkerArgs['playwright'], baseURL: string, label: string) {
   const office = await apiAs(playwright, baseURL, 'office@rimeline.test');
   const tech = await apiAs(playwright, baseURL, 'tech@rimeline.test');
-  const site = await siteId(office, 'Pell Street Kitchen');
+  // Its own site: the visits made here never meet one another spec left open at a demo site.
+  const site = (await siteLike(office, 'Pell Street Kitchen', label)).id;
   const unit = await ok<{ id: string; name: string }>(
     office.post('/api/equipment', {
       data: {

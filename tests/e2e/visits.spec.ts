@@ -168,7 +168,7 @@ test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper t
 
   // The client's report contact gets the e-mail with the site's name and a link to the visit.
   const mail = await waitForVisitReport('owner@client-one.test', visitId);
-  expect(mail.subject).toContain(siteName);
+  expect(mail.subject).toContain(circuit.site.name);
   expect(mail.text).toContain('No-cooling call');
   expect(firstLink(mail.text ?? '', `/visits/${visitId}`)).toBe(`${info.project.use.baseURL}/visits/${visitId}`);
   expect(mail.html ?? '').toContain(`/visits/${visitId}`);
@@ -176,7 +176,7 @@ test('a no-cooling visit: live superheat, a finding with a follow-up, a jumper t
   // The office: the visit waits for review, the follow-up is in the list with its age.
   await office.goto('/visits');
   const row = office.locator(`a[href="/visits/${visitId}"]`);
-  await expect(row).toContainText(`${siteName} · No-cooling call`);
+  await expect(row).toContainText(`${circuit.site.name} · No-cooling call`);
   await expect(row).toContainText('Needs review');
   await office.goto(`/visits/${visitId}`);
   await expect(office.getByText('Needs review')).toBeVisible();

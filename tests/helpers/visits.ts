@@ -2,6 +2,7 @@
 // (page.request shares the page's session). Makes and names are invented.
 import { expect, type APIRequestContext } from '@playwright/test';
 import { mailTo, type CaughtMessage } from './mail';
+import { siteLike } from './sites';
 
 export async function api<T>(request: APIRequestContext, method: 'GET' | 'POST' | 'PATCH', url: string, data?: unknown): Promise<T> {
   const res = await request.fetch(url, { method, ...(data !== undefined ? { data } : {}) });
@@ -31,9 +32,13 @@ export const circuitFacts = {
   designPressureHighKpa: 2758,
 } as const;
 
-/** A walk-in cooler system with its condensing unit and evaporator on a demo site. */
-export async function createCircuit(request: APIRequestContext, siteName: string, label: string) {
-  const site = await siteNamed(request, siteName);
+/**
+ * A walk-in cooler system with its condensing unit and evaporator, on a site of its own made like
+ * the named demo site (same client, time zone and elevation), so no visit left open elsewhere
+ * blocks a visit started there. `request` must be signed in as the office.
+ */
+export async function createCircuit(request: APIRequestContext, likeSiteName: string, label: string) {
+  const site = await siteLike(request, likeSiteName, label);
   const system = await api<{ id: string }>(request, 'POST', '/api/systems', {
     siteId: site.id,
     name: `Cooler circuit ${label}`,
