@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -53,7 +53,7 @@ function planQuery(actor: Actor, db: Db) {
     ]);
 }
 
-type PlanRow = Awaited<ReturnType<ReturnType<typeof planQuery>['executeTakeFirstOrThrow']>>;
+type PlanRow = QueryRow<typeof planQuery>;
 
 function toPlanDto(actor: Actor, r: PlanRow, now: Date): PlanDto {
   const status = r.status as PlanStatus;
@@ -102,6 +102,24 @@ export async function listPlans(actor: Actor, query: ListPlansQuery, db: Db = de
   if (query.status?.length) q = q.where('visit_plans.status', 'in', query.status);
   const rows = await q.orderBy('visit_plans.day').orderBy('visit_plans.window_start').orderBy('tech.name').orderBy('visit_plans.id').limit(query.limit).execute();
   return { items: rows.map((r) => toPlanDto(actor, r, now)), nextCursor: null };
+}
+
+/**
+ * The office's today for the week view: the calendar day in the time zone most of the company's
+ * sites use (the office has no clock of its own here; UTC's day is wrong for an evening in the
+ * Americas). A company without sites falls back to UTC.
+ */
+export async function officeToday(actor: Actor, db: Db = defaultDb, now = new Date()): Promise<string> {
+  const row = await db
+    .selectFrom('sites')
+    .where('sites.company_id', '=', actor.companyId)
+    .where('sites.archived_at', 'is', null)
+    .select(['sites.time_zone', (eb) => eb.fn.countAll<number>().as('n')])
+    .groupBy('sites.time_zone')
+    .orderBy('n', 'desc')
+    .orderBy('sites.time_zone')
+    .executeTakeFirst();
+  return localDate(now, row?.time_zone ?? 'UTC');
 }
 
 /** A technician's planned visits not yet started: overdue ones, today's, and the next `days` days. */

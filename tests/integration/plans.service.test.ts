@@ -9,7 +9,7 @@ import { localDate } from '@/lib/format/dates';
 import { dueWork } from '@/lib/overview/due';
 import { addDays } from '@/lib/plans/days';
 import { createPlanSchema, movePlanSchema } from '@/lib/plans/schemas';
-import { cancelPlan, createPlan, getPlan, listPlans, movePlan, plansForTechnician, upcomingPlansForSite } from '@/lib/plans/service';
+import { cancelPlan, createPlan, getPlan, listPlans, movePlan, officeToday, plansForTechnician, upcomingPlansForSite } from '@/lib/plans/service';
 import { startVisit } from '@/lib/visits/service';
 import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 
@@ -200,5 +200,18 @@ describe('planned visits', () => {
     expect((await dueItem())?.planned).toEqual({ planId: plan.id, day: addDays(today, 6), technicianName: 'Tomas Rivane' });
     await cancelPlan(office, plan.id, {});
     expect((await dueItem())?.planned).toBeNull();
+  });
+
+  it('the office’s today is the calendar day where most of its sites are, not UTC’s', async () => {
+    const zones = await db.selectFrom('sites').select(['time_zone', (eb) => eb.fn.countAll<number>().as('n')]).where('company_id', '=', office.companyId).where('archived_at', 'is', null).groupBy('time_zone').orderBy('n', 'desc').orderBy('time_zone').execute();
+    // 03:30 UTC on 5 March is still 4 March anywhere in the Americas, where the demo's sites are.
+    const lateEvening = new Date('2027-03-05T03:30:00Z');
+    expect(zones[0]!.time_zone).toMatch(/^America\//);
+    expect(await officeToday(office, db, lateEvening)).toBe('2027-03-04');
+    expect(await officeToday(office, db, new Date('2027-03-05T18:00:00Z'))).toBe('2027-03-05');
+    // Each company's own sites decide: the other company's one site is in Tokyo, already 5 March.
+    await db.updateTable('sites').set({ time_zone: 'Asia/Tokyo' }).where('company_id', '=', otherAdmin.companyId).execute();
+    expect(await officeToday(otherAdmin, db, lateEvening)).toBe('2027-03-05');
+    expect(await officeToday(office, db, lateEvening)).toBe('2027-03-04');
   });
 });

@@ -12,7 +12,7 @@ import { can } from '@/lib/auth/access';
 import { formatWeekday } from '@/lib/format/local-times';
 import { addDays, weekDays, weekStart } from '@/lib/plans/days';
 import type { PlanDto } from '@/lib/plans/dto';
-import { listPlanTechnicians, listPlans } from '@/lib/plans/service';
+import { listPlanTechnicians, listPlans, officeToday } from '@/lib/plans/service';
 
 export const metadata: Metadata = { title: 'Planned visits' };
 
@@ -33,7 +33,7 @@ export default async function PlannedVisitsPage({ searchParams }: { searchParams
   const query = querySchema.parse(await searchParams);
   const actor = await requirePageActor('/plans', 'plans.read');
   // The week's days are calendar days; each plan's day and window are its own site's.
-  const today = new Date().toISOString().slice(0, 10);
+  const today = await officeToday(actor);
   const monday = weekStart(query.week ?? today);
   const days = weekDays(monday);
   const canPlan = can(actor, 'plans.write');
