@@ -1,40 +1,51 @@
 import 'server-only';
 import { sql } from 'kysely';
 import { db } from '@/db';
-import { countMailBacklog } from '@/lib/mail/outbox';
+import { countMailTrouble } from '@/lib/mail/outbox';
 import { mailTransport } from '@/lib/mail/transport';
 import { checkBucket } from '@/storage/objects';
 
 export type CheckState = 'ok' | 'failing';
 export interface HealthReport {
   status: 'ok' | 'degraded';
-  checks: { database: CheckState; storage: CheckState; mail: CheckState; outbox: 'ok' | 'backlog' | 'failing' };
-  outbox: { waitingOver5Minutes: number | null };
+  checks: {
+    database: CheckState;
+    storage: CheckState;
+    mail: CheckState;
+    outbox: 'ok' | 'backlog' | 'failing';
+    undelivered: 'ok' | 'given_up' | 'failing';
+  };
+  /** null when the outbox could not be counted (both outbox checks then say failing). */
+  outbox: { waitingOver5Minutes: number | null; givenUpLast7Days: number | null };
 }
 
 const TIMEOUT_MS = 3_000;
 
-async function probe(fn: () => Promise<unknown>): Promise<CheckState> {
+/** fn's result, or null when it throws or takes longer than TIMEOUT_MS. */
+async function attempt<T>(fn: () => Promise<T>): Promise<T | null> {
   let timer: NodeJS.Timeout | undefined;
   try {
-    await Promise.race([
+    return await Promise.race([
       fn(),
-      new Promise((_, reject) => {
+      new Promise<never>((_, reject) => {
         timer = setTimeout(() => reject(new Error('timeout')), TIMEOUT_MS);
       }),
     ]);
-    return 'ok';
   } catch {
-    return 'failing';
+    return null;
   } finally {
     clearTimeout(timer);
   }
 }
 
+async function probe(fn: () => Promise<unknown>): Promise<CheckState> {
+  return (await attempt(async () => (await fn(), true))) ? 'ok' : 'failing';
+}
+
 /**
  * Whether a service is down (database, storage, mail: 503, so a load balancer can act) or the app
- * is up but mail is not leaving (outbox backlog: 200 with status degraded, since restarting or
- * removing this copy would not send it).
+ * is up but mail is not leaving (outbox backlog) or was given up after every retry (undelivered):
+ * 200 with status degraded, since restarting or removing this copy would not send it.
  */
 export function isServiceDown(report: HealthReport): boolean {
   const { database, storage, mail } = report.checks;
@@ -42,20 +53,18 @@ export function isServiceDown(report: HealthReport): boolean {
 }
 
 export async function checkHealth(): Promise<HealthReport> {
-  let waiting: number | null = null;
-  const [database, storage, mail, outboxState] = await Promise.all([
+  const [database, storage, mail, counts] = await Promise.all([
     probe(() => sql`select 1`.execute(db)),
     probe(() => checkBucket()),
     probe(() => mailTransport.verify()),
-    probe(async () => {
-      waiting = await countMailBacklog(db);
-    }),
+    attempt(() => countMailTrouble(db)),
   ]);
-  const outbox = outboxState === 'failing' ? 'failing' : waiting ? 'backlog' : 'ok';
-  const checks = { database, storage, mail, outbox } as const;
+  const outbox = !counts ? 'failing' : counts.backlog ? 'backlog' : 'ok';
+  const undelivered = !counts ? 'failing' : counts.givenUp ? 'given_up' : 'ok';
+  const checks = { database, storage, mail, outbox, undelivered } as const;
   return {
     status: Object.values(checks).every((c) => c === 'ok') ? 'ok' : 'degraded',
     checks,
-    outbox: { waitingOver5Minutes: waiting },
+    outbox: { waitingOver5Minutes: counts?.backlog ?? null, givenUpLast7Days: counts?.givenUp ?? null },
   };
 }

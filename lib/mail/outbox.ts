@@ -143,7 +143,8 @@ export async function deliverDueMail(limit = 20, db: Kysely<DB> = defaultDb, mar
       break;
     }
     if (sendError) {
-      logger.warn({ outboxId: m.id, attempts, err: message }, 'mail delivery failed; will retry');
+      if (attempts >= MAX_ATTEMPTS) logger.error({ outboxId: m.id, attempts, err: message }, 'mail delivery failed for good; given up');
+      else logger.warn({ outboxId: m.id, attempts, err: message }, 'mail delivery failed; will retry');
       failed++;
     } else {
       sent++;
@@ -159,14 +160,30 @@ export function kickMailDelivery(): void {
 
 /** Mail still waiting to go out (not sent, not given up) this long is a backlog worth reporting. */
 export const BACKLOG_AFTER_MINUTES = 5;
+/**
+ * Mail given up (status `failed`, after MAX_ATTEMPTS tries) counts against health while it is this
+ * recent: nothing re-sends it, so counting it for ever would keep health degraded for ever.
+ */
+export const GIVEN_UP_WITHIN_DAYS = 7;
 
-/** How many messages have waited longer than BACKLOG_AFTER_MINUTES (for /api/health). */
-export async function countMailBacklog(db: Kysely<DB> = defaultDb): Promise<number> {
+/**
+ * For /api/health, in one query: messages still pending after BACKLOG_AFTER_MINUTES, and messages
+ * given up that were queued within GIVEN_UP_WITHIN_DAYS.
+ */
+export async function countMailTrouble(db: Kysely<DB> = defaultDb): Promise<{ backlog: number; givenUp: number }> {
   const row = await db
     .selectFrom('mail_outbox')
-    .select((eb) => eb.fn.countAll<string>().as('n'))
-    .where('status', '=', 'pending')
-    .where('created_at', '<', sql<Date>`now() - make_interval(mins => ${BACKLOG_AFTER_MINUTES})`)
+    .select((eb) => [
+      eb.fn
+        .countAll<string>()
+        .filterWhere((f) => f.and([f('status', '=', 'pending'), f('created_at', '<', sql<Date>`now() - make_interval(mins => ${BACKLOG_AFTER_MINUTES})`)]))
+        .as('backlog'),
+      eb.fn
+        .countAll<string>()
+        .filterWhere((f) => f.and([f('status', '=', 'failed'), f('created_at', '>', sql<Date>`now() - make_interval(days => ${GIVEN_UP_WITHIN_DAYS})`)]))
+        .as('given_up'),
+    ])
+    .where('status', 'in', ['pending', 'failed'])
     .executeTakeFirstOrThrow();
-  return Number(row.n);
+  return { backlog: Number(row.backlog), givenUp: Number(row.given_up) };
 }
