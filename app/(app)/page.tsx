@@ -7,7 +7,7 @@ import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { roleLabels } from '@/lib/auth/permissions';
 import { getHomeCounts } from '@/lib/home/service';
-import { needsAttention } from '@/lib/attention/service';
+import { attentionPage } from '@/lib/attention/service';
 import { dueWork } from '@/lib/overview/due';
 import { chartData, siteSummaries } from '@/lib/overview/service';
 import { listRequests } from '@/lib/requests/service';
@@ -112,7 +112,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
 async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
   const [summaries, attention, charts, requests] = await Promise.all([
     siteSummaries(actor),
-    needsAttention(actor),
+    attentionPage(actor, { limit: 5, withTotal: false }),
     chartData(actor, null),
     listRequests(actor, { status: ['new', 'acknowledged', 'scheduled'], limit: 5 }),
   ]);
@@ -140,7 +140,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
             How this list is ordered · all
           </Link>
         </div>
-        <AttentionList units={attention.slice(0, 5)} />
+        <AttentionList units={attention.items} />
       </section>
       <section aria-labelledby="sites-summary-h" className="space-y-3">
         <h2 id="sites-summary-h" className="text-lg font-semibold">
@@ -164,7 +164,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
 }
 
 async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
-  const [attention, due, requests] = await Promise.all([needsAttention(actor), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
+  const [attention, due, requests] = await Promise.all([attentionPage(actor, { limit: 6, withTotal: false }), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
       <section aria-labelledby="office-attention-h" className="space-y-3">
@@ -176,7 +176,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
             All, and how they are ordered
           </Link>
         </div>
-        <AttentionList units={attention.slice(0, 6)} />
+        <AttentionList units={attention.items} />
       </section>
       <div className="space-y-6">
         <section aria-labelledby="requests-h" className="space-y-3">

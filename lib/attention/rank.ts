@@ -125,6 +125,38 @@ function oldest(u: UnitSignals): string {
   return dates.sort()[0] ?? '9999';
 }
 
+/**
+ * A unit's place in the list: priority, score (higher first), oldest problem, then name and id in
+ * code-point order. The last two are what SQL's `COLLATE "C"` and uuid order give, so units paged
+ * in SQL (past their expected life and nothing else) merge into this order exactly.
+ */
+export interface RankKey {
+  priority: number;
+  score: number;
+  oldest: string;
+  name: string;
+  id: string;
+}
+
+export function rankKey(u: RankedUnit): RankKey {
+  return { priority: PRIORITIES.indexOf(u.priority), score: u.score, oldest: oldest(u), name: u.equipmentName, id: u.equipmentId };
+}
+
+/** Code-point order (UTF-8 byte order), unlike `<` on UTF-16 code units for characters past U+FFFF. */
+export function compareCodePoints(a: string, b: string): number {
+  const x = [...a];
+  const y = [...b];
+  for (let i = 0; i < Math.min(x.length, y.length); i++) {
+    const d = x[i]!.codePointAt(0)! - y[i]!.codePointAt(0)!;
+    if (d !== 0) return d;
+  }
+  return x.length - y.length;
+}
+
+export function compareRankKeys(a: RankKey, b: RankKey): number {
+  return a.priority - b.priority || b.score - a.score || compareCodePoints(a.oldest, b.oldest) || compareCodePoints(a.name, b.name) || compareCodePoints(a.id, b.id);
+}
+
 export function rankUnits(units: UnitSignals[]): RankedUnit[] {
   return units
     .filter((u) => u.signals.length > 0)
@@ -134,5 +166,7 @@ export function rankUnits(units: UnitSignals[]): RankedUnit[] {
       score: u.signals.reduce((sum, s) => sum + scoreSignal(s), 0),
       reasons: [...u.signals].sort((a, b) => scoreSignal(b) - scoreSignal(a)).map((s) => ({ kind: s.kind, ...describeSignal(s) })),
     }))
-    .sort((a, b) => PRIORITIES.indexOf(a.priority) - PRIORITIES.indexOf(b.priority) || b.score - a.score || oldest(a).localeCompare(oldest(b)) || a.equipmentName.localeCompare(b.equipmentName));
+    .map((u) => ({ u, key: rankKey(u) }))
+    .sort((a, b) => compareRankKeys(a.key, b.key))
+    .map(({ u }) => u);
 }

@@ -1,30 +1,38 @@
 import 'server-only';
 import { sql } from 'kysely';
+import { z } from 'zod';
 import { db as defaultDb } from '@/db';
 import { entryVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { openLeaks } from '@/lib/attention/open-leaks';
-import { rankUnits, type RankedUnit, type Signal, type UnitSignals } from '@/lib/attention/rank';
+import { compareRankKeys, PRIORITIES, rankKey, rankUnits, type RankedUnit, type RankKey, type Signal, type UnitSignals } from '@/lib/attention/rank';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
-import { pastExpectedLifeSql, serviceLifeTable } from '@/lib/overview/service-life-sql';
+import { ageYearsSql, pastExpectedLifeSql, serviceLifeTable } from '@/lib/overview/service-life-sql';
+import { decodeCursor, encodeCursor } from '@/lib/api/cursor';
+import { AppError } from '@/lib/errors';
 
 const YEAR_MS = 365.25 * 86_400_000;
 
-/** Signals of the units the actor can see (optionally one site) that have any, gathered in a few grouped queries (no per-unit round trips). */
-export async function gatherSignals(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<UnitSignals[]> {
-  const base = () => {
-    let q = db.selectFrom('equipment').innerJoin('sites', 'sites.id', 'equipment.site_id').where(siteVisibleTo(actor)).where('equipment.deleted_at', 'is', null).where('equipment.status', '<>', 'removed');
-    if (siteId) q = q.where('equipment.site_id', '=', siteId);
-    return q;
-  };
-  // Signals first, then only the units that have one (or are past their expected life, found in
-  // SQL): at tens of thousands of units most have none, and loading them all was the cost.
-  const found: { id: string | null; signal: Signal }[] = [];
+type Found = { id: string | null; signal: Signal };
+
+function visibleUnits(actor: Actor, siteId: string | null, db: Db) {
+  let q = db.selectFrom('equipment').innerJoin('sites', 'sites.id', 'equipment.site_id').where(siteVisibleTo(actor)).where('equipment.deleted_at', 'is', null).where('equipment.status', '<>', 'removed');
+  if (siteId) q = q.where('equipment.site_id', '=', siteId);
+  return q;
+}
+
+/**
+ * Every signal but age, found from the few rows that carry one (follow-ups, entries, visits). The
+ * unit itself (visible, not deleted, on the site asked for) is checked once, when the units are
+ * loaded: a signal on a unit that fails it is dropped there, so these queries need not join it.
+ */
+async function findSignals(actor: Actor, siteId: string | null, db: Db, today: Date): Promise<Found[]> {
+  const found: Found[] = [];
   const push = (id: string | null, signal: Signal) => found.push({ id, signal });
 
-  const safety = await base()
+  const safety = await visibleUnits(actor, siteId, db)
     .innerJoin('follow_ups', 'follow_ups.equipment_id', 'equipment.id')
     .where('follow_ups.status', 'in', ['open', 'scheduled'])
     .where('follow_ups.severity', '=', 'safety')
@@ -45,14 +53,17 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
     });
   }
 
-  const noCooling = await base()
-    .innerJoin('entries', 'entries.equipment_id', 'equipment.id')
-    .innerJoin('visits', 'visits.id', 'entries.visit_id')
+  // From the recent no-cooling visits to their entries (by visit), never through every unit.
+  const noCooling = await db
+    .selectFrom('visits')
+    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .innerJoin('entries', 'entries.visit_id', 'visits.id')
     .where(visitVisibleTo(actor))
     .where('visits.reason', '=', 'no_cooling')
     .where('visits.started_at', '>', new Date(today.getTime() - 90 * 86_400_000))
-    .select(['equipment.id', sql<string[]>`array_agg(distinct visits.id::text)`.as('visit_ids')])
-    .groupBy('equipment.id')
+    .where('entries.equipment_id', 'is not', null)
+    .select(['entries.equipment_id as id', sql<string[]>`array_agg(distinct visits.id::text)`.as('visit_ids')])
+    .groupBy('entries.equipment_id')
     .having(sql<boolean>`count(distinct visits.id) >= 2`)
     .execute();
   for (const r of noCooling) push(r.id, { kind: 'repeat_no_cooling', visitIds: r.visit_ids });
@@ -61,13 +72,10 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
     .with('ranked', (w) =>
       w
         .selectFrom('entries')
-        .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')
-        .innerJoin('sites', 'sites.id', 'equipment.site_id')
-        .where(siteVisibleTo(actor))
         .where(entryVisibleTo(actor))
         .where('entries.kind', '=', 'condition')
         .where('entries.voided_at', 'is', null)
-        .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+        .$if(Boolean(siteId), (q) => q.where('entries.equipment_id', 'in', (eb) => eb.selectFrom('equipment').select('equipment.id').where('equipment.site_id', '=', siteId!)))
         .select([
           'entries.equipment_id',
           'entries.visit_id',
@@ -82,11 +90,16 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
     .select(['latest.equipment_id', 'latest.visit_id', 'latest.rating as to', 'previous.rating as from'])
     .execute();
   for (const r of ratings) push(r.equipment_id, { kind: 'condition_worsening', from: Number(r.from), to: Number(r.to), visitId: r.visit_id });
+  return found;
+}
 
+/** The units named by `found` (and, with `pastLife`, every unit past its expected life), with their signals. */
+async function unitsWithSignals(actor: Actor, siteId: string | null, db: Db, today: Date, found: Found[], pastLife: boolean): Promise<UnitSignals[]> {
   const withSignal = [...new Set(found.flatMap((f) => (f.id ? [f.id] : [])))];
-  const units = await base()
+  if (!pastLife && withSignal.length === 0) return [];
+  const units = await visibleUnits(actor, siteId, db)
     .leftJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
-    .where((eb) => eb.or([eb(pastExpectedLifeSql(today), '=', true), ...(withSignal.length > 0 ? [eb('equipment.id', 'in', withSignal)] : [])]))
+    .where((eb) => eb.or([...(pastLife ? [eb(pastExpectedLifeSql(today), '=', true)] : []), ...(withSignal.length > 0 ? [eb('equipment.id', 'in', withSignal)] : [])]))
     .select(['equipment.id', 'equipment.name', 'equipment.type', 'equipment.installed_on', 'equipment.site_id', 'sites.name as site_name'])
     .execute();
   const byId = new Map<string, UnitSignals>(
@@ -104,7 +117,102 @@ export async function gatherSignals(actor: Actor, siteId: string | null, db: Db 
   return [...byId.values()];
 }
 
+/** Signals of the units the actor can see (optionally one site) that have any, gathered in a few grouped queries (no per-unit round trips). */
+export async function gatherSignals(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<UnitSignals[]> {
+  return unitsWithSignals(actor, siteId, db, today, await findSignals(actor, siteId, db, today), true);
+}
+
+/** The whole ranked list; for a page of it, `attentionPage`. */
 export async function needsAttention(actor: Actor, siteId: string | null = null, db: Db = defaultDb, today = new Date()): Promise<RankedUnit[]> {
   assertCan(actor, 'overview.read');
   return rankUnits(await gatherSignals(actor, siteId, db, today));
+}
+
+const cursorKeySchema = z.tuple([z.number().int().min(0).max(2), z.number().finite(), z.string().max(10), z.string().max(500)]);
+
+function encodeRankCursor(key: RankKey): string {
+  return encodeCursor({ k: JSON.stringify([key.priority, key.score, key.oldest, key.name]), id: key.id });
+}
+
+function decodeRankCursor(value: string | null | undefined): RankKey | null {
+  const cursor = decodeCursor(value ?? undefined);
+  if (!cursor) return null;
+  try {
+    const [priority, score, oldest, name] = cursorKeySchema.parse(JSON.parse(String(cursor.k)));
+    return { priority, score, oldest, name, id: cursor.id };
+  } catch {
+    throw new AppError('bad_request', 'The page cursor is not valid; start from the first page.');
+  }
+}
+
+/** A unit's points when its only signal is its age: `scoreSignal` of past_expected_life, in SQL. */
+function pastLifeScoreSql(today: Date) {
+  return sql<number>`least(40, 15 + 2 * floor(greatest(0, ${ageYearsSql(today)} - life.median_years)))`;
+}
+
+export interface AttentionPage {
+  items: RankedUnit[];
+  /** Units on the whole list; left out when not asked for (it costs a count over every unit). */
+  total: number | null;
+  nextCursor: string | null;
+}
+
+/**
+ * One page of the ranked list, keyset-paged. Units with a signal besides age are few and ranked
+ * in JavaScript; units past their expected life and nothing else can be most of a large estate,
+ * so they are ordered and cut to the page in SQL (same score, then name and id in code-point
+ * order) and merged in. The cursor is the last unit's rank key.
+ */
+export async function attentionPage(
+  actor: Actor,
+  options: { siteId?: string | null; limit: number; cursor?: string | null; withTotal?: boolean },
+  db: Db = defaultDb,
+  today = new Date(),
+): Promise<AttentionPage> {
+  assertCan(actor, 'overview.read');
+  const siteId = options.siteId ?? null;
+  const after = decodeRankCursor(options.cursor);
+  const found = await findSignals(actor, siteId, db, today);
+  const signalled = rankUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
+  const signalledIds = signalled.map((u) => u.equipmentId);
+  const ageOnly = () =>
+    visibleUnits(actor, siteId, db)
+      .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+      .where(pastExpectedLifeSql(today))
+      .$if(signalledIds.length > 0, (q) => q.where('equipment.id', 'not in', signalledIds));
+  // Age-only units are all "watch" with no dated problem; a cursor before the watch units takes them all.
+  const score = pastLifeScoreSql(today);
+  const [rows, counted] = await Promise.all([
+    ageOnly()
+      .$if(after?.priority === PRIORITIES.indexOf('watch'), (q) =>
+        q.where(sql<boolean>`(-${score}, equipment.name collate "C", equipment.id) > (${-after!.score}::float8, ${after!.name}::text collate "C", ${after!.id}::uuid)`),
+      )
+      .select(['equipment.id', 'equipment.name', 'equipment.type', 'equipment.site_id', 'sites.name as site_name', ageYearsSql(today).as('age_years'), 'life.median_years'])
+      .orderBy(score, 'desc')
+      .orderBy(sql`equipment.name collate "C"`)
+      .orderBy('equipment.id')
+      .limit(options.limit + 1)
+      .execute(),
+    options.withTotal === false ? null : ageOnly().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow(),
+  ]);
+  const ageRanked = rankUnits(
+    rows.map((r) => ({
+      equipmentId: r.id,
+      equipmentName: r.name,
+      equipmentType: r.type,
+      siteId: r.site_id,
+      siteName: r.site_name,
+      signals: [{ kind: 'past_expected_life', ageYears: Number(r.age_years), medianYears: Number(r.median_years) }],
+    })),
+  );
+  const candidates = [...signalled.filter((u) => !after || compareRankKeys(rankKey(u), after) > 0), ...ageRanked]
+    .map((u) => ({ u, key: rankKey(u) }))
+    .sort((a, b) => compareRankKeys(a.key, b.key));
+  const kept = candidates.slice(0, options.limit);
+  const last = kept.at(-1);
+  return {
+    items: kept.map((c) => c.u),
+    total: counted ? signalled.length + counted.n : null,
+    nextCursor: candidates.length > options.limit && last ? encodeRankCursor(last.key) : null,
+  };
 }

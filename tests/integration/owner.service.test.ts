@@ -190,13 +190,16 @@ describe('owner routes are scoped', () => {
     session.actor = owner;
     const route = await import('@/app/api/overview/attention/route');
     const first = (await call(route.GET as never, { path: '/api/overview/attention?limit=1' })).body as { total: number; items: { equipmentName: string }[]; nextCursor: string | null };
-    expect(first).toMatchObject({ total: 2, nextCursor: '1' });
+    expect(first).toMatchObject({ total: 2, nextCursor: expect.any(String) });
     expect(first.items.map((u) => u.equipmentName)).toEqual(['Cooler evaporator']);
     const second = (await call(route.GET as never, { path: `/api/overview/attention?limit=1&cursor=${first.nextCursor}` })).body as typeof first;
     expect(second).toMatchObject({ total: 2, nextCursor: null });
     expect(second.items.map((u) => u.equipmentName)).toEqual(['Cooler condensing unit']);
+    // The pages are the whole list, in its order.
+    const whole = (await call(route.GET as never, { path: '/api/overview/attention?limit=10' })).body as typeof first;
+    expect(whole.items.map((u) => u.equipmentName)).toEqual(['Cooler evaporator', 'Cooler condensing unit']);
     const bad = await call(route.GET as never, { path: '/api/overview/attention?cursor=-4' });
-    expect(bad.status).toBe(422);
+    expect(bad.status).toBe(400);
   });
 
   it('the owner gets their own site’s reports as files', async () => {

@@ -3,7 +3,7 @@ import { AttentionList } from '@/components/overview/attention-list';
 import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
-import { needsAttention } from '@/lib/attention/service';
+import { attentionPage } from '@/lib/attention/service';
 import { priorityLabels, priorityRule } from '@/lib/attention/rank';
 import { orNotFound } from '@/lib/api/page';
 import { getSite } from '@/lib/sites/service';
@@ -18,8 +18,11 @@ export default async function AttentionPage({ searchParams }: { searchParams: Pr
   const actor = await requirePageActor('/attention', 'overview.read');
   const { siteId, show } = await searchParams;
   const site = siteId && /^[0-9a-f-]{36}$/i.test(siteId) ? await orNotFound(getSite(actor, siteId)) : null;
-  const units = await needsAttention(actor, site?.id ?? null);
-  const shown = Math.min(units.length, Math.max(STEP, Math.ceil(Number(show) / STEP) * STEP || STEP));
+  const asked = Math.max(STEP, Math.ceil(Number(show) / STEP) * STEP || STEP);
+  const page = await attentionPage(actor, { siteId: site?.id ?? null, limit: asked });
+  const units = page.items;
+  const total = page.total ?? units.length;
+  const shown = units.length;
   const more = new URLSearchParams({ ...(site ? { siteId: site.id } : {}), show: String(shown + STEP) });
   return (
     <div className="space-y-4">
@@ -35,16 +38,16 @@ export default async function AttentionPage({ searchParams }: { searchParams: Pr
           ))}
         </ul>
       </Card>
-      {units.length > 0 ? (
+      {total > 0 ? (
         <p className="text-sm text-slate-700" role="status">
-          {units.length === 1 ? '1 unit needs attention.' : `${formatCount(units.length)} units need attention.`}
-          {shown < units.length ? ` Showing the first ${formatCount(shown)}.` : ''}
+          {total === 1 ? '1 unit needs attention.' : `${formatCount(total)} units need attention.`}
+          {shown < total ? ` Showing the first ${formatCount(shown)}.` : ''}
         </p>
       ) : null}
-      <AttentionList units={units.slice(0, shown)} showSite={!site} />
-      {shown < units.length ? (
+      <AttentionList units={units} showSite={!site} />
+      {shown < total ? (
         <ButtonLink href={`/attention?${more.toString()}#unit-${shown + 1}`} variant="secondary" size="lg" scroll={false}>
-          Show {Math.min(STEP, units.length - shown)} more
+          Show {Math.min(STEP, total - shown)} more
         </ButtonLink>
       ) : null}
     </div>

@@ -2,11 +2,11 @@ import { FileDown, FileSpreadsheet } from 'lucide-react';
 import Link from 'next/link';
 import { AttentionList } from '@/components/overview/attention-list';
 import type { Actor } from '@/lib/auth/actor';
-import { needsAttention } from '@/lib/attention/service';
+import { attentionPage } from '@/lib/attention/service';
 
 /** What needs attention on this site and its equipment report, for everyone who can see the site. */
 export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: string }) {
-  const units = await needsAttention(actor, siteId);
+  const { items: units } = await attentionPage(actor, { siteId, limit: 5, withTotal: false });
   return (
     <section aria-labelledby="site-attention-h" className="space-y-3">
       <div className="flex flex-wrap items-end justify-between gap-2">
@@ -25,7 +25,7 @@ export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: s
           </a>
         </div>
       </div>
-      <AttentionList units={units.slice(0, 5)} showSite={false} />
+      <AttentionList units={units} showSite={false} />
     </section>
   );
 }
