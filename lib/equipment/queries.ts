@@ -1,8 +1,9 @@
-import { sql, type Expression, type RawBuilder } from 'kysely';
+import { sql } from 'kysely';
 import { escapeLike } from '@/db/helpers';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
+import { afterCursor, type CursorCast } from '@/lib/api/paging';
 import type { Actor } from '@/lib/auth/actor';
 import type { EquipmentSort, ListEquipmentQuery } from '@/lib/equipment/schemas';
 
@@ -53,16 +54,16 @@ export const selection = [
   'equipment.updated_at',
 ] as const;
 
-// Each sort key with the SQL it orders by and the cast its cursor value needs.
-const sortExpressions: Record<EquipmentSort, { expr: RawBuilder<unknown>; cast: (v: unknown) => Expression<unknown> }> = {
-  name: { expr: sql`lower(equipment.name)`, cast: (v) => sql`${String(v)}::text` },
-  type: { expr: sql`equipment.type`, cast: (v) => sql`${String(v)}::text` },
-  make: { expr: sql`lower(coalesce(equipment.make, ''))`, cast: (v) => sql`${String(v)}::text` },
-  model: { expr: sql`lower(coalesce(equipment.model, ''))`, cast: (v) => sql`${String(v)}::text` },
-  serial: { expr: sql`lower(coalesce(equipment.serial, ''))`, cast: (v) => sql`${String(v)}::text` },
-  condition: { expr: sql`coalesce(equipment.condition, 0)`, cast: (v) => sql`${Number(v)}::int` },
-  installedOn: { expr: sql`coalesce(equipment.installed_on, '0001-01-01'::date)`, cast: (v) => sql`${String(v)}::date` },
-  updatedAt: { expr: sql`equipment.updated_at`, cast: (v) => sql`${String(v)}::timestamptz` },
+// Each sort key with the SQL it orders by (written here, never user text) and its cursor's type.
+const sortKeys: Record<EquipmentSort, { key: string; cast: CursorCast }> = {
+  name: { key: 'lower(equipment.name)', cast: 'text' },
+  type: { key: 'equipment.type', cast: 'text' },
+  make: { key: "lower(coalesce(equipment.make, ''))", cast: 'text' },
+  model: { key: "lower(coalesce(equipment.model, ''))", cast: 'text' },
+  serial: { key: "lower(coalesce(equipment.serial, ''))", cast: 'text' },
+  condition: { key: 'coalesce(equipment.condition, 0)', cast: 'int' },
+  installedOn: { key: "coalesce(equipment.installed_on, '0001-01-01'::date)", cast: 'date' },
+  updatedAt: { key: 'equipment.updated_at', cast: 'timestamptz' },
 };
 
 /** Filters shared by the table, the CSV export and the benchmark. */
@@ -86,12 +87,12 @@ export function filteredEquipment(actor: Actor, query: Omit<ListEquipmentQuery, 
 /** The list query for one page: filters, sort, keyset cursor, one extra row to detect a next page. */
 export function buildEquipmentListQuery(actor: Actor, query: ListEquipmentQuery, db: Db) {
   const cursor = decodeCursor(query.cursor);
-  const sort = sortExpressions[query.sort];
-  const op = query.dir === 'asc' ? '>' : '<';
-  let q = filteredEquipment(actor, query, db).select([...selection, refrigerantExpr.as('refrigerant'), sort.expr.as('sort_key')]);
-  if (cursor) q = q.where(sql<boolean>`(${sort.expr}, equipment.id) ${sql.raw(op)} (${sort.cast(cursor.k)}, ${cursor.id}::uuid)`);
+  const sort = sortKeys[query.sort];
+  const sortKey = sql.raw(sort.key);
+  let q = filteredEquipment(actor, query, db).select([...selection, refrigerantExpr.as('refrigerant'), sortKey.as('sort_key')]);
+  if (cursor) q = q.where(afterCursor(cursor, sort.key, 'equipment.id', query.dir, sort.cast));
   return q
-    .orderBy(sort.expr, query.dir)
+    .orderBy(sortKey, query.dir)
     .orderBy('equipment.id', query.dir)
     .limit(query.limit + 1);
 }

@@ -3,7 +3,8 @@ import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { encodeCursor, type Page } from '@/lib/api/cursor';
+import type { Page } from '@/lib/api/cursor';
+import { cursorKey, toPage } from '@/lib/api/paging';
 import { zodIssues } from '@/lib/api/issues';
 import { assertCan, can } from '@/lib/auth/access';
 import { entryVisibleTo } from '@/lib/auth/scope';
@@ -20,16 +21,7 @@ import { getSite } from '@/lib/sites/service';
 export async function listEquipment(actor: Actor, query: ListEquipmentQuery, db: Db = defaultDb): Promise<Page<EquipmentDto>> {
   assertCan(actor, 'equipment.read');
   const rows = await buildEquipmentListQuery(actor, query, db).execute();
-  const page = rows.slice(0, query.limit);
-  const last = page.at(-1);
-  const key = last?.sort_key;
-  return {
-    items: page.map(toEquipmentDto),
-    nextCursor:
-      rows.length > query.limit && last
-        ? encodeCursor({ k: key instanceof Date ? key.toISOString() : typeof key === 'number' ? key : String(key ?? ''), id: last.id })
-        : null,
-  };
+  return toPage(rows, query.limit, toEquipmentDto, (r) => ({ k: cursorKey(r.sort_key), id: r.id }));
 }
 
 async function relationsOf(db: Db, id: string): Promise<RelationDto[]> {

@@ -1,15 +1,14 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { openLeaks } from '@/lib/attention/open-leaks';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { ageYearsSql, pastExpectedLifeSql as pastExpectedLife, serviceLifeTable } from '@/lib/overview/service-life-sql';
 import type { Severity } from '@/lib/visits/schemas';
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 export interface SiteSummary {
   siteId: string;

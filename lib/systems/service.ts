@@ -4,7 +4,7 @@ import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -53,7 +53,7 @@ function systemQuery(actor: Actor, db: Db) {
     ]);
 }
 
-type SystemRow = Awaited<ReturnType<ReturnType<typeof systemQuery>['executeTakeFirstOrThrow']>>;
+type SystemRow = QueryRow<typeof systemQuery>;
 
 function toSystemDto(row: SystemRow): SystemDto {
   return {

@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { clientScope } from '@/lib/auth/scope';
@@ -57,7 +57,7 @@ export async function calibrationPdf(actor: Actor, layoutId: string, db: Db = de
 
 // ------------------------------------------------------------------------------ print runs
 
-type RunRow = Awaited<ReturnType<ReturnType<typeof printRunQuery>['executeTakeFirstOrThrow']>>;
+type RunRow = QueryRow<typeof printRunQuery>;
 
 function toPrintRunDto(row: RunRow): PrintRunDto {
   return {

@@ -3,7 +3,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { hashPassword } from '@/lib/auth/password';
@@ -47,7 +47,7 @@ function userQuery(db: Db, companyId: string) {
     ]);
 }
 
-type UserRow = Awaited<ReturnType<ReturnType<typeof userQuery>['executeTakeFirstOrThrow']>>;
+type UserRow = QueryRow<typeof userQuery>;
 
 function toUserDto(row: UserRow): UserDto {
   return {

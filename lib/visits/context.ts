@@ -1,7 +1,7 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/errors';
@@ -11,7 +11,6 @@ import type { EntryContext, ServerEntryContext } from '@/lib/visits/kinds/types'
 // What an entry's numbers are computed against: the system's refrigerant and record, the site's
 // elevation and the nameplate's voltages and design pressure.
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 async function contextRows(trx: Db, scope: { equipmentId: string } | { siteId: string }): Promise<Map<string, ServerEntryContext>> {
   let q = trx

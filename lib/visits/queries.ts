@@ -1,5 +1,4 @@
-import type { Kysely, Transaction } from 'kysely';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
 import { afterCursor } from '@/lib/api/paging';
 import type { Actor } from '@/lib/auth/actor';
@@ -7,7 +6,6 @@ import { entryVisibleTo } from '@/lib/auth/scope';
 import type { HistoryQuery } from '@/lib/visits/schemas';
 
 // Query builders only: the service runs them, and the benchmark times the very same SQL.
-type Db = Kysely<DB> | Transaction<DB>;
 
 export function entryQuery(db: Db) {
   return db
@@ -41,6 +39,7 @@ function historyBase(db: Db) {
       'visits.reason as visit_reason',
       'visits.started_at as visit_started_at',
       'visits.status as visit_status',
+      'visits.reviewed_at as visit_reviewed_at',
       'tech.name as technician_name',
       'visit_site.time_zone as visit_time_zone',
     ]);

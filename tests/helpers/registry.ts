@@ -1,3 +1,4 @@
+import { afterAll, beforeEach } from 'vitest';
 import type { Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
@@ -48,4 +49,14 @@ export type CoolerCircuit = Awaited<ReturnType<typeof createCoolerCircuit>>;
 export async function demoWithCircuit(db: Kysely<DB>): Promise<{ tech: Actor; office: Actor; circuit: CoolerCircuit }> {
   await resetToDemo(db);
   return { tech: await actorFor(db, demoEmails.technician), office: await actorFor(db, demoEmails.office), circuit: await createCoolerCircuit(db) };
+}
+
+export type CircuitDemo = Awaited<ReturnType<typeof demoWithCircuit>>;
+
+/** A test file's hooks: the demo reset with a fresh circuit before each test, the pool closed after all. */
+export function resetDemoWithCircuitEach(db: Kysely<DB>, take: (demo: CircuitDemo) => void): void {
+  beforeEach(async () => take(await demoWithCircuit(db)));
+  afterAll(async () => {
+    await db.destroy();
+  });
 }

@@ -1,19 +1,14 @@
 // The one error shape: bad JSON 400, wrong content type 415, oversized 413, invalid fields 422,
 // duplicate 409; and none of them changes anything.
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { call, mockAuthModule, session } from '@/tests/helpers/session';
+import { describe, expect, it, vi } from 'vitest';
+import { createTestDb } from '@/tests/helpers/db';
+import { signInOnDemo } from '@/tests/helpers/demo-session';
+import { call, mockAuthModule } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 const db = createTestDb();
 
-beforeAll(async () => {
-  await resetToDemo(db);
-  session.actor = await actorFor(db, demoEmails.office);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+signInOnDemo(db, 'office');
 
 async function clientCount(): Promise<number> {
   return (await db.selectFrom('clients').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n;

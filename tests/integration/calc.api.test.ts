@@ -2,23 +2,17 @@
 // Every value check names its external source: the CoolProp 8.0.0 reference data
 // (tests/fixtures/reference/saturation.csv) or a section of tests/fixtures/reference/TRADE-REFERENCE.md ("TR §n").
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { describe, expect, it, vi } from 'vitest';
+import { actorFor, createTestDb, demoEmails } from '@/tests/helpers/db';
 import { saturationRows } from '@/tests/helpers/reference-data';
+import { signInOnDemo } from '@/tests/helpers/demo-session';
 import { call, mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const db = createTestDb();
 
-beforeAll(async () => {
-  await resetToDemo(db);
-  session.actor = await actorFor(db, demoEmails.technician);
-});
-
-afterAll(async () => {
-  await db.destroy();
-});
+signInOnDemo(db, 'technician');
 
 type Json = Record<string, unknown>;
 type Route = Record<string, (...args: never[]) => Promise<Response>>;

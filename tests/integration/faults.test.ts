@@ -7,7 +7,6 @@
 //   upload that started after the stop leaves no object either.
 // Progress is awaited by polling counters with generous limits, never by timing.
 import { execFile } from 'node:child_process';
-import { rmSync } from 'node:fs';
 import { promisify } from 'node:util';
 import { NextRequest } from 'next/server';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
@@ -18,20 +17,9 @@ import { actorFor, demoEmails, resetToDemo, testDatabaseUrl } from '@/tests/help
 import { cameraImage } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const { store, s3Dir, previousEnv } = await vi.hoisted(async () => {
-  const { mkdtempSync } = await import('node:fs');
-  const { tmpdir } = await import('node:os');
-  const path = await import('node:path');
-  const { openTestObjectStore } = await import('@/tests/helpers/front-port');
-  const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-faults-s3-'));
-  const store = await openTestObjectStore(s3Dir);
-  const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = store.endpoint;
-  process.env.S3_BUCKET = 'faults-test';
-  process.env.S3_FORCE_PATH_STYLE = 'true';
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
-  return { store, s3Dir, previousEnv: previous };
-});
+const { store, close: closeStore } = await vi.hoisted(async () =>
+  (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('faults-test'),
+);
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const { POST: createClientRoute } = await import('@/app/api/clients/route');
@@ -108,14 +96,8 @@ beforeAll(async () => {
   await ensureBucket();
 });
 afterAll(async () => {
-  await store.close();
-  rmSync(s3Dir, { recursive: true, force: true });
+  await closeStore();
   await db.destroy();
-  for (const [k, v] of Object.entries(previousEnv)) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
 });
 
 describe('faults during a stream of work', () => {

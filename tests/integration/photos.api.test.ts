@@ -1,7 +1,6 @@
 // Photos through their route handlers against a real database and a private S3 fake that this
 // file starts and stops itself: uploads, every refused input changing nothing, location removal
 // read back from storage, scoping by URL, deletion, and an upload while the store is down.
-import { rmSync } from 'node:fs';
 import { NextRequest } from 'next/server';
 import sharp from 'sharp';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
@@ -12,20 +11,9 @@ import { mockAuthModule, session } from '@/tests/helpers/session';
 
 // A private object store on a port of its own (port 0 behind a front that stays put while the
 // store stops and starts), set before any app module reads the environment.
-const { store, s3Dir, previousEnv } = await vi.hoisted(async () => {
-  const { mkdtempSync } = await import('node:fs');
-  const { tmpdir } = await import('node:os');
-  const path = await import('node:path');
-  const { openTestObjectStore } = await import('@/tests/helpers/front-port');
-  const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
-  const store = await openTestObjectStore(s3Dir);
-  const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = store.endpoint;
-  process.env.S3_BUCKET = 'photos-api-test';
-  process.env.S3_FORCE_PATH_STYLE = 'true';
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
-  return { store, s3Dir, previousEnv: previous };
-});
+const { store, close: closeStore } = await vi.hoisted(async () =>
+  (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-api-test'),
+);
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const { GET: listRoute, POST: uploadRoute } = await import('@/app/api/equipment/[id]/photos/route');
@@ -67,15 +55,8 @@ beforeAll(async () => {
   await startStore();
 });
 afterAll(async () => {
-  await store.close();
-  rmSync(s3Dir, { recursive: true, force: true });
+  await closeStore();
   await db.destroy();
-  // Later test files get the shared store back.
-  for (const [k, v] of Object.entries(previousEnv)) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
 });
 beforeEach(async () => {
   await resetToDemo(db);

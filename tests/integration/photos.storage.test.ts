@@ -1,7 +1,6 @@
 // The other side of a failed upload (the row fails after the objects were written), and the
 // storage check with its repair: through the service, the admin route and the script.
 import { execFile } from 'node:child_process';
-import { rmSync } from 'node:fs';
 import { promisify } from 'node:util';
 import type { KyselyPlugin } from 'kysely';
 import { NextRequest } from 'next/server';
@@ -13,20 +12,9 @@ import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers
 import { cameraImage } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const { store, s3Dir, previousEnv } = await vi.hoisted(async () => {
-  const { mkdtempSync } = await import('node:fs');
-  const { tmpdir } = await import('node:os');
-  const path = await import('node:path');
-  const { openTestObjectStore } = await import('@/tests/helpers/front-port');
-  const s3Dir = mkdtempSync(path.join(tmpdir(), 'rimeline-photos-s3-'));
-  const store = await openTestObjectStore(s3Dir);
-  const previous = { S3_ENDPOINT: process.env.S3_ENDPOINT, S3_BUCKET: process.env.S3_BUCKET, S3_FORCE_PATH_STYLE: process.env.S3_FORCE_PATH_STYLE };
-  process.env.S3_ENDPOINT = store.endpoint;
-  process.env.S3_BUCKET = 'photos-storage-test';
-  process.env.S3_FORCE_PATH_STYLE = 'true';
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
-  return { store, s3Dir, previousEnv: previous };
-});
+const { store, close: closeStore } = await vi.hoisted(async () =>
+  (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-storage-test'),
+);
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const { uploadPhoto } = await import('@/lib/photos/service');
@@ -46,15 +34,8 @@ beforeAll(async () => {
   await ensureBucket();
 });
 afterAll(async () => {
-  await store.close();
-  rmSync(s3Dir, { recursive: true, force: true });
+  await closeStore();
   await db.destroy();
-  // Later test files get the shared store back.
-  for (const [k, v] of Object.entries(previousEnv)) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
-  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
 });
 beforeEach(async () => {
   await resetToDemo(db);

@@ -4,23 +4,18 @@
 import { EventEmitter } from 'node:events';
 import type { KyselyPlugin, PluginTransformQueryArgs, PluginTransformResultArgs, QueryResult, RootOperationNode, UnknownRow } from 'kysely';
 import { sql } from 'kysely';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { watchPool } from '@/db';
 import { deliverDueMail, enqueueMail } from '@/lib/mail/outbox';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { createTestDb } from '@/tests/helpers/db';
 import { mailTo } from '@/tests/helpers/mail';
-import { call, mockAuthModule, session } from '@/tests/helpers/session';
+import { signInOnDemo } from '@/tests/helpers/demo-session';
+import { call, mockAuthModule } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 const db = createTestDb();
 
-beforeAll(async () => {
-  await resetToDemo(db);
-  session.actor = await actorFor(db, demoEmails.office);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+signInOnDemo(db, 'office');
 
 describe('site elevation', () => {
   it('null, "", [] and true are refused with 422 and the stored elevation stays', async () => {

@@ -2,23 +2,18 @@
 // shared text schema and withApi: query strings, JSON bodies, multipart forms) and change
 // nothing; bidirectional controls are removed from names and captions.
 import { NextRequest } from 'next/server';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { readMultipart } from '@/lib/api/multipart';
 import { optionalText, requiredText } from '@/lib/api/schemas';
 import { AppError } from '@/lib/errors';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { call, mockAuthModule, session } from '@/tests/helpers/session';
+import { createTestDb } from '@/tests/helpers/db';
+import { signInOnDemo } from '@/tests/helpers/demo-session';
+import { call, mockAuthModule } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 const db = createTestDb();
 
-beforeAll(async () => {
-  await resetToDemo(db);
-  session.actor = await actorFor(db, demoEmails.office);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+signInOnDemo(db, 'office');
 
 const clientCount = async () => (await db.selectFrom('clients').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n;
 

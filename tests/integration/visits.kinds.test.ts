@@ -2,7 +2,7 @@
 // the unit's record; settings follow the entries' time order when a late entry arrives; a reviewed
 // visit's entries are struck out only after the office reopens it; the kinds offered fit the unit.
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import { lowPressureControl, highPressureControl } from '@/lib/calc/pressure-controls';
 import { KPA_PER_PSI } from '@/lib/calc/units';
@@ -13,19 +13,11 @@ import { kindsFor } from '@/lib/visits/kinds';
 import { controlsFor } from '@/lib/visits/kinds/setting-change';
 import { markReviewed, reopenVisit, startVisit } from '@/lib/visits/service';
 import { createTestDb } from '@/tests/helpers/db';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { resetDemoWithCircuitEach, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-let tech: Actor;
-let office: Actor;
-let circuit: CoolerCircuit;
-
-beforeEach(async () => {
-  ({ tech, office, circuit } = await demoWithCircuit(db));
-});
-afterAll(async () => {
-  await db.destroy();
-});
+let tech: Actor, office: Actor, circuit: CoolerCircuit;
+resetDemoWithCircuitEach(db, (demo) => ({ tech, office, circuit } = demo));
 
 const psig = (v: number) => v * KPA_PER_PSI;
 

@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { KPA_PER_PSI, fahrenheitToCelsius } from '@/lib/calc/units';
 import { deliverDueMail } from '@/lib/mail/outbox';
 import type { Actor } from '@/lib/auth/actor';
@@ -15,19 +15,11 @@ import { startVisit } from '@/lib/visits/service';
 import { getObjectBytes, ensureBucket } from '@/storage/objects';
 import { createTestDb } from '@/tests/helpers/db';
 import { clearMail, waitForMail } from '@/tests/helpers/mail';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { resetDemoWithCircuitEach, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-let tech: Actor;
-let office: Actor;
-let circuit: CoolerCircuit;
-
-beforeEach(async () => {
-  ({ tech, office, circuit } = await demoWithCircuit(db));
-});
-afterAll(async () => {
-  await db.destroy();
-});
+let tech: Actor, office: Actor, circuit: CoolerCircuit;
+resetDemoWithCircuitEach(db, (demo) => ({ tech, office, circuit } = demo));
 
 describe('likely causes in the visit report', () => {
   it('a reading with high superheat and low subcooling: the e-mail and the PDF list its causes as a guide', async () => {

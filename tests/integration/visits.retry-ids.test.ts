@@ -1,24 +1,16 @@
 // Sends repeated from a phone without signal: a visit started with an id made on the phone, and a
 // close with its own id, both return the first result when sent again, and store nothing twice.
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import { closeVisit } from '@/lib/visits/close';
 import { startVisit } from '@/lib/visits/service';
 import { createTestDb } from '@/tests/helpers/db';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { resetDemoWithCircuitEach, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-let tech: Actor;
-let office: Actor;
-let circuit: CoolerCircuit;
-
-beforeEach(async () => {
-  ({ tech, office, circuit } = await demoWithCircuit(db));
-});
-afterAll(async () => {
-  await db.destroy();
-});
+let tech: Actor, office: Actor, circuit: CoolerCircuit;
+resetDemoWithCircuitEach(db, (demo) => ({ tech, office, circuit } = demo));
 
 describe('ids made on the phone', () => {
   it('a start sent twice is one visit; the id cannot be taken by someone else', async () => {

@@ -2,7 +2,7 @@
 // warning and deadline, follow-up lifecycle, history order and pages, bypass confirmation,
 // one open visit per technician per site, idempotent saves, and the report by e-mail and PDF.
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { computeReadings } from '@/lib/calc/readings';
 import { lowPressureControl } from '@/lib/calc/pressure-controls';
 import { voltageUnbalance } from '@/lib/calc/electrical';
@@ -18,19 +18,11 @@ import { KPA_PER_PSI, fahrenheitToCelsius } from '@/lib/calc/units';
 import { getObjectBytes, ensureBucket } from '@/storage/objects';
 import { actorFor, createTestDb, demoEmails } from '@/tests/helpers/db';
 import { clearMail, firstLink, waitForMail } from '@/tests/helpers/mail';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { resetDemoWithCircuitEach, type CoolerCircuit } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-let tech: Actor;
-let office: Actor;
-let circuit: CoolerCircuit;
-
-beforeEach(async () => {
-  ({ tech, office, circuit } = await demoWithCircuit(db));
-});
-afterAll(async () => {
-  await db.destroy();
-});
+let tech: Actor, office: Actor, circuit: CoolerCircuit;
+resetDemoWithCircuitEach(db, (demo) => ({ tech, office, circuit } = demo));
 
 const psig = (v: number) => v * KPA_PER_PSI;
 const entry = <T extends object>(equipmentId: string, body: T) => ({ equipmentId, clientEntryId: randomUUID(), ...body });

@@ -1,0 +1,35 @@
+// A test file's own S3 fake, swapped in for the profile's shared one. Call it inside `vi.hoisted`
+// (before the app's storage client is built: lib/env reads the address once); `close` stops it
+// and gives later test files in the same worker the shared store back.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { openTestObjectStore, type TestObjectStore } from '@/tests/helpers/front-port';
+
+const KEYS = ['S3_ENDPOINT', 'S3_BUCKET', 'S3_FORCE_PATH_STYLE'] as const;
+
+function forgetS3Client(): void {
+  delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
+}
+
+export async function openPrivateObjectStore(bucket: string): Promise<{ store: TestObjectStore; close: () => Promise<void> }> {
+  const directory = mkdtempSync(path.join(tmpdir(), `rimeline-${bucket}-s3-`));
+  const store = await openTestObjectStore(directory);
+  const previous = Object.fromEntries(KEYS.map((k) => [k, process.env[k]]));
+  process.env.S3_ENDPOINT = store.endpoint;
+  process.env.S3_BUCKET = bucket;
+  process.env.S3_FORCE_PATH_STYLE = 'true';
+  forgetS3Client();
+  return {
+    store,
+    async close() {
+      await store.close();
+      rmSync(directory, { recursive: true, force: true });
+      for (const [k, v] of Object.entries(previous)) {
+        if (v === undefined) delete process.env[k];
+        else process.env[k] = v;
+      }
+      forgetS3Client();
+    },
+  };
+}
