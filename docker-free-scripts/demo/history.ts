@@ -15,6 +15,10 @@ import type { DemoState, VisitLog } from '@/docker-free-scripts/demo/history/rec
 import { writeStory } from '@/docker-free-scripts/demo/history/story';
 import { addRelation, createEquipment } from '@/lib/equipment/service';
 import { createEquipmentSchema, createRelationSchema } from '@/lib/equipment/schemas';
+import { localDate } from '@/lib/format/dates';
+import { addDays } from '@/lib/plans/days';
+import { createPlanSchema } from '@/lib/plans/schemas';
+import { createPlan } from '@/lib/plans/service';
 import { createSystemSchema } from '@/lib/systems/schemas';
 import { createRequest, updateRequest } from '@/lib/requests/service';
 import { createRequestSchema, updateRequestSchema } from '@/lib/requests/schemas';
@@ -159,6 +163,16 @@ export async function seedDemoHistory(db: Kysely<DB>, now = new Date()): Promise
   await updateRequest(state.office, seen, updateRequestSchema.parse({ status: 'acknowledged', officeNote: 'The leak repair on this coil is being booked; Tomas will call the store manager with a morning before opening.' }), db);
   await db.updateTable('service_requests').set({ updated_at: siteTime(now, linden.timeZone, 2, 9, 5) }).where('id', '=', seen).execute();
   await request(ownerOne, TAGGED_SITE, null, 'The walk-in cooler door no longer closes by itself; the closer seems weak. Not urgent.', 'routine', new Date(now.getTime() - 3 * 3_600_000));
+
+  // The week ahead: the office has planned the leak work the Linden owner was told about, and the
+  // Commissary's next maintenance, each for the technician in a morning window of its site.
+  const plan = async (site: string, systemKey: string, reason: 'leak_check' | 'maintenance', inDays: number, windowStart: string, windowEnd: string, note: string) => {
+    const s = state.sites.get(site)!;
+    const day = addDays(localDate(now, s.timeZone), inDays);
+    await createPlan(state.office, createPlanSchema.parse({ siteId: s.id, systemIds: [state.systems.get(systemKey)!.id], reason, technicianId: state.tech.id, day, windowStart, windowEnd, note }), db, now);
+  };
+  await plan('Linden Avenue Market', 'linden-dairy', 'leak_check', 1, '06:00', '08:00', 'Before the store opens: repair and re-check the dairy case coil leak.');
+  await plan(BLANK_TAG_SITE, 'com-prep', 'maintenance', 3, '09:00', '12:00', 'Quarterly maintenance of the prep room circuit.');
 
   // Visits and entries were written now; their own rows say when they happened.
   await db

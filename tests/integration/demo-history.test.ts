@@ -9,6 +9,8 @@ import { needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';
 import { siteSummaries } from '@/lib/overview/service';
 import { listPhotosQuerySchema } from '@/lib/photos/schemas';
+import { addDays } from '@/lib/plans/days';
+import { listPlans, plansForTechnician } from '@/lib/plans/service';
 import { listPhotos } from '@/lib/photos/service';
 import { refrigerantReport } from '@/lib/reports/service';
 import { listRequestsQuerySchema } from '@/lib/requests/schemas';
@@ -191,5 +193,19 @@ describe('demo history', () => {
     expect(await seedDemoHistory(db, now)).toBeNull();
     execFileSync('node_modules/.bin/tsx', ['docker-free-scripts/seed.ts'], { env: process.env, stdio: 'pipe' });
     expect(await tally()).toEqual(before);
+  });
+
+  it('plans the week ahead: the Linden leak work and the Commissary maintenance, for the technician, on the week view and their home', async () => {
+    const plans = (await listPlans(office, { status: ['planned'], limit: 50 }, db, now)).items;
+    expect(plans.map((p) => [p.siteName, p.reason])).toEqual([
+      ['Linden Avenue Market', 'leak_check'],
+      ['Commissary', 'maintenance'],
+    ]);
+    for (const p of plans) expect(p.day > p.siteToday).toBe(true);
+    expect(plans[0]!.day).toBe(addDays(plans[0]!.siteToday, 1));
+    const tech = await actorFor(db, demoEmails.technician);
+    expect((await plansForTechnician(tech, 7, db, now)).map((p) => p.id)).toEqual(plans.map((p) => p.id));
+    // The second owner sees the plan at their store, not the first client's.
+    expect((await listPlans(ownerTwo, { limit: 50 }, db, now)).items.map((p) => p.siteName)).toEqual(['Linden Avenue Market']);
   });
 });
