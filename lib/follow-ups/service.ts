@@ -3,7 +3,7 @@ import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
@@ -46,7 +46,7 @@ function followUpQuery(actor: Actor, db: Db) {
     ]);
 }
 
-type Row = Awaited<ReturnType<ReturnType<typeof followUpQuery>['executeTakeFirstOrThrow']>>;
+type Row = QueryRow<typeof followUpQuery>;
 
 function toDto(r: Row): FollowUpDto {
   return {

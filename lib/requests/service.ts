@@ -3,7 +3,7 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import type { Db } from '@/db/types';
+import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -52,7 +52,7 @@ function requestQuery(actor: Actor, db: Db) {
     ]);
 }
 
-type Row = Awaited<ReturnType<ReturnType<typeof requestQuery>['executeTakeFirstOrThrow']>>;
+type Row = QueryRow<typeof requestQuery>;
 
 function toDto(r: Row): ServiceRequestDto {
   return {

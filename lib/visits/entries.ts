@@ -2,6 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -22,7 +23,6 @@ import { getVisitSummary, openVisitForWriting, toEntryDto } from '@/lib/visits/s
 // imply for the unit (condition, settings, follow-ups, a replaced component) in one transaction.
 // Each kind's module says what to compute and apply; this file gives it the means.
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 /**
  * Saves one entry. Retrying with the same clientEntryId returns the first save instead of a

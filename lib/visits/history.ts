@@ -1,7 +1,7 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
 import { toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
@@ -15,7 +15,6 @@ import { toEntryDto } from '@/lib/visits/service';
 
 // A unit's or a system's history, newest first, and one reading over time for a chart.
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 /** Newest first, keyset on (recorded_at, id); owners see entries of closed visits only. */
 export async function equipmentHistory(actor: Actor, equipmentId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {

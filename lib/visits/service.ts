@@ -1,9 +1,11 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
-import { decodeCursor, encodeCursor, type Page } from '@/lib/api/cursor';
+import type { Db, QueryRow } from '@/db/types';
+import { decodeCursor, type Page } from '@/lib/api/cursor';
+import { afterCursor, cursorKey, toPage } from '@/lib/api/paging';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -17,7 +19,6 @@ import type { EntryKind, ListVisitsQuery, StartVisitInput, VisitReason } from '@
 // Visits: starting, reading, listing, reopening and reviewing. Entries are lib/visits/entries.ts,
 // closing (with its report and e-mail) lib/visits/close.ts, history lib/visits/history.ts.
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 function visitQuery(actor: Actor, db: Db) {
   return db
@@ -47,7 +48,7 @@ function visitQuery(actor: Actor, db: Db) {
     ]);
 }
 
-type VisitRow = Awaited<ReturnType<ReturnType<typeof visitQuery>['executeTakeFirstOrThrow']>>;
+type VisitRow = QueryRow<typeof visitQuery>;
 
 function toVisitDto(r: VisitRow): VisitDto {
   return {
@@ -82,7 +83,7 @@ export async function getVisitSummary(actor: Actor, id: string, db: Db = default
   return toVisitDto(row);
 }
 
-export type EntryRow = Awaited<ReturnType<ReturnType<typeof entryQuery>['executeTakeFirstOrThrow']>>;
+export type EntryRow = QueryRow<typeof entryQuery>;
 
 export function toEntryDto(r: EntryRow): EntryDto {
   return {
@@ -124,11 +125,9 @@ export async function listVisits(actor: Actor, query: ListVisitsQuery, db: Db = 
   if (query.status) q = q.where('visits.status', '=', query.status);
   if (query.technicianId) q = q.where('visits.technician_id', '=', query.technicianId);
   if (query.review === 'needed') q = q.where('visits.status', '=', 'closed').where('visits.reviewed_at', 'is', null);
-  if (cursor) q = q.where(sql<boolean>`(visits.started_at, visits.id) < (${String(cursor.k)}::timestamptz, ${cursor.id}::uuid)`);
+  if (cursor) q = q.where(afterCursor(cursor, 'visits.started_at', 'visits.id', 'desc', 'timestamptz'));
   const rows = await q.orderBy('visits.started_at', 'desc').orderBy('visits.id', 'desc').limit(query.limit + 1).execute();
-  const items = rows.slice(0, query.limit).map(toVisitDto);
-  const last = items.at(-1);
-  return { items, nextCursor: rows.length > query.limit && last ? encodeCursor({ k: last.startedAt, id: last.id }) : null };
+  return toPage(rows, query.limit, toVisitDto, (r) => ({ k: cursorKey(r.started_at), id: r.id }));
 }
 
 export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
