@@ -1,4 +1,5 @@
 import { formatDecimal, MESSAGE_DECIMALS } from '@/lib/calc/format';
+import type { PressureUnit } from '@/lib/calc/units';
 
 // Plain numbers a person reads, at one precision per kind, shared with lib/calc's messages so a page,
 // a report and a calculation message show the same figure (never a raw float such as 208.33333333333334).
@@ -53,4 +54,26 @@ export function formatPlain(value: number): string {
 /** Years to one decimal ("12.5 years"). */
 export function formatYears(years: number): string {
   return `${formatDecimal(years, 1)} years`;
+}
+
+const fixedFormats = new Map<string, Intl.NumberFormat>();
+
+/** A number with a set span of decimals, as chart tables show them ("-40.0"; never "-0.0"). */
+export function formatFixed(value: number, minDigits: number, maxDigits = minDigits): string {
+  const key = `${minDigits}/${maxDigits}`;
+  let f = fixedFormats.get(key);
+  if (!f) {
+    f = new Intl.NumberFormat('en-US', { minimumFractionDigits: minDigits, maximumFractionDigits: maxDigits });
+    fixedFormats.set(key, f);
+  }
+  const text = f.format(value);
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
+}
+
+// About 0.1 psi (0.7 kPa) of resolution in every unit: the reading a good gauge gives.
+const CHART_PRESSURE_DIGITS: Record<PressureUnit, number> = { psig: 1, psia: 1, kPaG: 1, kPaAbs: 1, barG: 2, bar: 2 };
+
+/** A pressure in the P-T chart's chosen unit, at a gauge's resolution (number only). */
+export function formatChartPressure(value: number, unit: PressureUnit): string {
+  return formatFixed(value, CHART_PRESSURE_DIGITS[unit]);
 }

@@ -1,10 +1,8 @@
-// Display helpers for the P-T chart: digits per unit and en-US number formatting.
+// The P-T chart's unit choices, labels and typed-number parsing; its numbers are formatted by
+// lib/format/numbers (formatFixed, formatChartPressure).
 import { pressureUnitLabel, type PressureUnit } from '@/lib/calc/units';
 
 export type ChartTemperatureUnit = 'C' | 'F';
-
-// About 0.1 psi (0.7 kPa) of resolution in every unit: the reading a good gauge gives.
-const PRESSURE_DIGITS: Record<PressureUnit, number> = { psig: 1, psia: 1, kPaG: 1, kPaAbs: 1, barG: 2, bar: 2 };
 
 export const PRESSURE_UNIT_OPTIONS: { value: PressureUnit; label: string }[] = [
   { value: 'psig', label: 'psig (gauge)' },
@@ -14,24 +12,6 @@ export const PRESSURE_UNIT_OPTIONS: { value: PressureUnit; label: string }[] = [
   { value: 'barG', label: 'bar (gauge)' },
   { value: 'bar', label: 'bar abs' },
 ];
-
-const formatters = new Map<string, Intl.NumberFormat>();
-
-export function formatNumber(value: number, minDigits: number, maxDigits = minDigits): string {
-  const key = `${minDigits}/${maxDigits}`;
-  let f = formatters.get(key);
-  if (!f) {
-    f = new Intl.NumberFormat('en-US', { minimumFractionDigits: minDigits, maximumFractionDigits: maxDigits });
-    formatters.set(key, f);
-  }
-  // Never show "-0.0".
-  const text = f.format(value);
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
-}
-
-export function formatPressure(value: number, unit: PressureUnit): string {
-  return formatNumber(value, PRESSURE_DIGITS[unit]);
-}
 
 export function pressureLabel(unit: PressureUnit): string {
   return pressureUnitLabel(unit);

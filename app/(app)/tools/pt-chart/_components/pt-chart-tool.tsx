@@ -10,14 +10,8 @@ import { isCalcError } from '@/lib/calc/errors';
 import { getRefrigerant, REFRIGERANTS, type RefrigerantId } from '@/lib/calc/refrigerants';
 import { chartRange, saturationTable, type SaturationTableRow } from '@/lib/calc/saturation';
 import { fromCelsius, KPA_PER_PSI, STANDARD_ATMOSPHERE_KPA, type PressureUnit } from '@/lib/calc/units';
-import {
-  formatNumber,
-  parseNumber,
-  PRESSURE_UNIT_OPTIONS,
-  RANGE_DEFAULTS,
-  temperatureLabel,
-  type ChartTemperatureUnit,
-} from '@/app/(app)/tools/pt-chart/_components/format';
+import { parseNumber, PRESSURE_UNIT_OPTIONS, RANGE_DEFAULTS, temperatureLabel, type ChartTemperatureUnit } from '@/app/(app)/tools/pt-chart/_components/format';
+import { formatFixed } from '@/lib/format/numbers';
 import { PtConverter } from '@/app/(app)/tools/pt-chart/_components/pt-converter';
 import { PtTable } from '@/app/(app)/tools/pt-chart/_components/pt-table';
 import { RefrigerantSafety } from '@/app/(app)/tools/pt-chart/_components/refrigerant-safety';
@@ -60,7 +54,7 @@ export function PtChartTool(props: {
       return { kpa: barometricPressureKpa(metres), elevationM: metres, error: null };
     } catch (error) {
       if (isCalcError(error)) {
-        const [min, max] = [MIN_ELEVATION_M, MAX_ELEVATION_M].map((m) => formatNumber(lengthUnit === 'ft' ? m * FT_PER_M : m, 0));
+        const [min, max] = [MIN_ELEVATION_M, MAX_ELEVATION_M].map((m) => formatFixed(lengthUnit === 'ft' ? m * FT_PER_M : m, 0));
         return { kpa: STANDARD_ATMOSPHERE_KPA, elevationM: null, error: `Enter an elevation from ${min} to ${max} ${lengthUnit}.` };
       }
       throw error;
@@ -103,7 +97,7 @@ export function PtChartTool(props: {
 
   const tl = temperatureLabel(temperatureUnit);
   const span = chartRange(refrigerant);
-  const rangeHint = `${refrigerant.id} covers ${formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1)} to ${formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1)} ${tl}.`;
+  const rangeHint = `${refrigerant.id} covers ${formatFixed(fromCelsius(span.minC, temperatureUnit), 0, 1)} to ${formatFixed(fromCelsius(span.maxC, temperatureUnit), 0, 1)} ${tl}.`;
   const baroText = barometerText(barometer.kpa, barometer.elevationM, lengthUnit);
 
   return (
@@ -245,6 +239,6 @@ function barometerText(kpa: number, elevationM: number | null, lengthUnit: 'ft' 
   const where =
     elevationM === null
       ? 'the standard atmosphere at sea level'
-      : `the standard atmosphere (ICAO) at ${formatNumber(lengthUnit === 'ft' ? elevationM * FT_PER_M : elevationM, 0)} ${lengthUnit}`;
-  return `Gauge pressures are against ${formatNumber(kpa, 2)} kPa (${formatNumber(kpa / KPA_PER_PSI, 2)} psi), ${where}. Absolute pressures do not depend on it.`;
+      : `the standard atmosphere (ICAO) at ${formatFixed(lengthUnit === 'ft' ? elevationM * FT_PER_M : elevationM, 0)} ${lengthUnit}`;
+  return `Gauge pressures are against ${formatFixed(kpa, 2)} kPa (${formatFixed(kpa / KPA_PER_PSI, 2)} psi), ${where}. Absolute pressures do not depend on it.`;
 }

@@ -7,14 +7,8 @@ import { isCalcError } from '@/lib/calc/errors';
 import type { Refrigerant } from '@/lib/calc/refrigerants';
 import { saturationLookup } from '@/lib/calc/saturation';
 import { fromCelsius, fromKpaAbs, isGaugeUnit, temperatureDifferenceFromKelvin, toCelsius, toKpaAbs, type PressureUnit } from '@/lib/calc/units';
-import {
-  formatNumber,
-  formatPressure,
-  parseNumber,
-  pressureLabel,
-  temperatureLabel,
-  type ChartTemperatureUnit,
-} from '@/app/(app)/tools/pt-chart/_components/format';
+import { parseNumber, pressureLabel, temperatureLabel, type ChartTemperatureUnit } from '@/app/(app)/tools/pt-chart/_components/format';
+import { formatChartPressure, formatFixed } from '@/lib/format/numbers';
 
 interface Props {
   refrigerant: Refrigerant;
@@ -47,8 +41,8 @@ export function PtConverter({ refrigerant, temperatureUnit, pressureUnit, barome
   const fromTemperature = run(temperature, (t) => {
     const r = saturationLookup({ kind: 'temperature', refrigerant: refrigerant.id, temperature: t, unit: temperatureUnit });
     if (r.kind !== 'temperature') return [];
-    const bubble = `${formatPressure(fromKpaAbs(r.bubbleKpaAbs, pressureUnit, barometricKpa), pressureUnit)} ${pl}`;
-    const dew = `${formatPressure(fromKpaAbs(r.dewKpaAbs, pressureUnit, barometricKpa), pressureUnit)} ${pl}`;
+    const bubble = `${formatChartPressure(fromKpaAbs(r.bubbleKpaAbs, pressureUnit, barometricKpa), pressureUnit)} ${pl}`;
+    const dew = `${formatChartPressure(fromKpaAbs(r.dewKpaAbs, pressureUnit, barometricKpa), pressureUnit)} ${pl}`;
     return blend
       ? [
           { label: 'Bubble (liquid)', value: bubble },
@@ -60,12 +54,12 @@ export function PtConverter({ refrigerant, temperatureUnit, pressureUnit, barome
   const fromPressure = run(pressure, (p) => {
     const r = saturationLookup({ kind: 'pressure', refrigerant: refrigerant.id, pressure: p, unit: pressureUnit, barometricKpa, temperatureUnit });
     if (r.kind !== 'pressure') return [];
-    const t = (v: number) => `${formatNumber(v, 1)} ${tl}`;
+    const t = (v: number) => `${formatFixed(v, 1)} ${tl}`;
     const values = blend
       ? [
           { label: 'Bubble (liquid)', value: t(r.bubble) },
           { label: 'Dew (vapour)', value: t(r.dew) },
-          { label: 'Glide', value: `${formatNumber(temperatureDifferenceFromKelvin(r.glideK, temperatureUnit), 1)} ${temperatureUnit === 'F' ? '°F' : 'K'}` },
+          { label: 'Glide', value: `${formatFixed(temperatureDifferenceFromKelvin(r.glideK, temperatureUnit), 1)} ${temperatureUnit === 'F' ? '°F' : 'K'}` },
         ]
       : [{ label: 'Saturation temperature', value: t(r.bubble) }];
     // Away from sea level, also offer what a sea-level pocket chart reads for the same gauge reading.
@@ -85,7 +79,7 @@ export function PtConverter({ refrigerant, temperatureUnit, pressureUnit, barome
       <div>
         <h2 className="text-lg font-bold text-slate-900">Converter</h2>
         <p className="text-sm text-slate-600">
-          {refrigerant.id}, {blend ? 'bubble and dew points' : 'one saturation curve'}; gauge pressures against a barometer of {formatNumber(barometricKpa, 1)} kPa
+          {refrigerant.id}, {blend ? 'bubble and dew points' : 'one saturation curve'}; gauge pressures against a barometer of {formatFixed(barometricKpa, 1)} kPa
           {offSeaLevel ? ' (corrected for the site’s elevation; the sea-level chart value, 101.3 kPa, is shown beside it)' : ' (sea level)'}.
         </p>
       </div>

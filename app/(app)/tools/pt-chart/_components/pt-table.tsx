@@ -1,13 +1,8 @@
 import type { Refrigerant } from '@/lib/calc/refrigerants';
 import { chartRange, type SaturationTableRow } from '@/lib/calc/saturation';
 import { fromCelsius, isGaugeUnit, type PressureUnit } from '@/lib/calc/units';
-import {
-  formatNumber,
-  formatPressure,
-  pressureLabel,
-  temperatureLabel,
-  type ChartTemperatureUnit,
-} from '@/app/(app)/tools/pt-chart/_components/format';
+import { pressureLabel, temperatureLabel, type ChartTemperatureUnit } from '@/app/(app)/tools/pt-chart/_components/format';
+import { formatChartPressure, formatFixed } from '@/lib/format/numbers';
 
 /** The chart itself: one pressure column for pure fluids and azeotropes, bubble and dew for blends. */
 export function PtTable(props: { refrigerant: Refrigerant; rows: SaturationTableRow[]; clipped: boolean; temperatureUnit: ChartTemperatureUnit; pressureUnit: PressureUnit }) {
@@ -16,8 +11,8 @@ export function PtTable(props: { refrigerant: Refrigerant; rows: SaturationTable
   const pl = pressureLabel(pressureUnit);
   const blend = r.zeotropic;
   const span = chartRange(r);
-  const min = formatNumber(fromCelsius(span.minC, temperatureUnit), 0, 1);
-  const max = formatNumber(fromCelsius(span.maxC, temperatureUnit), 0, 1);
+  const min = formatFixed(fromCelsius(span.minC, temperatureUnit), 0, 1);
+  const max = formatFixed(fromCelsius(span.maxC, temperatureUnit), 0, 1);
   const anyVacuum = isGaugeUnit(pressureUnit) && rows.some((row) => row.dew < 0 || row.bubble < 0);
 
   return (
@@ -61,10 +56,10 @@ export function PtTable(props: { refrigerant: Refrigerant; rows: SaturationTable
             {rows.map((row) => (
               <tr key={row.temperature} className="border-b border-slate-200 even:bg-slate-50">
                 <th scope="row" className="px-2 py-1.5 text-left font-semibold">
-                  {formatNumber(row.temperature, 0, 2)}
+                  {formatFixed(row.temperature, 0, 2)}
                 </th>
-                <td className="px-2 py-1.5">{formatPressure(row.bubble, pressureUnit)}</td>
-                {blend ? <td className="px-2 py-1.5">{formatPressure(row.dew, pressureUnit)}</td> : null}
+                <td className="px-2 py-1.5">{formatChartPressure(row.bubble, pressureUnit)}</td>
+                {blend ? <td className="px-2 py-1.5">{formatChartPressure(row.dew, pressureUnit)}</td> : null}
               </tr>
             ))}
           </tbody>

@@ -2,7 +2,7 @@ import { Flame, ShieldCheck, Skull, type LucideIcon } from 'lucide-react';
 import { Alert } from '@/components/ui/alert';
 import { needsHandlingCaution, refrigerantCautions, SAFETY_CLASS_WORDS } from '@/lib/calc/cautions';
 import type { Refrigerant, SafetyClass } from '@/lib/calc/refrigerants';
-import { formatNumber } from '@/app/(app)/tools/pt-chart/_components/format';
+import { formatFixed } from '@/lib/format/numbers';
 
 const CLASS_ICONS: Record<SafetyClass, LucideIcon> = { A1: ShieldCheck, A2L: Flame, A3: Flame, B2L: Skull };
 
@@ -18,7 +18,7 @@ export function RefrigerantSafety({ refrigerant: r }: { refrigerant: Refrigerant
           <span className="font-semibold">Safety class {r.safetyClass}</span>: {SAFETY_CLASS_WORDS[r.safetyClass]}.{' '}
           <span className="text-slate-700">
             {r.chemicalName}
-            {glide !== null ? `; glide about ${formatNumber(glide, 1)} K (${formatNumber(glide * 1.8, 1)} °F) at 1 atm` : ''}. {gwpText(r)}.
+            {glide !== null ? `; glide about ${formatFixed(glide, 1)} K (${formatFixed(glide * 1.8, 1)} °F) at 1 atm` : ''}. {gwpText(r)}.
           </span>
         </span>
       </p>
