@@ -1,6 +1,8 @@
 // The refrigeration calculations: pure functions, no I/O. See lib/calc/README.md.
 export * from '@/lib/calc/atmosphere';
+export * from '@/lib/calc/band-judgement';
 export * from '@/lib/calc/compliance-rules';
+export * from '@/lib/calc/control-warnings';
 export * from '@/lib/calc/dates';
 export * from '@/lib/calc/diagnosis';
 export * from '@/lib/calc/electrical';
@@ -10,7 +12,9 @@ export * from '@/lib/calc/leak-rate';
 export * from '@/lib/calc/pressure-controls';
 export * from '@/lib/calc/reading-bands';
 export * from '@/lib/calc/readings';
+export * from '@/lib/calc/refrigerant-totals';
 export * from '@/lib/calc/refrigerants';
 export * from '@/lib/calc/saturation';
 export * from '@/lib/calc/service-life';
+export * from '@/lib/calc/supply-voltage';
 export * from '@/lib/calc/units';

@@ -3,27 +3,13 @@
 // subcooling against the bubble point; the glide mid-point for TDs is common practice.
 import { resolveBarometricKpa } from '@/lib/calc/atmosphere';
 import { diagnosisInputFrom, suggestCauses, type Suggestion } from '@/lib/calc/diagnosis';
-import {
-  controlCircuitVoltage,
-  supplyVoltageLines,
-  voltageUnbalance,
-  type ControlVoltageResult,
-  type SupplyVoltageLinesResult,
-  type VoltageUnbalanceResult,
-} from '@/lib/calc/electrical';
+import { controlCircuitVoltage, voltageUnbalance, type ControlVoltageResult, type VoltageUnbalanceResult } from '@/lib/calc/electrical';
 import { CalcInputError, CalcRangeError, isCalcError, requireFinite, requirePositive } from '@/lib/calc/errors';
 import { formatFor } from '@/lib/calc/format';
-import {
-  bandFor,
-  boxClassFor,
-  describeBand,
-  judge,
-  type BandView,
-  type BoxClass,
-  type Level,
-  type MeteringDevice,
-} from '@/lib/calc/reading-bands';
+import { describeBand, judge, type BandView } from '@/lib/calc/band-judgement';
+import { bandFor, boxClassFor, type BoxClass, type Level, type MeteringDevice } from '@/lib/calc/reading-bands';
 import { getRefrigerant, type RefrigerantId } from '@/lib/calc/refrigerants';
+import { supplyVoltageLines, type SupplyVoltageLinesResult } from '@/lib/calc/supply-voltage';
 import { saturationAtPressure, saturationTemperatureC, type MessageUnits, type RefrigerantInput } from '@/lib/calc/saturation';
 import {
   fromCelsius,

@@ -3,7 +3,7 @@
 import { z } from 'zod';
 
 import { APPLICATION_CATEGORIES, JURISDICTIONS } from '@/lib/calc/compliance-rules';
-import { SUPPORTED_NAMEPLATE_VOLTAGES } from '@/lib/calc/electrical';
+import { SUPPORTED_NAMEPLATE_VOLTAGES } from '@/lib/calc/supply-voltage';
 import { BOX_CLASSES, METERING_DEVICES } from '@/lib/calc/reading-bands';
 import { findRefrigerant, REFRIGERANT_IDS, type RefrigerantId } from '@/lib/calc/refrigerants';
 import type { SaturationQuery } from '@/lib/calc/saturation';

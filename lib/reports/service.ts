@@ -1,14 +1,14 @@
 import 'server-only';
 import Papa from 'papaparse';
 import { escapeFormulae } from '@/lib/equipment/csv-cells';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { entryVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
-import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { getComplianceRules } from '@/lib/calc/compliance-rules';
-import { yearlyTotals } from '@/lib/calc/leak-rate';
+import { yearlyTotals } from '@/lib/calc/refrigerant-totals';
 import { serviceLifeOutlook, SERVICE_LIFE_SOURCE, type EquipmentType } from '@/lib/calc/service-life';
 import { equipmentTypeLabels, conditionLabels, type Condition } from '@/lib/equipment/types';
 import { AppError } from '@/lib/errors';
@@ -20,7 +20,6 @@ import { formatDecimal } from '@/lib/calc/format';
 import { formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { leakActivityLabels, leakMethodLabels, leakResultLabels, type LeakData } from '@/lib/visits/schemas';
 
-type Db = Kysely<DB> | Transaction<DB>;
 
 export interface ReportFile {
   filename: string;

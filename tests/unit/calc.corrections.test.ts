@@ -5,7 +5,8 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 import { evaluateLeakEvent, lastPassedFollowUpTest, leakRuleApplicability, rollingAverageLeakRate } from '@/lib/calc/leak-rate';
-import { controlWarningMessage, highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
+import { controlWarningMessage } from '@/lib/calc/control-warnings';
+import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
 import { computeReadings } from '@/lib/calc/readings';
 import { getRefrigerant, REFRIGERANTS } from '@/lib/calc/refrigerants';
 import { chartRange, saturationLookup, saturationTable } from '@/lib/calc/saturation';

@@ -1,13 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
-import {
-  controlCircuitVoltage,
-  motorDeratingFactor,
-  supplyVoltageLines,
-  motorVoltageTolerance,
-  supplyVoltageCheck,
-  voltageUnbalance,
-} from '@/lib/calc/electrical';
+import { controlCircuitVoltage, motorDeratingFactor, motorVoltageTolerance, voltageUnbalance } from '@/lib/calc/electrical';
+import { supplyVoltageCheck, supplyVoltageLines } from '@/lib/calc/supply-voltage';
 import { CalcInputError } from '@/lib/calc/errors';
 
 describe('voltage unbalance, NEMA MG 1 (TRADE-REFERENCE §5.1)', () => {

@@ -8,8 +8,8 @@ import {
   evaluateLeakEvent,
   leakRuleApplicability,
   rollingAverageLeakRate,
-  yearlyTotals,
 } from '@/lib/calc/leak-rate';
+import { yearlyTotals } from '@/lib/calc/refrigerant-totals';
 
 describe('annualizing method, 40 CFR 82.152 (TRADE-REFERENCE §6.1)', () => {
   it('10 lb added, 100 lb full charge, 180 days → 20.28 %', () => {

@@ -4,7 +4,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
-import { controlCircuitVoltage, supplyVoltageLines, voltageUnbalance } from '@/lib/calc/electrical';
+import { controlCircuitVoltage, voltageUnbalance } from '@/lib/calc/electrical';
+import { supplyVoltageLines } from '@/lib/calc/supply-voltage';
 import { isCalcError } from '@/lib/calc/errors';
 import { formatDecimal, MAX_MESSAGE_DECIMALS } from '@/lib/calc/format';
 import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';

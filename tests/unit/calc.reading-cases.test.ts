@@ -6,7 +6,8 @@
 import { describe, expect, it } from 'vitest';
 
 import { suggestCauses } from '@/lib/calc/diagnosis';
-import { ALL_BANDS, bandFor, boxClassFor, describeBand, judge } from '@/lib/calc/reading-bands';
+import { describeBand, judge } from '@/lib/calc/band-judgement';
+import { ALL_BANDS, bandFor, boxClassFor } from '@/lib/calc/reading-bands';
 import { computeReadings, type ReadingsInput } from '@/lib/calc/readings';
 
 const F = (k: number): number => k * 1.8; // ΔT: 1 K = 1.8 °F (TRADE-REFERENCE §2)

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isCalcError } from '@/lib/calc/errors';
-import { controlCircuitVoltage, supplyVoltageLines, voltageUnbalance } from '@/lib/calc/electrical';
+import { controlCircuitVoltage, voltageUnbalance } from '@/lib/calc/electrical';
+import { supplyVoltageLines } from '@/lib/calc/supply-voltage';
 import { computeReadings } from '@/lib/calc/readings';
 import { formatElectrical, formatPercent, formatRatio } from '@/lib/format/numbers';
 import { calcUnitsFor, conversionFor, formatQuantity, type Quantity, type UnitPrefs } from '@/lib/units/quantities';

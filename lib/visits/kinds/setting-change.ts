@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { controlWarningMessage, highPressureControl, lowPressureControl, type ControlWarningCode, type ControlWarningData } from '@/lib/calc/pressure-controls';
+import { controlWarningMessage, type ControlWarningCode, type ControlWarningData } from '@/lib/calc/control-warnings';
+import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
 import { calcUnitsFor, conversionFor, formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { kpaDiff, kpaG, tempC, tempDiffK } from '@/lib/visits/kinds/fields';
 import { attempt } from '@/lib/visits/kinds/reading';

@@ -1,6 +1,6 @@
 import { withApi } from '@/lib/api/handler';
 import { ENERGISED_WORK_CAUTION, REFERENCE_CAUTION } from '@/lib/calc/cautions';
-import { supplyVoltageLines } from '@/lib/calc/electrical';
+import { supplyVoltageLines } from '@/lib/calc/supply-voltage';
 import { supplyVoltageQuerySchema } from '@/lib/calc/schemas';
 
 // GET /api/calc/supply-voltage: one measured voltage (measuredV) or three line voltages (v1, v2, v3)
