@@ -4,7 +4,7 @@
 // for a page render or an action, so a Next upgrade that moves them fails this file.
 import { AsyncLocalStorage } from 'node:async_hooks';
 import { Writable } from 'node:stream';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 
 // What Next's server does first thing (node-environment-baseline): its storages need this global.
 (globalThis as { AsyncLocalStorage?: unknown }).AsyncLocalStorage ??= AsyncLocalStorage;
@@ -117,5 +117,29 @@ describe('log lines of pages and server actions', () => {
     const { lines, log } = capture();
     workUnitAsyncStorage.run({ type: 'prerender-legacy', headers: new Headers({ 'x-request-id': 'prerender-id-01' }) } as never, () => log.info('prerendering'));
     expect(lines.map((l) => l.reqId)).toEqual(['none']);
+  });
+});
+
+describe('an error a page or server action throws', () => {
+  it('is logged once by onRequestError with the request id and the path without its query', async () => {
+    const { onRequestError } = await import('@/instrumentation');
+    const { logger } = await import('@/lib/logger');
+    const { currentRequestId } = await import('@/lib/request-context');
+    const seen: [Record<string, unknown>, string, string | undefined][] = [];
+    const spy = vi.spyOn(logger, 'error').mockImplementation(((obj: Record<string, unknown>, msg: string) => void seen.push([obj, msg, currentRequestId()])) as never);
+    vi.stubEnv('NEXT_RUNTIME', 'nodejs');
+    try {
+      const boom = new Error('boom');
+      const context = { routerKind: 'App Router', routePath: '/visits/[id]', routeType: 'render', revalidateReason: undefined } as const;
+      await onRequestError(boom, { path: '/visits/abc?token=secret', method: 'GET', headers: { 'x-request-id': 'failed-page-01' } }, context);
+      await onRequestError(boom, { path: '/settings', method: 'POST', headers: { 'x-request-id': 'not well formed' } }, { ...context, routeType: 'action' });
+      expect(seen.map(([obj, msg, id]) => [obj.path, obj.routeType, obj.err, msg, id])).toEqual([
+        ['/visits/abc', 'render', boom, 'unhandled error in a page, server action or route', 'failed-page-01'],
+        ['/settings', 'action', boom, 'unhandled error in a page, server action or route', undefined],
+      ]);
+    } finally {
+      spy.mockRestore();
+      vi.unstubAllEnvs();
+    }
   });
 });
