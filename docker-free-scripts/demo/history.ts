@@ -23,7 +23,8 @@ import { createSystemSchema } from '@/lib/systems/schemas';
 import { createRequest, updateRequest } from '@/lib/requests/service';
 import { createRequestSchema, updateRequestSchema } from '@/lib/requests/schemas';
 import { createSystem } from '@/lib/systems/service';
-import { attachTag, createPrintRun } from '@/lib/tags/service';
+import { createPrintRun } from '@/lib/tags/print-runs';
+import { attachTag } from '@/lib/tags/service';
 import { createPrintRunSchema } from '@/lib/tags/schemas';
 
 export interface HistoryCounts {

@@ -12,16 +12,15 @@ import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { AppError } from '@/lib/errors';
 import { logger } from '@/lib/logger';
-import { inspectPhotoStorage, repairPhotoStorage } from '@/lib/photos/consistency';
-import { toPhotoDto, type PhotoDto, type PhotoListDto, type StorageReportDto, type StorageRepairDto } from '@/lib/photos/dto';
+import { toPhotoDto, type PhotoDto, type PhotoListDto } from '@/lib/photos/dto';
 import { checkPhoto } from '@/lib/photos/process';
-import { photoKinds, type ListPhotosQuery, type PhotoKind, type PhotoVariant, type UpdatePhotoInput } from '@/lib/photos/schemas';
-import { deleteObject, getObjectStream, objectKey, putObject, storageErrorKind } from '@/storage/objects';
+import { photoKinds, type ListPhotosQuery, type PhotoKind } from '@/lib/photos/schemas';
+import { deleteObject, objectKey, putObject, storageErrorKind } from '@/storage/objects';
 
 const storeDown = () => new AppError('unavailable', 'The photo store cannot be reached right now. Nothing was saved; try again in a moment.');
 
 /** Photos the actor may see: same company, equipment not deleted, site within a client user's scope. */
-function visiblePhotos(actor: Actor, db: Db) {
+export function visiblePhotos(actor: Actor, db: Db) {
   return db
     .selectFrom('photos')
     .innerJoin('equipment', 'equipment.id', 'photos.equipment_id')
@@ -32,7 +31,7 @@ function visiblePhotos(actor: Actor, db: Db) {
     .where('equipment.deleted_at', 'is', null);
 }
 
-const dtoColumns = [
+export const dtoColumns = [
   'photos.id',
   'photos.equipment_id',
   'photos.kind',
@@ -51,7 +50,7 @@ const dtoColumns = [
 ] as const;
 
 /** Office and admin may change any photo; a technician the ones they uploaded. */
-function canEdit(actor: Actor, uploadedBy: string): boolean {
+export function canEdit(actor: Actor, uploadedBy: string): boolean {
   return can(actor, 'photos.manage') || (can(actor, 'photos.upload') && uploadedBy === actor.id);
 }
 
@@ -143,7 +142,7 @@ async function existingUpload(actor: Actor, uploadKey: string, equipmentId: stri
   return getPhoto(actor, row.id, db);
 }
 
-async function removeObjects(keys: string[]): Promise<void> {
+export async function removeObjects(keys: string[]): Promise<void> {
   const results = await Promise.allSettled(keys.map((k) => deleteObject(k)));
   const failed = results.filter((r) => r.status === 'rejected').length;
   // The storage check finds and removes whatever could not be deleted now.
@@ -255,118 +254,6 @@ export async function storePhoto<T = undefined>(
     return { photoId: id, result };
   } catch (error) {
     await removeObjects(Object.values(keys));
-    throw error;
-  }
-}
-
-async function photoForChange(actor: Actor, id: string, db: Db) {
-  const row = await visiblePhotos(actor, db)
-    .where('photos.id', '=', id)
-    .select([...dtoColumns, 'photos.original_key', 'photos.display_key', 'photos.thumb_key'])
-    .executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Photo not found.');
-  if (!canEdit(actor, row.uploaded_by)) throw new AppError('forbidden', 'Only the person who uploaded this photo, the office or an admin can change it.');
-  return row;
-}
-
-export async function updatePhoto(actor: Actor, id: string, input: UpdatePhotoInput, db: Kysely<DB> = defaultDb): Promise<PhotoDto> {
-  assertCan(actor, 'photos.read');
-  return db.transaction().execute(async (trx) => {
-    const before = await photoForChange(actor, id, trx);
-    await trx
-      .updateTable('photos')
-      .set({ ...(input.kind !== undefined ? { kind: input.kind } : {}), ...(input.caption !== undefined ? { caption: input.caption } : {}) })
-      .where('id', '=', id)
-      .execute();
-    const after = await getPhoto(actor, id, trx);
-    await recordAudit(trx, actor, {
-      action: 'update',
-      entityType: 'photo',
-      entityId: id,
-      before: { kind: before.kind, caption: before.caption },
-      after: { kind: after.kind, caption: after.caption },
-    });
-    return after;
-  });
-}
-
-/** Removes the row (with an audit event) and then its three objects; refused while a visit entry shows it. */
-export async function deletePhoto(actor: Actor, id: string, db: Kysely<DB> = defaultDb): Promise<void> {
-  assertCan(actor, 'photos.read');
-  const keys = await db.transaction().execute(async (trx) => {
-    const row = await photoForChange(actor, id, trx);
-    // A photo recorded on a visit is part of a record that must last; it goes only once that
-    // entry has been voided (with its reason) on the visit.
-    const entry = await trx
-      .selectFrom('entries')
-      .select('id')
-      .where('company_id', '=', actor.companyId)
-      .where('kind', '=', 'photo')
-      .where('voided_at', 'is', null)
-      .where(sql<string>`data->>'photoId'`, '=', id)
-      .executeTakeFirst();
-    if (entry) throw new AppError('conflict', 'This photo is part of a visit record. Void its entry on the visit first; then the photo can be deleted.');
-    await trx.deleteFrom('photos').where('id', '=', id).execute();
-    await recordAudit(trx, actor, {
-      action: 'delete',
-      entityType: 'photo',
-      entityId: id,
-      before: { equipmentId: row.equipment_id, kind: row.kind, caption: row.caption, takenAt: row.taken_at, uploadedBy: row.uploaded_by, originalName: row.original_name },
-    });
-    return [row.original_key, row.display_key, row.thumb_key];
-  });
-  await removeObjects(keys);
-}
-
-export interface PhotoFile {
-  body: ReadableStream;
-  contentType: string;
-  contentLength: number | null;
-  fileName: string;
-}
-
-/** The bytes of one variant, after the same access check as the photo itself. */
-export async function openPhotoFile(actor: Actor, id: string, variant: PhotoVariant, db: Db = defaultDb): Promise<PhotoFile> {
-  assertCan(actor, 'photos.read');
-  const row = await visiblePhotos(actor, db)
-    .where('photos.id', '=', id)
-    .select(['photos.original_key', 'photos.display_key', 'photos.thumb_key', 'photos.content_type', 'photos.original_name', 'photos.kind'])
-    .executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Photo not found.');
-  const key = variant === 'original' ? row.original_key : variant === 'display' ? row.display_key : row.thumb_key;
-  try {
-    const file = await getObjectStream(key);
-    const ext = variant === 'original' ? { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' }[row.content_type] ?? 'img' : 'webp';
-    return {
-      body: file.body,
-      contentType: variant === 'original' ? row.content_type : 'image/webp',
-      contentLength: file.contentLength,
-      fileName: variant === 'original' && row.original_name ? row.original_name : `${row.kind}-${id.slice(0, 8)}.${ext}`,
-    };
-  } catch (error) {
-    const kind = storageErrorKind(error);
-    if (kind === 'not_found') throw new AppError('not_found', 'The image file is missing from storage. An admin can run the storage check under Settings.');
-    if (kind === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Try again in a moment.');
-    throw error;
-  }
-}
-
-export async function checkPhotoStorage(actor: Actor, db: Kysely<DB> = defaultDb): Promise<StorageReportDto> {
-  assertCan(actor, 'photos.maintain');
-  try {
-    return await inspectPhotoStorage(db, actor.companyId);
-  } catch (error) {
-    if (storageErrorKind(error) === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Try the check again in a moment.');
-    throw error;
-  }
-}
-
-export async function repairStorage(actor: Actor, db: Kysely<DB> = defaultDb): Promise<StorageRepairDto> {
-  assertCan(actor, 'photos.maintain');
-  try {
-    return await repairPhotoStorage(db, actor.companyId, actor);
-  } catch (error) {
-    if (storageErrorKind(error) === 'unavailable') throw new AppError('unavailable', 'The photo store cannot be reached right now. Nothing was repaired; try again in a moment.');
     throw error;
   }
 }

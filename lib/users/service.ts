@@ -14,14 +14,8 @@ import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
 import { enqueueMail, kickMailDelivery } from '@/lib/mail/outbox';
 import { invitationMail } from '@/lib/mail/templates';
-import type { CompanyDto, InvitationDto, UserDto } from '@/lib/users/dto';
-import type {
-  AcceptInvitationInput,
-  ChangeRoleInput,
-  InviteUserInput,
-  UpdateCompanyInput,
-  UpdateProfileInput,
-} from '@/lib/users/schemas';
+import type { InvitationDto, UserDto } from '@/lib/users/dto';
+import type { AcceptInvitationInput, ChangeRoleInput, InviteUserInput, UpdateProfileInput } from '@/lib/users/schemas';
 
 const INVITATION_DAYS = 7;
 
@@ -290,54 +284,5 @@ export async function updateProfile(actor: Actor, input: UpdateProfileInput, db:
       .executeTakeFirstOrThrow();
     await recordAudit(trx, actor, { action: 'update', entityType: 'user', entityId: actor.id, before, after });
     return { name: after.name, units: after.units as 'imperial' | 'metric', metricPressure: after.metric_pressure as 'kPa' | 'bar' };
-  });
-}
-
-function toCompanyDto(row: {
-  id: string;
-  name: string;
-  service_phone: string | null;
-  label_line: string | null;
-  default_units: string;
-  keep_photo_location: boolean;
-  mail_visit_plans: boolean;
-}): CompanyDto {
-  return {
-    id: row.id,
-    name: row.name,
-    servicePhone: row.service_phone,
-    labelLine: row.label_line,
-    defaultUnits: row.default_units as CompanyDto['defaultUnits'],
-    keepPhotoLocation: row.keep_photo_location,
-    mailVisitPlans: row.mail_visit_plans,
-  };
-}
-
-export async function getCompany(actor: Actor, db: Db = defaultDb): Promise<CompanyDto> {
-  const row = await db.selectFrom('companies').selectAll().where('id', '=', actor.companyId).executeTakeFirstOrThrow();
-  return toCompanyDto(row);
-}
-
-export async function updateCompany(actor: Actor, input: UpdateCompanyInput, db: Kysely<DB> = defaultDb): Promise<CompanyDto> {
-  assertCan(actor, 'company.settings');
-  return db.transaction().execute(async (trx) => {
-    const before = await getCompany(actor, trx);
-    const row = await trx
-      .updateTable('companies')
-      .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.servicePhone !== undefined ? { service_phone: input.servicePhone || null } : {}),
-        ...(input.labelLine !== undefined ? { label_line: input.labelLine || null } : {}),
-        ...(input.defaultUnits !== undefined ? { default_units: input.defaultUnits } : {}),
-        ...(input.keepPhotoLocation !== undefined ? { keep_photo_location: input.keepPhotoLocation } : {}),
-        ...(input.mailVisitPlans !== undefined ? { mail_visit_plans: input.mailVisitPlans } : {}),
-        updated_at: sql`now()`,
-      })
-      .where('id', '=', actor.companyId)
-      .returningAll()
-      .executeTakeFirstOrThrow();
-    const after = toCompanyDto(row);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'company', entityId: actor.companyId, before, after });
-    return after;
   });
 }

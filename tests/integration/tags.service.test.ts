@@ -9,7 +9,7 @@ import { call, mockAuthModule, session } from '@/tests/helpers/session';
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const { ensureBucket } = await import('@/storage/objects');
-const service = await import('@/lib/tags/service');
+const service = { ...(await import('@/lib/tags/service')), ...(await import('@/lib/tags/print-runs')) };
 const { createEquipment } = await import('@/lib/equipment/service');
 const { createEquipmentSchema } = await import('@/lib/equipment/schemas');
 

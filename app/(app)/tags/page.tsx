@@ -6,7 +6,7 @@ import { EmptyState, PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { formatStamp } from '@/lib/format/dates';
 import { listPrintRunsQuerySchema } from '@/lib/tags/schemas';
-import { listLayouts, listPrintRuns } from '@/lib/tags/service';
+import { listLayouts, listPrintRuns } from '@/lib/tags/print-runs';
 
 export const metadata: Metadata = { title: 'Tags' };
 

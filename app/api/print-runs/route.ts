@@ -1,6 +1,6 @@
 import { withApi } from '@/lib/api/handler';
 import { createPrintRunSchema, listPrintRunsQuerySchema } from '@/lib/tags/schemas';
-import { createPrintRun, listPrintRuns } from '@/lib/tags/service';
+import { createPrintRun, listPrintRuns } from '@/lib/tags/print-runs';
 
 // GET /api/print-runs: print runs, newest first, with claimed counts.
 export const GET = withApi({ permission: 'tags.print', query: listPrintRunsQuerySchema }, async ({ actor, query }) => listPrintRuns(actor, query));

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
-import { getCompany } from '@/lib/users/service';
+import { getCompany } from '@/lib/users/company';
 import { CompanyForm } from '@/app/(app)/settings/_components/company-form';
 
 export const metadata: Metadata = { title: 'Company settings' };

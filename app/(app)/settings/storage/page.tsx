@@ -6,7 +6,7 @@ import { requirePageActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
 import type { StorageReportDto } from '@/lib/photos/dto';
 import { formatBytes, photoKindLabels } from '@/lib/photos/schemas';
-import { checkPhotoStorage } from '@/lib/photos/service';
+import { checkPhotoStorage } from '@/lib/photos/files';
 import { formatStamp } from '@/lib/format/dates';
 import { RepairStorageButton } from '@/app/(app)/settings/storage/_components/repair-storage-button';
 

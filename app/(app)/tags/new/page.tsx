@@ -3,7 +3,7 @@ import { PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
 import { getEquipment } from '@/lib/equipment/service';
 import { listSites } from '@/lib/sites/service';
-import { listLayouts } from '@/lib/tags/service';
+import { listLayouts } from '@/lib/tags/print-runs';
 import { PrintRunForm } from '@/app/(app)/tags/new/_components/print-run-form';
 
 export const metadata: Metadata = { title: 'New print run' };

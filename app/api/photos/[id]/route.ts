@@ -1,6 +1,7 @@
 import { withApi } from '@/lib/api/handler';
 import { photoParamsSchema, updatePhotoSchema } from '@/lib/photos/schemas';
-import { deletePhoto, getPhoto, updatePhoto } from '@/lib/photos/service';
+import { deletePhoto, updatePhoto } from '@/lib/photos/changes';
+import { getPhoto } from '@/lib/photos/service';
 
 // GET /api/photos/:id: one photo's details and the addresses of its image files.
 export const GET = withApi({ permission: 'photos.read', params: photoParamsSchema }, async ({ actor, params }) => getPhoto(actor, params.id));

@@ -1,5 +1,5 @@
 import { withApi } from '@/lib/api/handler';
-import { checkPhotoStorage } from '@/lib/photos/service';
+import { checkPhotoStorage } from '@/lib/photos/files';
 
 export const runtime = 'nodejs';
 

@@ -1,7 +1,7 @@
 import { withApi } from '@/lib/api/handler';
 import { pdfResponse } from '@/lib/tags/http';
 import { calibrationQuerySchema } from '@/lib/tags/schemas';
-import { calibrationPdf } from '@/lib/tags/service';
+import { calibrationPdf } from '@/lib/tags/print-runs';
 
 export const runtime = 'nodejs';
 

@@ -7,7 +7,7 @@ import { TagStateBadge } from '@/components/tags/tag-state-badge';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { formatStamp } from '@/lib/format/dates';
-import { getPrintRun } from '@/lib/tags/service';
+import { getPrintRun } from '@/lib/tags/print-runs';
 import { idParamsSchema } from '@/lib/api/schemas';
 import { notFound } from 'next/navigation';
 

@@ -1,7 +1,7 @@
 import { contentDisposition } from '@/lib/api/download';
 import { withApi } from '@/lib/api/handler';
 import { photoVariantParamsSchema, photoVariantQuerySchema } from '@/lib/photos/schemas';
-import { openPhotoFile } from '@/lib/photos/service';
+import { openPhotoFile } from '@/lib/photos/files';
 
 export const runtime = 'nodejs';
 

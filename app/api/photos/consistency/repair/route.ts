@@ -1,5 +1,5 @@
 import { withApi } from '@/lib/api/handler';
-import { repairStorage } from '@/lib/photos/service';
+import { repairStorage } from '@/lib/photos/files';
 
 export const runtime = 'nodejs';
 

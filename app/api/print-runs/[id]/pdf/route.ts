@@ -1,7 +1,7 @@
 import { idParamsSchema } from '@/lib/api/schemas';
 import { withApi } from '@/lib/api/handler';
 import { pdfResponse } from '@/lib/tags/http';
-import { getPrintRunPdf } from '@/lib/tags/service';
+import { getPrintRunPdf } from '@/lib/tags/print-runs';
 
 export const runtime = 'nodejs';
 
