@@ -23,7 +23,7 @@ import { DueList } from '@/components/overview/due-list';
 import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
 import { can } from '@/lib/auth/access';
-import { plansForTechnician } from '@/lib/plans/service';
+import { plansForTechnician } from '@/lib/plans/scheduling';
 
 export const metadata: Metadata = { title: 'Home' };
 

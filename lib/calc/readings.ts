@@ -1,3 +1,4 @@
+// Over 300 lines on purpose: the five derived readings share one input check and one level-and-wording path.
 // Readings a technician derives from gauge pressures and line temperatures.
 // Definitions: trade training material (refrigeration service texts): superheat against the dew point,
 // subcooling against the bubble point; the glide mid-point for TDs is common practice.

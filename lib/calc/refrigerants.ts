@@ -1,3 +1,4 @@
+// Over 300 lines on purpose: one table of 16 refrigerants with a source per field reads best whole.
 // The refrigerants Rimeline knows, as data. Sources are given per field: ASHRAE Standard 34 (designations, compositions, safety classes),
 // IPCC AR4/AR5 (GWP), CoolProp 8.0.0 (tests/fixtures/reference/fluids.csv).
 // Designations, compositions and safety classes: ASHRAE Standard 34 (as copied in the reference

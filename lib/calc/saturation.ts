@@ -1,3 +1,4 @@
+// Over 300 lines on purpose: the saturation curves, bubble/dew and glide share one fitted model and its checks.
 // Saturation pressure ↔ temperature, bubble and dew curves.
 // Basis: Wagner "2.5-5" vapour-pressure equation (Wagner 1973; Poling, Prausnitz & O'Connell, The
 // Properties of Gases and Liquids, eq. 7-3.3), constants fitted to the CoolProp 8.0.0 reference EOS

@@ -9,7 +9,8 @@ import { localDate } from '@/lib/format/dates';
 import { dueWork } from '@/lib/overview/due';
 import { addDays } from '@/lib/plans/days';
 import { createPlanSchema, movePlanSchema } from '@/lib/plans/schemas';
-import { cancelPlan, createPlan, getPlan, listPlans, movePlan, officeToday, plansForTechnician, upcomingPlansForSite } from '@/lib/plans/service';
+import { officeToday, plansForTechnician } from '@/lib/plans/scheduling';
+import { cancelPlan, createPlan, getPlan, listPlans, movePlan, upcomingPlansForSite } from '@/lib/plans/service';
 import { startVisit } from '@/lib/visits/service';
 import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
 

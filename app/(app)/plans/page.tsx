@@ -12,7 +12,8 @@ import { can } from '@/lib/auth/access';
 import { formatWeekday } from '@/lib/format/local-times';
 import { addDays, weekDays, weekStart } from '@/lib/plans/days';
 import type { PlanDto } from '@/lib/plans/dto';
-import { listPlanTechnicians, listPlans, officeToday } from '@/lib/plans/service';
+import { listPlanTechnicians, officeToday } from '@/lib/plans/scheduling';
+import { listPlans } from '@/lib/plans/service';
 
 export const metadata: Metadata = { title: 'Planned visits' };
 
