@@ -1,13 +1,12 @@
-import { ChevronRight, MapPin } from 'lucide-react';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { z } from 'zod';
+import { SitePicker } from '@/components/sites/site-picker';
 import { Alert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
-import { Card, EmptyState, PageHeader } from '@/components/ui/card';
+import { Card, PageHeader } from '@/components/ui/card';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { siteAddress } from '@/lib/sites/dto';
 import { getSite, listSites } from '@/lib/sites/service';
 import { formatTime } from '@/lib/visits/report-content';
 import { visitReasonLabels } from '@/lib/visits/schemas';
@@ -24,32 +23,7 @@ export default async function StartVisitPage({ searchParams }: { searchParams: P
 
   if (!query.siteId) {
     const sites = await listSites(actor, { limit: 200, archived: 'exclude' });
-    return (
-      <div className="space-y-5">
-        <PageHeader title="Start a visit" subtitle="Choose the site you are at. Scanning a unit’s tag also takes you to its site." />
-        {sites.items.length === 0 ? (
-          <EmptyState title="No sites yet." />
-        ) : (
-          <ul className="grid grid-cols-1 gap-2 sm:grid-cols-2">
-            {sites.items.map((s) => (
-              <li key={s.id}>
-                <Link href={`/visits/new?siteId=${s.id}`} className="flex min-h-16 items-center gap-3 rounded-lg border-2 border-slate-300 bg-white px-4 py-2 hover:border-ice-700 hover:bg-ice-50">
-                  <MapPin aria-hidden className="size-6 shrink-0 text-ice-700" />
-                  <span className="min-w-0 flex-1">
-                    <span className="block font-semibold">{s.name}</span>
-                    <span className="block text-sm text-slate-700">
-                      {s.clientName}
-                      {siteAddress(s) ? ` · ${siteAddress(s)}` : ''}
-                    </span>
-                  </span>
-                  <ChevronRight aria-hidden className="size-5 text-slate-500" />
-                </Link>
-              </li>
-            ))}
-          </ul>
-        )}
-      </div>
-    );
+    return <SitePicker title="Start a visit" subtitle="Choose the site you are at. Scanning a unit’s tag also takes you to its site." sites={sites.items} path="/visits/new" />;
   }
 
   const site = await orNotFound(getSite(actor, query.siteId));
