@@ -1,6 +1,12 @@
 import { performance } from 'node:perf_hooks';
 // Signs a demo user in over HTTP and returns a fetch that carries the session cookie.
 export async function signedInFetch(baseUrl: string, email: string, password = 'rimeline-demo') {
+  const cookie = await sessionCookie(baseUrl, email, password);
+  return (path: string, init: RequestInit = {}) => fetch(`${baseUrl}${path}`, { ...init, headers: { ...(init.headers ?? {}), cookie } });
+}
+
+/** Signs a demo user in over HTTP and returns the Cookie header that carries the session (for load tools). */
+export async function sessionCookie(baseUrl: string, email: string, password = 'rimeline-demo'): Promise<string> {
   const jar = new Map<string, string>();
   const remember = (res: Response) => {
     for (const c of res.headers.getSetCookie()) {
@@ -21,7 +27,7 @@ export async function signedInFetch(baseUrl: string, email: string, password = '
   });
   remember(login);
   if (![...jar.keys()].some((k) => k.includes('session-token'))) throw new Error(`Sign-in as ${email} failed (${login.status})`);
-  return (path: string, init: RequestInit = {}) => fetch(`${baseUrl}${path}`, { ...init, headers: { ...(init.headers ?? {}), cookie: cookie() } });
+  return cookie();
 }
 
 export function percentile(sorted: number[], p: number): number {
