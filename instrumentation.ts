@@ -20,6 +20,7 @@ export async function register(): Promise<void> {
 // Next reports an error thrown by a page render, a server action or a route handler without withApi
 // here (withApi catches and logs its own). Next's own console line has no request id; this pino line
 // has the one proxy.ts put on the request, so an operator finds it from the response's x-request-id.
+// A render can report one error more than once (each part of the page that awaited it).
 export const onRequestError: Instrumentation.onRequestError = async (error, request, context) => {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   const { logger } = await import('@/lib/logger');
@@ -27,7 +28,7 @@ export const onRequestError: Instrumentation.onRequestError = async (error, requ
   const { isWellFormedRequestId, REQUEST_ID_HEADER } = await import('@/lib/api/request-id');
   const header = request.headers[REQUEST_ID_HEADER];
   // The path without its query: a query may hold a sign-in token.
-  const details = { err: error, method: request.method, path: request.path.split('?')[0], routeType: context.routeType, routePath: context.routePath };
+  const details = { err: error, method: request.method, path: request.path.split('?')[0], routeType: context.routeType, routePath: context.routePath, renderSource: context.renderSource };
   const write = () => logger.error(details, 'unhandled error in a page, server action or route');
   if (typeof header === 'string' && isWellFormedRequestId(header)) runWithRequestId(header, write);
   else write();
