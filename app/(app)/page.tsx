@@ -24,6 +24,7 @@ import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
 import { can } from '@/lib/auth/access';
 import { plansForTechnician } from '@/lib/plans/scheduling';
+import { Section } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'Home' };
 
@@ -142,23 +143,17 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
         </div>
         <AttentionList units={attention.items} />
       </section>
-      <section aria-labelledby="sites-summary-h" className="space-y-3">
-        <h2 id="sites-summary-h" className="text-lg font-semibold">
-          Your sites
-        </h2>
+      <Section id="sites-summary-h" title="Your sites">
         {summaries.length === 0 ? <p className="text-slate-700">No sites are shared with your account yet.</p> : null}
         <div className="grid gap-3 md:grid-cols-2">
           {summaries.map((s) => (
             <SiteSummaryCard key={s.siteId} summary={s} showClient={false} />
           ))}
         </div>
-      </section>
-      <section aria-labelledby="charts-h" className="space-y-3">
-        <h2 id="charts-h" className="text-lg font-semibold">
-          At a glance
-        </h2>
+      </Section>
+      <Section id="charts-h" title="At a glance">
         <OverviewCharts data={charts} prefs={{ units: actor.units, metricPressure: actor.metricPressure }} />
-      </section>
+      </Section>
     </>
   );
 }
@@ -203,17 +198,18 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
             </ul>
           )}
         </section>
-        <section aria-labelledby="due-h" className="space-y-3">
-          <div className="flex flex-wrap items-end justify-between gap-2">
-            <h2 id="due-h" className="text-lg font-semibold">
-              Due in the next 30 days or overdue
-            </h2>
+        <Section
+          id="due-h"
+          title="Due in the next 30 days or overdue"
+          align="end"
+          actions={
             <Link href="/plans" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
               Planned visits
             </Link>
-          </div>
+          }
+        >
           <DueList items={due} canPlan={can(actor, 'plans.write')} />
-        </section>
+        </Section>
       </div>
     </div>
   );
@@ -227,10 +223,7 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
   ]);
   const startable = (p: (typeof plans)[number]) => p.canStart && p.day <= p.siteToday;
   return (
-    <section aria-labelledby="work-h" className="space-y-3">
-      <h2 id="work-h" className="text-lg font-semibold">
-        Your work
-      </h2>
+    <Section id="work-h" title="Your work">
       <div className="flex flex-wrap gap-2">
         <ButtonLink href="/scan" size="lg">
           Scan a tag
@@ -299,6 +292,6 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
           </ul>
         </Card>
       ) : null}
-    </section>
+    </Section>
   );
 }

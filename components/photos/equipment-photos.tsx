@@ -13,6 +13,7 @@ import type { PhotoDto } from '@/lib/photos/dto';
 import { usePhotos } from '@/lib/photos/hooks';
 import { photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
 import { cn } from '@/lib/utils';
+import { Section } from '@/components/ui/section';
 
 // The photos section of an equipment page: uploader (for those who may upload), filter by kind,
 // thumbnails, the full-screen viewer and the side-by-side comparison.
@@ -33,17 +34,19 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
   const viewing = open !== null && photos.length > 0 ? Math.min(open, photos.length - 1) : null;
 
   return (
-    <section aria-labelledby="photos-h" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="photos-h" className="text-lg font-semibold">
-          Photos {first ? <span className="font-normal text-slate-600">({first.total})</span> : null}
-        </h2>
-        {photos.length >= 2 ? (
-          <Button variant="secondary" onClick={() => setComparing(true)}>
-            <Columns2 aria-hidden className="size-4" /> Compare two
-          </Button>
-        ) : null}
-      </div>
+    <Section
+      id="photos-h"
+      title={<>Photos {first ? <span className="font-normal text-slate-600">({first.total})</span> : null}</>}
+      actions={
+        <>
+          {photos.length >= 2 ? (
+            <Button variant="secondary" onClick={() => setComparing(true)}>
+              <Columns2 aria-hidden className="size-4" /> Compare two
+            </Button>
+          ) : null}
+        </>
+      }
+    >
 
       {canUpload ? <PhotoUploader equipmentId={equipmentId} /> : null}
 
@@ -100,7 +103,7 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
 
       {viewing !== null ? <PhotoViewer photos={photos} index={viewing} timeZone={timeZone} onIndex={setOpen} onClose={() => setOpen(null)} /> : null}
       {comparing ? <PhotoCompare photos={photos} timeZone={timeZone} onClose={() => setComparing(false)} /> : null}
-    </section>
+    </Section>
   );
 }
 

@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
 import type { PlanDto } from '@/lib/plans/dto';
+import { Section } from '@/components/ui/section';
 
 /**
  * A site's coming planned visits (on its own page, so no site link). `viewerId` lets the technician
@@ -9,17 +10,19 @@ import type { PlanDto } from '@/lib/plans/dto';
  */
 export function SitePlans({ plans, siteId, canPlan, viewerId }: { plans: PlanDto[]; siteId: string; canPlan: boolean; viewerId: string }) {
   return (
-    <section aria-labelledby="site-plans-h" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="site-plans-h" className="text-lg font-semibold">
-          Planned visits
-        </h2>
-        {canPlan ? (
-          <Link href={`/plans/new?siteId=${siteId}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
-            Plan a visit here
-          </Link>
-        ) : null}
-      </div>
+    <Section
+      id="site-plans-h"
+      title="Planned visits"
+      actions={
+        <>
+          {canPlan ? (
+            <Link href={`/plans/new?siteId=${siteId}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
+              Plan a visit here
+            </Link>
+          ) : null}
+        </>
+      }
+    >
       {plans.length === 0 ? (
         <p className="text-slate-700">No visit planned yet.</p>
       ) : (
@@ -33,6 +36,6 @@ export function SitePlans({ plans, siteId, canPlan, viewerId }: { plans: PlanDto
           ))}
         </ul>
       )}
-    </section>
+    </Section>
   );
 }

@@ -9,6 +9,7 @@ import { getClient, listContacts } from '@/lib/clients/service';
 import { listSites } from '@/lib/sites/service';
 import { ArchiveClientButton } from '@/app/(app)/clients/[id]/_components/archive-client-button';
 import { ContactManager } from '@/app/(app)/clients/[id]/_components/contact-manager';
+import { Section } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'Client' };
 
@@ -36,18 +37,12 @@ export default async function ClientPage({ params }: { params: Promise<{ id: str
         }
       />
       {client.notes ? <Card className="whitespace-pre-line text-sm">{client.notes}</Card> : null}
-      <section aria-labelledby="sites-h" className="space-y-3">
-        <h2 id="sites-h" className="text-lg font-semibold">
-          Sites
-        </h2>
+      <Section id="sites-h" title="Sites">
         <SiteList sites={sites.items} showClient={false} empty="This client has no sites yet." />
-      </section>
-      <section aria-labelledby="contacts-h" className="space-y-3">
-        <h2 id="contacts-h" className="text-lg font-semibold">
-          Contacts
-        </h2>
+      </Section>
+      <Section id="contacts-h" title="Contacts">
         <ContactManager clientId={client.id} contacts={contacts} canWrite={can(actor, 'contacts.write')} />
-      </section>
+      </Section>
     </div>
   );
 }

@@ -19,6 +19,7 @@ import { DeleteEquipmentButton } from '@/app/(app)/equipment/[id]/_components/de
 import { RelationManager } from '@/app/(app)/equipment/[id]/_components/relation-manager';
 import { UnitHeader } from '@/app/(app)/equipment/[id]/_components/unit-header';
 import { formatNameplateValue } from '@/app/(app)/equipment/_components/nameplate-values';
+import { Section } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'Equipment' };
 
@@ -123,21 +124,15 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
 
         <EquipmentTagPanel equipmentId={equipment.id} actor={actor} removed={equipment.status === 'removed'} />
 
-        <section aria-labelledby="relations-h" className="space-y-3">
-          <h2 id="relations-h" className="text-lg font-semibold">
-            Connected equipment
-          </h2>
+        <Section id="relations-h" title="Connected equipment">
           <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={canWrite && equipment.status !== 'removed'} />
-        </section>
+        </Section>
 
         <EquipmentPhotos equipmentId={equipment.id} />
 
-        <section aria-labelledby="trend-h" className="space-y-3">
-          <h2 id="trend-h" className="text-lg font-semibold">
-            Readings over time
-          </h2>
+        <Section id="trend-h" title="Readings over time">
           <ReadingChart equipmentId={equipment.id} prefs={prefs} timeZone={equipment.siteTimeZone} />
-        </section>
+        </Section>
 
         {canWrite || canDelete || officeRequest ? (
           <details className="group rounded-lg border border-slate-200 bg-white" data-testid="unit-manage">

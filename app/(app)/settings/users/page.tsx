@@ -5,6 +5,7 @@ import { listClients } from '@/lib/clients/service';
 import { listInvitations, listUsers } from '@/lib/users/service';
 import { InviteForm } from '@/app/(app)/settings/users/_components/invite-form';
 import { UserTable } from '@/app/(app)/settings/users/_components/user-table';
+import { Section } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'Users' };
 
@@ -15,18 +16,12 @@ export default async function UsersPage() {
   return (
     <div className="space-y-8">
       <PageHeader title="Users" subtitle="Invite people, change roles, deactivate accounts." />
-      <section aria-labelledby="invite-h" className="space-y-3">
-        <h2 id="invite-h" className="text-lg font-semibold">
-          Invite someone
-        </h2>
+      <Section id="invite-h" title="Invite someone">
         <InviteForm clients={clientChoices} invitations={invitations} />
-      </section>
-      <section aria-labelledby="users-h" className="space-y-3">
-        <h2 id="users-h" className="text-lg font-semibold">
-          People
-        </h2>
+      </Section>
+      <Section id="users-h" title="People">
         <UserTable users={users} clients={clientChoices} selfId={actor.id} />
-      </section>
+      </Section>
     </div>
   );
 }

@@ -15,6 +15,7 @@ import { formatQuantity } from '@/lib/units/quantities';
 import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
 import { systemHistory } from '@/lib/visits/history';
 import { ArchiveSystemButton } from '@/app/(app)/systems/[id]/_components/archive-system-button';
+import { Section } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'System' };
 
@@ -88,25 +89,19 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
         {system.notes ? <p className="mt-3 whitespace-pre-line border-t border-slate-100 pt-3 text-sm">{system.notes}</p> : null}
       </Card>
 
-      <section aria-labelledby="members-h" className="space-y-3">
-        <h2 id="members-h" className="text-lg font-semibold">
-          Equipment in this system ({system.equipmentCount})
-        </h2>
+      <Section id="members-h" title={<>Equipment in this system ({system.equipmentCount})</>}>
         <EquipmentList items={members.items} showArea showLife empty="No equipment registered in this system yet." />
         {members.nextCursor ? (
           <Link href={`/equipment?systemId=${system.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
             See all {system.equipmentCount} in the equipment table
           </Link>
         ) : null}
-      </section>
+      </Section>
 
-      <section aria-labelledby="history-h" className="space-y-3">
-        <h2 id="history-h" className="text-lg font-semibold">
-          History of the whole system
-        </h2>
+      <Section id="history-h" title="History of the whole system">
         <p className="text-sm text-slate-700">Every entry on this system’s equipment, newest first.</p>
         <EquipmentHistory scope="system" id={system.id} prefs={prefs} showEquipment initialPage={await systemHistory(actor, system.id, { limit: HISTORY_PAGE_SIZE })} />
-      </section>
+      </Section>
     </div>
   );
 }

@@ -3,16 +3,17 @@ import Link from 'next/link';
 import { AttentionList } from '@/components/overview/attention-list';
 import type { Actor } from '@/lib/auth/actor';
 import { attentionPage } from '@/lib/attention/service';
+import { Section } from '@/components/ui/section';
 
 /** What needs attention on this site and its equipment report, for everyone who can see the site. */
 export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: string }) {
   const { items: units } = await attentionPage(actor, { siteId, limit: 5, withTotal: false });
   return (
-    <section aria-labelledby="site-attention-h" className="space-y-3">
-      <div className="flex flex-wrap items-end justify-between gap-2">
-        <h2 id="site-attention-h" className="text-lg font-semibold">
-          Needs attention
-        </h2>
+    <Section
+      id="site-attention-h"
+      title="Needs attention"
+      align="end"
+      actions={
         <div className="flex flex-wrap gap-2 text-sm">
           <Link href={`/attention?siteId=${siteId}`} className="flex min-h-11 items-center font-semibold text-ice-800 underline">
             How this is ranked
@@ -24,8 +25,9 @@ export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: s
             <FileSpreadsheet aria-hidden className="size-4" /> CSV
           </a>
         </div>
-      </div>
+      }
+    >
       <AttentionList units={units} showSite={false} />
-    </section>
+    </Section>
   );
 }

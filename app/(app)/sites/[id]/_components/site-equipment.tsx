@@ -5,6 +5,7 @@ import { ButtonLink, buttonVariants } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import type { EquipmentDto } from '@/lib/equipment/dto';
 import type { AreaDto } from '@/lib/sites/dto';
+import { Section } from '@/components/ui/section';
 
 interface Group {
   key: string;
@@ -46,11 +47,10 @@ export function SiteEquipment({
 }) {
   const groups = groupByArea(items, areas);
   return (
-    <section aria-labelledby="equipment-h" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="equipment-h" className="text-lg font-semibold">
-          Equipment
-        </h2>
+    <Section
+      id="equipment-h"
+      title="Equipment"
+      actions={
         <div className="flex flex-wrap gap-2">
           {canRegister ? (
             <ButtonLink href={`/equipment/new?siteId=${siteId}`}>
@@ -67,7 +67,8 @@ export function SiteEquipment({
             <Download aria-hidden className="size-4" /> Export CSV
           </a>
         </div>
-      </div>
+      }
+    >
       {groups.length === 0 ? (
         <EmptyState title="No equipment registered at this site yet.">
           {canRegister ? 'Register units one by one, or import a spreadsheet exported from another site.' : null}
@@ -100,6 +101,6 @@ export function SiteEquipment({
           </Link>
         </p>
       ) : null}
-    </section>
+    </Section>
   );
 }

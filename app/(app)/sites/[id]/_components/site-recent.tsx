@@ -5,20 +5,22 @@ import type { PhotoDto } from '@/lib/photos/dto';
 import type { VisitDto } from '@/lib/visits/dto';
 import { visitReasonLabels } from '@/lib/visits/schemas';
 import { formatDay } from '@/lib/format/dates';
+import { Section } from '@/components/ui/section';
 
 
 /** The site's last closed visits, newest first, each opening its record. */
 export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteId: string }) {
   return (
-    <section aria-labelledby="recent-visits-h" className="space-y-3">
-      <div className="flex flex-wrap items-end justify-between gap-2">
-        <h2 id="recent-visits-h" className="text-lg font-semibold">
-          Recent visits
-        </h2>
+    <Section
+      id="recent-visits-h"
+      title="Recent visits"
+      align="end"
+      actions={
         <Link href={`/visits?siteId=${siteId}`} className="flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
           All visits at this site
         </Link>
-      </div>
+      }
+    >
       {visits.length === 0 ? (
         <EmptyState title="No finished visits at this site yet." />
       ) : (
@@ -36,17 +38,14 @@ export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteI
           ))}
         </ul>
       )}
-    </section>
+    </Section>
   );
 }
 
 /** The newest photos of the site's equipment; each opens its unit's page, where the gallery is. */
 export function SiteRecentPhotos({ photos, timeZone }: { photos: (PhotoDto & { equipmentName: string })[]; timeZone: string }) {
   return (
-    <section aria-labelledby="recent-photos-h" className="space-y-3">
-      <h2 id="recent-photos-h" className="text-lg font-semibold">
-        Recent photos
-      </h2>
+    <Section id="recent-photos-h" title="Recent photos">
       {photos.length === 0 ? (
         <EmptyState title="No photos of this site's equipment yet." />
       ) : (
@@ -65,6 +64,6 @@ export function SiteRecentPhotos({ photos, timeZone }: { photos: (PhotoDto & { e
           ))}
         </ul>
       )}
-    </section>
+    </Section>
   );
 }

@@ -4,20 +4,23 @@ import { ButtonLink } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import type { SystemDto } from '@/lib/systems/dto';
 import { applicationLabels } from '@/lib/equipment/types';
+import { Section } from '@/components/ui/section';
 
 export function SiteSystems({ siteId, systems, canWrite }: { siteId: string; systems: SystemDto[]; canWrite: boolean }) {
   return (
-    <section aria-labelledby="systems-h" className="space-y-3">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="systems-h" className="text-lg font-semibold">
-          Systems
-        </h2>
-        {canWrite ? (
-          <ButtonLink href={`/systems/new?siteId=${siteId}`} variant="secondary">
-            New system
-          </ButtonLink>
-        ) : null}
-      </div>
+    <Section
+      id="systems-h"
+      title="Systems"
+      actions={
+        <>
+          {canWrite ? (
+            <ButtonLink href={`/systems/new?siteId=${siteId}`} variant="secondary">
+              New system
+            </ButtonLink>
+          ) : null}
+        </>
+      }
+    >
       {systems.length === 0 ? (
         <EmptyState title="No systems yet.">A system is one refrigeration circuit: a condensing unit or rack and the evaporators and controls it serves.</EmptyState>
       ) : (
@@ -43,6 +46,6 @@ export function SiteSystems({ siteId, systems, canWrite }: { siteId: string; sys
           ))}
         </ul>
       )}
-    </section>
+    </Section>
   );
 }
