@@ -1,8 +1,9 @@
-import { Building2, ChevronRight } from 'lucide-react';
+import { Building2 } from 'lucide-react';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, PageHeader } from '@/components/ui/card';
+import { LinkRow } from '@/components/ui/link-row';
 import { requirePageActor } from '@/lib/auth';
 import { listClients } from '@/lib/clients/service';
 import { listClientsQuerySchema } from '@/lib/clients/schemas';
@@ -33,18 +34,7 @@ export default async function ClientsPage({ searchParams }: { searchParams: Prom
       ) : (
         <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
           {page.items.map((c) => (
-            <li key={c.id}>
-              <Link href={`/clients/${c.id}`} className="flex min-h-14 items-center gap-3 px-4 py-3 hover:bg-ice-50">
-                <Building2 aria-hidden className="size-5 text-ice-700" />
-                <span className="flex-1">
-                  <span className="block font-semibold">{c.name}</span>
-                  <span className="text-sm text-slate-600">
-                    {c.siteCount} {c.siteCount === 1 ? 'site' : 'sites'}
-                  </span>
-                </span>
-                <ChevronRight aria-hidden className="size-5 text-slate-400" />
-              </Link>
-            </li>
+            <LinkRow key={c.id} href={`/clients/${c.id}`} icon={Building2} title={c.name} detail={`${c.siteCount} ${c.siteCount === 1 ? 'site' : 'sites'}`} />
           ))}
         </ul>
       )}

@@ -1,8 +1,9 @@
-import { ChevronRight, FileDown, Printer } from 'lucide-react';
+import { FileDown, Printer } from 'lucide-react';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, PageHeader } from '@/components/ui/card';
+import { LinkRow } from '@/components/ui/link-row';
 import { requirePageActor } from '@/lib/auth';
 import { formatStamp } from '@/lib/format/dates';
 import { listPrintRunsQuerySchema } from '@/lib/tags/schemas';
@@ -30,22 +31,24 @@ export default async function TagsPage({ searchParams }: { searchParams: Promise
       ) : (
         <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white" aria-label="Print runs">
           {page.items.map((r) => (
-            <li key={r.id}>
-              <Link href={`/tags/runs/${r.id}`} className="flex min-h-16 items-center gap-3 px-4 py-3 hover:bg-ice-50">
-                <Printer aria-hidden className="size-5 shrink-0 text-ice-700" />
-                <span className="min-w-0 flex-1">
-                  <span className="block font-semibold">
-                    {r.labelCount} {r.kind === 'blank' ? 'blank' : 'equipment'} {r.labelCount === 1 ? 'tag' : 'tags'}
-                    {r.siteName ? ` · ${r.siteName}` : ' · several sites'}
-                  </span>
-                  <span className="block text-sm text-slate-600">
-                    {r.claimedCount} of {r.labelCount} attached on site · {r.layoutName} · {formatStamp(r.createdAt, r.siteTimeZone ?? 'UTC')}
-                    {r.createdByName ? ` · ${r.createdByName}` : ''}
-                  </span>
-                </span>
-                <ChevronRight aria-hidden className="size-5 text-slate-400" />
-              </Link>
-            </li>
+            <LinkRow
+              key={r.id}
+              href={`/tags/runs/${r.id}`}
+              icon={Printer}
+              tall
+              title={
+                <>
+                  {r.labelCount} {r.kind === 'blank' ? 'blank' : 'equipment'} {r.labelCount === 1 ? 'tag' : 'tags'}
+                  {r.siteName ? ` · ${r.siteName}` : ' · several sites'}
+                </>
+              }
+              detail={
+                <>
+                  {r.claimedCount} of {r.labelCount} attached on site · {r.layoutName} · {formatStamp(r.createdAt, r.siteTimeZone ?? 'UTC')}
+                  {r.createdByName ? ` · ${r.createdByName}` : ''}
+                </>
+              }
+            />
           ))}
         </ul>
       )}
