@@ -46,9 +46,10 @@ export async function createCoolerCircuit(db: Kysely<DB>, siteName = 'Pell Stree
 export type CoolerCircuit = Awaited<ReturnType<typeof createCoolerCircuit>>;
 
 /** The visit tests' starting point: the demo, its technician and office, and a fresh cooler circuit. */
-export async function demoWithCircuit(db: Kysely<DB>): Promise<{ tech: Actor; office: Actor; circuit: CoolerCircuit }> {
+export async function demoWithCircuit(db: Kysely<DB>): Promise<{ tech: Actor; office: Actor; owner: Actor; circuit: CoolerCircuit }> {
   await resetToDemo(db);
-  return { tech: await actorFor(db, demoEmails.technician), office: await actorFor(db, demoEmails.office), circuit: await createCoolerCircuit(db) };
+  const [tech, office, owner] = [await actorFor(db, demoEmails.technician), await actorFor(db, demoEmails.office), await actorFor(db, demoEmails.client)];
+  return { tech, office, owner, circuit: await createCoolerCircuit(db) };
 }
 
 export type CircuitDemo = Awaited<ReturnType<typeof demoWithCircuit>>;

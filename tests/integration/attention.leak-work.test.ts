@@ -11,15 +11,15 @@ import { closeVisit } from '@/lib/visits/close';
 import { addEntry } from '@/lib/visits/entries';
 import { startVisit } from '@/lib/visits/service';
 import type { LeakData } from '@/lib/visits/schemas';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { createTestDb } from '@/tests/helpers/db';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
 import { formatDay } from '@/lib/format/dates';
 
 const db = createTestDb();
 let tech: Actor;
 let office: Actor;
 let owner: Actor;
-let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+let circuit: CoolerCircuit;
 const lb = 0.45359237;
 const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString();
 
@@ -35,11 +35,7 @@ const leakScore = async () => (await needsAttention(owner)).find((u) => u.equipm
 const leakPriority = async () => (await needsAttention(owner)).find((u) => u.equipmentId === circuit.condensingUnitId)?.priority;
 
 beforeAll(async () => {
-  await resetToDemo(db);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  owner = await actorFor(db, demoEmails.client);
-  circuit = await createCoolerCircuit(db);
+  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
   // The system has existed for a year, so its six-monthly leak check (178 t CO2e) is overdue.
   await sql`update systems set created_at = now() - interval '400 days' where id = ${circuit.systemId}`.execute(db);
   const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: daysAgo(12) });

@@ -12,8 +12,8 @@ import { closeVisit } from '@/lib/visits/close';
 import { addEntry } from '@/lib/visits/entries';
 import { equipmentHistory } from '@/lib/visits/history';
 import { getVisitSummary, startVisit } from '@/lib/visits/service';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { createTestDb } from '@/tests/helpers/db';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
 import { call, mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -24,7 +24,7 @@ const DAY = 86_400_000;
 let tech: Actor;
 let office: Actor;
 let owner: Actor;
-let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+let circuit: CoolerCircuit;
 let closedId: string;
 let openId: string;
 const entry = <T extends object>(equipmentId: string, body: T) => ({ equipmentId, clientEntryId: randomUUID(), ...body });
@@ -35,11 +35,7 @@ const year = new Date(Date.now() - 2 * DAY).getUTCFullYear();
 const prefs = { units: 'imperial', metricPressure: 'kPa' } as const;
 
 beforeAll(async () => {
-  await resetToDemo(db);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  owner = await actorFor(db, demoEmails.client);
-  circuit = await createCoolerCircuit(db);
+  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
   const first = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(20) });
   await addEntry(tech, first.id, entry(circuit.condensingUnitId, { kind: 'refrigerant' as const, recordedAt: ago(20), data: { direction: 'added' as const, amountKg: 2 * lb, refrigerant: 'R-404A' as const } }));
   await addEntry(tech, first.id, entry(circuit.evaporatorId, { kind: 'condition' as const, recordedAt: ago(20), data: { rating: 4 } }));
