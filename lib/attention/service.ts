@@ -32,29 +32,15 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
   const found: Found[] = [];
   const push = (id: string | null, signal: Signal) => found.push({ id, signal });
 
-  const safety = await visibleUnits(actor, siteId, db)
+  const safetyQuery = visibleUnits(actor, siteId, db)
     .innerJoin('follow_ups', 'follow_ups.equipment_id', 'equipment.id')
     .where('follow_ups.status', 'in', ['open', 'scheduled'])
     .where('follow_ups.severity', '=', 'safety')
     .select(['equipment.id', 'follow_ups.id as follow_up_id', 'follow_ups.title', 'follow_ups.created_at'])
     .execute();
-  for (const r of safety) push(r.id, { kind: 'open_safety_finding', followUpId: r.follow_up_id, title: r.title, since: r.created_at.toISOString().slice(0, 10) });
-
-  for (const l of await openLeaks(actor, siteId, db, today)) {
-    push(l.equipmentId, {
-      kind: 'leak_over_threshold',
-      visitId: l.visitId,
-      ratePct: l.ratePct,
-      thresholdPct: l.thresholdPct,
-      repairDueDate: l.repairDueDate,
-      on: l.recordedAt.toISOString().slice(0, 10),
-      repairedOn: l.standing.state === 'repaired' ? l.standing.repairedOn : null,
-      verificationFailed: l.standing.state === 'repaired' && l.standing.failedTest,
-    });
-  }
 
   // From the recent no-cooling visits to their entries (by visit), never through every unit.
-  const noCooling = await db
+  const noCoolingQuery = db
     .selectFrom('visits')
     .innerJoin('sites', 'sites.id', 'visits.site_id')
     .innerJoin('entries', 'entries.visit_id', 'visits.id')
@@ -66,9 +52,8 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
     .groupBy('entries.equipment_id')
     .having(sql<boolean>`count(distinct visits.id) >= 2`)
     .execute();
-  for (const r of noCooling) push(r.id, { kind: 'repeat_no_cooling', visitIds: r.visit_ids });
 
-  const ratings = await db
+  const ratingsQuery = db
     .with('ranked', (w) =>
       w
         .selectFrom('entries')
@@ -89,6 +74,23 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
     .whereRef('latest.rating', '<', 'previous.rating')
     .select(['latest.equipment_id', 'latest.visit_id', 'latest.rating as to', 'previous.rating as from'])
     .execute();
+  // Independent lookups: sent at once, pushed in a fixed order (ties among a unit's reasons keep it).
+  const [safety, leaks, noCooling, ratings] = await Promise.all([safetyQuery, openLeaks(actor, siteId, db, today), noCoolingQuery, ratingsQuery]);
+  for (const r of safety) push(r.id, { kind: 'open_safety_finding', followUpId: r.follow_up_id, title: r.title, since: r.created_at.toISOString().slice(0, 10) });
+  for (const l of leaks) {
+    push(l.equipmentId, {
+      kind: 'leak_over_threshold',
+      visitId: l.visitId,
+      ratePct: l.ratePct,
+      thresholdPct: l.thresholdPct,
+      repairDueDate: l.repairDueDate,
+      on: l.recordedAt.toISOString().slice(0, 10),
+      repairedOn: l.standing.state === 'repaired' ? l.standing.repairedOn : null,
+      verificationFailed: l.standing.state === 'repaired' && l.standing.failedTest,
+    });
+  }
+
+  for (const r of noCooling) push(r.id, { kind: 'repeat_no_cooling', visitIds: r.visit_ids });
   for (const r of ratings) push(r.equipment_id, { kind: 'condition_worsening', from: Number(r.from), to: Number(r.to), visitId: r.visit_id });
   return found;
 }
@@ -172,14 +174,17 @@ export async function attentionPage(
   assertCan(actor, 'overview.read');
   const siteId = options.siteId ?? null;
   const after = decodeRankCursor(options.cursor);
+  const pastLife = () =>
+    visibleUnits(actor, siteId, db)
+      .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+      .where(pastExpectedLifeSql(today));
+  // The count of every unit past its life needs no signal, so it runs beside their lookups.
+  const counting = options.withTotal === false ? null : pastLife().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow();
+  counting?.catch(() => undefined);
   const found = await findSignals(actor, siteId, db, today);
   const signalled = rankUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
   const signalledIds = signalled.map((u) => u.equipmentId);
-  const ageOnly = () =>
-    visibleUnits(actor, siteId, db)
-      .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
-      .where(pastExpectedLifeSql(today))
-      .$if(signalledIds.length > 0, (q) => q.where('equipment.id', 'not in', signalledIds));
+  const ageOnly = () => pastLife().$if(signalledIds.length > 0, (q) => q.where('equipment.id', 'not in', signalledIds));
   // Age-only units are all "watch" with no dated problem; a cursor before the watch units takes them all.
   const score = pastLifeScoreSql(today);
   const [rows, counted] = await Promise.all([
@@ -193,7 +198,7 @@ export async function attentionPage(
       .orderBy('equipment.id')
       .limit(options.limit + 1)
       .execute(),
-    options.withTotal === false ? null : ageOnly().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow(),
+    counting,
   ]);
   const ageRanked = rankUnits(
     rows.map((r) => ({
@@ -212,7 +217,8 @@ export async function attentionPage(
   const last = kept.at(-1);
   return {
     items: kept.map((c) => c.u),
-    total: counted ? signalled.length + counted.n : null,
+    // Units past their life that also have another reason are in `signalled` already.
+    total: counted ? signalled.length + counted.n - signalled.filter((u) => u.signals.some((x) => x.kind === 'past_expected_life')).length : null,
     nextCursor: candidates.length > options.limit && last ? encodeRankCursor(last.key) : null,
   };
 }
