@@ -11,7 +11,7 @@ import { describedBy, Field, Input, Textarea } from '@/components/ui/field';
 import { FollowUpStatusBadge, SeverityBadge } from '@/components/visits/badges';
 import { useUpdateFollowUp } from '@/lib/follow-ups/hooks';
 import type { UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
-import type { FollowUpDto } from '@/lib/visits/dto';
+import type { FollowUpDto } from '@/lib/follow-ups/dto';
 import { formatDay } from '@/lib/format/dates';
 
 
@@ -27,13 +27,11 @@ export function ageText(f: Pick<FollowUpDto, 'ageDays' | 'status'>): string {
  */
 export function FollowUpList({
   items,
-  canWrite,
   showSite = true,
   openVisitBySite = {},
   empty = 'No follow-ups here.',
 }: {
   items: FollowUpDto[];
-  canWrite: boolean;
   showSite?: boolean;
   openVisitBySite?: Record<string, string>;
   empty?: string;
@@ -42,7 +40,7 @@ export function FollowUpList({
   return (
     <ul className="divide-y divide-slate-200 overflow-hidden rounded-lg border border-slate-200 bg-white" aria-label="Follow-ups">
       {items.map((f) => (
-        <FollowUpRow key={f.id} item={f} canWrite={canWrite} showSite={showSite} openVisitId={openVisitBySite[f.siteId]} />
+        <FollowUpRow key={f.id} item={f} showSite={showSite} openVisitId={openVisitBySite[f.siteId]} />
       ))}
     </ul>
   );
@@ -50,7 +48,7 @@ export function FollowUpList({
 
 type Step = 'schedule' | 'resolve' | 'decline' | null;
 
-function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: FollowUpDto; canWrite: boolean; showSite: boolean; openVisitId?: string }) {
+function FollowUpRow({ item: f, showSite, openVisitId }: { item: FollowUpDto; showSite: boolean; openVisitId?: string }) {
   const [step, setStep] = useState<Step>(null);
   const live = f.status === 'open' || f.status === 'scheduled';
   return (
@@ -90,7 +88,7 @@ function FollowUpRow({ item: f, canWrite, showSite, openVisitId }: { item: Follo
           The visit that closed it
         </TextLink>
       ) : null}
-      {canWrite && live ? (
+      {f.canUpdate && live ? (
         step === null ? (
           <div className="flex flex-wrap gap-2 pt-1">
             <Button variant="secondary" onClick={() => setStep('schedule')}>

@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import type { Page } from '@/lib/api/cursor';
 import type { CreateFollowUpInput, FollowUpStatus, UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
-import type { FollowUpDto } from '@/lib/visits/dto';
+import type { FollowUpDto } from '@/lib/follow-ups/dto';
 import type { Severity } from '@/lib/visits/schemas';
 
 export interface FollowUpFilters {

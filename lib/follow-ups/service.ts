@@ -6,14 +6,14 @@ import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
-import { assertCan } from '@/lib/auth/access';
+import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { getEquipment } from '@/lib/equipment/service';
 import { AppError } from '@/lib/errors';
 import type { CreateFollowUpInput, FollowUpStatus, ListFollowUpsQuery, UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
 import { getSite } from '@/lib/sites/service';
-import type { FollowUpDto } from '@/lib/visits/dto';
+import type { FollowUpDto } from '@/lib/follow-ups/dto';
 import type { Severity } from '@/lib/visits/schemas';
 
 function followUpQuery(actor: Actor, db: Db) {
@@ -48,7 +48,7 @@ function followUpQuery(actor: Actor, db: Db) {
 
 type Row = QueryRow<typeof followUpQuery>;
 
-function toDto(r: Row): FollowUpDto {
+function toDto(actor: Actor, r: Row): FollowUpDto {
   return {
     id: r.id,
     siteId: r.site_id,
@@ -67,6 +67,7 @@ function toDto(r: Row): FollowUpDto {
     createdAt: r.created_at.toISOString(),
     createdByName: r.author_name,
     ageDays: Number(r.age_days),
+    canUpdate: can(actor, 'followups.write') && allowed[r.status as FollowUpStatus].length > 0,
   };
 }
 
@@ -83,14 +84,14 @@ export async function listFollowUps(actor: Actor, query: ListFollowUpsQuery, db:
   if (query.severity?.length) q = q.where('follow_ups.severity', 'in', query.severity);
   if (cursor) q = q.where(afterCursor(cursor, 'follow_ups.created_at', 'follow_ups.id', 'asc', 'timestamptz'));
   const rows = await q.orderBy('follow_ups.created_at').orderBy('follow_ups.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, toDto, (r) => ({ k: r.created_at.toISOString(), id: r.id }));
+  return toPage(rows, query.limit, (r) => toDto(actor, r), (r) => ({ k: r.created_at.toISOString(), id: r.id }));
 }
 
 export async function getFollowUp(actor: Actor, id: string, db: Db = defaultDb): Promise<FollowUpDto> {
   assertCan(actor, 'followups.read');
   const row = await followUpQuery(actor, db).where('follow_ups.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Follow-up not found.');
-  return toDto(row);
+  return toDto(actor, row);
 }
 
 export async function countOpenBySeverity(actor: Actor, siteId: string | null, db: Db = defaultDb): Promise<Record<Severity, number>> {

@@ -81,6 +81,8 @@ export function visitFromPack(pack: SitePack, head: VisitHead): VisitCopy {
         voidedAt: null,
         voidReason: null,
         clientEntryId: e.id,
+        // Striking out needs the server; the page offers it once the server's copy loads.
+        canVoid: false,
       })),
   );
   entries.sort((a, b) => a.recordedAt.localeCompare(b.recordedAt));
@@ -102,6 +104,11 @@ export function visitFromPack(pack: SitePack, head: VisitHead): VisitCopy {
       reopenedAt: null,
       hasReport: false,
       entryCount: entries.length,
+      // The phone's person started it and works on it; review and reopen are the office's, online.
+      canAddEntries: true,
+      canClose: true,
+      canReview: false,
+      canReopen: false,
       entries,
       openBypasses: [],
     },

@@ -4,7 +4,8 @@ import { useMutation, useQuery } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
 import type { Page } from '@/lib/api/cursor';
 import type { EquipmentDto } from '@/lib/equipment/dto';
-import type { CreateRequestInput, ServiceRequestDto, UpdateRequestInput } from '@/lib/requests/schemas';
+import type { ServiceRequestDto } from '@/lib/requests/dto';
+import type { CreateRequestInput, UpdateRequestInput } from '@/lib/requests/schemas';
 
 export const requestKeys = { all: ['requests'] as const, siteEquipment: (siteId: string) => ['requests', 'site-equipment', siteId] as const };
 

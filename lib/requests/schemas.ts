@@ -42,21 +42,3 @@ export const listRequestsQuerySchema = z.object({
 export type CreateRequestInput = z.infer<typeof createRequestSchema>;
 export type UpdateRequestInput = z.infer<typeof updateRequestSchema>;
 export type ListRequestsQuery = z.infer<typeof listRequestsQuerySchema>;
-
-export interface ServiceRequestDto {
-  id: string;
-  siteId: string;
-  siteName: string;
-  clientName: string;
-  equipmentId: string | null;
-  equipmentName: string | null;
-  requestedByName: string;
-  description: string;
-  urgency: Urgency;
-  photoId: string | null;
-  status: RequestStatus;
-  officeNote: string | null;
-  visitId: string | null;
-  createdAt: string;
-  updatedAt: string;
-}

@@ -4,7 +4,7 @@ import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
-import { assertCan } from '@/lib/auth/access';
+import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { getEquipment } from '@/lib/equipment/service';
@@ -18,10 +18,10 @@ import {
   type CreateRequestInput,
   type ListRequestsQuery,
   type RequestStatus,
-  type ServiceRequestDto,
   type UpdateRequestInput,
   type Urgency,
 } from '@/lib/requests/schemas';
+import type { ServiceRequestDto } from '@/lib/requests/dto';
 import { getSite } from '@/lib/sites/service';
 
 function requestQuery(actor: Actor, db: Db) {
@@ -54,7 +54,7 @@ function requestQuery(actor: Actor, db: Db) {
 
 type Row = QueryRow<typeof requestQuery>;
 
-function toDto(r: Row): ServiceRequestDto {
+function toDto(actor: Actor, r: Row): ServiceRequestDto {
   return {
     id: r.id,
     siteId: r.site_id,
@@ -71,6 +71,7 @@ function toDto(r: Row): ServiceRequestDto {
     visitId: r.visit_id,
     createdAt: r.created_at.toISOString(),
     updatedAt: r.updated_at.toISOString(),
+    canManage: can(actor, 'requests.manage'),
   };
 }
 
@@ -82,14 +83,14 @@ export async function listRequests(actor: Actor, query: ListRequestsQuery, db: D
   if (query.siteId) q = q.where('r.site_id', '=', query.siteId);
   if (query.status?.length) q = q.where('r.status', 'in', query.status);
   const rows = await q.orderBy(urgencyRank).orderBy('r.created_at', 'desc').limit(query.limit).execute();
-  return rows.map(toDto);
+  return rows.map((r) => toDto(actor, r));
 }
 
 export async function getRequest(actor: Actor, id: string, db: Db = defaultDb): Promise<ServiceRequestDto> {
   assertCan(actor, 'requests.read');
   const row = await requestQuery(actor, db).where('r.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Service request not found.');
-  return toDto(row);
+  return toDto(actor, row);
 }
 
 /** A photo sent with a request: the bytes as uploaded, checked and stored like any unit photo. */

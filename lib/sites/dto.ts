@@ -1,4 +1,7 @@
-export interface SiteDto {
+import type { SiteFlags } from '@/lib/sites/permissions';
+
+/** A site as stored; `SiteDto` adds what the viewer may do there. */
+export interface SiteFacts {
   id: string;
   clientId: string;
   clientName: string;
@@ -17,6 +20,9 @@ export interface SiteDto {
   createdAt: string;
   updatedAt: string;
 }
+
+/** With the viewer's `SiteFlags` (lib/sites/permissions.ts), decided by the service. */
+export type SiteDto = SiteFacts & SiteFlags;
 
 export interface AreaDto {
   id: string;
@@ -47,7 +53,7 @@ export interface SiteRow {
   updated_at: Date;
 }
 
-export function toSiteDto(row: SiteRow): SiteDto {
+export function toSiteDto(row: SiteRow): SiteFacts {
   return {
     id: row.id,
     clientId: row.client_id,

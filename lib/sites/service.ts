@@ -13,6 +13,7 @@ import { recordAudit } from '@/lib/audit/service';
 import { getClient } from '@/lib/clients/service';
 import { AppError } from '@/lib/errors';
 import { toAreaDto, toSiteDto, type AreaDto, type SiteDto } from '@/lib/sites/dto';
+import { siteFlags } from '@/lib/sites/permissions';
 import type {
   CreateAreaInput,
   CreateSiteInput,
@@ -79,7 +80,8 @@ export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Pro
 /** What this actor sees of a site: the page and GET /api/sites/:id alike (lib/auth/scope.ts). */
 function siteDtoFor(actor: Actor) {
   return (row: Parameters<typeof toSiteDto>[0]): SiteDto => {
-    const dto = toSiteDto(row);
+    const facts = toSiteDto(row);
+    const dto = { ...facts, ...siteFlags(actor, facts) };
     return seesSiteAccessNotes(actor) ? dto : { ...dto, accessNotes: null };
   };
 }

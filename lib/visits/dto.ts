@@ -1,6 +1,8 @@
-import type { EntryKind, Severity, VisitReason } from '@/lib/visits/schemas';
+import type { VisitFlags } from '@/lib/visits/permissions';
+import type { EntryKind, VisitReason } from '@/lib/visits/schemas';
 
-export interface VisitDto {
+/** With what the viewer may do on it (`VisitFlags`, lib/visits/permissions.ts), decided by the service. */
+export interface VisitDto extends VisitFlags {
   id: string;
   siteId: string;
   siteName: string;
@@ -35,6 +37,8 @@ export interface EntryDto {
   voidReason: string | null;
   /** Made on the phone when the entry was submitted; a retry with it returns the first save. */
   clientEntryId: string;
+  /** The viewer may strike it out (lib/visits/permissions.ts `entryCanVoid`). */
+  canVoid: boolean;
   /** For history lists: the visit the entry belongs to. */
   visit?: { reason: VisitReason; startedAt: string; technicianName: string; status: 'open' | 'closed'; timeZone: string };
 }
@@ -43,24 +47,4 @@ export interface VisitDetailDto extends VisitDto {
   entries: EntryDto[];
   /** Bypasses recorded on this visit and not yet confirmed removed. */
   openBypasses: { entryId: string; description: string }[];
-}
-
-export interface FollowUpDto {
-  id: string;
-  siteId: string;
-  siteName: string;
-  equipmentId: string | null;
-  equipmentName: string | null;
-  title: string;
-  severity: Severity;
-  status: 'open' | 'scheduled' | 'resolved' | 'declined';
-  scheduledFor: string | null;
-  raisedVisitId: string | null;
-  closedVisitId: string | null;
-  closedAt: string | null;
-  closedByName: string | null;
-  resolution: string | null;
-  createdAt: string;
-  createdByName: string;
-  ageDays: number;
 }

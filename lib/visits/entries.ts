@@ -3,7 +3,7 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { assertCan, can } from '@/lib/auth/access';
+import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { getEquipment } from '@/lib/equipment/service';
@@ -17,6 +17,7 @@ import { entryQuery } from '@/lib/visits/queries';
 import { replaceComponent } from '@/lib/visits/replace-component';
 import type { CreateEntryInput } from '@/lib/visits/schemas';
 import { entryKindLabels } from '@/lib/visits/terms';
+import { entryCanVoid, mayVoidEntryOf } from '@/lib/visits/permissions';
 import { getVisitSummary, openVisitForWriting, toEntryDto } from '@/lib/visits/service';
 
 // Entries are saved one by one as they are made, each with its computed values, and what they
@@ -57,7 +58,9 @@ async function firstSave(actor: Actor, visitId: string, clientEntryId: string, d
   const existing = await db.selectFrom('entries').select(['id', 'visit_id']).where('company_id', '=', actor.companyId).where('client_entry_id', '=', clientEntryId).executeTakeFirst();
   if (!existing) return null;
   if (existing.visit_id !== visitId) throw new AppError('conflict', 'This entry was already saved on another visit.');
-  return toEntryDto(await entryQuery(db).where('entries.id', '=', existing.id).executeTakeFirstOrThrow());
+  const visit = await getVisitSummary(actor, visitId, db);
+  const row = await entryQuery(db).where('entries.id', '=', existing.id).executeTakeFirstOrThrow();
+  return toEntryDto(row, entryCanVoid(actor, visit, { createdBy: row.created_by, voidedAt: row.voided_at?.toISOString() ?? null }));
 }
 
 async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInput, trx: Transaction<DB>): Promise<EntryDto> {
@@ -108,7 +111,8 @@ async function insertEntry(actor: Actor, visitId: string, input: CreateEntryInpu
     // entry counts towards the new system's leak rate).
     await tools.raiseFollowUp({ title: `Check: ${what} on ${equipment.name} was recorded before it moved to ${equipment.systemName ?? equipment.areaName ?? 'its new place'}`.slice(0, 200), severity: 'minor' });
   }
-  const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow());
+  // Just saved on an open visit by the actor: theirs to strike out.
+  const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', row.id).executeTakeFirstOrThrow(), mayVoidEntryOf(actor, { createdBy: actor.id }));
   await recordAudit(trx, actor, { action: 'create', entityType: 'entry', entityId: row.id, after: dto });
   return dto;
 }
@@ -217,11 +221,11 @@ export async function voidEntry(actor: Actor, entryId: string, reason: string, d
     const entry = await trx.selectFrom('entries').select(['id', 'visit_id', 'created_by', 'voided_at']).where('id', '=', entryId).where('company_id', '=', actor.companyId).executeTakeFirst();
     if (!entry) throw new AppError('not_found', 'Entry not found.');
     const visit = await getVisitSummary(actor, entry.visit_id, trx);
-    if (entry.created_by !== actor.id && !can(actor, 'visits.review')) throw new AppError('forbidden', 'Only its author or the office can void an entry.');
+    if (!mayVoidEntryOf(actor, { createdBy: entry.created_by })) throw new AppError('forbidden', 'Only its author or the office can void an entry.');
     if (entry.voided_at) throw new AppError('conflict', 'This entry is already voided.');
     if (visit.status === 'closed' && visit.reviewedAt) throw new AppError('conflict', 'The office has reviewed this visit and its report was sent. Ask the office to reopen the visit first.');
     await trx.updateTable('entries').set({ voided_at: sql`now()`, voided_by: actor.id, void_reason: reason }).where('id', '=', entryId).execute();
-    const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', entryId).executeTakeFirstOrThrow());
+    const dto = toEntryDto(await entryQuery(trx).where('entries.id', '=', entryId).executeTakeFirstOrThrow(), false);
     await recordAudit(trx, actor, { action: 'void', entityType: 'entry', entityId: entryId, after: { reason } });
     return dto;
   });

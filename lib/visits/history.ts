@@ -11,6 +11,7 @@ import { assertEquipmentVisible } from '@/lib/equipment/service';
 import type { EntryDto } from '@/lib/visits/dto';
 import { buildHistoryQuery, type HistoryScope } from '@/lib/visits/queries';
 import type { HistoryQuery, VisitReason } from '@/lib/visits/schemas';
+import { entryCanVoid } from '@/lib/visits/permissions';
 import { toEntryDto } from '@/lib/visits/service';
 
 // A unit's or a system's history, newest first, and one reading over time for a chart.
@@ -33,7 +34,7 @@ export async function systemHistory(actor: Actor, systemId: string, query: Histo
 async function historyPage(actor: Actor, db: Db, query: HistoryQuery, scope: HistoryScope): Promise<Page<EntryDto>> {
   const rows = await buildHistoryQuery(actor, db, query, scope).execute();
   const toDto = (r: (typeof rows)[number]): EntryDto => ({
-    ...toEntryDto(r),
+    ...toEntryDto(r, entryCanVoid(actor, { status: r.visit_status as 'open' | 'closed', reviewedAt: r.visit_reviewed_at?.toISOString() ?? null }, { createdBy: r.created_by, voidedAt: r.voided_at?.toISOString() ?? null })),
     visit: {
       reason: r.visit_reason as VisitReason,
       startedAt: r.visit_started_at.toISOString(),

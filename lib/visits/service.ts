@@ -6,13 +6,14 @@ import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, cursorKey, toPage } from '@/lib/api/paging';
-import { assertCan, can } from '@/lib/auth/access';
+import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { AppError } from '@/lib/errors';
 import { linkPlanToVisit } from '@/lib/plans/service';
 import { getSite } from '@/lib/sites/service';
 import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
+import { entryCanVoid, mayWorkOnVisit, visitFlags } from '@/lib/visits/permissions';
 import { entryQuery } from '@/lib/visits/queries';
 import type { EntryKind, ListVisitsQuery, StartVisitInput, VisitReason } from '@/lib/visits/schemas';
 
@@ -50,8 +51,8 @@ function visitQuery(actor: Actor, db: Db) {
 
 type VisitRow = QueryRow<typeof visitQuery>;
 
-function toVisitDto(r: VisitRow): VisitDto {
-  return {
+function toVisitDto(actor: Actor, r: VisitRow): VisitDto {
+  const facts = {
     id: r.id,
     siteId: r.site_id,
     siteName: r.site_name,
@@ -69,6 +70,7 @@ function toVisitDto(r: VisitRow): VisitDto {
     hasReport: Boolean(r.report_key),
     entryCount: Number(r.entry_count ?? 0),
   };
+  return { ...facts, ...visitFlags(actor, facts) };
 }
 
 /** Owners see a visit only once it is closed (lib/auth/scope.ts). */
@@ -80,12 +82,13 @@ export async function getVisitSummary(actor: Actor, id: string, db: Db = default
   assertCan(actor, 'visits.read');
   const row = await visibleVisits(actor, db).where('visits.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Visit not found.');
-  return toVisitDto(row);
+  return toVisitDto(actor, row);
 }
 
 export type EntryRow = QueryRow<typeof entryQuery>;
 
-export function toEntryDto(r: EntryRow): EntryDto {
+/** `canVoid` comes from `entryCanVoid` (lib/visits/permissions.ts), which the caller runs with the entry's visit. */
+export function toEntryDto(r: EntryRow, canVoid: boolean): EntryDto {
   return {
     id: r.id,
     visitId: r.visit_id,
@@ -101,6 +104,7 @@ export function toEntryDto(r: EntryRow): EntryDto {
     voidedAt: r.voided_at?.toISOString() ?? null,
     voidReason: r.void_reason,
     clientEntryId: r.client_entry_id,
+    canVoid,
   };
 }
 
@@ -113,7 +117,8 @@ function openBypasses(entries: EntryDto[]): VisitDetailDto['openBypasses'] {
 
 export async function getVisit(actor: Actor, id: string, db: Db = defaultDb): Promise<VisitDetailDto> {
   const visit = await getVisitSummary(actor, id, db);
-  const entries = (await entryQuery(db).where('entries.visit_id', '=', id).orderBy('entries.recorded_at').orderBy('entries.id').execute()).map(toEntryDto);
+  const rows = await entryQuery(db).where('entries.visit_id', '=', id).orderBy('entries.recorded_at').orderBy('entries.id').execute();
+  const entries = rows.map((r) => toEntryDto(r, entryCanVoid(actor, visit, { createdBy: r.created_by, voidedAt: r.voided_at?.toISOString() ?? null })));
   return { ...visit, entries, openBypasses: openBypasses(entries) };
 }
 
@@ -127,7 +132,7 @@ export async function listVisits(actor: Actor, query: ListVisitsQuery, db: Db = 
   if (query.review === 'needed') q = q.where('visits.status', '=', 'closed').where('visits.reviewed_at', 'is', null);
   if (cursor) q = q.where(afterCursor(cursor, 'visits.started_at', 'visits.id', 'desc', 'timestamptz'));
   const rows = await q.orderBy('visits.started_at', 'desc').orderBy('visits.id', 'desc').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, toVisitDto, (r) => ({ k: cursorKey(r.started_at), id: r.id }));
+  return toPage(rows, query.limit, (r) => toVisitDto(actor, r), (r) => ({ k: cursorKey(r.started_at), id: r.id }));
 }
 
 export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
@@ -174,7 +179,7 @@ export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysel
 export async function openVisitForWriting(actor: Actor, visitId: string, trx: Db): Promise<VisitDto> {
   const visit = await getVisitSummary(actor, visitId, trx);
   if (visit.status !== 'open') throw new AppError('conflict', 'This visit is closed. Ask the office to reopen it to add entries.');
-  if (visit.technicianId !== actor.id && !can(actor, 'visits.review')) throw new AppError('forbidden', 'Only the visit’s technician can add entries.');
+  if (!mayWorkOnVisit(actor, visit)) throw new AppError('forbidden', 'Only the visit’s technician can add entries.');
   return visit;
 }
 

@@ -31,7 +31,6 @@ export default async function FollowUpsPage({ searchParams }: { searchParams: Pr
   const query = querySchema.parse(await searchParams);
   const actor = await requirePageActor('/follow-ups', 'followups.read');
   const status = query.status ?? 'live';
-  const canWrite = can(actor, 'followups.write');
   const [page, counts, sites, myOpen] = await Promise.all([
     listFollowUps(actor, { siteId: query.siteId, severity: query.severity ? [query.severity] : undefined, status: statusesFor(status), cursor: query.cursor, limit: 100 }),
     countOpenBySeverity(actor, query.siteId ?? null),
@@ -100,7 +99,7 @@ export default async function FollowUpsPage({ searchParams }: { searchParams: Pr
         </button>
       </form>
 
-      <FollowUpList items={page.items} canWrite={canWrite} openVisitBySite={openVisitBySite} empty="No follow-ups match." />
+      <FollowUpList items={page.items} openVisitBySite={openVisitBySite} empty="No follow-ups match." />
       {page.nextCursor ? (
         <ButtonLink href={`/follow-ups?${more}`} variant="secondary" size="lg">
           More follow-ups

@@ -4,7 +4,6 @@ import { Alert } from '@/components/ui/alert';
 import { Card, PageHeader } from '@/components/ui/card';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { photoUrls } from '@/lib/photos/dto';
 import { getRequest } from '@/lib/requests/service';
 import { urgencyLabels } from '@/lib/requests/schemas';
@@ -56,7 +55,7 @@ export default async function RequestPage({ params, searchParams }: { params: Pr
           </p>
         ) : null}
       </Card>
-      {can(actor, 'requests.manage') ? (
+      {request.canManage ? (
         <section aria-labelledby="update-h">
           <h2 id="update-h" className="mb-2 text-lg font-semibold">
             Update

@@ -8,7 +8,6 @@ import { SitePlans } from '@/components/plans/site-plans';
 import { upcomingPlansForSite } from '@/lib/plans/service';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { formatElevation } from '@/lib/units/format';
 import { siteAddress } from '@/lib/sites/dto';
 import { listEquipment } from '@/lib/equipment/service';
@@ -31,15 +30,13 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const actor = await requirePageActor(`/sites/${id}`);
   const site = await orNotFound(getSite(actor, id));
   const [areas, systems, equipment, removedEquipment] = await Promise.all([
-    listAreas(actor, id, can(actor, 'areas.write')),
+    listAreas(actor, id, site.canManageAreas),
     listSystems(actor, { siteId: id, limit: 200, archived: 'exclude' }),
     listEquipment(actor, { siteId: id, limit: 200, sort: 'name', dir: 'asc' }),
     listEquipment(actor, { siteId: id, removed: 'only', limit: 100, sort: 'updatedAt', dir: 'desc' }),
   ]);
-  const canWrite = can(actor, 'sites.write');
-  const canVisit = can(actor, 'visits.start') && !site.archivedAt;
-  // Owners ask for service here; the office records requests it takes by phone the same way.
-  const canRequest = actor.role === 'client' && can(actor, 'requests.create') && !site.archivedAt;
+  // What the viewer may do here comes with the site (lib/sites/permissions.ts), as GET /api/sites/:id sends it.
+  const { canEdit: canWrite, canStartVisit: canVisit, canAskForService: canRequest } = site;
   const [followUps, myOpenVisit, recentVisits, recentPhotos, plans] = await Promise.all([
     listFollowUps(actor, { siteId: id, status: ['open', 'scheduled'], limit: 50 }),
     canVisit ? listVisits(actor, { siteId: id, status: 'open', technicianId: actor.id, limit: 1 }).then((p) => p.items[0]) : undefined,
@@ -90,7 +87,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         }
       />
       {site.archivedAt ? <p className="rounded bg-slate-200 px-3 py-2 text-sm font-medium">Archived site: hidden from lists, kept with its history.</p> : null}
-      {can(actor, 'entries.write') && !site.archivedAt ? <KeepSitePanel siteId={site.id} timeZone={site.timeZone} /> : null}
+      {site.canKeepOffline ? <KeepSitePanel siteId={site.id} timeZone={site.timeZone} /> : null}
       <SiteAttention actor={actor} siteId={site.id} />
       <div className="grid gap-4 md:grid-cols-3">
         <Card className="md:col-span-1">
@@ -116,7 +113,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
           <h2 id="areas-h" className="mb-3 text-lg font-semibold">
             Areas
           </h2>
-          <AreaManager siteId={site.id} areas={areas} canWrite={can(actor, 'areas.write')} />
+          <AreaManager siteId={site.id} areas={areas} canWrite={site.canManageAreas} />
         </section>
       </div>
       <section aria-labelledby="follow-ups-h" className="space-y-3">
@@ -129,20 +126,20 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
             All follow-ups at this site
           </Link>
         </div>
-        <FollowUpList items={followUps.items} canWrite={can(actor, 'followups.write')} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
+        <FollowUpList items={followUps.items} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
       </section>
-      <SitePlans plans={plans} siteId={site.id} canPlan={can(actor, 'plans.write') && !site.archivedAt} viewerId={actor.id} />
+      <SitePlans plans={plans} siteId={site.id} canPlan={site.canPlan} viewerId={actor.id} />
       <SiteRecentVisits visits={recentVisits.items} siteId={site.id} />
       <SiteRecentPhotos photos={recentPhotos} timeZone={site.timeZone} />
-      <SiteSystems siteId={site.id} systems={systems} canWrite={can(actor, 'systems.write') && !site.archivedAt} />
+      <SiteSystems siteId={site.id} systems={systems} canWrite={site.canManageSystems} />
       <SiteEquipment
         siteId={site.id}
         items={equipment.items}
         removed={removedEquipment.items}
         more={equipment.nextCursor !== null}
         areas={areas}
-        canRegister={can(actor, 'equipment.write') && !site.archivedAt}
-        canImport={can(actor, 'equipment.import') && !site.archivedAt}
+        canRegister={site.canRegisterEquipment}
+        canImport={site.canImportEquipment}
       />
     </div>
   );

@@ -9,7 +9,6 @@ import { EntryKindLabel, NeedsReviewBadge, VisitStatusBadge } from '@/components
 import { EntrySummary } from '@/components/visits/entry-summary';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { listEquipment } from '@/lib/equipment/service';
 import { equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
 import { cn } from '@/lib/utils';
@@ -29,8 +28,6 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
   const actor = await requirePageActor(`/visits/${id}`);
   const visit = await orNotFound(getVisit(actor, id));
   const prefs = { units: actor.units, metricPressure: actor.metricPressure };
-  // The technician works on their own open visit; the office may add to any open one (as the API allows).
-  const canWork = visit.status === 'open' && can(actor, 'entries.write') && (visit.technicianId === actor.id || can(actor, 'visits.review'));
 
   const header = (
     <header className="space-y-2">
@@ -47,13 +44,14 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
       </p>
       <div className="flex flex-wrap items-center gap-2">
         <VisitStatusBadge status={visit.status} reviewed={Boolean(visit.reviewedAt)} />
-        {visit.status === 'closed' && !visit.reviewedAt && can(actor, 'visits.review') ? <NeedsReviewBadge /> : null}
+        {visit.canReview ? <NeedsReviewBadge /> : null}
         {visit.reopenedAt ? <span className="text-sm text-slate-700">Reopened {formatTime(visit.reopenedAt, visit.timeZone)}</span> : null}
       </div>
     </header>
   );
 
-  if (canWork) {
+  // The service decides who works on the visit (lib/visits/permissions.ts), as the API does.
+  if (visit.canAddEntries) {
     const [equipment, contexts, tagCodes] = await Promise.all([
       listEquipment(actor, { siteId: visit.siteId, status: ['in_service', 'out_of_service'], limit: 200, sort: 'name', dir: 'asc' }),
       siteEntryContexts(actor, visit.siteId),
@@ -80,8 +78,6 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
             contexts={contexts}
             tagCodes={tagCodes}
             prefs={prefs}
-            actorId={actor.id}
-            canVoidAny={can(actor, 'visits.review')}
           />
         </Suspense>
       </div>
@@ -108,10 +104,10 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
           {visit.technicianName} is working on it; entries appear as they are saved.
         </Alert>
       )}
-      {visit.status === 'closed' && can(actor, 'visits.review') ? (
+      {visit.canReview || visit.canReopen ? (
         <Card>
           <h2 className="mb-3 text-lg font-semibold">Office review</h2>
-          <ReviewActions visitId={visit.id} reviewed={Boolean(visit.reviewedAt)} />
+          <ReviewActions visitId={visit.id} canReview={visit.canReview} canReopen={visit.canReopen} />
         </Card>
       ) : null}
       {visit.summary ? (

@@ -119,8 +119,6 @@ export function OfflineVisitView() {
           contexts={copy.contexts}
           tagCodes={copy.tagCodes}
           prefs={copy.prefs}
-          actorId={copy.actorId}
-          canVoidAny={false}
           phoneCopy
         />
       </Suspense>

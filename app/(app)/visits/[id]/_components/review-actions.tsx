@@ -7,8 +7,8 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { useVisitCommand } from '@/lib/visits/hooks';
 
-/** The office's part: mark a closed visit reviewed, or reopen it so more can be added. */
-export function ReviewActions({ visitId, reviewed }: { visitId: string; reviewed: boolean }) {
+/** The office's part: mark a closed visit reviewed, or reopen it so more can be added (as the visit's flags allow). */
+export function ReviewActions({ visitId, canReview, canReopen }: { visitId: string; canReview: boolean; canReopen: boolean }) {
   const router = useRouter();
   const review = useVisitCommand(visitId, 'review');
   const reopen = useVisitCommand(visitId, 'reopen');
@@ -17,12 +17,12 @@ export function ReviewActions({ visitId, reviewed }: { visitId: string; reviewed
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-2">
-        {!reviewed ? (
+        {canReview ? (
           <Button size="lg" onClick={() => review.mutate(undefined, { onSuccess: () => router.refresh() })} disabled={review.isPending}>
             <CheckCheck aria-hidden className="size-5" /> {review.isPending ? 'Marking…' : 'Mark reviewed'}
           </Button>
         ) : null}
-        {!confirmReopen ? (
+        {!canReopen ? null : !confirmReopen ? (
           <Button size="lg" variant="secondary" onClick={() => setConfirmReopen(true)}>
             <RotateCcw aria-hidden className="size-5" /> Reopen visit…
           </Button>

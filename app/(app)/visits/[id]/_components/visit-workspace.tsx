@@ -59,8 +59,6 @@ export function VisitWorkspace({
   contexts,
   tagCodes,
   prefs,
-  actorId,
-  canVoidAny,
   phoneCopy = false,
 }: {
   visit: VisitDetailDto;
@@ -69,8 +67,6 @@ export function VisitWorkspace({
   /** Attached tag code by equipment id. */
   tagCodes: Record<string, string>;
   prefs: UnitPrefs;
-  actorId: string;
-  canVoidAny: boolean;
   /** Shown from the phone's kept copy without signal (/offline/visit): its address keeps ?id=, nothing is fetched. */
   phoneCopy?: boolean;
 }) {
@@ -312,7 +308,7 @@ export function VisitWorkspace({
             prefs={prefs}
             visitId={visit.id}
             timeZone={visit.timeZone}
-            canVoid={(r) => canVoidAny || r.saved?.createdBy === actorId}
+            canVoid={(r) => r.saved?.canVoid === true}
             onDiscard={discard}
             onRedo={(r) => go({ equipment: r.equipmentId, kind: r.kind })}
           />
@@ -384,6 +380,7 @@ export function VisitWorkspace({
         missing={missing.length}
         closeQueued={unsent.some((i) => i.type === 'close' && i.state !== 'refused')}
         closing={step === 'close'}
+        canClose={visit.canClose}
         onClose={() => photoGuard.confirm(() => go({ equipment: selected?.id, step: 'close' }))}
       />
       <LeaveDialog {...photoGuard.dialog} />
@@ -415,6 +412,7 @@ function VisitBar({
   missing,
   closeQueued,
   closing,
+  canClose,
   onClose,
 }: {
   entryCount: number;
@@ -422,6 +420,7 @@ function VisitBar({
   missing: number;
   closeQueued: boolean;
   closing: boolean;
+  canClose: boolean;
   onClose: () => void;
 }) {
   return (
@@ -434,7 +433,7 @@ function VisitBar({
             {missing > 0 ? ` · ${missing} to settle` : ''}
           </span>
         </p>
-        {!closing ? (
+        {canClose && !closing ? (
           <button type="button" onClick={onClose} className="inline-flex min-h-12 shrink-0 items-center gap-2 rounded-md bg-ice-900 px-4 font-semibold text-white hover:bg-ice-800">
             <Lock aria-hidden className="size-5" /> Close visit
           </button>
