@@ -1,7 +1,7 @@
 'use client';
 
 import { Columns2, ImageOff, LoaderCircle } from 'lucide-react';
-import { useState, type ReactNode } from 'react';
+import { useState } from 'react';
 import { PhotoCompare } from '@/components/photos/photo-compare';
 import { formatPhotoDay, PhotoKindLabel, photoKindIcons } from '@/components/photos/photo-kind';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
@@ -12,8 +12,8 @@ import { EmptyState } from '@/components/ui/card';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { usePhotos } from '@/lib/photos/hooks';
 import { photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
-import { cn } from '@/lib/utils';
 import { Section } from '@/components/ui/section';
+import { FilterChip } from '@/components/ui/filter-chip';
 
 // The photos section of an equipment page: uploader (for those who may upload), filter by kind,
 // thumbnails, the full-screen viewer and the side-by-side comparison.
@@ -52,7 +52,7 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
 
       {first && first.total > 0 ? (
         <div role="group" aria-label="Show photos of kind" className="flex flex-wrap gap-2">
-          <FilterChip pressed={kind === null} onClick={() => setKind(null)} label={`All (${first.total})`} />
+          <FilterChip pressed={kind === null} onClick={() => setKind(null)}>{`All (${first.total})`}</FilterChip>
           {photoKinds
             .filter((k) => first.kindCounts[k] > 0 || kind === k)
             .map((k) => {
@@ -62,9 +62,10 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
                   key={k}
                   pressed={kind === k}
                   onClick={() => setKind(kind === k ? null : k)}
-                  label={`${photoKindLabels[k]} (${first.kindCounts[k]})`}
                   icon={<Icon aria-hidden className="size-4" />}
-                />
+                >
+                  {`${photoKindLabels[k]} (${first.kindCounts[k]})`}
+                </FilterChip>
               );
             })}
         </div>
@@ -104,23 +105,6 @@ export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
       {viewing !== null ? <PhotoViewer photos={photos} index={viewing} timeZone={timeZone} onIndex={setOpen} onClose={() => setOpen(null)} /> : null}
       {comparing ? <PhotoCompare photos={photos} timeZone={timeZone} onClose={() => setComparing(false)} /> : null}
     </Section>
-  );
-}
-
-function FilterChip({ pressed, onClick, label, icon }: { pressed: boolean; onClick: () => void; label: string; icon?: ReactNode }) {
-  return (
-    <button
-      type="button"
-      aria-pressed={pressed}
-      onClick={onClick}
-      className={cn(
-        'inline-flex min-h-11 items-center gap-1.5 rounded-full border px-4 text-sm font-semibold',
-        pressed ? 'border-ice-900 bg-ice-900 text-white' : 'border-slate-300 bg-white text-slate-900 hover:bg-slate-100',
-      )}
-    >
-      {icon}
-      {label}
-    </button>
   );
 }
 

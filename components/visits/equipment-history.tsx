@@ -1,6 +1,6 @@
 'use client';
 
-import { Check, ChevronRight, SlidersHorizontal } from 'lucide-react';
+import { ChevronRight, SlidersHorizontal } from 'lucide-react';
 import Link from 'next/link';
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Alert } from '@/components/ui/alert';
@@ -15,6 +15,7 @@ import type { EntryDto } from '@/lib/visits/dto';
 import { useHistory, type HistoryScope } from '@/lib/visits/hooks';
 import { ENTRY_KINDS, entryKindLabels, visitReasonLabels, type EntryKind } from '@/lib/visits/schemas';
 import { formatClockWithZone, formatDay } from '@/lib/format/dates';
+import { FilterChip } from '@/components/ui/filter-chip';
 
 
 const timeIn = formatClockWithZone;
@@ -194,22 +195,5 @@ export function EquipmentHistory({
         ) : null}
       </div>
     </div>
-  );
-}
-
-function FilterChip({ pressed, onClick, children }: { pressed: boolean; onClick: () => void; children: ReactNode }) {
-  return (
-    <button
-      type="button"
-      aria-pressed={pressed}
-      onClick={onClick}
-      className={cn(
-        'inline-flex min-h-11 items-center gap-1.5 rounded-full border-2 px-3 text-sm font-semibold',
-        pressed ? 'border-ice-800 bg-ice-900 text-white' : 'border-slate-300 bg-white text-slate-900 hover:bg-slate-100',
-      )}
-    >
-      {pressed ? <Check aria-hidden className="size-4" /> : null}
-      {children}
-    </button>
   );
 }
