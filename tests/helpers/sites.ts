@@ -13,7 +13,8 @@ export interface OwnSite {
 
 /**
  * A new site of the same client, time zone and elevation as the named demo site (so that client's
- * owner sees it and readings are judged at the same altitude), named `<demo name> annex <label>`.
+ * owner sees it and readings are judged at the same altitude), named `Annex <label>`: never the
+ * demo site's name, so a page's links and text that name the demo site still find it once.
  * `request` must be signed in as the office.
  */
 export async function siteLike(request: APIRequestContext, demoName: string, label: string): Promise<OwnSite> {
@@ -21,7 +22,7 @@ export async function siteLike(request: APIRequestContext, demoName: string, lab
   expect(found.ok(), `GET sites ${demoName} → ${found.status()}`).toBe(true);
   const demo = ((await found.json()) as { items: OwnSite[] }).items.find((s) => s.name === demoName);
   if (!demo) throw new Error(`No demo site named ${demoName}`);
-  const data = { clientId: demo.clientId, name: `${demoName} annex ${label}`, timeZone: demo.timeZone, elevationM: demo.elevationM };
+  const data = { clientId: demo.clientId, name: `Annex ${label}`, timeZone: demo.timeZone, elevationM: demo.elevationM };
   const made = await request.post('/api/sites', { data });
   expect(made.status(), `POST /api/sites → ${made.status()} ${await made.text()}`).toBe(201);
   return { ...data, id: ((await made.json()) as { id: string }).id };
