@@ -62,8 +62,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
       {denied ? <Alert tone="warning" title="That page is not available to your role." /> : null}
 
       {actor.role === 'admin' ? (
-        <section aria-labelledby="admin-h" className="space-y-3">
-          <h2 id="admin-h" className="text-lg font-semibold">People and settings</h2>
+        <Section id="admin-h" title="People and settings">
           <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             <Stat label="Active users" value={counts.activeUsers} href="/settings/users" />
             <Stat label="Open invitations" value={counts.openInvitations} href="/settings/users" />
@@ -74,12 +73,11 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             <ButtonLink href="/settings/users" variant="secondary">Invite someone</ButtonLink>
             <ButtonLink href="/settings/company" variant="secondary">Company settings</ButtonLink>
           </div>
-        </section>
+        </Section>
       ) : null}
 
       {actor.role === 'office' ? (
-        <section aria-labelledby="office-h" className="space-y-3">
-          <h2 id="office-h" className="text-lg font-semibold">Customers</h2>
+        <Section id="office-h" title="Customers">
           <div className="grid grid-cols-3 gap-3">
             <Stat label="Clients" value={counts.clients} href="/clients" />
             <Stat label="Sites" value={counts.sites} href="/sites" />
@@ -89,7 +87,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
             <ButtonLink href="/clients/new">New client</ButtonLink>
             <ButtonLink href="/sites/new" variant="secondary">New site</ButtonLink>
           </div>
-        </section>
+        </Section>
       ) : null}
 
       {actor.role === 'technician' ? <TechnicianHome actor={actor} /> : null}
@@ -98,13 +96,18 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
       {actor.role === 'office' || actor.role === 'admin' ? <OfficeOverview actor={actor} /> : null}
 
       {actor.role === 'client' ? null : (
-        <section aria-labelledby="sites-h" className="space-y-3">
-          <div className="flex items-end justify-between">
-            <h2 id="sites-h" className="text-lg font-semibold">Sites</h2>
-            <Link href="/sites" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">All sites</Link>
-          </div>
+        <Section
+          id="sites-h"
+          title="Sites"
+          align="end"
+          actions={
+            <Link href="/sites" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
+              All sites
+            </Link>
+          }
+        >
           <SiteList sites={sites.items} showClient empty="No sites yet." />
-        </section>
+        </Section>
       )}
     </div>
   );
@@ -132,17 +135,18 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
           </ButtonLink>
         ) : null}
       </div>
-      <section aria-labelledby="attention-h" className="space-y-3">
-        <div className="flex items-end justify-between">
-          <h2 id="attention-h" className="text-lg font-semibold">
-            Needs attention
-          </h2>
+      <Section
+        id="attention-h"
+        title="Needs attention"
+        align="end"
+        actions={
           <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
             How this list is ordered · all
           </Link>
-        </div>
+        }
+      >
         <AttentionList units={attention.items} />
-      </section>
+      </Section>
       <Section id="sites-summary-h" title="Your sites">
         {summaries.length === 0 ? <p className="text-slate-700">No sites are shared with your account yet.</p> : null}
         <div className="grid gap-3 md:grid-cols-2">
@@ -162,27 +166,29 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
   const [attention, due, requests] = await Promise.all([attentionPage(actor, { limit: 6, withTotal: false }), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
-      <section aria-labelledby="office-attention-h" className="space-y-3">
-        <div className="flex items-end justify-between">
-          <h2 id="office-attention-h" className="text-lg font-semibold">
-            Needs attention
-          </h2>
+      <Section
+        id="office-attention-h"
+        title="Needs attention"
+        align="end"
+        actions={
           <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
             All, and how they are ordered
           </Link>
-        </div>
+        }
+      >
         <AttentionList units={attention.items} />
-      </section>
+      </Section>
       <div className="space-y-6">
-        <section aria-labelledby="requests-h" className="space-y-3">
-          <div className="flex items-end justify-between">
-            <h2 id="requests-h" className="text-lg font-semibold">
-              New service requests
-            </h2>
+        <Section
+          id="requests-h"
+          title="New service requests"
+          align="end"
+          actions={
             <Link href="/requests" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
               All requests
             </Link>
-          </div>
+          }
+        >
           {requests.length === 0 ? (
             <p className="text-sm text-slate-700">No new requests.</p>
           ) : (
@@ -197,7 +203,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
               ))}
             </ul>
           )}
-        </section>
+        </Section>
         <Section
           id="due-h"
           title="Due in the next 30 days or overdue"
