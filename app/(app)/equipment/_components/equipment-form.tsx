@@ -1,10 +1,10 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState, type ReactNode } from 'react';
-import { useForm, type FieldErrors, type Resolver, type ResolverResult, type UseFormRegister } from 'react-hook-form';
+import { useForm, type Resolver, type UseFormRegister } from 'react-hook-form';
 import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver, type PathErrors } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { conditionLook } from '@/components/equipment/condition-badge';
@@ -59,23 +59,20 @@ function toSchemaInput(values: EquipmentFormValues, siteId: string, prefs: UnitP
 }
 
 /** The schema's limits are in SI; say them in the user's units instead. */
-function rangeMessagesInUserUnits(errors: FieldErrors<EquipmentFormValues>, type: EquipmentType, prefs: UnitPrefs) {
-  const nameplateErrors = errors.nameplate as Record<string, { type?: string; message?: string }> | undefined;
-  if (!nameplateErrors) return;
+function rangeMessagesInUserUnits(errors: PathErrors, type: EquipmentType, prefs: UnitPrefs) {
   for (const field of nameplateFields[type]) {
-    const error = nameplateErrors[field.key];
+    const error = errors[`nameplate.${field.key}`];
     const range = rangeText(field, prefs);
     if (error && range && (error.type === 'too_small' || error.type === 'too_big')) error.message = `${field.label} must be ${range}.`;
   }
 }
 
 function equipmentResolver(siteId: string, prefs: UnitPrefs): Resolver<EquipmentFormValues, unknown, CreateEquipmentInput> {
-  const base = zodResolver(createEquipmentSchema);
-  return async (values, context, options) => {
-    const result = await base(toSchemaInput(values, siteId, prefs) as never, context, options as never);
-    if (values.type && Object.keys(result.errors).length > 0) rangeMessagesInUserUnits(result.errors as FieldErrors<EquipmentFormValues>, values.type, prefs);
-    return result as unknown as ResolverResult<EquipmentFormValues, CreateEquipmentInput>;
-  };
+  return schemaResolver(createEquipmentSchema, (values: EquipmentFormValues) => toSchemaInput(values, siteId, prefs), {
+    adjust: (errors, values) => {
+      if (values.type) rangeMessagesInUserUnits(errors, values.type, prefs);
+    },
+  });
 }
 
 function defaultsFrom(equipment: EquipmentDetailDto | undefined, preset: Partial<Pick<EquipmentFormValues, 'type' | 'areaId' | 'systemId'>>, prefs: UnitPrefs): EquipmentFormValues {

@@ -1,12 +1,13 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
-import { useForm, type FieldErrors, type Resolver, type ResolverResult } from 'react-hook-form';
+import { useForm, type Resolver } from 'react-hook-form';
 import { BoundField } from '@/components/forms/bound-field';
 import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
+import { UnitNumberField } from '@/components/forms/unit-number-field';
 import { Alert } from '@/components/ui/alert';
 import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
@@ -14,7 +15,7 @@ import type { SystemDto } from '@/lib/systems/dto';
 import { useSaveSystem } from '@/lib/systems/hooks';
 import { createSystemSchema, type CreateSystemInput } from '@/lib/systems/schemas';
 import { APPLICATIONS, applicationLabels } from '@/lib/equipment/types';
-import { conversionFor, formatQuantity, fromDisplayValue, toDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
+import { fromDisplayValue, toDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
 
 /** As typed: full charge and box temperature are in the user's units until they reach the schema. */
 interface SystemFormValues {
@@ -46,19 +47,14 @@ function toSchemaInput(v: SystemFormValues, siteId: string, prefs: UnitPrefs) {
 }
 
 function systemResolver(siteId: string, prefs: UnitPrefs): Resolver<SystemFormValues, unknown, CreateSystemInput> {
-  const base = zodResolver(createSystemSchema);
-  return async (values, context, options) => {
-    const result = await base(toSchemaInput(values, siteId, prefs) as never, context, options as never);
-    // The schema's limits are SI; say them in the user's units.
-    const errors = result.errors as FieldErrors<SystemFormValues>;
-    const outOfRange = (e?: { type?: unknown }) => e?.type === 'too_small' || e?.type === 'too_big';
-    if (errors.designBoxTempC && outOfRange(errors.designBoxTempC)) {
-      errors.designBoxTempC.message = `Design box temperature must be between ${formatQuantity(-60, 'temperature', prefs)} and ${formatQuantity(30, 'temperature', prefs)}.`;
-    }
-    if (errors.fullChargeKg?.type === 'too_big') errors.fullChargeKg.message = `Full charge must be at most ${formatQuantity(20_000, 'mass', prefs)}.`;
-    if (errors.maintenanceIntervalDays && outOfRange(errors.maintenanceIntervalDays)) errors.maintenanceIntervalDays.message = 'Use a whole number of days from 7 to 1095.';
-    return result as unknown as ResolverResult<SystemFormValues, CreateSystemInput>;
-  };
+  return schemaResolver(createSystemSchema, (values: SystemFormValues) => toSchemaInput(values, siteId, prefs), {
+    prefs,
+    unitFields: { fullChargeKg: { label: 'Full charge', quantity: 'mass' }, designBoxTempC: { label: 'Design box temperature', quantity: 'temperature' } },
+    adjust: (errors) => {
+      const days = errors.maintenanceIntervalDays;
+      if (days && (days.type === 'too_small' || days.type === 'too_big')) days.message = 'Use a whole number of days from 7 to 1095.';
+    },
+  });
 }
 
 export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDto; siteId: string; areas: { id: string; name: string }[]; prefs: UnitPrefs }) {
@@ -80,8 +76,6 @@ export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDt
     },
   });
   const errors = form.formState.errors;
-  const mass = conversionFor('mass', prefs).label;
-  const temp = conversionFor('temperature', prefs).label;
 
   const onSubmit = form.handleSubmit(async (input) => {
     setBanner(undefined);
@@ -121,12 +115,8 @@ export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDt
             ))}
           </Select>
         </Field>
-        <Field id="fullChargeKg" label={`Full charge (${mass})`} error={errors.fullChargeKg?.message} hint="Total refrigerant in the circuit, if known.">
-          <Input id="fullChargeKg" inputMode="decimal" autoComplete="off" {...describedBy('fullChargeKg', errors.fullChargeKg?.message)} {...form.register('fullChargeKg')} />
-        </Field>
-        <Field id="designBoxTempC" label={`Design box temperature (${temp})`} error={errors.designBoxTempC?.message} hint="What the box is meant to hold.">
-          <Input id="designBoxTempC" inputMode="text" autoComplete="off" {...describedBy('designBoxTempC', errors.designBoxTempC?.message)} {...form.register('designBoxTempC')} />
-        </Field>
+        <UnitNumberField form={form} name="fullChargeKg" label="Full charge" quantity="mass" prefs={prefs} hint="Total refrigerant in the circuit, if known." />
+        <UnitNumberField form={form} name="designBoxTempC" label="Design box temperature" quantity="temperature" prefs={prefs} hint="What the box is meant to hold." negative />
         <Field id="areaId" label="Area it serves" error={errors.areaId?.message}>
           <Select id="areaId" {...describedBy('areaId', errors.areaId?.message)} {...form.register('areaId')}>
             <option value="">No particular area</option>

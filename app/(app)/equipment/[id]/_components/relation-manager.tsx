@@ -1,11 +1,11 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { Unlink } from 'lucide-react';
 import Link from 'next/link';
 import { useState } from 'react';
-import { useForm, type Resolver, type ResolverResult } from 'react-hook-form';
+import { useForm, type Resolver } from 'react-hook-form';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -31,14 +31,20 @@ interface RelationFormValues {
   otherId: string;
 }
 
-const baseResolver = zodResolver(createRelationSchema);
-const relationResolver: Resolver<RelationFormValues, unknown, CreateRelationInput> = async (values, context, options) => {
-  const way = ways.find((w) => w.value === values.way);
-  const result = await baseResolver({ kind: way?.kind ?? '', direction: way?.direction ?? 'from', otherId: values.otherId } as never, context, options as never);
-  const errors = result.errors as Record<string, unknown>;
-  if (errors.kind) errors.way = errors.kind;
-  return result as unknown as ResolverResult<RelationFormValues, CreateRelationInput>;
-};
+const relationResolver: Resolver<RelationFormValues, unknown, CreateRelationInput> = schemaResolver(
+  createRelationSchema,
+  (values: RelationFormValues) => {
+    const way = ways.find((w) => w.value === values.way);
+    return { kind: way?.kind ?? '', direction: way?.direction ?? 'from', otherId: values.otherId };
+  },
+  {
+    // The kind and its direction are one choice on the form.
+    adjust: (errors) => {
+      const kind = errors.kind ?? errors.direction;
+      if (kind) errors.way = kind;
+    },
+  },
+);
 
 function phrase(r: RelationDto): string {
   return relationPhrases[r.kind][r.direction];
