@@ -127,7 +127,8 @@ async function movedSince(trx: Db, actor: Actor, equipmentId: string, at: Date):
     .where('entity_id', '=', equipmentId)
     .where('action', '=', 'update')
     .where('created_at', '>', at)
-    .where(sql<boolean>`(before->>'systemId') is distinct from (after->>'systemId') or (before->>'areaId') is distinct from (after->>'areaId')`)
+    // Kysely joins where() calls with "and" and no brackets: the "or" needs its own.
+    .where(sql<boolean>`((before->>'systemId') is distinct from (after->>'systemId') or (before->>'areaId') is distinct from (after->>'areaId'))`)
     .limit(1)
     .executeTakeFirst();
   return Boolean(moved);

@@ -64,4 +64,16 @@ describe('a unit changed on the server while the phone was offline', () => {
     await addEntry(tech, visit.id, { equipmentId: circuit.evaporatorId, clientEntryId: randomUUID(), kind: 'note', data: { text: 'Fan guard refitted' } });
     expect(await db.selectFrom('follow_ups').select('id').where('equipment_id', '=', circuit.evaporatorId).execute()).toHaveLength(1);
   });
+
+  it('another unit moved to another area says nothing about this one', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    const madeOffline = new Date(Date.now() - 60_000).toISOString();
+    const { createArea } = await import('@/lib/sites/service');
+    const { updateEquipment } = await import('@/lib/equipment/service');
+    const roof = await createArea(office, circuit.siteId, { name: 'North roof', kind: 'roof' });
+    await updateEquipment(office, circuit.condensingUnitId, { areaId: roof.id });
+    const { addEntry } = await import('@/lib/visits/entries');
+    await addEntry(tech, visit.id, { equipmentId: circuit.thermostatId, clientEntryId: randomUUID(), recordedAt: madeOffline, kind: 'note', data: { text: 'Thermostat checked' } });
+    expect(await db.selectFrom('follow_ups').select('title').where('equipment_id', '=', circuit.thermostatId).execute()).toEqual([]);
+  });
 });
