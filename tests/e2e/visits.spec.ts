@@ -4,6 +4,7 @@ import { evaluateLeakEvent } from '../../lib/calc/leak-rate';
 import { computeReading } from '../../lib/visits/kinds/reading';
 import type { EntryContext } from '../../lib/visits/kinds/types';
 import type { VisitDetailDto } from '../../lib/visits/dto';
+import { localDate } from '../../lib/format/dates';
 import { formatQuantity, fromDisplayValue, type UnitPrefs } from '../../lib/units/quantities';
 import { firstLink } from '../helpers/mail';
 import { nameplateImage } from '../helpers/photo-images';
@@ -273,8 +274,9 @@ test('a refrigerant addition shows the leak rate and the repair deadline the cal
   await page.getByLabel('Your certification number').fill('TC-55120');
   await page.getByRole('button', { name: 'Save refrigerant' }).click();
 
-  // First addition on record: the annualised rate uses 365 days (40 CFR 82.152).
-  const today = new Date().toISOString().slice(0, 10);
+  // First addition on record: the annualised rate uses 365 days (40 CFR 82.152). The addition's
+  // date is the site's calendar day (an evening in the Americas is already tomorrow in UTC).
+  const today = localDate(new Date(), circuit.site.timeZone);
   const expected = evaluateLeakEvent({
     refrigerant: circuitFacts.refrigerant,
     application: 'commercial_refrigeration',
@@ -319,5 +321,6 @@ test('a refrigerant addition shows the leak rate and the repair deadline the cal
   await expect(page.getByText(/Leak repair/).first()).toBeVisible();
   await expect(page.getByText(/Initial verification test/).first()).toBeVisible();
   await page.goto(`/attention?siteId=${circuit.site.id}`);
-  await expect(page.getByText(/repaired on \d{4}-\d{2}-\d{2}, verification tests still to pass/).first()).toBeVisible();
+  // Dates read as people write them (lib/format), e.g. "repaired on Dec 4, 2026".
+  await expect(page.getByText(/repaired on [A-Z][a-z]{2} \d{1,2}, \d{4}, verification tests still to pass/).first()).toBeVisible();
 });
