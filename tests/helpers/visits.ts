@@ -10,20 +10,6 @@ export async function api<T>(request: APIRequestContext, method: 'GET' | 'POST' 
   return (await res.json()) as T;
 }
 
-export interface SiteInfo {
-  id: string;
-  name: string;
-  elevationM: number;
-  timeZone: string;
-}
-
-export async function siteNamed(request: APIRequestContext, name: string): Promise<SiteInfo> {
-  const body = await api<{ items: SiteInfo[] }>(request, 'GET', `/api/sites?q=${encodeURIComponent(name)}`);
-  const site = body.items.find((s) => s.name === name);
-  if (!site) throw new Error(`No demo site named ${name}`);
-  return site;
-}
-
 export const circuitFacts = {
   refrigerant: 'R-404A',
   fullChargeKg: 13.6,
