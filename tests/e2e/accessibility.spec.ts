@@ -1,8 +1,8 @@
 // axe-core over the main pages of every role, at 360 px (phone project) and on desktop: any
 // serious or critical violation fails the test, listed by page, rule and element.
 import AxeBuilder from '@axe-core/playwright';
-import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
-import { DEMO_PASSWORD, signIn } from './helpers';
+import { expect, test, type Page } from '@playwright/test';
+import { apiAs, signIn } from './helpers';
 
 type Found = { page: string; rule: string; impact: string; help: string; targets: string[] };
 
@@ -19,15 +19,6 @@ async function audit(page: Page, path: string, found: Found[]): Promise<void> {
     if (v.impact !== 'serious' && v.impact !== 'critical') continue;
     found.push({ page: path, rule: v.id, impact: v.impact, help: v.help, targets: v.nodes.slice(0, 5).map((n) => n.target.join(' ')) });
   }
-}
-
-/** An API client signed in as a demo user, for making the records the detail pages show. */
-async function apiAs(baseURL: string, email: string): Promise<APIRequestContext> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: DEMO_PASSWORD, json: 'true' } });
-  expect((await api.get('/api/me')).ok()).toBe(true);
-  return api;
 }
 
 async function created(res: Promise<import('@playwright/test').APIResponse>): Promise<string> {

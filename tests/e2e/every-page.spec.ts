@@ -2,12 +2,12 @@
 // link-button and form control at least 44×44 px. The pages are found from app/(app) (so a new
 // page is walked without editing this file), with ids made through the API the way the app would.
 // The rule for what is measured is in DEVELOPERS.md ("Phone widths and touch targets").
-import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, readFileSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { siteLike } from '../helpers/sites';
-import { DEMO_PASSWORD, screenshotDir, signIn } from './helpers';
+import { apiAs, ok, screenshotDir, signIn } from './helpers';
 
 const appDir = path.resolve(import.meta.dirname, '../../app/(app)');
 const PHONE = 360;
@@ -29,20 +29,6 @@ function routePatterns(dir = appDir, prefix = ''): string[] {
     }
   }
   return out;
-}
-
-async function apiAs(baseURL: string, email: string): Promise<APIRequestContext> {
-  const api = await playwrightRequest.newContext({ baseURL });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: DEMO_PASSWORD, json: 'true' } });
-  expect((await api.get('/api/me')).ok()).toBe(true);
-  return api;
-}
-
-async function ok<T>(res: Promise<import('@playwright/test').APIResponse>): Promise<T> {
-  const r = await res;
-  expect(r.ok(), `${r.url()} → ${r.status()} ${await r.text()}`).toBe(true);
-  return (await r.json()) as T;
 }
 
 type Role = 'admin' | 'office' | 'technician' | 'owner';

@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, request as playwrightRequest, type APIRequestContext, type APIResponse, type Page } from '@playwright/test';
 import path from 'node:path';
 
 export const DEMO_PASSWORD = 'rimeline-demo';
@@ -18,4 +18,30 @@ export async function shot(page: Page, name: string): Promise<void> {
 
 export async function expectHome(page: Page, role: string): Promise<void> {
   await expect(page.locator(`[data-home="${role}"]`)).toBeVisible();
+}
+
+/** An API client signed in as a demo user, for setting up records the way the app would. */
+export async function apiAs(baseURL: string, email: string): Promise<APIRequestContext> {
+  const api = await playwrightRequest.newContext({ baseURL });
+  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
+  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: DEMO_PASSWORD, json: 'true' } });
+  expect((await api.get('/api/me')).ok()).toBe(true);
+  return api;
+}
+
+/** The JSON body of a response that must be a success; a failure names the address, status and body. */
+export async function ok<T>(res: Promise<APIResponse>): Promise<T> {
+  const r = await res;
+  expect(r.ok(), `${r.url()} → ${r.status()} ${await r.text()}`).toBe(true);
+  return (await r.json()) as T;
+}
+
+/** Runs set-up as the office through the API, then ends the office's session. */
+export async function asOffice<T>(baseURL: string | undefined, make: (office: APIRequestContext) => Promise<T>): Promise<T> {
+  const office = await apiAs(baseURL ?? 'http://localhost:3100', 'office@rimeline.test');
+  try {
+    return await make(office);
+  } finally {
+    await office.dispose();
+  }
 }

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { expect, test, type APIRequestContext, type Locator } from '@playwright/test';
 import { api, createCircuit } from '../helpers/visits';
-import { shot, signIn } from './helpers';
+import { asOffice, shot, signIn } from './helpers';
 
 // A unit's history: newest first, grouped by visit, filtered by kind, more pages loaded as the
 // list scrolls (or with the button, by keyboard); the system page merges its equipment.
@@ -21,14 +21,10 @@ async function recordedTimes(list: Locator): Promise<string[]> {
   return list.locator('[data-entry-kind] time').evaluateAll((els) => els.map((e) => e.getAttribute('datetime') ?? ''));
 }
 
-test('history is newest first, grouped by visit, filtered by kind, and loads older pages on scroll', async ({ page, browser }, info) => {
+test('history is newest first, grouped by visit, filtered by kind, and loads older pages on scroll', async ({ page }, info) => {
   test.setTimeout(240_000);
   const label = `H${String(Date.now()).slice(-5)}`;
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const circuit = await createCircuit(office.request, 'Quarry Road Market', label);
-  await officeContext.close();
+  const circuit = await asOffice(info.project.use.baseURL, (office) => createCircuit(office, 'Quarry Road Market', label));
 
   await signIn(page, 'tech@rimeline.test');
   const cu = circuit.condensingUnit.id;

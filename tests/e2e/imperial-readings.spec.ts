@@ -1,6 +1,6 @@
 import { expect, test, type APIRequestContext, type Locator } from '@playwright/test';
 import { api } from '../helpers/visits';
-import { shot, signIn } from './helpers';
+import { asOffice, shot, signIn } from './helpers';
 
 // A technician who reads in psig and °F, at a site 1,610 m (5,282 ft) up: every value, band and
 // warning on the readings and pressure-control forms is in °F and psig (never °C, K or kPa), the
@@ -50,14 +50,10 @@ async function mountainSite(request: APIRequestContext, label: string) {
   return { siteId: site.id, unit, control };
 }
 
-test('an imperial technician at 5,282 ft reads every reading and warning in °F and psig @phone', async ({ page, browser }, info) => {
+test('an imperial technician at 5,282 ft reads every reading and warning in °F and psig @phone', async ({ page }, info) => {
   test.setTimeout(180_000);
   const label = String(Date.now()).slice(-5);
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const { siteId, unit, control } = await mountainSite(office.request, label);
-  await officeContext.close();
+  const { siteId, unit, control } = await asOffice(info.project.use.baseURL, (office) => mountainSite(office, label));
 
   await signIn(page, 'tech@rimeline.test');
   // The preference is the technician's own: set to imperial here whatever the demo's default is.

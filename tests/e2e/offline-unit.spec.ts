@@ -5,7 +5,8 @@ import { randomUUID } from 'node:crypto';
 import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { formatCode } from '../../lib/tags/code';
 import { api } from '../helpers/visits';
-import { shot, signIn } from './helpers';
+import { asOffice, shot, signIn } from './helpers';
+import { keepSiteOnPhone } from './field';
 
 // The phone's service worker is what answers without signal.
 test.use({ serviceWorkers: 'allow' });
@@ -59,15 +60,11 @@ async function packCount(page: Page): Promise<number> {
   });
 }
 
-test('a kept site opens a never-opened unit by typed code without signal; sign-out wipes the copy @phone', async ({ page, context, browser }, info) => {
+test('a kept site opens a never-opened unit by typed code without signal; sign-out wipes the copy @phone', async ({ page, context }, info) => {
   test.setTimeout(180_000);
   const label = String(Date.now()).slice(-6);
   // The office registers the site, its units and their tags.
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const { site, evaporator, control } = await keptSite(office.request, label);
-  await officeContext.close();
+  const { site, evaporator, control } = await asOffice(info.project.use.baseURL, (office) => keptSite(office, label));
 
   await signIn(page, 'tech@rimeline.test');
   // History on the control: a visit with a note, recorded while online.
@@ -82,14 +79,7 @@ test('a kept site opens a never-opened unit by typed code without signal; sign-o
   await api(page.request, 'POST', `/api/visits/${visit.id}/close`, { summary: 'Checked.' });
 
   // Keep the site while there is signal; the worker is in control once the page is ready.
-  await page.goto(`/sites/${site.id}`);
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  const panel = page.getByTestId('keep-site');
-  await panel.getByRole('button', { name: 'Keep this site on the phone' }).click();
-  // Saving also fetches the field pages for the worker's copy: slow on a loaded machine.
-  await expect(panel.getByTestId('keep-site-status')).toContainText('Ready without signal', { timeout: 30_000 });
+  const panel = await keepSiteOnPhone(page, site.id);
   await expect(panel.getByTestId('keep-site-status')).toContainText('2 units');
   await expect(panel.getByTestId('keep-site-status')).toContainText(/\d+(\.\d)? KB/);
   await shot(page, 'offline-keep-site');
@@ -145,23 +135,13 @@ test('owners get no pack: no button on the site page and 403 from the API @phone
   expect((await page.request.get(`/api/sites/${siteId}/pack`)).status()).toBe(403);
 });
 
-test('another person signing in on the same phone wipes the first one’s kept sites and pages @phone', async ({ page, context, browser }, info) => {
+test('another person signing in on the same phone wipes the first one’s kept sites and pages @phone', async ({ page, context }, info) => {
   test.setTimeout(180_000);
   const label = String(Date.now()).slice(-6);
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const { site } = await keptSite(office.request, label);
-  await officeContext.close();
+  const { site } = await asOffice(info.project.use.baseURL, (office) => keptSite(office, label));
 
   await signIn(page, 'tech@rimeline.test');
-  await page.goto(`/sites/${site.id}`);
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  const panel = page.getByTestId('keep-site');
-  await panel.getByRole('button', { name: 'Keep this site on the phone' }).click();
-  await expect(panel.getByTestId('keep-site-status')).toContainText('Ready without signal', { timeout: 30_000 });
+  await keepSiteOnPhone(page, site.id);
   expect(await packDatabases(page)).toHaveLength(1);
   expect(await page.evaluate(async () => (await caches.keys()).includes('rimeline-pages'))).toBe(true);
 

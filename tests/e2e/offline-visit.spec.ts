@@ -9,7 +9,8 @@ import sharp from 'sharp';
 import type { VisitDetailDto } from '../../lib/visits/dto';
 import { nameplateImage } from '../helpers/photo-images';
 import { api } from '../helpers/visits';
-import { shot, signIn } from './helpers';
+import { asOffice, shot, signIn } from './helpers';
+import { keepSiteOnPhone, loseFirstAnswer } from './field';
 
 // The phone's service worker is what answers without signal.
 test.use({ serviceWorkers: 'allow' });
@@ -65,14 +66,10 @@ async function recordWithoutSignal(page: Page, control: string, evaporator: stri
   await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
 }
 
-test('a visit recorded and closed without signal reaches the server once, after a reload and a lost answer @phone', async ({ page, context, browser }, info) => {
+test('a visit recorded and closed without signal reaches the server once, after a reload and a lost answer @phone', async ({ page, context }, info) => {
   test.setTimeout(240_000);
   const label = String(Date.now()).slice(-5);
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const { siteId, cu, control, evaporator } = await offlineSite(office.request, label);
-  await officeContext.close();
+  const { siteId, cu, control, evaporator } = await asOffice(info.project.use.baseURL, (office) => offlineSite(office, label));
 
   await signIn(page, 'tech@rimeline.test');
   const visit = await api<{ id: string }>(page.request, 'POST', '/api/visits', { siteId, reason: 'no_cooling' });
@@ -113,16 +110,7 @@ test('a visit recorded and closed without signal reaches the server once, after 
   await expect(page.getByRole('alert').filter({ hasText: 'No signal' })).toContainText('3 entries, 1 photo and the close waiting');
 
   // Signal back, but the answer to the first send is lost on the way: the retry gets the first save.
-  let lost = 0;
-  await context.route(`**/api/visits/${visit.id}/entries`, async (route) => {
-    if (lost === 0) {
-      lost += 1;
-      await route.fetch();
-      await route.abort('connectionreset');
-    } else {
-      await route.continue();
-    }
-  });
+  const lost = await loseFirstAnswer(context, `**/api/visits/${visit.id}/entries`);
   await context.setOffline(false);
   await expect(async () => {
     const detail = await visitDetail(page.request, visit.id);
@@ -130,7 +118,7 @@ test('a visit recorded and closed without signal reaches the server once, after 
   }).toPass({ timeout: 90_000 });
   await context.unroute(`**/api/visits/${visit.id}/entries`);
   // The first answer really was lost (context.route sees the requests the worker makes).
-  expect(lost).toBe(1);
+  expect(lost()).toBe(1);
 
   const detail = await visitDetail(page.request, visit.id);
   const kinds = detail.entries.filter((e) => !e.voidedAt).map((e) => e.kind).sort();
@@ -142,24 +130,14 @@ test('a visit recorded and closed without signal reaches the server once, after 
   expect(detail.summary).toBe('Low-pressure control reset; drain pan heater to replace.');
 });
 
-test('a visit started without signal at a kept site reaches the server once, even when the answer to its start is lost @phone', async ({ page, context, browser }, info) => {
+test('a visit started without signal at a kept site reaches the server once, even when the answer to its start is lost @phone', async ({ page, context }, info) => {
   test.setTimeout(300_000);
   const label = String(Date.now()).slice(-5);
-  const officeContext = await browser.newContext({ baseURL: info.project.use.baseURL });
-  const office = await officeContext.newPage();
-  await signIn(office, 'office@rimeline.test');
-  const { siteId, cu, control, evaporator } = await offlineSite(office.request, label);
-  await officeContext.close();
+  const { siteId, cu, control, evaporator } = await asOffice(info.project.use.baseURL, (office) => offlineSite(office, label));
 
   // With signal: keep the site from its page; the worker keeps the field pages.
   await signIn(page, 'tech@rimeline.test');
-  await page.goto(`/sites/${siteId}`);
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  const panel = page.getByTestId('keep-site');
-  await panel.getByRole('button', { name: 'Keep this site on the phone' }).click();
-  await expect(panel.getByTestId('keep-site-status')).toContainText('Ready without signal', { timeout: 30_000 });
+  await keepSiteOnPhone(page, siteId);
   await page.goto('/scan');
   await expect.poll(() => page.evaluate(() => Boolean(navigator.serviceWorker.controller))).toBe(true);
 
@@ -198,23 +176,14 @@ test('a visit started without signal at a kept site reaches the server once, eve
   await expect(page.getByRole('alert').filter({ hasText: 'No signal' })).toContainText('3 entries, 1 photo and the close waiting');
 
   // Signal back; the answer to the start is lost on the way, so the start is sent twice.
-  let lost = 0;
-  await context.route('**/api/visits', async (route) => {
-    if (route.request().method() === 'POST' && lost === 0) {
-      lost += 1;
-      await route.fetch();
-      await route.abort('connectionreset');
-    } else {
-      await route.continue();
-    }
-  });
+  const lost = await loseFirstAnswer(context, '**/api/visits');
   await context.setOffline(false);
   await expect(async () => {
     const detail = await visitDetail(page.request, visitId);
     expect(detail.status).toBe('closed');
   }).toPass({ timeout: 120_000 });
   await context.unroute('**/api/visits');
-  expect(lost).toBe(1);
+  expect(lost()).toBe(1);
 
   const detail = await visitDetail(page.request, visitId);
   expect(detail.reason).toBe('no_cooling');

@@ -1,4 +1,4 @@
-import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { execFile } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import { mkdtemp, readdir, rm } from 'node:fs/promises';
@@ -10,22 +10,13 @@ import { lifeLine } from '../../lib/equipment/life-line';
 import { clearMail, waitForMail } from '../helpers/mail';
 import { cameraImage } from '../helpers/photo-images';
 import { siteLike } from '../helpers/sites';
-import { shot, signIn } from './helpers';
+import { apiAs, shot, signIn } from './helpers';
 
 const base = process.env.APP_URL ?? 'http://localhost:3100';
 
-/** An API client signed in as a demo user, for setting up records the way the app would. */
-async function apiAs(email: string): Promise<APIRequestContext> {
-  const api = await playwrightRequest.newContext({ baseURL: test.info().project.use.baseURL ?? base });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: 'rimeline-demo', json: 'true' } });
-  expect((await api.get('/api/me')).ok()).toBe(true);
-  return api;
-}
-
 test('an owner opens a site and a unit’s history, downloads the refrigerant report and asks for service with a photo; the office sees it @phone', async ({ page }, info) => {
-  const office = await apiAs('office@rimeline.test');
-  const tech = await apiAs('tech@rimeline.test');
+  const office = await apiAs(test.info().project.use.baseURL ?? base, 'office@rimeline.test');
+  const tech = await apiAs(test.info().project.use.baseURL ?? base, 'tech@rimeline.test');
   // A site of its own for client one: a visit left open at a demo site by another spec never blocks this one's.
   const site = await siteLike(office, 'Orchard Row Bistro', `${info.project.name} ${Date.now()}`);
   const siteId = site.id;
@@ -90,7 +81,7 @@ test('an owner opens a site and a unit’s history, downloads the refrigerant re
 });
 
 test('the office sees the request in its queue and marks it seen; the owner sees the new status', async ({ page, browser }) => {
-  const owner = await apiAs('owner@client-one.test');
+  const owner = await apiAs(test.info().project.use.baseURL ?? base, 'owner@client-one.test');
   const sites = (await (await owner.get('/api/sites')).json()) as { items: { id: string; name: string }[] };
   const created = await owner.post('/api/requests', { data: { siteId: sites.items[0]!.id, description: 'Ice on the evaporator coil', urgency: 'soon' } });
   expect(created.status()).toBe(201);

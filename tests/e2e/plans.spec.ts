@@ -1,21 +1,13 @@
 // Planned visits, as the office, a technician and an owner use them: the office plans a visit
 // from the due list and moves it, the technician starts it from their home, the owner sees it on
 // the site page, and the client's contact gets the e-mails through the outbox.
-import { expect, request as playwrightRequest, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { waitForMail } from '../helpers/mail';
 import { siteLike } from '../helpers/sites';
-import { shot, signIn } from './helpers';
+import { apiAs, shot, signIn } from './helpers';
 
 const base = process.env.APP_URL ?? 'http://localhost:3100';
 const ownerEmail = 'owner@client-one.test';
-
-async function apiAs(email: string): Promise<APIRequestContext> {
-  const api = await playwrightRequest.newContext({ baseURL: test.info().project.use.baseURL ?? base });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: 'rimeline-demo', json: 'true' } });
-  expect((await api.get('/api/me')).ok()).toBe(true);
-  return api;
-}
 
 async function switchUser(page: Page, email: string): Promise<void> {
   await page.context().clearCookies();
@@ -25,9 +17,9 @@ async function switchUser(page: Page, email: string): Promise<void> {
 test('the office plans a visit from the due list and moves it; the technician starts it from home; the owner sees it on the site page; the contact is e-mailed @phone', async ({ page }, info) => {
   // Four people's pages and two e-mails in one journey: a busy machine needs more than the default minute.
   test.setTimeout(240_000);
-  const office = await apiAs('office@rimeline.test');
-  const admin = await apiAs('admin@rimeline.test');
-  const tech = await apiAs('tech@rimeline.test');
+  const office = await apiAs(test.info().project.use.baseURL ?? base, 'office@rimeline.test');
+  const admin = await apiAs(test.info().project.use.baseURL ?? base, 'admin@rimeline.test');
+  const tech = await apiAs(test.info().project.use.baseURL ?? base, 'tech@rimeline.test');
   // A site of its own for client one (so its contact is e-mailed and its owner sees it): the visit
   // this test starts and leaves open never blocks another spec's visit at a demo site.
   const site = await siteLike(office, 'Pell Street Kitchen', `${info.project.name} ${Date.now()}`);

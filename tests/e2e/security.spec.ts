@@ -4,21 +4,13 @@
 // and the pages still run under the nonce CSP (no console CSP violations while signing in).
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
-import { signIn } from './helpers';
+import { expect, request as playwrightRequest, test } from '@playwright/test';
+import { apiAs, signIn } from './helpers';
 
 const appPort = Number(process.env.APP_PORT || 3100);
 // The other page's server listens on port 0 and reads back the port it got.
 let otherPort = 0;
 const appOrigin = `http://localhost:${appPort}`;
-
-async function apiAs(email: string): Promise<APIRequestContext> {
-  const api = await playwrightRequest.newContext({ baseURL: appOrigin });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: 'rimeline-demo', json: 'true' } });
-  expect((await api.get('/api/me')).ok()).toBe(true);
-  return api;
-}
 
 function serveOtherOrigin(html: string): Promise<Server> {
   const server = createServer((_req, res) => {
@@ -42,7 +34,7 @@ test.describe('a page on another port', () => {
   });
 
   test('cannot archive a site with the office’s cookie', async ({ page }) => {
-    const office = await apiAs('office@rimeline.test');
+    const office = await apiAs(appOrigin, 'office@rimeline.test');
     const site = ((await (await office.get('/api/sites?q=Orchard')).json()) as { items: { id: string; name: string }[] }).items[0]!;
     server = await serveOtherOrigin(
       `<!doctype html><form method="post" action="${appOrigin}/api/sites/${site.id}/archive"><button>Win a prize</button></form>`,
@@ -57,7 +49,7 @@ test.describe('a page on another port', () => {
   });
 
   test('cannot send a multipart service request with an owner’s cookie', async ({ page }) => {
-    const owner = await apiAs('owner@client-one.test');
+    const owner = await apiAs(appOrigin, 'owner@client-one.test');
     const site = ((await (await owner.get('/api/sites')).json()) as { items: { id: string }[] }).items[0]!;
     const count = async () => ((await (await owner.get('/api/requests?limit=200')).json()) as { items: unknown[] }).items.length;
     const before = await count();
@@ -130,7 +122,7 @@ test.describe('sessions end on the server', () => {
   });
 
   test('“Sign out everywhere” on My preferences ends the other browsers too', async ({ browser }) => {
-    const phone = await apiAs('tech@rimeline.test');
+    const phone = await apiAs(appOrigin, 'tech@rimeline.test');
     const context = await browser.newContext();
     const page = await context.newPage();
     await signIn(page, 'tech@rimeline.test', undefined, '/settings');

@@ -3,20 +3,12 @@
 // signed out, a tag says only that the unit is registered and sign-in comes back to it; the Scan
 // page checks a typed code as it is typed; and (@camera) a label scanned through Chromium's fake
 // camera lands on the equipment.
-import { expect, test, type APIRequestContext, type PlaywrightWorkerArgs } from '@playwright/test';
+import { expect, test, type APIRequestContext } from '@playwright/test';
 import { formatCode, generateCode } from '../../lib/tags/code';
 import { createTestDb } from '../helpers/db';
 import { fakeCameraFile } from '../playwright.config';
 import { writeFakeCameraFromLabel } from './camera';
-import { DEMO_PASSWORD, shot, signIn } from './helpers';
-
-async function apiAs(playwright: PlaywrightWorkerArgs['playwright'], baseURL: string, email: string): Promise<APIRequestContext> {
-  const api = await playwright.request.newContext({ baseURL });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  const res = await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: DEMO_PASSWORD, json: 'true' }, maxRedirects: 0 });
-  expect(res.status()).toBeLessThan(400);
-  return api;
-}
+import { apiAs, DEMO_PASSWORD, shot, signIn } from './helpers';
 
 async function siteId(api: APIRequestContext, name: string): Promise<string> {
   const body = (await (await api.get(`/api/sites?q=${encodeURIComponent(name)}`)).json()) as { items: { id: string; name: string }[] };
@@ -96,8 +88,8 @@ test('another company’s tag shows the same not-found page as an unknown code',
   expect(texts[0]).not.toContain('Elsewhere');
 });
 
-test('signed out, a tag only says the unit is registered; sign-in returns to it', async ({ page, playwright, baseURL }) => {
-  const office = await apiAs(playwright, baseURL!, 'office@rimeline.test');
+test('signed out, a tag only says the unit is registered; sign-in returns to it', async ({ page, baseURL }) => {
+  const office = await apiAs(baseURL!, 'office@rimeline.test');
   const unitName = 'Signed-out test evaporator';
   const unit = await newUnit(office, await siteId(office, 'Orchard Row Bistro'), unitName);
   const created = await office.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [unit], layoutId: 'thermal-2x1' } });
@@ -119,8 +111,8 @@ test('signed out, a tag only says the unit is registered; sign-in returns to it'
   await expect(page.getByRole('heading', { name: unitName })).toBeVisible();
 });
 
-test('the Scan page checks a typed code as it is typed and opens the unit; a damaged tag is replaced @phone', async ({ page, playwright, baseURL }) => {
-  const office = await apiAs(playwright, baseURL!, 'office@rimeline.test');
+test('the Scan page checks a typed code as it is typed and opens the unit; a damaged tag is replaced @phone', async ({ page, baseURL }) => {
+  const office = await apiAs(baseURL!, 'office@rimeline.test');
   const unitName = `Typed code test unit ${Date.now() % 100000}`;
   const unit = await newUnit(office, await siteId(office, 'Commissary'), unitName);
   const created = await office.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [unit], layoutId: 'letter-30' } });
@@ -166,9 +158,9 @@ test.describe('fake camera', () => {
   let unitId: string;
 
   // The .y4m is written before the browser of this worker starts, from a label of a real print run.
-  test.beforeAll(async ({ playwright }, info) => {
-    const baseURL = info.project.use.baseURL ?? 'http://localhost:3100';
-    const office = await apiAs(playwright, baseURL, 'office@rimeline.test');
+  test.beforeAll(async () => {
+    const baseURL = test.info().project.use.baseURL ?? 'http://localhost:3100';
+    const office = await apiAs(baseURL, 'office@rimeline.test');
     unitName = `Camera test condensing unit ${Date.now() % 100000}`;
     unitId = await newUnit(office, await siteId(office, 'Pell Street Kitchen'), unitName);
     const created = await office.post('/api/print-runs', { data: { kind: 'equipment', equipmentIds: [unitId], layoutId: 'thermal-2x1' } });

@@ -2,28 +2,14 @@
 // main action and the history's newest entry; removed units are shown apart, with their removal
 // date and what replaced them, and are never offered for new things. Names are invented.
 import { randomUUID } from 'node:crypto';
-import { expect, test, type APIRequestContext, type Page, type PlaywrightWorkerArgs } from '@playwright/test';
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { createTestDb } from '../helpers/db';
 import { siteLike } from '../helpers/sites';
 import path from 'node:path';
-import { DEMO_PASSWORD, screenshotDir, shot, signIn } from './helpers';
+import { apiAs, ok, screenshotDir, shot, signIn } from './helpers';
 
 const PSI = 6.894757; // kPa per psi (NIST SP 811, B.8)
 const FIRST_SCREEN = 740;
-
-async function apiAs(playwright: PlaywrightWorkerArgs['playwright'], baseURL: string, email: string): Promise<APIRequestContext> {
-  const api = await playwright.request.newContext({ baseURL });
-  const { csrfToken } = (await (await api.get('/api/auth/csrf')).json()) as { csrfToken: string };
-  const res = await api.post('/api/auth/callback/credentials', { form: { csrfToken, email, password: DEMO_PASSWORD, json: 'true' }, maxRedirects: 0 });
-  expect(res.status()).toBeLessThan(400);
-  return api;
-}
-
-async function ok<T>(res: Promise<import('@playwright/test').APIResponse>): Promise<T> {
-  const r = await res;
-  expect(r.ok(), `${r.url()} → ${r.status()} ${await r.text()}`).toBe(true);
-  return (await r.json()) as T;
-}
 
 async function siteNamed(api: APIRequestContext, name: string): Promise<{ id: string; timeZone: string }> {
   const body = await ok<{ items: { id: string; name: string; timeZone: string }[] }>(api.get(`/api/sites?q=${encodeURIComponent(name)}`));
@@ -36,9 +22,9 @@ async function tagFor(office: APIRequestContext, equipmentId: string): Promise<s
 }
 
 /** A dual pressure control with its settings on the nameplate and two closed visits of history. */
-async function unitWithHistory(playwright: PlaywrightWorkerArgs['playwright'], baseURL: string, label: string) {
-  const office = await apiAs(playwright, baseURL, 'office@rimeline.test');
-  const tech = await apiAs(playwright, baseURL, 'tech@rimeline.test');
+async function unitWithHistory(baseURL: string, label: string) {
+  const office = await apiAs(baseURL, 'office@rimeline.test');
+  const tech = await apiAs(baseURL, 'tech@rimeline.test');
   // Its own site: the visits made here never meet one another spec left open at a demo site.
   const site = (await siteLike(office, 'Pell Street Kitchen', label)).id;
   const unit = await ok<{ id: string; name: string }>(
@@ -86,10 +72,10 @@ async function expectNewestEntryOnFirstScreen(page: Page, newestText: string) {
   expect(box!.y + box!.height).toBeLessThanOrEqual(FIRST_SCREEN);
 }
 
-test('a scanned tag opens the unit with its settings, main action and newest history on the first screen, for a technician @phone', async ({ page, playwright, baseURL }, info) => {
+test('a scanned tag opens the unit with its settings, main action and newest history on the first screen, for a technician @phone', async ({ page, baseURL }, info) => {
   test.setTimeout(180_000);
   const label = `U${String(Date.now()).slice(-5)}`;
-  const { office, tech, site, unit, code } = await unitWithHistory(playwright, baseURL!, label);
+  const { office, tech, site, unit, code } = await unitWithHistory(baseURL!, label);
   await signIn(page, 'tech@rimeline.test');
   await page.goto(`/T/${code}`);
   await expect(page).toHaveURL(new RegExp(`/equipment/${unit.id}$`));
@@ -130,10 +116,10 @@ test('a scanned tag opens the unit with its settings, main action and newest his
   await tech.dispose();
 });
 
-test('a scanned tag opens the unit with “Ask for service” and the newest history on the first screen, for an owner @phone', async ({ page, playwright, baseURL }, info) => {
+test('a scanned tag opens the unit with “Ask for service” and the newest history on the first screen, for an owner @phone', async ({ page, baseURL }, info) => {
   test.setTimeout(180_000);
   const label = `O${String(Date.now()).slice(-5)}`;
-  const { office, tech, unit, code } = await unitWithHistory(playwright, baseURL!, label);
+  const { office, tech, unit, code } = await unitWithHistory(baseURL!, label);
   await signIn(page, 'owner@client-one.test');
   await page.goto(`/T/${code}`);
   await expect(page).toHaveURL(new RegExp(`/equipment/${unit.id}$`));
@@ -150,11 +136,11 @@ test('a scanned tag opens the unit with “Ask for service” and the newest his
   await tech.dispose();
 });
 
-test('a removed unit is shown apart with its removal date and replacement, and is never offered for new things @phone', async ({ page, playwright, baseURL }, info) => {
+test('a removed unit is shown apart with its removal date and replacement, and is never offered for new things @phone', async ({ page, baseURL }, info) => {
   test.setTimeout(180_000);
   const label = `R${String(Date.now()).slice(-5)}`;
   const name = `Freezer compressor contactor ${label}`;
-  const office = await apiAs(playwright, baseURL!, 'office@rimeline.test');
+  const office = await apiAs(baseURL!, 'office@rimeline.test');
   const { id: site, timeZone } = await siteNamed(office, 'Pell Street Kitchen');
   const old = await ok<{ id: string }>(office.post('/api/equipment', { data: { siteId: site, type: 'contactor', name, serial: `OLD-${label}`, nameplate: {} } }));
   const current = await ok<{ id: string }>(office.post('/api/equipment', { data: { siteId: site, type: 'contactor', name, serial: `NEW-${label}`, nameplate: {} } }));
@@ -217,7 +203,7 @@ test('a removed unit is shown apart with its removal date and replacement, and i
   await expect(other.locator(`option[value="${old.id}"]`)).toHaveCount(0);
   expect(await other.locator('option').count()).toBeGreaterThan(0);
 
-  const owner = await apiAs(playwright, baseURL!, 'owner@client-one.test');
+  const owner = await apiAs(baseURL!, 'owner@client-one.test');
   const choices = await ok<{ items: { id: string }[] }>(owner.get(`/api/equipment?siteId=${site}&limit=200&sort=name`));
   expect(choices.items.map((e) => e.id)).toContain(current.id);
   expect(choices.items.map((e) => e.id)).not.toContain(old.id);

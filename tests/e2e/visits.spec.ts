@@ -10,6 +10,7 @@ import { firstLink } from '../helpers/mail';
 import { nameplateImage } from '../helpers/photo-images';
 import { api, circuitFacts, createCircuit, waitForVisitReport } from '../helpers/visits';
 import { shot, signIn } from './helpers';
+import { loseFirstAnswer } from './field';
 
 // A whole no-cooling visit in the browser, as the technician does it on site — from the unit's tag
 // (desktop run) or from the site page (phone run) — then the office's side. The two runs use
@@ -232,23 +233,14 @@ test('an entry saved without signal waits on the phone and reaches the server on
   expect(await outboxTexts(page, visit.id)).toEqual([]);
 
   // The server saves it but the answer is lost: the retry gets the first save back, no duplicate.
-  let lost = 0;
-  await page.route(`**/api/visits/${visit.id}/entries`, async (route) => {
-    if (lost === 0) {
-      lost += 1;
-      await route.fetch();
-      await route.abort('connectionreset');
-    } else {
-      await route.continue();
-    }
-  });
+  const lost = await loseFirstAnswer(page, `**/api/visits/${visit.id}/entries`);
   await page.getByRole('button', { name: 'Note' }).click();
   await page.getByLabel('Note', { exact: true }).fill(`Answer lost on the way back ${label}`);
   await page.getByRole('button', { name: 'Save note' }).click();
   await expect(page.getByTestId('just-saved').getByText('Waiting for signal — kept on this phone')).toBeVisible();
   await page.getByRole('button', { name: 'Try sending now' }).click();
   await expect(page.getByTestId('just-saved').getByText('Saved', { exact: true })).toBeVisible({ timeout: 30_000 });
-  expect(lost).toBe(1);
+  expect(lost()).toBe(1);
   detail = await visitDetail(page, visit.id);
   expect(detail.entries.filter((e) => e.kind === 'note' && String(e.data.text).includes('Answer lost'))).toHaveLength(1);
   await page.unroute(`**/api/visits/${visit.id}/entries`);
