@@ -227,7 +227,7 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
     listFollowUps(actor, { limit: 5, severity: ['safety', 'down'] }),
     plansForTechnician(actor),
   ]);
-  const startable = (p: (typeof plans)[number]) => p.canStart && p.day <= p.siteToday;
+  const startable = (p: (typeof plans)[number]) => p.canStart;
   return (
     <Section id="work-h" title="Your work">
       <div className="flex flex-wrap gap-2">

@@ -4,11 +4,8 @@ import { StartPlanButton } from '@/components/plans/start-plan-button';
 import type { PlanDto } from '@/lib/plans/dto';
 import { Section } from '@/components/ui/section';
 
-/**
- * A site's coming planned visits (on its own page, so no site link). `viewerId` lets the technician
- * a plan names start it here on its day.
- */
-export function SitePlans({ plans, siteId, canPlan, viewerId }: { plans: PlanDto[]; siteId: string; canPlan: boolean; viewerId: string }) {
+/** A site's coming planned visits (on its own page, so no site link); the technician a plan names starts it here on its day (`canStart`). */
+export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId: string; canPlan: boolean }) {
   return (
     <Section
       id="site-plans-h"
@@ -30,7 +27,7 @@ export function SitePlans({ plans, siteId, canPlan, viewerId }: { plans: PlanDto
           {plans.map((p) => (
             <li key={p.id} className="min-w-0">
               <PlanCard plan={p} showDay linkSite={false}>
-                {p.canStart && p.technicianId === viewerId && p.day <= p.siteToday ? <StartPlanButton plan={p} /> : null}
+                {p.canStart ? <StartPlanButton plan={p} /> : null}
               </PlanCard>
             </li>
           ))}

@@ -4,10 +4,8 @@ import { Card } from '@/components/ui/card';
 import { TagCode } from '@/components/tags/tag-code';
 import { TagStateBadge } from '@/components/tags/tag-state-badge';
 import { TagActions } from '@/components/tags/tag-actions';
-import { can } from '@/lib/auth/access';
-import type { Actor } from '@/lib/auth/actor';
+import type { EquipmentTagInfoDto } from '@/lib/tags/dto';
 import { retireReasonLabels } from '@/lib/tags/schemas';
-import { getEquipmentTagInfo } from '@/lib/tags/service';
 import { formatMoment } from '@/lib/format/moments';
 
 const viaWords = { link: 'phone camera link', camera: 'Scan page', typed: 'typed code' } as const;
@@ -16,9 +14,12 @@ function when(iso: string, timeZone: string): string {
   return formatMoment(iso, timeZone);
 }
 
-/** The equipment page's tag box: the tag on the unit, when it was last scanned, earlier tags, and "Replace tag". */
-export async function EquipmentTagPanel({ equipmentId, actor, removed = false }: { equipmentId: string; actor: Actor; /** A removed unit gets no new tag. */ removed?: boolean }) {
-  const info = await getEquipmentTagInfo(actor, equipmentId);
+/**
+ * The equipment page's tag box: the tag on the unit, when it was last scanned, earlier tags, and
+ * "Replace tag" when the service's flags allow it. The page fetches `info` (getEquipmentTagInfo).
+ */
+export function EquipmentTagPanel({ info }: { info: EquipmentTagInfoDto }) {
+  const { equipmentId } = info;
   const tz = info.timeZone;
   return (
     <Card aria-labelledby="tag-h" role="region" data-testid="equipment-tag-panel">
@@ -72,10 +73,10 @@ export async function EquipmentTagPanel({ equipmentId, actor, removed = false }:
           </ul>
         </details>
       ) : null}
-      {can(actor, 'tags.claim') && !removed ? (
+      {info.canAttach ? (
         <div className="mt-4 space-y-2">
           <TagActions equipmentId={equipmentId} currentCode={info.current?.code ?? null} />
-          {can(actor, 'tags.print') ? (
+          {info.canPrint ? (
             <Link href={`/tags/new?equipment=${equipmentId}`} className="inline-flex min-h-11 items-center gap-2 text-sm font-semibold text-ice-800 underline">
               <Printer aria-hidden className="size-4" /> Print a new tag for this unit
             </Link>

@@ -1,4 +1,6 @@
-export interface ClientDto {
+import type { ClientFlags } from '@/lib/clients/permissions';
+
+export interface ClientFacts {
   id: string;
   name: string;
   notes: string | null;
@@ -7,6 +9,9 @@ export interface ClientDto {
   createdAt: string;
   updatedAt: string;
 }
+
+/** With the viewer's `ClientFlags` (lib/clients/permissions.ts), decided by the service. */
+export type ClientDto = ClientFacts & ClientFlags;
 
 export interface ContactDto {
   id: string;
@@ -18,7 +23,7 @@ export interface ContactDto {
   receivesReports: boolean;
 }
 
-export function toClientDto(row: {
+export function toClientFacts(row: {
   id: string;
   name: string;
   notes: string | null;
@@ -26,7 +31,7 @@ export function toClientDto(row: {
   archived_at: Date | null;
   created_at: Date;
   updated_at: Date;
-}): ClientDto {
+}): ClientFacts {
   return {
     id: row.id,
     name: row.name,

@@ -10,7 +10,8 @@ import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
-import { toClientDto, toContactDto, type ClientDto, type ContactDto } from '@/lib/clients/dto';
+import { toClientFacts, toContactDto, type ClientDto, type ContactDto } from '@/lib/clients/dto';
+import { clientFlags } from '@/lib/clients/permissions';
 import type {
   CreateClientInput,
   CreateContactInput,
@@ -19,6 +20,14 @@ import type {
   UpdateContactInput,
 } from '@/lib/clients/schemas';
 import { AppError } from '@/lib/errors';
+
+/** What this actor sees of a client, with what they may do on it: the page and the API alike. */
+function clientDtoFor(actor: Actor) {
+  return (row: Parameters<typeof toClientFacts>[0]): ClientDto => {
+    const facts = toClientFacts(row);
+    return { ...facts, ...clientFlags(actor, facts) };
+  };
+}
 
 function clientQuery(actor: Actor, db: Db) {
   return db
@@ -50,14 +59,14 @@ export async function listClients(actor: Actor, query: ListClientsQuery, db: Db 
   if (query.q) q = q.where('clients.name', 'ilike', `%${escapeLike(query.q)}%`);
   if (cursor) q = q.where(afterCursor(cursor, 'lower(clients.name)', 'clients.id', 'asc'));
   const rows = await q.orderBy(sql`lower(clients.name)`).orderBy('clients.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, toClientDto, (r) => ({ k: r.name.toLowerCase(), id: r.id }));
+  return toPage(rows, query.limit, clientDtoFor(actor), (r) => ({ k: r.name.toLowerCase(), id: r.id }));
 }
 
 export async function getClient(actor: Actor, id: string, db: Db = defaultDb): Promise<ClientDto> {
   assertCan(actor, 'clients.read');
   const row = await clientQuery(actor, db).where('clients.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Client not found.');
-  return toClientDto(row);
+  return clientDtoFor(actor)(row);
 }
 
 export async function createClient(actor: Actor, input: CreateClientInput, db: Kysely<DB> = defaultDb): Promise<ClientDto> {

@@ -1,4 +1,5 @@
 import type { Nameplate } from '@/lib/equipment/nameplate';
+import type { EquipmentFlags } from '@/lib/equipment/permissions';
 import type { EquipmentStatus, EquipmentType, RelationKind } from '@/lib/equipment/types';
 
 export interface EquipmentDto {
@@ -43,7 +44,8 @@ export interface RelationDto {
   other: { id: string; name: string; type: EquipmentType };
 }
 
-export interface EquipmentDetailDto extends EquipmentDto {
+/** One unit with what the viewer may do on it (`EquipmentFlags`, lib/equipment/permissions.ts), decided by the service. */
+export interface EquipmentDetailDto extends EquipmentDto, EquipmentFlags {
   relations: RelationDto[];
   siteElevationM: number;
   systemDesignBoxTempC: number | null;

@@ -12,6 +12,7 @@ import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto, type UnitFactsDto } from '@/lib/equipment/dto';
 import { nameplateSchemaFor } from '@/lib/equipment/nameplate';
+import { equipmentFlags } from '@/lib/equipment/permissions';
 import { buildEquipmentListQuery, equipmentBaseQuery, refrigerantExpr, selection } from '@/lib/equipment/queries';
 import type { CreateEquipmentInput, CreateRelationInput, ListEquipmentQuery, UpdateEquipmentInput } from '@/lib/equipment/schemas';
 import type { EquipmentType, RelationKind } from '@/lib/equipment/types';
@@ -52,8 +53,10 @@ export async function getEquipment(actor: Actor, id: string, db: Db = defaultDb)
     .select([...selection, refrigerantExpr.as('refrigerant'), 'sites.elevation_m', 'systems.design_box_temp_c'])
     .executeTakeFirst();
   if (!row) throw new AppError('not_found', 'Equipment not found.');
+  const dto = toEquipmentDto(row);
   return {
-    ...toEquipmentDto(row),
+    ...dto,
+    ...equipmentFlags(actor, dto),
     relations: await relationsOf(db, id),
     siteElevationM: Number(row.elevation_m),
     systemDesignBoxTempC: row.design_box_temp_c === null ? null : Number(row.design_box_temp_c),
@@ -67,16 +70,17 @@ export async function assertEquipmentVisible(actor: Actor, id: string, db: Db = 
   if (!row) throw new AppError('not_found', 'Equipment not found.');
 }
 
-/** Area and system must sit on the equipment's own site. */
-async function assertPlacement(db: Db, siteId: string, areaId: string | null | undefined, systemId: string | null | undefined): Promise<void> {
+/** Area and system must sit on the equipment's own site; an archived system takes no new unit (`joinsSystem`). */
+async function assertPlacement(db: Db, siteId: string, areaId: string | null | undefined, systemId: string | null | undefined, joinsSystem = true): Promise<void> {
   const issues = [];
   if (areaId) {
     const area = await db.selectFrom('areas').select('id').where('id', '=', areaId).where('site_id', '=', siteId).executeTakeFirst();
     if (!area) issues.push({ path: 'areaId', message: 'Choose an area of this site.' });
   }
   if (systemId) {
-    const system = await db.selectFrom('systems').select('id').where('id', '=', systemId).where('site_id', '=', siteId).executeTakeFirst();
+    const system = await db.selectFrom('systems').select(['id', 'archived_at']).where('id', '=', systemId).where('site_id', '=', siteId).executeTakeFirst();
     if (!system) issues.push({ path: 'systemId', message: 'Choose a system of this site.' });
+    else if (joinsSystem && system.archived_at) issues.push({ path: 'systemId', message: 'This system is archived: restore it first.' });
   }
   if (issues.length) throw new AppError('validation_failed', 'Some fields need attention.', issues);
 }
@@ -138,7 +142,7 @@ export async function updateEquipment(actor: Actor, id: string, input: UpdateEqu
     const before = await getEquipment(actor, id, trx);
     const areaId = input.areaId !== undefined ? input.areaId : before.areaId;
     const systemId = input.systemId !== undefined ? input.systemId : before.systemId;
-    await assertPlacement(trx, before.siteId, areaId, systemId);
+    await assertPlacement(trx, before.siteId, areaId, systemId, systemId !== before.systemId);
     const manufacturedOn = input.manufacturedOn !== undefined ? input.manufacturedOn : before.manufacturedOn;
     const installedOn = input.installedOn !== undefined ? input.installedOn : before.installedOn;
     if (manufacturedOn && installedOn && installedOn < manufacturedOn) {
@@ -190,7 +194,7 @@ export async function addRelation(actor: Actor, id: string, input: CreateRelatio
     const other = await getEquipment(actor, input.otherId, trx).catch(() => {
       throw new AppError('validation_failed', 'Choose equipment on the same site.', [{ path: 'otherId', message: 'This equipment was not found.' }]);
     });
-    if (other.status === 'removed' || self.status === 'removed') {
+    if (other.status === 'removed' || !self.canEditRelations) {
       throw new AppError('validation_failed', 'Removed equipment cannot get new relations.', [{ path: 'otherId', message: 'Choose equipment still on site.' }]);
     }
     if (other.id === self.id) throw new AppError('validation_failed', 'Equipment cannot relate to itself.', [{ path: 'otherId', message: 'Choose another piece of equipment.' }]);
@@ -211,7 +215,8 @@ export async function addRelation(actor: Actor, id: string, input: CreateRelatio
 export async function removeRelation(actor: Actor, id: string, relationId: string, db: Kysely<DB> = defaultDb): Promise<void> {
   assertCan(actor, 'equipment.write');
   await db.transaction().execute(async (trx) => {
-    await getEquipment(actor, id, trx);
+    const self = await getEquipment(actor, id, trx);
+    if (!self.canEditRelations) throw new AppError('conflict', 'A removed unit keeps its connections as they were.');
     const row = await trx
       .deleteFrom('equipment_relations')
       .where('id', '=', relationId)

@@ -1,7 +1,10 @@
+import type { Page } from '@/lib/api/cursor';
+import type { PlanFlags, PlanListFlags } from '@/lib/plans/permissions';
 import type { PlanStatus } from '@/lib/plans/terms';
 import type { VisitReason } from '@/lib/visits/terms';
 
-export interface PlanDto {
+/** A planned visit with what the viewer may do on it (`PlanFlags`, lib/plans/permissions.ts). */
+export interface PlanDto extends PlanFlags {
   id: string;
   siteId: string;
   siteName: string;
@@ -20,13 +23,12 @@ export interface PlanDto {
   /** The site's today, so pages can say "today" without their own clock. */
   siteToday: string;
   note: string | null;
+  /** The visit it started, when the viewer may open it (an owner: once it is closed). */
   visitId: string | null;
   cancelReason: string | null;
   systems: { id: string; name: string }[];
   equipment: { id: string; name: string }[];
-  /** The viewer may move or cancel it (the office, while it is planned). */
-  canChange: boolean;
-  /** The viewer may start a visit from it (staff, while it is planned). */
-  canStart: boolean;
   updatedAt: string;
 }
+
+export type PlanPage = Page<PlanDto> & PlanListFlags;

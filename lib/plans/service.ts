@@ -3,18 +3,18 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
-import type { Page } from '@/lib/api/cursor';
-import { assertCan, can } from '@/lib/auth/access';
+import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { AppError } from '@/lib/errors';
 import { localDate } from '@/lib/format/dates';
 import { kickMailDelivery } from '@/lib/mail/outbox';
 import { addDays, isOverdue } from '@/lib/plans/days';
-import type { PlanDto } from '@/lib/plans/dto';
+import type { PlanDto, PlanPage } from '@/lib/plans/dto';
+import { planFlags, planListFlags } from '@/lib/plans/permissions';
 import { queuePlanMail, type PlanMailEvent } from '@/lib/plans/mail';
 import type { CancelPlanInput, CreatePlanInput, ListPlansQuery, MovePlanInput } from '@/lib/plans/schemas';
-import { planVisibleTo } from '@/lib/auth/scope';
+import { planVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { PlanStatus } from '@/lib/plans/terms';
 import type { VisitReason } from '@/lib/visits/terms';
 
@@ -28,6 +28,7 @@ function planQuery(actor: Actor, db: Db) {
     .innerJoin('sites', 'sites.id', 'visit_plans.site_id')
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .innerJoin('users as tech', 'tech.id', 'visit_plans.technician_id')
+    .leftJoin('visits', 'visits.id', 'visit_plans.visit_id')
     .where(planVisibleTo(actor))
     .select([
       'visit_plans.id',
@@ -43,7 +44,8 @@ function planQuery(actor: Actor, db: Db) {
       sql<string>`to_char(visit_plans.window_end, 'HH24:MI')`.as('window_end'),
       'visit_plans.status',
       'visit_plans.note',
-      'visit_plans.visit_id',
+      // The started visit only when the viewer may open it (scope.ts: an owner, once it is closed).
+      sql<string | null>`case when ${visitVisibleTo(actor)()} then visits.id end`.as('visit_id'),
       'visit_plans.cancel_reason',
       'visit_plans.updated_at',
       sql<{ id: string; name: string }[]>`coalesce((select json_agg(json_build_object('id', s.id, 'name', s.name) order by s.name)
@@ -78,8 +80,7 @@ function toPlanDto(actor: Actor, r: PlanRow, now: Date): PlanDto {
     cancelReason: r.cancel_reason,
     systems: r.systems,
     equipment: r.equipment,
-    canChange: status === 'planned' && can(actor, 'plans.write'),
-    canStart: status === 'planned' && can(actor, 'visits.start'),
+    ...planFlags(actor, { status, technicianId: r.technician_id, day: r.day }, siteToday),
     updatedAt: r.updated_at.toISOString(),
   };
 }
@@ -92,7 +93,7 @@ export async function getPlan(actor: Actor, id: string, db: Db = defaultDb, now 
 }
 
 /** Plans by day, window and technician; `from`/`to` are calendar days (inclusive). */
-export async function listPlans(actor: Actor, query: ListPlansQuery, db: Db = defaultDb, now = new Date()): Promise<Page<PlanDto>> {
+export async function listPlans(actor: Actor, query: ListPlansQuery, db: Db = defaultDb, now = new Date()): Promise<PlanPage> {
   assertCan(actor, 'plans.read');
   let q = planQuery(actor, db);
   if (query.from) q = q.where('visit_plans.day', '>=', query.from);
@@ -101,7 +102,7 @@ export async function listPlans(actor: Actor, query: ListPlansQuery, db: Db = de
   if (query.technicianId) q = q.where('visit_plans.technician_id', '=', query.technicianId);
   if (query.status?.length) q = q.where('visit_plans.status', 'in', query.status);
   const rows = await q.orderBy('visit_plans.day').orderBy('visit_plans.window_start').orderBy('tech.name').orderBy('visit_plans.id').limit(query.limit).execute();
-  return { items: rows.map((r) => toPlanDto(actor, r, now)), nextCursor: null };
+  return { items: rows.map((r) => toPlanDto(actor, r, now)), nextCursor: null, ...planListFlags(actor) };
 }
 
 /** What a site's page shows: plans from the site's today on, planned or started. */
@@ -271,6 +272,7 @@ export async function linkPlanToVisit(actor: Actor, planId: string, visit: { id:
   refuseUnlessPlanned(locked.status, 'started again');
   if (locked.site_id !== visit.siteId) throw invalid('planId', 'This planned visit is for another site.');
   const before = await getPlan(actor, planId, trx);
+  if (!before.canStart) throw invalid('planId', before.technicianId === actor.id ? 'This planned visit is for a later day.' : 'This planned visit is for another technician.');
   await trx.updateTable('visit_plans').set({ status: 'started', visit_id: visit.id, updated_by: actor.id, updated_at: sql`now()` }).where('id', '=', planId).execute();
   const after = await getPlan(actor, planId, trx);
   await recordAudit(trx, actor, { action: 'start', entityType: 'visit_plan', entityId: planId, before, after });

@@ -1,4 +1,6 @@
-export interface SystemDto {
+import type { SystemFlags } from '@/lib/systems/permissions';
+
+export interface SystemFacts {
   id: string;
   siteId: string;
   siteName: string;
@@ -18,3 +20,6 @@ export interface SystemDto {
   createdAt: string;
   updatedAt: string;
 }
+
+/** With the viewer's `SystemFlags` (lib/systems/permissions.ts), decided by the service. */
+export type SystemDto = SystemFacts & SystemFlags;

@@ -9,6 +9,7 @@ import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import type { SystemDto } from '@/lib/systems/dto';
+import { systemFlags } from '@/lib/systems/permissions';
 import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/systems/schemas';
 import { AppError } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
@@ -55,8 +56,10 @@ function systemQuery(actor: Actor, db: Db) {
 
 type SystemRow = QueryRow<typeof systemQuery>;
 
-function toSystemDto(row: SystemRow): SystemDto {
+function toSystemDto(actor: Actor, row: SystemRow): SystemDto {
+  const archivedAt = row.archived_at?.toISOString() ?? null;
   return {
+    ...systemFlags(actor, { archivedAt }),
     id: row.id,
     siteId: row.site_id,
     siteName: row.site_name,
@@ -71,7 +74,7 @@ function toSystemDto(row: SystemRow): SystemDto {
     notes: row.notes,
     equipmentCount: Number(row.equipment_count ?? 0),
     condensingUnit: row.condensing_unit ? (JSON.parse(row.condensing_unit) as { id: string; name: string }) : null,
-    archivedAt: row.archived_at?.toISOString() ?? null,
+    archivedAt,
     createdAt: row.created_at.toISOString(),
     updatedAt: row.updated_at.toISOString(),
   };
@@ -85,14 +88,14 @@ export async function listSystems(actor: Actor, query: ListSystemsQuery, db: Db 
   if (query.archived === 'only') q = q.where('systems.archived_at', 'is not', null);
   if (query.q) q = q.where('systems.name', 'ilike', `%${escapeLike(query.q)}%`);
   const rows = await q.orderBy('sites.name').orderBy('systems.name').limit(query.limit).execute();
-  return rows.map(toSystemDto);
+  return rows.map((r) => toSystemDto(actor, r));
 }
 
 export async function getSystem(actor: Actor, id: string, db: Db = defaultDb): Promise<SystemDto> {
   assertCan(actor, 'systems.read');
   const row = await systemQuery(actor, db).where('systems.id', '=', id).executeTakeFirst();
   if (!row) throw new AppError('not_found', 'System not found.');
-  return toSystemDto(row);
+  return toSystemDto(actor, row);
 }
 
 async function assertAreaOnSite(db: Db, siteId: string, areaId: string | null | undefined): Promise<void> {

@@ -104,12 +104,23 @@ export interface EquipmentTagInfoDto {
   previous: TagDto[];
   lastScan: ScanDto | null;
   scanCount: number;
+  /** The viewer may put a new tag on the unit (`canAttachTag` of the unit's flags). */
+  canAttach: boolean;
+  /** The viewer may print a new tag for the unit (`canPrintTag`). */
+  canPrint: boolean;
 }
 
 /** What a scanned code opens, for the signed-in person who scanned it. */
 export type TagResolution =
   | { state: 'attached'; tag: TagDto; equipmentId: string; target: string }
-  | { state: 'blank'; tag: TagDto; canClaim: boolean; target: string }
+  | {
+      state: 'blank';
+      tag: TagDto;
+      canClaim: boolean;
+      /** The viewer may register a new unit on the tag's site while claiming it. */
+      canCreateEquipment: boolean;
+      target: string;
+    }
   | {
       state: 'retired';
       tag: TagDto;

@@ -7,7 +7,9 @@ import { clientScope } from '@/lib/auth/scope';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
+import { equipmentFlags } from '@/lib/equipment/permissions';
 import { equipmentBaseQuery } from '@/lib/equipment/queries';
+import type { EquipmentStatus } from '@/lib/equipment/types';
 import { createEquipmentSchema } from '@/lib/equipment/schemas';
 import { getEquipment, insertEquipment } from '@/lib/equipment/service';
 import { AppError } from '@/lib/errors';
@@ -28,13 +30,13 @@ async function tagByCode(db: Db, actor: Actor, code: string): Promise<TagDto> {
 }
 
 /** Can this viewer see the equipment (company and client scope)? */
-async function equipmentVisible(db: Db, actor: Actor, equipmentId: string): Promise<{ id: string; name: string; timeZone: string } | null> {
+async function equipmentVisible(db: Db, actor: Actor, equipmentId: string): Promise<{ id: string; name: string; timeZone: string; status: EquipmentStatus } | null> {
   const row = await equipmentBaseQuery(actor, db)
     .where('equipment.id', '=', equipmentId)
     .where('equipment.deleted_at', 'is', null)
-    .select(['equipment.id', 'equipment.name', 'sites.time_zone'])
+    .select(['equipment.id', 'equipment.name', 'sites.time_zone', 'equipment.status'])
     .executeTakeFirst();
-  return row ? { id: row.id, name: row.name, timeZone: row.time_zone } : null;
+  return row ? { id: row.id, name: row.name, timeZone: row.time_zone, status: row.status as EquipmentStatus } : null;
 }
 
 /** Can this viewer see the site (company and client scope)? */
@@ -64,7 +66,8 @@ export async function resolveTag(actor: Actor, code: string, via?: ScanVia, db: 
     resolution = { state: 'attached', tag, equipmentId: tag.equipmentId, target: `/equipment/${tag.equipmentId}` };
   } else if (tag.state === 'blank') {
     if (!(await siteVisible(db, actor, tag.siteId))) throw new AppError('not_found', 'Tag not found.');
-    resolution = { state: 'blank', tag, canClaim: can(actor, 'tags.claim'), target: scanTarget(tag.code) };
+    const canClaim = can(actor, 'tags.claim');
+    resolution = { state: 'blank', tag, canClaim, canCreateEquipment: canClaim && Boolean(tag.siteId) && can(actor, 'equipment.write'), target: scanTarget(tag.code) };
   } else {
     // A retired tag is shown to whoever may see the equipment it was on (or, never used, its site).
     const equipment = tag.equipmentId ? await equipmentVisible(db, actor, tag.equipmentId) : null;
@@ -127,6 +130,7 @@ export async function attachTag(actor: Actor, code: string, input: AttachTagInpu
       const equipment = await getEquipment(actor, input.equipmentId, trx).catch(() => {
         throw new AppError('validation_failed', 'Choose the equipment.', [{ path: 'equipmentId', message: 'This equipment was not found.' }]);
       });
+      if (!equipment.canAttachTag) throw new AppError('validation_failed', 'A removed unit gets no new tag.', [{ path: 'equipmentId', message: 'Choose a unit still in service.' }]);
       equipmentId = equipment.id;
     } else {
       if (!locked.site_id) {
@@ -211,6 +215,7 @@ export async function getEquipmentTagInfo(actor: Actor, equipmentId: string, db:
       .executeTakeFirstOrThrow(),
   ]);
   const dtos = tags.map(toTagDto);
+  const flags = equipmentFlags(actor, equipment);
   return {
     equipmentId,
     timeZone: equipment.timeZone,
@@ -218,6 +223,8 @@ export async function getEquipmentTagInfo(actor: Actor, equipmentId: string, db:
     previous: dtos.filter((t) => t.state !== 'attached'),
     lastScan: last ? { at: last.scanned_at.toISOString(), byName: last.by_name, code: last.code, via: last.via as ScanVia } : null,
     scanCount: Number(count.n),
+    canAttach: flags.canAttachTag,
+    canPrint: flags.canPrintTag,
   };
 }
 

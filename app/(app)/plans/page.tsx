@@ -8,7 +8,6 @@ import { Alert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { formatWeekday } from '@/lib/format/local-times';
 import { addDays, weekDays, weekStart } from '@/lib/plans/days';
 import type { PlanDto } from '@/lib/plans/dto';
@@ -37,8 +36,9 @@ export default async function PlannedVisitsPage({ searchParams }: { searchParams
   const today = await officeToday(actor);
   const monday = weekStart(query.week ?? today);
   const days = weekDays(monday);
-  const canPlan = can(actor, 'plans.write');
-  const [plans, technicians] = await Promise.all([listPlans(actor, { from: days[0], to: days[6], limit: 500 }), canPlan ? listPlanTechnicians(actor) : Promise.resolve([])]);
+  const plans = await listPlans(actor, { from: days[0], to: days[6], limit: 500 });
+  const canPlan = plans.canCreate;
+  const technicians = canPlan ? await listPlanTechnicians(actor) : [];
   const justPlanned = query.planned ? plans.items.find((p) => p.id === query.planned) : undefined;
 
   return (
@@ -83,8 +83,8 @@ export default async function PlannedVisitsPage({ searchParams }: { searchParams
                   {group.plans.map((plan) => (
                     <li key={plan.id} className="min-w-0">
                       <PlanCard plan={plan} showTechnician={false}>
-                        {plan.canStart && plan.technicianId === actor.id && plan.day <= plan.siteToday ? <StartPlanButton plan={plan} /> : null}
-                        {plan.visitId && actor.role !== 'client' ? (
+                        {plan.canStart ? <StartPlanButton plan={plan} /> : null}
+                        {plan.visitId ? (
                           <Link href={`/visits/${plan.visitId}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
                             Open the visit
                           </Link>

@@ -4,7 +4,6 @@ import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { getClient, listContacts } from '@/lib/clients/service';
 import { listSites } from '@/lib/sites/service';
 import { ArchiveClientButton } from '@/app/(app)/clients/[id]/_components/archive-client-button';
@@ -18,20 +17,21 @@ export default async function ClientPage({ params }: { params: Promise<{ id: str
   const actor = await requirePageActor(`/clients/${id}`, 'contacts.read');
   const client = await orNotFound(getClient(actor, id));
   const [sites, contacts] = await Promise.all([listSites(actor, { clientId: id, limit: 200, archived: 'exclude' }), listContacts(actor, id)]);
-  const canWrite = can(actor, 'clients.write');
   return (
     <div className="space-y-6">
       <PageHeader
         title={client.name}
         subtitle={client.archivedAt ? 'Archived client' : `${client.siteCount} ${client.siteCount === 1 ? 'site' : 'sites'}`}
         actions={
-          canWrite ? (
+          client.canAddSite || client.canEdit || client.canArchive ? (
             <>
-              <ButtonLink href={`/sites/new?clientId=${client.id}`}>Add a site</ButtonLink>
-              <ButtonLink href={`/clients/${client.id}/edit`} variant="secondary">
-                Edit
-              </ButtonLink>
-              <ArchiveClientButton clientId={client.id} archived={Boolean(client.archivedAt)} />
+              {client.canAddSite ? <ButtonLink href={`/sites/new?clientId=${client.id}`}>Add a site</ButtonLink> : null}
+              {client.canEdit ? (
+                <ButtonLink href={`/clients/${client.id}/edit`} variant="secondary">
+                  Edit
+                </ButtonLink>
+              ) : null}
+              {client.canArchive ? <ArchiveClientButton clientId={client.id} archived={Boolean(client.archivedAt)} /> : null}
             </>
           ) : null
         }
@@ -41,7 +41,7 @@ export default async function ClientPage({ params }: { params: Promise<{ id: str
         <SiteList sites={sites.items} showClient={false} empty="This client has no sites yet." />
       </Section>
       <Section id="contacts-h" title="Contacts">
-        <ContactManager clientId={client.id} contacts={contacts} canWrite={can(actor, 'contacts.write')} />
+        <ContactManager clientId={client.id} contacts={contacts} canWrite={client.canManageContacts} />
       </Section>
     </div>
   );

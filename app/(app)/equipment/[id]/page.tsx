@@ -9,9 +9,9 @@ import { EquipmentHistory } from '@/components/visits/equipment-history';
 import { ReadingChart } from '@/components/visits/reading-chart';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { nameplateFields } from '@/lib/equipment/nameplate';
 import { getEquipment, getUnitFacts } from '@/lib/equipment/service';
+import { getEquipmentTagInfo } from '@/lib/tags/service';
 import { formatDay } from '@/lib/format/dates';
 import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
 import { equipmentHistory } from '@/lib/visits/history';
@@ -65,17 +65,19 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
   const { id } = await params;
   const actor = await requirePageActor(`/equipment/${id}`);
   const equipment = await orNotFound(getEquipment(actor, id));
-  const [facts, initialHistory] = await Promise.all([getUnitFacts(actor, equipment), equipmentHistory(actor, equipment.id, { limit: HISTORY_PAGE_SIZE })]);
+  const [facts, initialHistory, tagInfo] = await Promise.all([
+    getUnitFacts(actor, equipment),
+    equipmentHistory(actor, equipment.id, { limit: HISTORY_PAGE_SIZE }),
+    getEquipmentTagInfo(actor, equipment.id),
+  ]);
   const prefs = { units: actor.units, metricPressure: actor.metricPressure };
   const fields = nameplateFields[equipment.type];
-  const canWrite = can(actor, 'equipment.write');
-  const canDelete = can(actor, 'equipment.delete');
-  const officeRequest = actor.role !== 'client' && can(actor, 'requests.create') && equipment.status !== 'removed';
+  const { canEdit, canDelete, canLogRequest } = equipment;
 
   return (
     <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)] lg:gap-x-8 lg:gap-y-5">
       <div className="lg:col-span-2">
-        <UnitHeader actor={actor} equipment={equipment} facts={facts} prefs={prefs} />
+        <UnitHeader equipment={equipment} facts={facts} prefs={prefs} />
       </div>
 
       <section aria-labelledby="history-h" className="min-w-0" data-testid="unit-history">
@@ -122,10 +124,10 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
           <DetailList rows={fields.map((f) => ({ label: f.label, value: formatNameplateValue(f, equipment.nameplate[f.key], prefs) }))} />
         </Card>
 
-        <EquipmentTagPanel equipmentId={equipment.id} actor={actor} removed={equipment.status === 'removed'} />
+        <EquipmentTagPanel info={tagInfo} />
 
         <Section id="relations-h" title="Connected equipment">
-          <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={canWrite && equipment.status !== 'removed'} />
+          <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={equipment.canEditRelations} />
         </Section>
 
         <EquipmentPhotos equipmentId={equipment.id} />
@@ -134,16 +136,16 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
           <ReadingChart equipmentId={equipment.id} prefs={prefs} timeZone={equipment.siteTimeZone} />
         </Section>
 
-        {canWrite || canDelete || officeRequest ? (
+        {canEdit || canDelete || canLogRequest ? (
           <details className="group rounded-lg border border-slate-200 bg-white" data-testid="unit-manage">
-            <summary className="flex min-h-12 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">{`More for this unit: ${[canWrite && 'edit', canDelete && 'delete', officeRequest && 'service request'].filter(Boolean).join(', ')}`}</summary>
+            <summary className="flex min-h-12 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">{`More for this unit: ${[canEdit && 'edit', canDelete && 'delete', canLogRequest && 'service request'].filter(Boolean).join(', ')}`}</summary>
             <div className="flex flex-wrap gap-2 border-t border-slate-200 p-4">
-              {canWrite ? (
+              {canEdit ? (
                 <ButtonLink href={`/equipment/${equipment.id}/edit`} variant="secondary">
                   Edit
                 </ButtonLink>
               ) : null}
-              {officeRequest ? (
+              {canLogRequest ? (
                 <ButtonLink href={`/requests/new?siteId=${equipment.siteId}&equipmentId=${equipment.id}`} variant="secondary">
                   Log a service request
                 </ButtonLink>

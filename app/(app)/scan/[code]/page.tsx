@@ -7,7 +7,6 @@ import { PageHeader } from '@/components/ui/card';
 import { TagStateBadge } from '@/components/tags/tag-state-badge';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { listEquipment } from '@/lib/equipment/service';
 import { listAreas } from '@/lib/sites/service';
 import { codeFromPathSegment, formatCode } from '@/lib/tags/code';
@@ -106,7 +105,7 @@ export default async function TagStatePage({ params }: { params: Promise<{ code:
         siteName={tag.siteName ?? 'this site'}
         equipment={equipment.items.map((e) => ({ id: e.id, name: e.name, type: e.type, areaName: e.areaName, tagCode: codes[e.id] ?? null }))}
         areas={areas.filter((a) => !a.archivedAt).map((a) => ({ id: a.id, name: a.name }))}
-        canCreate={can(actor, 'equipment.write')}
+        canCreate={resolution.canCreateEquipment}
       />
     </>
   );

@@ -128,7 +128,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         </div>
         <FollowUpList items={followUps.items} showSite={false} openVisitBySite={myOpenVisit ? { [site.id]: myOpenVisit.id } : {}} empty="Nothing open at this site." />
       </section>
-      <SitePlans plans={plans} siteId={site.id} canPlan={site.canPlan} viewerId={actor.id} />
+      <SitePlans plans={plans} siteId={site.id} canPlan={site.canPlan} />
       <SiteRecentVisits visits={recentVisits.items} siteId={site.id} />
       <SiteRecentPhotos photos={recentPhotos} timeZone={site.timeZone} />
       <SiteSystems siteId={site.id} systems={systems} canWrite={site.canManageSystems} />

@@ -7,7 +7,6 @@ import { Card } from '@/components/ui/card';
 import { EquipmentHistory } from '@/components/visits/equipment-history';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
-import { can } from '@/lib/auth/access';
 import { listEquipment } from '@/lib/equipment/service';
 import { applicationLabels } from '@/lib/equipment/types';
 import { getSystem } from '@/lib/systems/service';
@@ -34,7 +33,6 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
   const system = await orNotFound(getSystem(actor, id));
   const members = await listEquipment(actor, { systemId: system.id, limit: 200, sort: 'type', dir: 'asc' });
   const prefs = { units: actor.units, metricPressure: actor.metricPressure };
-  const canWrite = can(actor, 'systems.write');
   const registerHref = `/equipment/new?siteId=${system.siteId}&systemId=${system.id}${system.areaId ? `&areaId=${system.areaId}` : ''}`;
 
   return (
@@ -51,20 +49,18 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
           </p>
         </div>
         <div className="flex flex-wrap gap-2">
-          {can(actor, 'equipment.write') && !system.archivedAt ? <ButtonLink href={registerHref}>Register equipment</ButtonLink> : null}
-          {can(actor, 'plans.write') && !system.archivedAt ? (
+          {system.canRegisterEquipment ? <ButtonLink href={registerHref}>Register equipment</ButtonLink> : null}
+          {system.canPlan ? (
             <ButtonLink href={`/plans/new?siteId=${system.siteId}&systemId=${system.id}`} variant="secondary">
               Plan a visit
             </ButtonLink>
           ) : null}
-          {canWrite ? (
-            <>
-              <ButtonLink href={`/systems/${system.id}/edit`} variant="secondary">
-                Edit system
-              </ButtonLink>
-              <ArchiveSystemButton systemId={system.id} archived={Boolean(system.archivedAt)} />
-            </>
+          {system.canEdit ? (
+            <ButtonLink href={`/systems/${system.id}/edit`} variant="secondary">
+              Edit system
+            </ButtonLink>
           ) : null}
+          {system.canArchive ? <ArchiveSystemButton systemId={system.id} archived={Boolean(system.archivedAt)} /> : null}
         </div>
       </div>
       {system.archivedAt ? <p className="rounded bg-slate-200 px-3 py-2 text-sm font-medium">Archived system: kept with its equipment and history.</p> : null}

@@ -5,8 +5,6 @@ import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import { QuickPhotoButton } from '@/components/photos/quick-photo';
 import { ButtonLink } from '@/components/ui/button';
-import { can } from '@/lib/auth/access';
-import type { Actor } from '@/lib/auth/actor';
 import { currentSettings, type SettingLine } from '@/lib/equipment/current-settings';
 import type { EquipmentDetailDto, UnitFactsDto } from '@/lib/equipment/dto';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
@@ -75,7 +73,7 @@ function SettingsTable({ lines }: { lines: SettingLine[] }) {
  * The top of the unit page, sized for a phone's first screen: what and where it is, how it is, its
  * tag, when it was last seen to, its control settings, and the one or two things the viewer does next.
  */
-export function UnitHeader({ actor, equipment, facts, prefs }: { actor: Actor; equipment: EquipmentDetailDto; facts: UnitFactsDto; prefs: UnitPrefs }) {
+export function UnitHeader({ equipment, facts, prefs }: { equipment: EquipmentDetailDto; facts: UnitFactsDto; prefs: UnitPrefs }) {
   const removed = equipment.status === 'removed';
   const settings = currentSettings(equipment.type, equipment.nameplate, prefs);
   const followUpWord = facts.openFollowUps === 1 ? 'open follow-up' : 'open follow-ups';
@@ -133,7 +131,7 @@ export function UnitHeader({ actor, equipment, facts, prefs }: { actor: Actor; e
           {settings.length > 0 ? <SettingsTable lines={settings} /> : null}
           {/* The main actions for this viewer; other tools (a photo shortcut) add their buttons here. */}
           <div data-slot="unit-actions" className="flex flex-wrap gap-2 pt-1 lg:justify-end">
-            {can(actor, 'visits.start') && !removed ? (
+            {equipment.canStartVisit ? (
               facts.openVisitId ? (
                 <ButtonLink href={`/visits/${facts.openVisitId}?equipment=${equipment.id}`} size="lg">
                   <ClipboardPen aria-hidden className="size-5" /> Continue visit
@@ -144,8 +142,8 @@ export function UnitHeader({ actor, equipment, facts, prefs }: { actor: Actor; e
                 </ButtonLink>
               )
             ) : null}
-            <QuickPhotoButton equipmentId={equipment.id} canUpload={can(actor, 'photos.upload')} />
-            {actor.role === 'client' && can(actor, 'requests.create') && !removed ? (
+            <QuickPhotoButton equipmentId={equipment.id} canUpload={equipment.canUploadPhoto} />
+            {equipment.canAskForService ? (
               // Where a scan lands an owner: what to do when the unit is not right.
               <ButtonLink href={`/requests/new?siteId=${equipment.siteId}&equipmentId=${equipment.id}`} size="lg">
                 <BellRing aria-hidden className="size-5" /> Ask for service
