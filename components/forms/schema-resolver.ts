@@ -33,7 +33,7 @@ function rangeMessage(issue: Issue, field: UnitField, prefs: UnitPrefs): string 
   return null;
 }
 
-/** The first error at each path, range errors on unit fields in the reader's units. */
+/** The first error at each path (`root` for the form as a whole), range errors on unit fields in the reader's units. */
 export function pathErrors(issues: readonly Issue[], unitFields: Record<string, UnitField> = {}, prefs?: UnitPrefs): PathErrors {
   const errors: PathErrors = {};
   const all: Issue[] = [...issues];
@@ -41,7 +41,8 @@ export function pathErrors(issues: readonly Issue[], unitFields: Record<string, 
   for (const issue of all) {
     // A plain union says only that no branch fitted; the branches' own issues name the fields.
     if (issue.code === 'invalid_union') all.push(...issue.errors.flat().map((e) => ({ ...e, path: [...issue.path, ...e.path] })));
-    const path = issue.path.map(String).join('.');
+    // An issue about the whole form (no path) is react-hook-form's `root` error.
+    const path = issue.path.map(String).join('.') || 'root';
     if (errors[path]) continue;
     const field = unitFields[path];
     errors[path] = { type: issue.code, message: (field && prefs ? rangeMessage(issue, field, prefs) : null) ?? issue.message };

@@ -77,4 +77,12 @@ describe('pathErrors', () => {
     const twice = z.object({ n: z.number().min(5, 'First.').refine(() => false, 'Second.') }).safeParse({ n: 1 });
     expect(pathErrors(twice.success ? [] : twice.error.issues).n?.message).toBe('First.');
   });
+
+  it('puts an issue about the whole form (no path) at react-hook-form’s root', () => {
+    const atLeastOne = z.object({ a: z.number().optional() }).refine((d) => d.a !== undefined, 'Enter at least one reading.');
+    const parsed = atLeastOne.safeParse({});
+    const errors = pathErrors(parsed.success ? [] : parsed.error.issues);
+    expect(errors.root?.message).toBe('Enter at least one reading.');
+    expect(errors['']).toBeUndefined();
+  });
 });

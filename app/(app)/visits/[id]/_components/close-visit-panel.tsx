@@ -2,13 +2,16 @@
 
 import { CircleCheck, Lock } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useRef, useState, type FormEvent } from 'react';
+import { useMemo, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
-import { describedBy, Field, Textarea } from '@/components/ui/field';
 import type { VisitDetailDto } from '@/lib/visits/dto';
 import { newClientId, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
-import { CheckCard } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { closeVisitSchema, type CloseVisitInput } from '@/lib/visits/schemas';
+import { BoundCheckCard } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 /** Bypasses on record: the server's, plus any recorded on the phone and not yet sent. */
 export function bypassesOf(visit: VisitDetailDto, items: readonly OutboxItem[]): string[] {
@@ -31,6 +34,19 @@ export function stillMissing(visit: VisitDetailDto, items: readonly OutboxItem[]
   return out;
 }
 
+interface CloseValues {
+  summary: string;
+  confirmBypassRemoved: boolean;
+}
+
+const BYPASS_UNCONFIRMED = 'A bypassed control is recorded on this visit. Confirm the jumper or bypass was removed before closing.';
+
+/** The close's own schema, plus what only the phone knows: bypasses recorded here and not yet sent. */
+function closeResolver(hasBypass: boolean) {
+  const schema = closeVisitSchema.refine((d) => !hasBypass || d.confirmBypassRemoved, { path: ['confirmBypassRemoved'], message: BYPASS_UNCONFIRMED });
+  return schemaResolver(schema, (v: CloseValues) => v);
+}
+
 /**
  * Closing: a summary and — when a control was bypassed — the technician's confirmation that the
  * jumper is gone (the server checks the same and records it). The close goes into the phone's
@@ -48,34 +64,21 @@ export function CloseVisitPanel({
 }) {
   const missing = stillMissing(visit, items);
   const router = useRouter();
-  const [summary, setSummary] = useState('');
-  const [confirmed, setConfirmed] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  const [summaryError, setSummaryError] = useState<string | undefined>();
-  const confirmRef = useRef<HTMLDivElement>(null);
   const bypasses = bypassesOf(visit, items);
   const queued = items.find((i) => i.type === 'close');
+  const hasBypass = bypasses.length > 0;
+  const resolver = useMemo(() => closeResolver(hasBypass), [hasBypass]);
+  const form = useForm<CloseValues, unknown, CloseVisitInput>({ resolver, defaultValues: { summary: '', confirmBypassRemoved: false } });
+  const bypassError = form.formState.errors.confirmBypassRemoved?.message;
 
-  async function submit(e: FormEvent) {
-    e.preventDefault();
+  const submit = form.handleSubmit(async (input) => {
     setProblem(null);
-    setSummaryError(undefined);
-    if (!summary.trim()) {
-      setSummaryError('Summary is required.');
-      return;
-    }
-    if (bypasses.length > 0 && !confirmed) {
-      setProblem('A bypassed control is recorded on this visit. Confirm the jumper or bypass was removed before closing.');
-      confirmRef.current?.querySelector('input')?.focus();
-      return;
-    }
-    setBusy(true);
-    const left = await queueClose({ summary: summary.trim(), confirmBypassRemoved: confirmed, clientCloseId: newClientId() });
-    setBusy(false);
+    // A new id per press: a refused close is not kept, and a repeat of one that went through returns the closed visit.
+    const left = await queueClose({ summary: input.summary, confirmBypassRemoved: input.confirmBypassRemoved, clientCloseId: newClientId() });
     if (!left) router.refresh();
     else if (left.state === 'refused') setProblem(left.error ?? 'The server refused to close the visit.');
-  }
+  });
 
   if (queued && queued.state !== 'refused') {
     return (
@@ -109,23 +112,19 @@ export function CloseVisitPanel({
             <CircleCheck aria-hidden className="size-5" /> Every entry is on the server.
           </p>
         )}
-        <Field id="close-summary" label="Summary for the client" error={summaryError} hint="What was wrong, what was done, what is still open. It goes into the report e-mailed to the client.">
-          <Textarea id="close-summary" rows={4} value={summary} onChange={(e) => setSummary(e.target.value)} {...describedBy('close-summary', summaryError)} />
-        </Field>
-        {bypasses.length > 0 ? (
-          <div ref={confirmRef} className="space-y-2">
-            <CheckCard id="close-bypass-removed" checked={confirmed} onChange={setConfirmed} tone="warning">
-              I removed every jumper or bypass and the controls are back in service
-            </CheckCard>
-          </div>
+        <BoundField form={form} name="summary" id="close-summary" label="Summary for the client" multiline={4} hint="What was wrong, what was done, what is still open. It goes into the report e-mailed to the client." />
+        {hasBypass ? (
+          <BoundCheckCard form={form} name="confirmBypassRemoved" id="close-bypass-removed" tone="warning">
+            I removed every jumper or bypass and the controls are back in service
+          </BoundCheckCard>
         ) : null}
-        {problem || queued?.state === 'refused' ? (
+        {problem || bypassError || queued?.state === 'refused' ? (
           <Alert tone="danger" title="The visit is still open">
-            {problem ?? queued?.error}
+            {problem ?? bypassError ?? queued?.error}
           </Alert>
         ) : null}
-        <button type="submit" disabled={busy} className="min-h-12 w-full rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:w-auto">
-          {busy ? 'Closing…' : 'Close visit'}
+        <button type="submit" disabled={form.formState.isSubmitting} className="min-h-12 w-full rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:w-auto">
+          {form.formState.isSubmitting ? 'Closing…' : 'Close visit'}
         </button>
       </form>
     </Card>

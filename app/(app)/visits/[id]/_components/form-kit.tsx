@@ -2,73 +2,20 @@
 
 import type { LucideIcon } from 'lucide-react';
 import { Minus, OctagonAlert, Plus, TriangleAlert } from 'lucide-react';
-import { useState, type FormEvent, type ReactNode } from 'react';
+import { useState, type ReactNode, type Ref } from 'react';
+import { useController, type Control, type FieldValues, type Path, type UseFormReturn } from 'react-hook-form';
 import { Alert } from '@/components/ui/alert';
-import { describedBy, Field, Input, Textarea } from '@/components/ui/field';
 import { cn } from '@/lib/utils';
 
-// Building blocks of the visit's entry forms: big targets for gloved fingers, numbers typed with a
-// decimal keypad (and a ± button, because that keypad often has no minus key), choices as cards.
+// Building blocks of the visit's entry forms on react-hook-form: big targets for gloved fingers,
+// choices as cards. Numbers and text use the shared fields of components/forms.
 
 export type FieldErrors = Record<string, string>;
 
 /** What a form hands to the workspace; the workspace validates with the shared schema and saves. */
 export type SubmitResult = { ok: true } | { ok: false; errors: FieldErrors; message?: string };
 
-export function NumberInput({
-  id,
-  label,
-  unit,
-  value,
-  onChange,
-  error,
-  hint,
-  allowNegative = false,
-  className,
-}: {
-  id: string;
-  label: string;
-  unit?: string;
-  value: string;
-  onChange: (v: string) => void;
-  error?: string;
-  hint?: ReactNode;
-  allowNegative?: boolean;
-  className?: string;
-}) {
-  const flip = () => {
-    const t = value.trim();
-    onChange(t.startsWith('-') ? t.slice(1) : `-${t}`);
-  };
-  return (
-    <Field id={id} label={unit ? `${label} (${unit})` : label} error={error} hint={hint} className={className}>
-      <div className="flex gap-1">
-        <Input
-          id={id}
-          inputMode="decimal"
-          autoComplete="off"
-          enterKeyHint="next"
-          value={value}
-          onChange={(e) => onChange(e.target.value)}
-          className="min-h-12 text-lg tabular-nums"
-          {...describedBy(id, error)}
-        />
-        {allowNegative ? (
-          <button
-            type="button"
-            onClick={flip}
-            className="min-h-12 min-w-12 shrink-0 rounded-md border border-slate-300 bg-white text-lg font-bold text-slate-900 hover:bg-slate-100"
-            aria-label={`Change the sign of ${label}`}
-          >
-            ±
-          </button>
-        ) : null}
-      </div>
-    </Field>
-  );
-}
-
-export function Stepper({ id, label, value, onChange, min = 1, max = 1000 }: { id: string; label: string; value: number; onChange: (v: number) => void; min?: number; max?: number }) {
+function Stepper({ id, label, value, onChange, min = 1, max = 1000, buttonRef }: { id: string; label: string; value: number; onChange: (v: number) => void; min?: number; max?: number; buttonRef?: Ref<HTMLButtonElement> }) {
   return (
     <div className="space-y-1">
       <span id={`${id}-label`} className="block text-sm font-semibold text-slate-800">
@@ -90,6 +37,7 @@ export function Stepper({ id, label, value, onChange, min = 1, max = 1000 }: { i
         <button
           type="button"
           className="flex size-12 items-center justify-center rounded-md border border-slate-300 bg-white hover:bg-slate-100 disabled:opacity-50"
+          ref={buttonRef}
           onClick={() => onChange(Math.min(max, value + 1))}
           disabled={value >= max}
           aria-label={`One more (${label})`}
@@ -120,6 +68,7 @@ export function ChoiceCards<T extends string>({
   onChange,
   error,
   columns = 'grid-cols-1 min-[400px]:grid-cols-2',
+  inputRef,
 }: {
   name: string;
   legend: string;
@@ -128,14 +77,16 @@ export function ChoiceCards<T extends string>({
   onChange: (v: T) => void;
   error?: string;
   columns?: string;
+  /** Given the first card's radio, so a form can focus the group on an error. */
+  inputRef?: Ref<HTMLInputElement>;
 }) {
   return (
     <fieldset aria-describedby={error ? `${name}-error` : undefined}>
       <legend className="mb-2 text-sm font-semibold text-slate-800">{legend}</legend>
       <div className={cn('grid gap-2', columns)}>
-        {choices.map((c) => (
+        {choices.map((c, i) => (
           <label key={c.value} className={choiceCard}>
-            <input type="radio" name={name} value={c.value} checked={value === c.value} onChange={() => onChange(c.value)} className="size-5 shrink-0 accent-ice-800" />
+            <input ref={i === 0 ? inputRef : undefined} type="radio" name={name} value={c.value} checked={value === c.value} onChange={() => onChange(c.value)} className="size-5 shrink-0 accent-ice-800" />
             {c.Icon ? <c.Icon aria-hidden className={cn('size-5 shrink-0', c.iconClass ?? 'text-ice-700')} /> : null}
             <span className="min-w-0">
               <span className="block">{c.label}</span>
@@ -153,7 +104,7 @@ export function ChoiceCards<T extends string>({
   );
 }
 
-export function CheckCard({ id, checked, onChange, children, tone = 'plain' }: { id: string; checked: boolean; onChange: (v: boolean) => void; children: ReactNode; tone?: 'plain' | 'warning' }) {
+function CheckCard({ id, checked, onChange, children, tone = 'plain', inputRef }: { id: string; checked: boolean; onChange: (v: boolean) => void; children: ReactNode; tone?: 'plain' | 'warning'; inputRef?: Ref<HTMLInputElement> }) {
   return (
     <label
       htmlFor={id}
@@ -162,7 +113,7 @@ export function CheckCard({ id, checked, onChange, children, tone = 'plain' }: {
         tone === 'warning' ? 'border-amber-500 has-[:checked]:bg-amber-50' : 'border-slate-300 has-[:checked]:border-ice-800 has-[:checked]:bg-ice-50',
       )}
     >
-      <input id={id} type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="mt-0.5 size-6 shrink-0 accent-ice-800" />
+      <input ref={inputRef} id={id} type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className="mt-0.5 size-6 shrink-0 accent-ice-800" />
       <span>{children}</span>
     </label>
   );
@@ -230,49 +181,78 @@ export function Cautions({ items, title = 'Safety' }: { items: string[]; title?:
   );
 }
 
-export function FormActions({ busy, onCancel, label = 'Save entry' }: { busy: boolean; onCancel: () => void; label?: string }) {
+
+type Bound<T extends FieldValues, O> = { form: { control: Control<T, unknown, O> }; name: Path<T> };
+
+/** Choice cards bound to a react-hook-form field holding the chosen value ('' for none). */
+export function BoundChoiceCards<T extends FieldValues, O, V extends string>({ form, name, id = name, ...props }: Bound<T, O> & { id?: string; legend: string; choices: Choice<V>[]; columns?: string; onPick?: (v: V) => void }) {
+  const { field, fieldState } = useController<T, Path<T>, O>({ control: form.control, name });
+  const { onPick, ...rest } = props;
   return (
-    <div className="flex flex-col-reverse gap-2 pt-2 sm:flex-row">
-      <button type="button" onClick={onCancel} className="min-h-12 rounded-md border border-slate-300 bg-white px-5 font-semibold text-slate-900 hover:bg-slate-100">
-        Cancel
-      </button>
-      <button type="submit" disabled={busy} className="min-h-12 flex-1 rounded-md bg-ice-900 px-5 text-base font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:flex-none">
-        {busy ? 'Saving…' : label}
-      </button>
+    <ChoiceCards<V>
+      {...rest}
+      name={id}
+      value={props.choices.find((c) => c.value === field.value)?.value ?? ''}
+      onChange={(v) => {
+        field.onChange(v);
+        onPick?.(v);
+      }}
+      error={fieldState.error?.message}
+      inputRef={field.ref}
+    />
+  );
+}
+
+/** A yes/no card bound to a react-hook-form boolean field. */
+export function BoundCheckCard<T extends FieldValues, O>({ form, name, id, tone, children }: Bound<T, O> & { id: string; tone?: 'plain' | 'warning'; children: ReactNode }) {
+  const { field } = useController<T, Path<T>, O>({ control: form.control, name });
+  return (
+    <CheckCard id={id} checked={field.value === true} onChange={field.onChange} tone={tone} inputRef={field.ref}>
+      {children}
+    </CheckCard>
+  );
+}
+
+/** A whole-number stepper bound to a react-hook-form number field. */
+export function BoundStepper<T extends FieldValues, O>({ form, name, id, label, min = 1, max = 1000 }: Bound<T, O> & { id: string; label: string; min?: number; max?: number }) {
+  const { field, fieldState } = useController<T, Path<T>, O>({ control: form.control, name });
+  const value = typeof field.value === 'number' ? field.value : min;
+  return (
+    <div className="space-y-1">
+      <Stepper id={id} label={label} value={value} onChange={field.onChange} min={min} max={max} buttonRef={field.ref} />
+      {fieldState.error ? (
+        <p role="alert" className="text-sm font-medium text-red-700">
+          {fieldState.error.message}
+        </p>
+      ) : null}
     </div>
   );
 }
 
-/** Parses a typed number; empty → null, junk → NaN (the schema refuses it with a message). */
-export function parseTyped(text: string): number | null {
-  const t = text.trim().replace(',', '.');
-  if (t === '') return null;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : Number.NaN;
-}
-
-export type Submit = (data: Record<string, unknown>) => Promise<SubmitResult>;
-
-/** Shared plumbing: busy flag, the server's field errors and message, reset after a save. */
-export function useEntryForm(onSubmit: Submit, reset: () => void) {
-  const [errors, setErrors] = useState<FieldErrors>({});
+/**
+ * An entry form's save: the form's resolver has checked the values with the kind's schema; the
+ * workspace adds the entry's client id and saves it (or keeps it in the outbox). Its refusals land
+ * on the fields (the first one focused) and in the "Not saved" banner; a save clears the form.
+ */
+export function useEntrySubmit<V extends FieldValues, D>(form: UseFormReturn<V, unknown, D>, onSubmit: (data: D) => Promise<SubmitResult>, onSaved: () => void = () => form.reset()) {
   const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  async function run(e: FormEvent, data: Record<string, unknown>) {
-    e.preventDefault();
-    setBusy(true);
-    setMessage(null);
-    const result = await onSubmit(data);
-    setBusy(false);
-    if (result.ok) {
-      setErrors({});
-      reset();
-    } else {
-      setErrors(result.errors);
+  const submit = form.handleSubmit(
+    async (data) => {
+      setMessage(null);
+      const result = await onSubmit(data);
+      if (result.ok) {
+        onSaved();
+        return;
+      }
       setMessage(result.message ?? null);
-    }
-  }
-  return { errors, message, busy, run };
+      Object.entries(result.errors).forEach(([path, text], i) => {
+        // The workspace's paths are the kind schema's, which are this form's field names.
+        form.setError((path || 'root') as Path<V>, { type: 'server', message: text }, { shouldFocus: i === 0 });
+      });
+    },
+    (errors) => setMessage(errors.root?.message ?? 'Check the highlighted fields; nothing was saved.'),
+  );
+  return { submit, message, busy: form.formState.isSubmitting };
 }
 
 export function NotSaved({ message }: { message: string | null }) {
@@ -281,20 +261,4 @@ export function NotSaved({ message }: { message: string | null }) {
       {message}
     </Alert>
   ) : null;
-}
-
-export function TextArea({ id, label, value, onChange, error, hint, rows = 3 }: { id: string; label: string; value: string; onChange: (v: string) => void; error?: string; hint?: ReactNode; rows?: number }) {
-  return (
-    <Field id={id} label={label} error={error} hint={hint}>
-      <Textarea id={id} rows={rows} value={value} onChange={(e) => onChange(e.target.value)} className="text-base" {...describedBy(id, error)} />
-    </Field>
-  );
-}
-
-export function TextInput({ id, label, value, onChange, error, hint, placeholder }: { id: string; label: string; value: string; onChange: (v: string) => void; error?: string; hint?: ReactNode; placeholder?: string }) {
-  return (
-    <Field id={id} label={label} error={error} hint={hint}>
-      <Input id={id} value={value} placeholder={placeholder} autoComplete="off" onChange={(e) => onChange(e.target.value)} className="min-h-12" {...describedBy(id, error)} />
-    </Field>
-  );
 }

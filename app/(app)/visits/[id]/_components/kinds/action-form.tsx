@@ -1,44 +1,51 @@
 'use client';
 
-import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
 import { SAFETY_CONTROL_CAUTION } from '@/lib/calc/cautions';
-import { CheckCard, FormActions, useEntryForm, NotSaved, TextArea, TextInput, type Submit } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { actionDataSchema, type ActionData } from '@/lib/visits/kinds/action';
+import { BoundCheckCard, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
-export function ActionForm({ onSubmit, onCancel }: { onSubmit: Submit; onCancel: () => void }) {
-  const [text, setText] = useState('');
-  const [bypass, setBypass] = useState(false);
-  const [description, setDescription] = useState('');
-  const f = useEntryForm(onSubmit, () => {
-    setText('');
-    setBypass(false);
-    setDescription('');
-  });
+interface ActionValues {
+  text: string;
+  bypassedControl: boolean;
+  bypassDescription: string;
+}
+
+const resolver = schemaResolver(actionDataSchema, (v: ActionValues) => ({ ...v, bypassDescription: v.bypassedControl ? v.bypassDescription : '' }));
+const blank: ActionValues = { text: '', bypassedControl: false, bypassDescription: '' };
+
+export function ActionForm({ onSubmit, onCancel }: { onSubmit: (data: ActionData) => Promise<SubmitResult>; onCancel: () => void }) {
+  const form = useForm<ActionValues, unknown, ActionData>({ resolver, defaultValues: blank });
+  const f = useEntrySubmit(form, onSubmit);
+  const bypass = useWatch({ control: form.control, name: 'bypassedControl' });
   return (
-    <form noValidate className="space-y-4" aria-label="New action" onSubmit={(e) => f.run(e, { text, bypassedControl: bypass, bypassDescription: bypass ? description : '' })}>
-      <TextArea id="action-text" label="What was done" value={text} onChange={setText} error={f.errors.text} />
-      <CheckCard id="action-bypass" checked={bypass} onChange={setBypass} tone="warning">
+    <form noValidate className="space-y-4" aria-label="New action" onSubmit={f.submit}>
+      <BoundField form={form} name="text" id="action-text" label="What was done" multiline={3} />
+      <BoundCheckCard form={form} name="bypassedControl" id="action-bypass" tone="warning">
         I bypassed a safety or operating control (jumper) to diagnose
         <span className="block text-sm font-normal text-slate-700">For example a jumper across a pressure control or a thermostat.</span>
-      </CheckCard>
+      </BoundCheckCard>
       {bypass ? (
         <>
           <Alert tone="danger" title="Remove the jumper before you leave">
             <p>{SAFETY_CONTROL_CAUTION}</p>
             <p className="mt-1 font-semibold">This visit cannot be closed until you confirm the bypass was removed.</p>
           </Alert>
-          <TextInput
+          <BoundField
+            form={form}
+            name="bypassDescription"
             id="action-bypass-description"
             label="Which control was bypassed, and how"
-            placeholder="e.g. jumper across the low-pressure control"
-            value={description}
-            onChange={setDescription}
-            error={f.errors.bypassDescription}
+            input={{ placeholder: 'e.g. jumper across the low-pressure control', autoComplete: 'off', className: 'min-h-12' }}
           />
         </>
       ) : null}
       <NotSaved message={f.message} />
-      <FormActions busy={f.busy} onCancel={onCancel} label="Save action" />
+      <FormFooter submitting={f.busy} submitLabel="Save action" onCancel={onCancel} />
     </form>
   );
 }

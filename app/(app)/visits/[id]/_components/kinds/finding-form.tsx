@@ -1,39 +1,50 @@
 'use client';
 
-import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { severityLooks } from '@/components/visits/badges';
+import { findingDataSchema, type FindingData } from '@/lib/visits/kinds/finding';
 import { SEVERITIES, severityLabels, type Severity } from '@/lib/visits/schemas';
-import { CheckCard, ChoiceCards, FormActions, useEntryForm, NotSaved, TextArea, TextInput, type Submit } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundCheckCard, BoundChoiceCards, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
-export function FindingForm({ onSubmit, onCancel }: { onSubmit: Submit; onCancel: () => void }) {
-  const [text, setText] = useState('');
-  const [severity, setSeverity] = useState<Severity | ''>('');
-  const [raise, setRaise] = useState(false);
-  const [title, setTitle] = useState('');
-  const f = useEntryForm(onSubmit, () => {
-    setText('');
-    setSeverity('');
-    setRaise(false);
-    setTitle('');
-  });
+interface FindingValues {
+  text: string;
+  severity: Severity | '';
+  raiseFollowUp: boolean;
+  followUpTitle: string;
+}
+
+const resolver = schemaResolver(findingDataSchema, (v: FindingValues) => ({
+  text: v.text,
+  severity: v.severity || undefined,
+  raiseFollowUp: v.raiseFollowUp,
+  followUpTitle: v.raiseFollowUp ? v.followUpTitle : '',
+}));
+const blank: FindingValues = { text: '', severity: '', raiseFollowUp: false, followUpTitle: '' };
+
+export function FindingForm({ onSubmit, onCancel }: { onSubmit: (data: FindingData) => Promise<SubmitResult>; onCancel: () => void }) {
+  const form = useForm<FindingValues, unknown, FindingData>({ resolver, defaultValues: blank });
+  const f = useEntrySubmit(form, onSubmit);
+  const raise = useWatch({ control: form.control, name: 'raiseFollowUp' });
   return (
-    <form noValidate className="space-y-4" aria-label="New finding" onSubmit={(e) => f.run(e, { text, severity: severity || undefined, raiseFollowUp: raise, followUpTitle: raise ? title : '' })}>
-      <TextArea id="finding-text" label="What was found" value={text} onChange={setText} error={f.errors.text} />
-      <ChoiceCards<Severity>
-        name="finding-severity"
+    <form noValidate className="space-y-4" aria-label="New finding" onSubmit={f.submit}>
+      <BoundField form={form} name="text" id="finding-text" label="What was found" multiline={3} />
+      <BoundChoiceCards
+        form={form}
+        name="severity"
+        id="finding-severity"
         legend="Severity"
-        value={severity}
-        onChange={setSeverity}
-        error={f.errors.severity}
         choices={SEVERITIES.map((s) => ({ value: s, label: severityLabels[s], hint: severityLooks[s].hint, Icon: severityLooks[s].Icon, iconClass: s === 'safety' || s === 'down' ? 'text-red-800' : s === 'degraded' ? 'text-amber-800' : 'text-slate-700' }))}
       />
-      <CheckCard id="finding-raise" checked={raise} onChange={setRaise}>
+      <BoundCheckCard form={form} name="raiseFollowUp" id="finding-raise">
         Raise a follow-up for the office
         <span className="block text-sm font-normal text-slate-700">It stays open on the site and in Follow-ups until it is resolved or declined.</span>
-      </CheckCard>
-      {raise ? <TextInput id="finding-title" label="Follow-up title (optional)" value={title} onChange={setTitle} error={f.errors.followUpTitle} hint="Leave empty to use the finding’s first words." /> : null}
+      </BoundCheckCard>
+      {raise ? <BoundField form={form} name="followUpTitle" id="finding-title" label="Follow-up title (optional)" hint="Leave empty to use the finding’s first words." input={{ autoComplete: 'off', className: 'min-h-12' }} /> : null}
       <NotSaved message={f.message} />
-      <FormActions busy={f.busy} onCancel={onCancel} label="Save finding" />
+      <FormFooter submitting={f.busy} submitLabel="Save finding" onCancel={onCancel} />
     </form>
   );
 }

@@ -1,16 +1,26 @@
 'use client';
 
-import { useState } from 'react';
-import { FormActions, useEntryForm, NotSaved, TextArea, type Submit } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { useForm } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
+import { noteDataSchema, type NoteData } from '@/lib/visits/kinds/note';
+import { NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
-export function NoteForm({ onSubmit, onCancel }: { onSubmit: Submit; onCancel: () => void }) {
-  const [text, setText] = useState('');
-  const f = useEntryForm(onSubmit, () => setText(''));
+interface NoteValues {
+  text: string;
+}
+
+const resolver = schemaResolver(noteDataSchema, (v: NoteValues) => v);
+
+export function NoteForm({ onSubmit, onCancel }: { onSubmit: (data: NoteData) => Promise<SubmitResult>; onCancel: () => void }) {
+  const form = useForm<NoteValues, unknown, NoteData>({ resolver, defaultValues: { text: '' } });
+  const f = useEntrySubmit(form, onSubmit);
   return (
-    <form noValidate className="space-y-4" aria-label="New note" onSubmit={(e) => f.run(e, { text })}>
-      <TextArea id="note-text" label="Note" value={text} onChange={setText} error={f.errors.text} rows={4} />
+    <form noValidate className="space-y-4" aria-label="New note" onSubmit={f.submit}>
+      <BoundField form={form} name="text" id="note-text" label="Note" multiline={4} />
       <NotSaved message={f.message} />
-      <FormActions busy={f.busy} onCancel={onCancel} label="Save note" />
+      <FormFooter submitting={f.busy} submitLabel="Save note" onCancel={onCancel} />
     </form>
   );
 }

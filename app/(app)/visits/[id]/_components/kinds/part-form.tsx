@@ -1,37 +1,42 @@
 'use client';
 
-import { useState } from 'react';
-import { CheckCard, FormActions, Stepper, useEntryForm, NotSaved, TextInput, type Submit } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { useForm } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
+import { partDataSchema, type PartData } from '@/lib/visits/kinds/part';
+import { BoundCheckCard, BoundStepper, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
-export function PartForm({ onSubmit, onCancel, equipmentName }: { onSubmit: Submit; onCancel: () => void; equipmentName: string }) {
-  const [part, setPart] = useState('');
-  const [quantity, setQuantity] = useState(1);
-  const [oldSerial, setOldSerial] = useState('');
-  const [newSerial, setNewSerial] = useState('');
-  const [whole, setWhole] = useState(false);
-  const f = useEntryForm(onSubmit, () => {
-    setPart('');
-    setQuantity(1);
-    setOldSerial('');
-    setNewSerial('');
-    setWhole(false);
-  });
+interface PartValues {
+  part: string;
+  quantity: number;
+  oldSerial: string;
+  newSerial: string;
+  replacesEquipment: boolean;
+}
+
+const resolver = schemaResolver(partDataSchema, (v: PartValues) => v);
+const blank: PartValues = { part: '', quantity: 1, oldSerial: '', newSerial: '', replacesEquipment: false };
+
+export function PartForm({ onSubmit, onCancel, equipmentName }: { onSubmit: (data: PartData) => Promise<SubmitResult>; onCancel: () => void; equipmentName: string }) {
+  const form = useForm<PartValues, unknown, PartData>({ resolver, defaultValues: blank });
+  const f = useEntrySubmit(form, onSubmit);
   return (
-    <form noValidate className="space-y-4" aria-label="New part replaced" onSubmit={(e) => f.run(e, { part, quantity, oldSerial, newSerial, replacesEquipment: whole })}>
-      <TextInput id="part-name" label="Part" placeholder="e.g. condenser fan motor" value={part} onChange={setPart} error={f.errors.part} />
-      <Stepper id="part-quantity" label="Quantity" value={quantity} onChange={setQuantity} />
+    <form noValidate className="space-y-4" aria-label="New part replaced" onSubmit={f.submit}>
+      <BoundField form={form} name="part" id="part-name" label="Part" input={{ placeholder: 'e.g. condenser fan motor', autoComplete: 'off', className: 'min-h-12' }} />
+      <BoundStepper form={form} name="quantity" id="part-quantity" label="Quantity" />
       <div className="grid grid-cols-1 gap-3 min-[400px]:grid-cols-2">
-        <TextInput id="part-old-serial" label="Old serial (optional)" value={oldSerial} onChange={setOldSerial} error={f.errors.oldSerial} />
-        <TextInput id="part-new-serial" label="New serial (optional)" value={newSerial} onChange={setNewSerial} error={f.errors.newSerial} />
+        <BoundField form={form} name="oldSerial" id="part-old-serial" label="Old serial (optional)" input={{ autoComplete: 'off', className: 'min-h-12' }} />
+        <BoundField form={form} name="newSerial" id="part-new-serial" label="New serial (optional)" input={{ autoComplete: 'off', className: 'min-h-12' }} />
       </div>
-      <CheckCard id="part-whole" checked={whole} onChange={setWhole}>
+      <BoundCheckCard form={form} name="replacesEquipment" id="part-whole">
         The whole component was replaced
         <span className="block text-sm font-normal text-slate-700">
           “{equipmentName}” is kept with its history and marked removed; a new record takes its place with the new serial.
         </span>
-      </CheckCard>
+      </BoundCheckCard>
       <NotSaved message={f.message} />
-      <FormActions busy={f.busy} onCancel={onCancel} label="Save part" />
+      <FormFooter submitting={f.busy} submitLabel="Save part" onCancel={onCancel} />
     </form>
   );
 }

@@ -1,16 +1,20 @@
 'use client';
 
-import { useMemo, useState, type FormEvent } from 'react';
+import { useMemo } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { FormFooter } from '@/components/forms/form-footer';
+import { NumberField } from '@/components/forms/number-field';
+import { schemaResolver, type UnitField } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
 import { CERTIFIED_WORK_CAUTION, ENERGISED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { gaugeSaturationC } from '@/lib/calc/saturation';
 import { gaugeBasis } from '@/lib/format/barometer';
 import { formatFactor, formatPercent, formatRatio } from '@/lib/format/numbers';
 import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
-import { computeReading, type ReadingComputed, type ValueLevel } from '@/lib/visits/kinds/reading';
+import { computeReading, readingDataSchema, type ReadingComputed, type ValueLevel } from '@/lib/visits/kinds/reading';
 import type { EntryContext } from '@/lib/visits/kinds/types';
 import type { ReadingData, ReadingKey } from '@/lib/visits/schemas';
-import { Cautions, ComputedPanel, FormActions, NumberInput, parseTyped, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { Cautions, ComputedPanel, NotSaved, useEntrySubmit, type ComputedRow, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 type Unit = Quantity | 'V' | 'A';
 
@@ -49,16 +53,30 @@ const electricalKeys: readonly string[] = groups[2]!.fields.map((f) => f.key);
 const refrigerantKeys: readonly string[] = allFields.map((f) => f.key).filter((k) => !electricalKeys.includes(k));
 const electricalRows = ['unbalancePct', 'supplyVerdict', 'controlVoltageStatus'];
 
-/** Typed text → SI reading data (V and A need no conversion). */
-export function readingDataFrom(values: Partial<Record<ReadingKey, string>>, prefs: UnitPrefs): ReadingData {
+type ReadingValues = Record<ReadingKey, string>;
+const blank = Object.fromEntries(allFields.map((f) => [f.key, ''])) as ReadingValues;
+
+/** Parses a typed number; empty → null, junk → NaN (the schema refuses it with a message). */
+function parseTyped(text: string): number | null {
+  const t = text.trim().replace(',', '.');
+  if (t === '') return null;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : Number.NaN;
+}
+
+/** Typed text → SI numbers by key (V and A need no conversion); empty fields are left out. */
+function readingInput(values: Partial<Record<ReadingKey, string>>, prefs: UnitPrefs): Partial<Record<ReadingKey, number>> {
   const data: Partial<Record<ReadingKey, number>> = {};
   for (const f of allFields) {
     const text = values[f.key] ?? '';
     const v = f.unit === 'V' || f.unit === 'A' ? parseTyped(text) : fromDisplayValue(text, f.unit, prefs);
     if (v !== null) data[f.key] = v;
   }
-  return data as ReadingData;
+  return data;
 }
+
+/** Range errors of pressures and temperatures are worded in the reader's units. */
+const unitFields: Record<string, UnitField> = Object.fromEntries(allFields.flatMap((f) => (f.unit === 'V' || f.unit === 'A' ? [] : [[f.key, { label: f.label, quantity: f.unit }]])));
 
 const statusWords: Record<string, string> = {
   ok: 'Within limits',
@@ -161,16 +179,15 @@ export function ReadingForm({
   onSubmit: (data: ReadingData) => Promise<SubmitResult>;
   onCancel: () => void;
 }) {
-  const [values, setValues] = useState<Partial<Record<ReadingKey, string>>>({});
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  const data = useMemo(() => readingDataFrom(values, prefs), [values, prefs]);
+  const resolver = useMemo(() => schemaResolver(readingDataSchema, (v: ReadingValues) => readingInput(v, prefs), { prefs, unitFields }), [prefs]);
+  const form = useForm<ReadingValues, unknown, ReadingData>({ resolver, defaultValues: blank });
+  const f = useEntrySubmit(form, onSubmit);
+  const values = useWatch({ control: form.control });
+  const data = useMemo(() => readingInput(values, prefs), [values, prefs]);
   // Only finite numbers go to the calculations; a half-typed value is simply not used yet.
   const { computed, refrigerantSide, electricalSide } = useMemo(() => {
-    const clean = Object.fromEntries(Object.entries(data).filter(([, v]) => Number.isFinite(v))) as ReadingData;
-    const only = (keys: readonly string[]) => Object.fromEntries(Object.entries(clean).filter(([k]) => keys.includes(k))) as ReadingData;
+    const clean: ReadingData = Object.fromEntries(Object.entries(data).filter(([, v]) => Number.isFinite(v)));
+    const only = (keys: readonly string[]): ReadingData => Object.fromEntries(Object.entries(clean).filter(([k]) => keys.includes(k)));
     // The whole set is what gets stored; each side alone names the bases and problems under its own panel.
     return {
       computed: computeReading(clean, ctx, prefs),
@@ -181,25 +198,10 @@ export function ReadingForm({
   const rows = readingRows(computed, prefs, { data, refrigerant: ctx.refrigerant, elevationM: ctx.elevationM });
   const basis = gaugeBasis(ctx.elevationM, prefs);
 
-  async function submit(e: FormEvent) {
-    e.preventDefault();
-    setBusy(true);
-    setMessage(null);
-    const result = await onSubmit(data);
-    setBusy(false);
-    if (result.ok) {
-      setValues({});
-      setErrors({});
-    } else {
-      setErrors(result.errors);
-      setMessage(result.message ?? null);
-    }
-  }
-
   const unitLabel = (u: Unit) => (u === 'V' || u === 'A' ? u : conversionFor(u, prefs).label);
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="New readings">
+    <form onSubmit={f.submit} noValidate className="space-y-4" aria-label="New readings">
       <Cautions items={[CERTIFIED_WORK_CAUTION, ...refrigerantCautions]} title="Gauges on a live refrigerant circuit" />
       {!ctx.refrigerant ? (
         <Alert tone="info" title="No refrigerant on record">
@@ -215,16 +217,17 @@ export function ReadingForm({
           <legend className="text-base font-bold text-slate-900">{g.title}</legend>
           {g.title === 'Electrical' ? <Cautions items={[ENERGISED_WORK_CAUTION]} title="Energised equipment" /> : null}
           <div className="grid grid-cols-1 gap-3 min-[400px]:grid-cols-2 lg:grid-cols-3">
-            {g.fields.map((f) => (
-              <NumberInput
-                key={f.key}
-                id={`reading-${f.key}`}
-                label={f.label}
-                unit={unitLabel(f.unit)}
-                value={values[f.key] ?? ''}
-                onChange={(v) => setValues((s) => ({ ...s, [f.key]: v }))}
-                error={errors[f.key]}
-                allowNegative={f.unit === 'temperature' || f.unit === 'pressureGauge'}
+            {g.fields.map((field) => (
+              <NumberField
+                key={field.key}
+                form={form}
+                name={field.key}
+                id={`reading-${field.key}`}
+                label={field.label}
+                unit={unitLabel(field.unit)}
+                negative={field.unit === 'temperature' || field.unit === 'pressureGauge'}
+                signButton
+                large
               />
             ))}
           </div>
@@ -272,12 +275,8 @@ export function ReadingForm({
           ) : null}
         </fieldset>
       ))}
-      {message ? (
-        <Alert tone="danger" title="Not saved">
-          {message}
-        </Alert>
-      ) : null}
-      <FormActions busy={busy} onCancel={onCancel} label="Save readings" />
+      <NotSaved message={f.message} />
+      <FormFooter submitting={f.busy} submitLabel="Save readings" onCancel={onCancel} />
     </form>
   );
 }

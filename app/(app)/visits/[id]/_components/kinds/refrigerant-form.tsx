@@ -1,15 +1,30 @@
 'use client';
 
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo } from 'react';
 import { ArrowDownToLine, ArrowUpFromLine } from 'lucide-react';
+import { useForm } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
+import { UnitNumberField } from '@/components/forms/unit-number-field';
 import { describedBy, Field, Select } from '@/components/ui/field';
 import { CERTIFIED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
-import { conversionFor, fromDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
+import { fromDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
+import { refrigerantDataSchema, type RefrigerantData } from '@/lib/visits/kinds/refrigerant';
 import type { EntryContext } from '@/lib/visits/kinds/types';
-import { ChoiceCards, Cautions, FormActions, NumberInput, useEntryForm, NotSaved, TextInput, type Submit } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, Cautions, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 const CERT_KEY = 'rimeline:technician-cert';
+
+/** As typed: the amount in the reader's mass unit. */
+interface RefrigerantValues {
+  direction: 'added' | 'recovered' | '';
+  amountKg: string;
+  refrigerant: string;
+  cylinderId: string;
+  technicianCert: string;
+}
 
 export function RefrigerantForm({
   ctx,
@@ -21,58 +36,55 @@ export function RefrigerantForm({
   ctx: EntryContext;
   prefs: UnitPrefs;
   refrigerantCautions: string[];
-  onSubmit: Submit;
+  onSubmit: (data: RefrigerantData) => Promise<SubmitResult>;
   onCancel: () => void;
 }) {
-  const [direction, setDirection] = useState<'added' | 'recovered' | ''>('');
-  const [amount, setAmount] = useState('');
-  const [refrigerant, setRefrigerant] = useState(ctx.refrigerant ?? '');
-  const [cylinderId, setCylinderId] = useState('');
-  const [cert, setCert] = useState('');
+  const resolver = useMemo(
+    () =>
+      schemaResolver(
+        refrigerantDataSchema,
+        (v: RefrigerantValues) => ({ ...v, direction: v.direction || undefined, amountKg: fromDisplayValue(v.amountKg, 'mass', prefs) ?? undefined, refrigerant: v.refrigerant || undefined }),
+        { prefs, unitFields: { amountKg: { label: 'Amount', quantity: 'mass' } } },
+      ),
+    [prefs],
+  );
+  const form = useForm<RefrigerantValues, unknown, RefrigerantData>({
+    resolver,
+    defaultValues: { direction: '', amountKg: '', refrigerant: ctx.refrigerant ?? '', cylinderId: '', technicianCert: '' },
+  });
   // The certification number is the technician's own: remembered on this phone so it is typed once.
-  useEffect(() => setCert(window.localStorage.getItem(CERT_KEY) ?? ''), []);
-  const f = useEntryForm(
+  useEffect(() => form.setValue('technicianCert', window.localStorage.getItem(CERT_KEY) ?? ''), [form]);
+  const f = useEntrySubmit(
+    form,
     async (data) => {
       const result = await onSubmit(data);
-      if (result.ok && cert.trim()) window.localStorage.setItem(CERT_KEY, cert.trim());
+      if (result.ok && data.technicianCert) window.localStorage.setItem(CERT_KEY, data.technicianCert.trim());
       return result;
     },
-    () => {
-      setDirection('');
-      setAmount('');
-      setCylinderId('');
-    },
+    () => form.reset({ ...form.formState.defaultValues, refrigerant: form.getValues('refrigerant'), technicianCert: form.getValues('technicianCert') }),
   );
-  const mass = conversionFor('mass', prefs);
+  const refrigerantError = form.formState.errors.refrigerant?.message;
   return (
-    <form
-      noValidate
-      className="space-y-4"
-      aria-label="New refrigerant entry"
-      onSubmit={(e) =>
-        f.run(e, { direction: direction || undefined, amountKg: fromDisplayValue(amount, 'mass', prefs) ?? undefined, refrigerant: refrigerant || undefined, cylinderId, technicianCert: cert })
-      }
-    >
+    <form noValidate className="space-y-4" aria-label="New refrigerant entry" onSubmit={f.submit}>
       <Cautions items={[CERTIFIED_WORK_CAUTION, 'Never add a different refrigerant (“topping off” with another type); a retrofit is recorded on the system first.', ...refrigerantCautions]} title="Refrigerant handling" />
-      <ChoiceCards<'added' | 'recovered'>
-        name="refrigerant-direction"
+      <BoundChoiceCards
+        form={form}
+        name="direction"
+        id="refrigerant-direction"
         legend="Added or recovered?"
-        value={direction}
-        onChange={setDirection}
-        error={f.errors.direction}
         choices={[
           { value: 'added', label: 'Added', hint: 'Charged into the system', Icon: ArrowDownToLine },
           { value: 'recovered', label: 'Recovered', hint: 'Taken out into a recovery cylinder', Icon: ArrowUpFromLine },
         ]}
       />
-      <NumberInput id="refrigerant-amount" label="Amount" unit={mass.label} value={amount} onChange={setAmount} error={f.errors.amountKg} />
+      <UnitNumberField form={form} name="amountKg" id="refrigerant-amount" label="Amount" quantity="mass" prefs={prefs} large />
       {ctx.refrigerant ? (
         <p className="rounded-md border border-slate-300 bg-white px-3 py-2">
           Refrigerant: <strong>{ctx.refrigerant}</strong> <span className="text-sm text-slate-700">(the system’s refrigerant)</span>
         </p>
       ) : (
-        <Field id="refrigerant-id" label="Refrigerant" error={f.errors.refrigerant} hint="No refrigerant is on record for this system.">
-          <Select id="refrigerant-id" value={refrigerant} onChange={(e) => setRefrigerant(e.target.value)} {...describedBy('refrigerant-id', f.errors.refrigerant)}>
+        <Field id="refrigerant-id" label="Refrigerant" error={refrigerantError} hint="No refrigerant is on record for this system.">
+          <Select id="refrigerant-id" {...describedBy('refrigerant-id', refrigerantError)} {...form.register('refrigerant')}>
             <option value="">Choose…</option>
             {REFRIGERANT_IDS.map((r) => (
               <option key={r} value={r}>
@@ -82,18 +94,18 @@ export function RefrigerantForm({
           </Select>
         </Field>
       )}
-      {f.errors.refrigerant && ctx.refrigerant ? (
+      {refrigerantError && ctx.refrigerant ? (
         <p role="alert" className="text-sm font-medium text-red-700">
-          {f.errors.refrigerant}
+          {refrigerantError}
         </p>
       ) : null}
       <div className="grid grid-cols-1 gap-3 min-[400px]:grid-cols-2">
-        <TextInput id="refrigerant-cylinder" label="Cylinder id" placeholder="e.g. CYL-0042" value={cylinderId} onChange={setCylinderId} error={f.errors.cylinderId} />
-        <TextInput id="refrigerant-cert" label="Your certification number" value={cert} onChange={setCert} error={f.errors.technicianCert} hint="Remembered on this phone." />
+        <BoundField form={form} name="cylinderId" id="refrigerant-cylinder" label="Cylinder id" input={{ placeholder: 'e.g. CYL-0042', autoComplete: 'off', className: 'min-h-12' }} />
+        <BoundField form={form} name="technicianCert" id="refrigerant-cert" label="Your certification number" hint="Remembered on this phone." input={{ autoComplete: 'off', className: 'min-h-12' }} />
       </div>
       <p className="text-sm text-slate-700">On an addition the leak rate is worked out from the system’s full charge and its last addition, and shown once the entry is saved.</p>
       <NotSaved message={f.message} />
-      <FormActions busy={f.busy} onCancel={onCancel} label="Save refrigerant" />
+      <FormFooter submitting={f.busy} submitLabel="Save refrigerant" onCancel={onCancel} />
     </form>
   );
 }

@@ -1,13 +1,18 @@
 'use client';
 
 import { Gauge, Thermometer } from 'lucide-react';
-import { useMemo, useState, type FormEvent } from 'react';
+import { useMemo } from 'react';
+import { useForm, useWatch, type Path } from 'react-hook-form';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver, type UnitField } from '@/components/forms/schema-resolver';
+import { UnitNumberField } from '@/components/forms/unit-number-field';
 import { Alert } from '@/components/ui/alert';
 import { SAFETY_CONTROL_CAUTION } from '@/lib/calc/cautions';
-import { conversionFor, formatQuantity, fromDisplayValue, toDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
+import { formatQuantity, fromDisplayValue, toDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import {
   computeSettingChange,
   controlsFor,
+  settingChangeDataSchema,
   recordedSettings,
   settingControlLabels,
   type SettingChangeData,
@@ -19,17 +24,19 @@ import {
 import { gaugeSaturationC } from '@/lib/calc/saturation';
 import { gaugeBasis } from '@/lib/format/barometer';
 import type { EntryContext, UnitShape } from '@/lib/visits/kinds/types';
-import { ChoiceCards, ComputedPanel, Cautions, FormActions, NumberInput, type ComputedRow, type FieldErrors, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, ComputedPanel, Cautions, NotSaved, useEntrySubmit, type ComputedRow, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 // Settings as found → as left. "As found" starts empty: the technician reads the dial. The unit's
 // recorded settings fill it only on an explicit tap, rounded to the reader's units.
 
 type Side = 'low' | 'high' | 'thermostat';
+type SettingKey = 'cutInKpaG' | 'cutOutKpaG' | 'setpointC';
+type DiffKey = 'differentialKpa' | 'differentialK';
 
 interface SideShape {
   title: string;
-  setting: { key: string; label: string; q: Quantity };
-  diff: { key: string; label: string; q: Quantity };
+  setting: { key: SettingKey; label: string; q: Quantity };
+  diff: { key: DiffKey; label: string; q: Quantity };
   /** The setting the differential leads to: low side cut-out, high side cut-in. */
   other: string | null;
 }
@@ -42,28 +49,45 @@ const sideShapes: Record<Side, SideShape> = {
 
 const sidesOf = (c: SettingControl): Side[] => (c === 'dual' ? ['low', 'high'] : [c]);
 
-/** Typed text per side: { low: { setting, diff }, … }. */
-type Texts = Partial<Record<Side, { setting: string; diff: string }>>;
+/**
+ * As typed, named as the schema's paths so its errors land on the fields: one control's values at
+ * the top (`asFound.cutInKpaG`), a dual control's under its sides (`asFound.low.cutInKpaG`).
+ */
+type Texts = Record<SettingKey | DiffKey, string>;
+type SideTexts = Texts & { low: Texts; high: Texts };
+interface SettingValues {
+  control: SettingControl;
+  asFound: SideTexts;
+  asLeft: SideTexts;
+}
+type Which = 'asFound' | 'asLeft';
 
-const blank = (c: SettingControl): Texts => Object.fromEntries(sidesOf(c).map((s) => [s, { setting: '', diff: '' }]));
+const empty: Texts = { cutInKpaG: '', cutOutKpaG: '', setpointC: '', differentialKpa: '', differentialK: '' };
+const blankSide = (): SideTexts => ({ ...empty, low: { ...empty }, high: { ...empty } });
+const blank = (control: SettingControl): SettingValues => ({ control, asFound: blankSide(), asLeft: blankSide() });
 
-function toSi(c: SettingControl, texts: Texts, prefs: UnitPrefs): Record<string, unknown> {
-  const side = (s: Side) => {
+/** The form's name of one side's setting or differential. */
+function fieldName(which: Which, control: SettingControl, s: Side, part: 'setting' | 'diff'): Path<SettingValues> {
+  const key = part === 'setting' ? sideShapes[s].setting.key : sideShapes[s].diff.key;
+  return control === 'dual' && s !== 'thermostat' ? `${which}.${s}.${key}` : `${which}.${key}`;
+}
+
+function toSi(c: SettingControl, texts: SideTexts, prefs: UnitPrefs): Record<string, unknown> {
+  const side = (s: Side, t: Texts) => {
     const shape = sideShapes[s];
-    const t = texts[s] ?? { setting: '', diff: '' };
-    return { [shape.setting.key]: fromDisplayValue(t.setting, shape.setting.q, prefs), [shape.diff.key]: fromDisplayValue(t.diff, shape.diff.q, prefs) };
+    return { [shape.setting.key]: fromDisplayValue(t[shape.setting.key], shape.setting.q, prefs), [shape.diff.key]: fromDisplayValue(t[shape.diff.key], shape.diff.q, prefs) };
   };
-  return c === 'dual' ? { low: side('low'), high: side('high') } : side(c);
+  return c === 'dual' ? { low: side('low', texts.low), high: side('high', texts.high) } : side(c, texts);
 }
 
 /** The recorded settings as form text, at the reader's usual precision. */
-function recordedTexts(c: SettingControl, recorded: Record<string, unknown>, prefs: UnitPrefs): Texts {
-  const side = (s: Side, values: Record<string, unknown>) => {
+function recordedTexts(c: SettingControl, recorded: Record<string, unknown>, prefs: UnitPrefs): SideTexts {
+  const side = (s: Side, values: Record<string, unknown>): Texts => {
     const shape = sideShapes[s];
-    return { setting: toDisplayValue(values[shape.setting.key] as number, shape.setting.q, prefs), diff: toDisplayValue(values[shape.diff.key] as number, shape.diff.q, prefs) };
+    return { ...empty, [shape.setting.key]: toDisplayValue(values[shape.setting.key] as number, shape.setting.q, prefs), [shape.diff.key]: toDisplayValue(values[shape.diff.key] as number, shape.diff.q, prefs) };
   };
-  if (c === 'dual') return { low: side('low', recorded.low as Record<string, unknown>), high: side('high', recorded.high as Record<string, unknown>) };
-  return { [c]: side(c, recorded) };
+  if (c === 'dual') return { ...empty, low: side('low', recorded.low as Record<string, unknown>), high: side('high', recorded.high as Record<string, unknown>) };
+  return { ...side(c, recorded), low: { ...empty }, high: { ...empty } };
 }
 
 function recordedWords(c: SettingControl, recorded: Record<string, unknown>, prefs: UnitPrefs): string {
@@ -77,6 +101,27 @@ function recordedWords(c: SettingControl, recorded: Record<string, unknown>, pre
 
 const filled = (o: unknown): boolean =>
   typeof o === 'object' && o !== null && Object.values(o).every((v) => (typeof v === 'object' ? filled(v) : typeof v === 'number' && Number.isFinite(v)));
+
+/** A field's label, as the form shows it ("Low cut-in as left"). */
+function fieldLabel(control: SettingControl, s: Side, part: 'setting' | 'diff', which: 'found' | 'left'): string {
+  const prefix = control === 'dual' ? `${s === 'low' ? 'Low' : 'High'} ` : '';
+  const what = part === 'setting' ? sideShapes[s].setting.label.toLowerCase() : 'differential';
+  return `${prefix}${what} as ${which}`.replace(/^./, (ch) => ch.toUpperCase());
+}
+
+/** Every field of every control, by path, for range errors worded in the reader's units. */
+const unitFields: Record<string, UnitField> = Object.fromEntries(
+  (['low', 'high', 'dual', 'thermostat'] as const).flatMap((control) =>
+    (['found', 'left'] as const).flatMap((which) =>
+      sidesOf(control).flatMap((s) =>
+        (['setting', 'diff'] as const).map((part) => [
+          fieldName(which === 'found' ? 'asFound' : 'asLeft', control, s, part),
+          { label: fieldLabel(control, s, part, which), quantity: part === 'setting' ? sideShapes[s].setting.q : sideShapes[s].diff.q },
+        ]),
+      ),
+    ),
+  ),
+);
 
 export function SettingForm({
   unit,
@@ -92,47 +137,31 @@ export function SettingForm({
   onCancel: () => void;
 }) {
   const controls = controlsFor(unit);
-  const [control, setControl] = useState<SettingControl>(controls[0] ?? 'low');
-  const [found, setFound] = useState<Texts>(() => blank(controls[0] ?? 'low'));
-  const [left, setLeft] = useState<Texts>(() => blank(controls[0] ?? 'low'));
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const resolver = useMemo(
+    () => schemaResolver(settingChangeDataSchema, (v: SettingValues) => ({ control: v.control, asFound: toSi(v.control, v.asFound, prefs), asLeft: toSi(v.control, v.asLeft, prefs) }), { prefs, unitFields }),
+    [prefs],
+  );
+  const form = useForm<SettingValues, unknown, SettingChangeData>({ resolver, defaultValues: blank(controls[0] ?? 'low') });
+  // A saved setting change leaves the form as it is: the workspace moves on to the unit.
+  const f = useEntrySubmit(form, onSubmit, () => undefined);
+  const [control, found, left] = useWatch({ control: form.control, name: ['control', 'asFound', 'asLeft'] });
   const recorded = recordedSettings(unit.nameplate, control);
 
-  function choose(c: SettingControl) {
-    setControl(c);
-    setFound(blank(c));
-    setLeft(blank(c));
-    setErrors({});
-  }
-
-  const data = useMemo(() => ({ control, asFound: toSi(control, found, prefs), asLeft: toSi(control, left, prefs) }) as SettingChangeData, [control, found, left, prefs]);
+  const data = useMemo(() => ({ control, asFound: toSi(control, found, prefs), asLeft: toSi(control, left, prefs) }), [control, found, left, prefs]);
   // Live values once both sides are filled in; the server computes the same on save.
-  const computed = useMemo(() => (filled(data.asFound) && filled(data.asLeft) ? computeSettingChange(data, ctx, prefs) : null), [data, ctx, prefs]);
+  const live = useMemo(() => {
+    const parsed = settingChangeDataSchema.safeParse(data);
+    return filled(data.asFound) && filled(data.asLeft) && parsed.success ? { input: parsed.data, computed: computeSettingChange(parsed.data, ctx, prefs) } : null;
+  }, [data, ctx, prefs]);
+  const computed = live?.computed ?? null;
 
-  async function submit(e: FormEvent) {
-    e.preventDefault();
-    setBusy(true);
-    setMessage(null);
-    const result = await onSubmit(data);
-    setBusy(false);
-    if (!result.ok) {
-      setErrors(result.errors);
-      setMessage(result.message ?? null);
-    }
-  }
-
-  const unitLabel = (q: Quantity) => conversionFor(q, prefs).label;
-  const errorAt = (which: 'Found' | 'Left', s: Side, key: string) => errors[control === 'dual' ? `as${which}.${s}.${key}` : `as${which}.${key}`];
-
-  const fields = (which: 'found' | 'left', texts: Texts, set: (t: Texts) => void) => (
+  const fields = (which: 'found' | 'left') => (
     <fieldset className="space-y-3 rounded-lg border border-slate-300 p-3">
       <legend className="px-1 text-base font-bold text-slate-900">As {which}</legend>
       {which === 'found' && recorded ? (
         <button
           type="button"
-          onClick={() => set(recordedTexts(control, recorded, prefs))}
+          onClick={() => form.setValue('asFound', recordedTexts(control, recorded, prefs), { shouldValidate: form.formState.isSubmitted })}
           className="min-h-11 w-full rounded-md border border-ice-300 bg-ice-50 px-3 py-2 text-left font-semibold text-ice-900 hover:bg-ice-100"
         >
           Same as recorded ({recordedWords(control, recorded, prefs)})
@@ -140,36 +169,19 @@ export function SettingForm({
       ) : null}
       {which === 'found' && !recorded ? <p className="text-sm text-slate-700">No settings are on record for this control: read them from the dial.</p> : null}
       {which === 'left' ? (
-        <button type="button" onClick={() => setLeft(found)} className="min-h-11 rounded-md px-3 font-semibold text-ice-800 underline hover:bg-ice-50">
+        <button type="button" onClick={() => form.setValue('asLeft', form.getValues('asFound'), { shouldValidate: form.formState.isSubmitted })} className="min-h-11 rounded-md px-3 font-semibold text-ice-800 underline hover:bg-ice-50">
           Left as found
         </button>
       ) : null}
       {sidesOf(control).map((s) => {
         const shape = sideShapes[s];
-        const t = texts[s] ?? { setting: '', diff: '' };
-        const w = which === 'found' ? 'Found' : 'Left';
-        const prefix = control === 'dual' ? `${s === 'low' ? 'Low' : 'High'} ` : '';
+        const w: Which = which === 'found' ? 'asFound' : 'asLeft';
         return (
           <div key={s} className="space-y-2">
             {control === 'dual' ? <p className="font-semibold text-slate-800">{shape.title}</p> : null}
             <div className="grid grid-cols-2 gap-3">
-              <NumberInput
-                id={`setting-${which}-${s}-setting`}
-                label={`${prefix}${shape.setting.label.toLowerCase()} as ${which}`.replace(/^./, (ch) => ch.toUpperCase())}
-                unit={unitLabel(shape.setting.q)}
-                value={t.setting}
-                onChange={(v) => set({ ...texts, [s]: { ...t, setting: v } })}
-                error={errorAt(w, s, shape.setting.key)}
-                allowNegative
-              />
-              <NumberInput
-                id={`setting-${which}-${s}-diff`}
-                label={`${prefix}differential as ${which}`.replace(/^./, (ch) => ch.toUpperCase())}
-                unit={unitLabel(shape.diff.q)}
-                value={t.diff}
-                onChange={(v) => set({ ...texts, [s]: { ...t, diff: v } })}
-                error={errorAt(w, s, shape.diff.key)}
-              />
+              <UnitNumberField form={form} name={fieldName(w, control, s, 'setting')} id={`setting-${which}-${s}-setting`} label={fieldLabel(control, s, 'setting', which)} quantity={shape.setting.q} prefs={prefs} negative signButton large />
+              <UnitNumberField form={form} name={fieldName(w, control, s, 'diff')} id={`setting-${which}-${s}-diff`} label={fieldLabel(control, s, 'diff', which)} quantity={shape.diff.q} prefs={prefs} large />
             </div>
           </div>
         );
@@ -178,13 +190,13 @@ export function SettingForm({
   );
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="New setting change">
+    <form onSubmit={f.submit} noValidate className="space-y-4" aria-label="New setting change">
       {controls.length > 1 ? (
-        <ChoiceCards<SettingControl>
+        <BoundChoiceCards
+          form={form}
           name="control"
           legend="Which control?"
-          value={control}
-          onChange={choose}
+          onPick={(c) => form.reset(blank(c))}
           columns="grid-cols-1 min-[400px]:grid-cols-3"
           choices={controls.map((c) => ({
             value: c,
@@ -197,11 +209,11 @@ export function SettingForm({
         <p className="font-semibold text-slate-900">{settingControlLabels[control]}</p>
       )}
       {control !== 'thermostat' ? <Cautions items={[SAFETY_CONTROL_CAUTION]} title="Pressure controls are safety controls" /> : null}
-      {fields('found', found, setFound)}
-      {fields('left', left, setLeft)}
+      {fields('found')}
+      {fields('left')}
       <ComputedPanel
         title={`${settingControlLabels[control]}: computed`}
-        rows={computed ? computedRows(control, computed, prefs, data, ctx) : []}
+        rows={live ? computedRows(control, live.computed, prefs, live.input, ctx) : []}
         bases={computed?.basis ? [computed.basis] : []}
         problems={computed?.problems ?? []}
         empty={control === 'thermostat' ? 'A thermostat setting is checked against the system’s design box temperature.' : 'Fill in both sides to see the other setting and the saturation temperatures.'}
@@ -217,12 +229,8 @@ export function SettingForm({
         </Alert>
       ))}
       <p className="text-sm text-slate-700">The unit’s current settings follow the as-left values when this is saved.</p>
-      {message ? (
-        <Alert tone="danger" title="Not saved">
-          {message}
-        </Alert>
-      ) : null}
-      <FormActions busy={busy} onCancel={onCancel} label="Save setting change" />
+      <NotSaved message={f.message} />
+      <FormFooter submitting={f.busy} submitLabel="Save setting change" onCancel={onCancel} />
     </form>
   );
 }
