@@ -24,7 +24,7 @@ import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
 import { can } from '@/lib/auth/access';
 import { plansForTechnician } from '@/lib/plans/scheduling';
-import { Section } from '@/components/ui/section';
+import { Section, SectionLink } from '@/components/ui/section';
 
 export const metadata: Metadata = { title: 'Home' };
 
@@ -99,12 +99,7 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
         <Section
           id="sites-h"
           title="Sites"
-          align="end"
-          actions={
-            <Link href="/sites" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-              All sites
-            </Link>
-          }
+          link={{ href: '/sites', label: 'All sites' }}
         >
           <SiteList sites={sites.items} showClient empty="No sites yet." />
         </Section>
@@ -138,12 +133,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
       <Section
         id="attention-h"
         title="Needs attention"
-        align="end"
-        actions={
-          <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-            How this list is ordered · all
-          </Link>
-        }
+        link={{ href: '/attention', label: 'How this list is ordered · all' }}
       >
         <AttentionList units={attention.items} />
       </Section>
@@ -169,12 +159,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
       <Section
         id="office-attention-h"
         title="Needs attention"
-        align="end"
-        actions={
-          <Link href="/attention" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-            All, and how they are ordered
-          </Link>
-        }
+        link={{ href: '/attention', label: 'All, and how they are ordered' }}
       >
         <AttentionList units={attention.items} />
       </Section>
@@ -182,12 +167,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
         <Section
           id="requests-h"
           title="New service requests"
-          align="end"
-          actions={
-            <Link href="/requests" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-              All requests
-            </Link>
-          }
+          link={{ href: '/requests', label: 'All requests' }}
         >
           {requests.length === 0 ? (
             <p className="text-sm text-slate-700">No new requests.</p>
@@ -207,12 +187,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
         <Section
           id="due-h"
           title="Due in the next 30 days or overdue"
-          align="end"
-          actions={
-            <Link href="/plans" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-              Planned visits
-            </Link>
-          }
+          link={{ href: '/plans', label: 'Planned visits' }}
         >
           <DueList items={due} canPlan={can(actor, 'plans.write')} />
         </Section>
@@ -243,9 +218,7 @@ async function TechnicianHome({ actor }: { actor: Awaited<ReturnType<typeof requ
           <h3 id="planned-h" className="font-semibold">
             Planned for you
           </h3>
-          <Link href="/plans" className="inline-flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-            All planned visits
-          </Link>
+          <SectionLink href="/plans">All planned visits</SectionLink>
         </div>
         {plans.length === 0 ? (
           <p className="text-slate-700">Nothing planned for you in the next 7 days.</p>

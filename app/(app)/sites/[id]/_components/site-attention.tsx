@@ -1,9 +1,8 @@
 import { FileDown, FileSpreadsheet } from 'lucide-react';
-import Link from 'next/link';
 import { AttentionList } from '@/components/overview/attention-list';
 import type { Actor } from '@/lib/auth/actor';
 import { attentionPage } from '@/lib/attention/service';
-import { Section } from '@/components/ui/section';
+import { Section, SectionLink } from '@/components/ui/section';
 
 /** What needs attention on this site and its equipment report, for everyone who can see the site. */
 export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: string }) {
@@ -15,9 +14,7 @@ export async function SiteAttention({ actor, siteId }: { actor: Actor; siteId: s
       align="end"
       actions={
         <div className="flex flex-wrap gap-2 text-sm">
-          <Link href={`/attention?siteId=${siteId}`} className="flex min-h-11 items-center font-semibold text-ice-800 underline">
-            How this is ranked
-          </Link>
+          <SectionLink href={`/attention?siteId=${siteId}`}>How this is ranked</SectionLink>
           <a href={`/api/reports/site-equipment?siteId=${siteId}&format=pdf`} className="inline-flex min-h-11 items-center gap-1 rounded-md border border-slate-300 bg-white px-3 font-semibold" download>
             <FileDown aria-hidden className="size-4" /> Equipment report PDF
           </a>

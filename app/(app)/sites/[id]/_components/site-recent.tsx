@@ -14,12 +14,7 @@ export function SiteRecentVisits({ visits, siteId }: { visits: VisitDto[]; siteI
     <Section
       id="recent-visits-h"
       title="Recent visits"
-      align="end"
-      actions={
-        <Link href={`/visits?siteId=${siteId}`} className="flex min-h-11 items-center text-sm font-semibold text-ice-800 underline">
-          All visits at this site
-        </Link>
-      }
+      link={{ href: `/visits?siteId=${siteId}`, label: 'All visits at this site' }}
     >
       {visits.length === 0 ? (
         <EmptyState title="No finished visits at this site yet." />
