@@ -30,18 +30,9 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import { portFromUrl } from './port-from-url';
 
 const HOST = '127.0.0.1';
-
-function portFromUrl(value: string | undefined): number | undefined {
-  if (!value) return undefined;
-  try {
-    const port = new URL(value).port;
-    return port ? Number(port) : undefined;
-  } catch {
-    return undefined;
-  }
-}
 
 const { values: args } = parseArgs({
   options: {

@@ -14,6 +14,7 @@ import { mkdirSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
+import { portFromUrl } from './port-from-url';
 
 interface S3rverOptions {
   address: string;
@@ -42,16 +43,6 @@ const { values: args } = parseArgs({
     bucket: { type: 'string', multiple: true },
   },
 });
-
-function portFromUrl(value: string | undefined): number | undefined {
-  if (!value) return undefined;
-  try {
-    const port = new URL(value).port;
-    return port ? Number(port) : undefined;
-  } catch {
-    return undefined;
-  }
-}
 
 const port = Number(args.port ?? portFromUrl(process.env.S3_ENDPOINT) ?? 4570);
 const directory = path.resolve(

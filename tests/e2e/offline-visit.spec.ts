@@ -66,6 +66,20 @@ async function recordWithoutSignal(page: Page, control: string, evaporator: stri
   await expect(page.getByTestId('just-saved')).toContainText('Waiting for signal');
 }
 
+/** Without signal: one photo kept on the phone, then the close queued with the client's summary. */
+async function photoAndCloseWithoutSignal(page: Page, file: string, nameplate: string, missing: string, summary: string): Promise<void> {
+  await page.getByRole('button', { name: 'Photo', exact: true }).click();
+  await page.getByTestId('offline-photo-input').setInputFiles({ name: file, mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage(nameplate)).jpeg().toBuffer() });
+  await expect(page.getByText('1 photo kept on this phone for this visit.')).toBeVisible();
+  await page.getByRole('button', { name: 'Done with photos' }).click();
+
+  await page.getByTestId('visit-bar').getByRole('button', { name: 'Close visit' }).click();
+  await expect(page.getByTestId('close-missing')).toContainText(missing);
+  await page.getByLabel('Summary for the client').fill(summary);
+  await page.getByRole('button', { name: 'Close visit', exact: true }).last().click();
+  await expect(page.getByTestId('close-queued')).toBeVisible();
+}
+
 test('a visit recorded and closed without signal reaches the server once, after a reload and a lost answer @phone', async ({ page, context }, info) => {
   test.setTimeout(240_000);
   const label = String(Date.now()).slice(-5);
@@ -92,16 +106,7 @@ test('a visit recorded and closed without signal reaches the server once, after 
 
   await recordWithoutSignal(page, control.name, evaporator.name, `Drain pan heater open circuit (${label})`);
 
-  await page.getByRole('button', { name: 'Photo', exact: true }).click();
-  await page.getByTestId('offline-photo-input').setInputFiles({ name: 'coil.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('FROSTWELL DC-20')).jpeg().toBuffer() });
-  await expect(page.getByText('1 photo kept on this phone for this visit.')).toBeVisible();
-  await page.getByRole('button', { name: 'Done with photos' }).click();
-
-  await page.getByTestId('visit-bar').getByRole('button', { name: 'Close visit' }).click();
-  await expect(page.getByTestId('close-missing')).toContainText('3 entries and 1 photo not yet sent');
-  await page.getByLabel('Summary for the client').fill('Low-pressure control reset; drain pan heater to replace.');
-  await page.getByRole('button', { name: 'Close visit', exact: true }).last().click();
-  await expect(page.getByTestId('close-queued')).toBeVisible();
+  await photoAndCloseWithoutSignal(page, 'coil.jpg', 'FROSTWELL DC-20', '3 entries and 1 photo not yet sent', 'Low-pressure control reset; drain pan heater to replace.');
   await shot(page, 'offline-visit-close-queued');
 
   // Still without signal, the visit page opens again from the phone with everything waiting.
@@ -159,16 +164,7 @@ test('a visit started without signal at a kept site reaches the server once, eve
 
   await recordWithoutSignal(page, control.name, evaporator.name, `Fan motor bearing noise (${label})`);
 
-  await page.getByRole('button', { name: 'Photo', exact: true }).click();
-  await page.getByTestId('offline-photo-input').setInputFiles({ name: 'fan.jpg', mimeType: 'image/jpeg', buffer: await sharp(await nameplateImage('KELVRIN FM-9')).jpeg().toBuffer() });
-  await expect(page.getByText('1 photo kept on this phone for this visit.')).toBeVisible();
-  await page.getByRole('button', { name: 'Done with photos' }).click();
-
-  await page.getByTestId('visit-bar').getByRole('button', { name: 'Close visit' }).click();
-  await expect(page.getByTestId('close-missing')).toContainText('The visit itself is not on the server yet');
-  await page.getByLabel('Summary for the client').fill('Fan motor noisy; replacement to be quoted.');
-  await page.getByRole('button', { name: 'Close visit', exact: true }).last().click();
-  await expect(page.getByTestId('close-queued')).toBeVisible();
+  await photoAndCloseWithoutSignal(page, 'fan.jpg', 'KELVRIN FM-9', 'The visit itself is not on the server yet', 'Fan motor noisy; replacement to be quoted.');
 
   // A reload without signal: the phone's copy of the visit, everything still waiting.
   await page.reload();
