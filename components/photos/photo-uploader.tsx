@@ -2,13 +2,13 @@
 
 import { Camera, CircleCheck, Clock, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, X } from 'lucide-react';
 import { useEffect, useId, useRef, useState } from 'react';
+import { PhotoDetailsForm } from '@/components/photos/photo-details-form';
 import { usePhotoUploads, unsentMessage, type UploadItem } from '@/components/photos/use-photo-uploads';
 import { Button } from '@/components/ui/button';
-import { Input, Select } from '@/components/ui/field';
+import { Select } from '@/components/ui/field';
 import { LeaveDialog } from '@/components/ui/leave-dialog';
 import { useLeaveGuard } from '@/components/ui/use-leave-guard';
 import type { PhotoDto } from '@/lib/photos/dto';
-import { useUpdatePhoto } from '@/lib/photos/hooks';
 import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
 import { cn } from '@/lib/utils';
 
@@ -224,7 +224,7 @@ function UploadRow({
           {item.file.name} <span className="font-normal text-slate-600">· {formatBytes(item.file.size)}</span>
         </p>
         {item.status === 'done' && item.photo ? (
-          <StoredPhotoFields photo={item.photo} label={label} fileName={item.file.name} onSaved={(photo) => onChange({ photo, kind: photo.kind, caption: photo.caption ?? '' })} />
+          <PhotoDetailsForm photo={item.photo} label={label} fileName={item.file.name} onSaved={(photo) => onChange({ photo, kind: photo.kind, caption: photo.caption ?? '' })} />
         ) : item.status === 'failed' && item.retryable ? (
           <div>
             <label htmlFor={`${label}-kind`} className="sr-only">
@@ -256,77 +256,5 @@ function UploadRow({
         ) : null}
       </div>
     </li>
-  );
-}
-
-/** Kind and caption of a stored photo, changed in place (PATCH) when its uploader may edit it. */
-function StoredPhotoFields({ photo, label, fileName, onSaved }: { photo: PhotoDto; label: string; fileName: string; onSaved: (photo: PhotoDto) => void }) {
-  const update = useUpdatePhoto();
-  const [kind, setKind] = useState<PhotoKind>(photo.kind);
-  const [caption, setCaption] = useState(photo.caption ?? '');
-  const [saved, setSaved] = useState(false);
-  if (!photo.canEdit) {
-    return (
-      <p className="text-sm text-slate-700">
-        {photoKindLabels[photo.kind]}
-        {photo.caption ? ` · ${photo.caption}` : ''}
-      </p>
-    );
-  }
-  const changed = kind !== photo.kind || caption.trim() !== (photo.caption ?? '');
-  return (
-    <form
-      className="space-y-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        if (!changed) return;
-        setSaved(false);
-        update.mutate(
-          { id: photo.id, input: { kind, caption } },
-          {
-            onSuccess: (next) => {
-              setSaved(true);
-              onSaved(next);
-            },
-          },
-        );
-      }}
-    >
-      <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
-        <div>
-          <label htmlFor={`${label}-kind`} className="sr-only">
-            Kind of {fileName}
-          </label>
-          <Select id={`${label}-kind`} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
-            {photoKinds.map((k) => (
-              <option key={k} value={k}>
-                {photoKindLabels[k]}
-              </option>
-            ))}
-          </Select>
-        </div>
-        <div>
-          <label htmlFor={`${label}-caption`} className="sr-only">
-            Caption for {fileName}
-          </label>
-          <Input id={`${label}-caption`} value={caption} maxLength={500} placeholder="Add a caption (optional)" onChange={(e) => setCaption(e.target.value)} />
-        </div>
-      </div>
-      {changed ? (
-        <Button type="submit" variant="secondary" disabled={update.isPending}>
-          {update.isPending ? 'Saving…' : 'Save kind and caption'}
-        </Button>
-      ) : null}
-      {update.isError ? (
-        <p role="alert" className="flex items-start gap-1.5 text-sm font-medium text-red-800">
-          <OctagonAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
-          {update.error.message}
-        </p>
-      ) : saved && !changed ? (
-        <p role="status" className="flex items-center gap-1.5 text-sm text-emerald-800">
-          <CircleCheck aria-hidden className="size-4" /> Saved
-        </p>
-      ) : null}
-    </form>
   );
 }
