@@ -1,7 +1,6 @@
 'use client';
 
 import { useEffect } from 'react';
-import { setOfflineUser } from '@/lib/offline/user';
 
 /**
  * In the signed-in layout: names the person the phone's offline copy belongs to (wiping another
@@ -9,7 +8,8 @@ import { setOfflineUser } from '@/lib/offline/user';
  */
 export function OfflineSetup({ userId }: { userId: string }) {
   useEffect(() => {
-    void setOfflineUser(userId);
+    // Loaded here rather than imported: the offline store (and idb) stays out of every page's first scripts.
+    void import('@/lib/offline/user').then(({ setOfflineUser }) => setOfflineUser(userId));
   }, [userId]);
   useEffect(() => {
     if (process.env.NODE_ENV !== 'production' || !('serviceWorker' in navigator)) return;

@@ -11,7 +11,7 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { usePhotos } from '@/lib/photos/hooks';
-import { photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
+import { photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/terms';
 import { Section } from '@/components/ui/section';
 import { FilterChip } from '@/components/ui/filter-chip';
 

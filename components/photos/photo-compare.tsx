@@ -6,7 +6,7 @@ import { FullScreenDialog } from '@/components/photos/full-screen-dialog';
 import { formatPhotoDay, PhotoKindLabel, photoDayKey, timeApart } from '@/components/photos/photo-kind';
 import { useZoomPan } from '@/components/photos/use-zoom-pan';
 import type { PhotoDto } from '@/lib/photos/dto';
-import { photoKindLabels } from '@/lib/photos/schemas';
+import { photoKindLabels } from '@/lib/photos/terms';
 
 // Two photos of the same equipment side by side (stacked on a phone), earlier on the left, with
 // one zoom and pan for both so the same spot lines up: corrosion then and now.

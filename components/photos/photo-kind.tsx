@@ -1,5 +1,5 @@
 import { Bandage, Cable, Camera, ClipboardCheck, ClipboardList, Droplets, Tag, type LucideIcon } from 'lucide-react';
-import { photoKindLabels, type PhotoKind } from '@/lib/photos/schemas';
+import { photoKindLabels, type PhotoKind } from '@/lib/photos/terms';
 import { cn } from '@/lib/utils';
 import { formatDay, formatStamp, localDate } from '@/lib/format/dates';
 

@@ -9,7 +9,7 @@ import { Select } from '@/components/ui/field';
 import { LeaveDialog } from '@/components/ui/leave-dialog';
 import { useLeaveGuard } from '@/components/ui/use-leave-guard';
 import type { PhotoDto } from '@/lib/photos/dto';
-import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
+import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/terms';
 import { cn } from '@/lib/utils';
 
 // Several photos at once, from the camera or from files. Each starts uploading the moment it is

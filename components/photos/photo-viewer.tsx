@@ -8,7 +8,7 @@ import { useZoomPan } from '@/components/photos/use-zoom-pan';
 import { ApiError } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { useDeletePhoto, useUpdatePhoto } from '@/lib/photos/hooks';
-import { formatBytes, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/schemas';
+import { formatBytes, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/terms';
 import { cn } from '@/lib/utils';
 
 // Full-screen photo with zoom and pan. Past 2× it swaps the display copy for the original, so

@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { LeaveDialog } from '@/components/ui/leave-dialog';
 import { Modal } from '@/components/ui/modal';
 import { useLeaveGuard } from '@/components/ui/use-leave-guard';
-import { photoKindLabels, photoKinds } from '@/lib/photos/schemas';
+import { photoKindLabels, photoKinds } from '@/lib/photos/terms';
 
 // A photo from the unit's header in three taps: "Add photo", the kind, the shutter. Each kind in
 // the sheet is a label for its own camera input, so the second tap opens the camera directly;

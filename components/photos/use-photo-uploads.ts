@@ -5,7 +5,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import { ApiError } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { photoKeys, uploadPhotoFile } from '@/lib/photos/hooks';
-import { photoFileProblem, type PhotoKind } from '@/lib/photos/schemas';
+import { photoFileProblem, type PhotoKind } from '@/lib/photos/terms';
 
 // The upload queue behind every photo picker: a chosen file starts at once (two at a time), each
 // with its own progress; a failure keeps the file in memory and waits for Retry; nothing is

@@ -2,7 +2,6 @@
 
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { outboxItems } from '@/lib/visits/outbox';
 
 const EVERY_MS = 30_000;
 
@@ -17,6 +16,8 @@ export function OutboxRunner() {
   useEffect(() => {
     if (typeof indexedDB === 'undefined') return;
     const run = async (force: boolean) => {
+      // Even the look into the outbox (idb) loads after the page, not with it.
+      const { outboxItems } = await import('@/lib/visits/outbox');
       if ((await outboxItems()).length === 0) return;
       const [{ drainOutbox }, { visitKeys }, { offlineUser }] = await Promise.all([import('@/lib/visits/outbox-sender'), import('@/lib/visits/hooks'), import('@/lib/offline/user')]);
       // Only the signed-in person's own work is sent under their session.

@@ -5,7 +5,7 @@ import { useEffect, useId, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Field, Select } from '@/components/ui/field';
 import { conversionFor, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
-import { useReadingSeries } from '@/lib/visits/hooks';
+import { useReadingSeries } from '@/lib/visits/reading-series';
 import { formatStamp } from '@/lib/format/dates';
 
 // The chart library is the largest script of the unit page and the chart sits below the history:

@@ -9,15 +9,11 @@ import type { PhotoKind } from '@/lib/photos/schemas';
 import { adoptLegacyEntries, nextSeq, outboxItems, patchItem, putItem, removeItem, subscribeOutbox, type OutboxItem } from '@/lib/visits/outbox';
 import { drainOutbox, sendItem, type SendResult } from '@/lib/visits/outbox-sender';
 import { offlineUser } from '@/lib/offline/user';
+import { visitKeys, type HistoryScope } from '@/lib/visits/keys';
 import { HISTORY_PAGE_SIZE, type CloseVisitInput, type CreateEntryInput, type EntryKind, type StartVisitInput } from '@/lib/visits/schemas';
 
-export const visitKeys = {
-  all: ['visits'] as const,
-  detail: (id: string) => ['visits', 'detail', id] as const,
-  histories: () => ['visits', 'history'] as const,
-  history: (scope: HistoryScope, id: string, kinds: readonly EntryKind[]) => ['visits', 'history', scope, id, kinds] as const,
-  readings: (equipmentId: string, key: string) => ['visits', 'readings', equipmentId, key] as const,
-};
+export { visitKeys, type HistoryScope } from '@/lib/visits/keys';
+export { useReadingSeries, type ReadingPoint } from '@/lib/visits/reading-series';
 
 /** `fromServer: false`: a visit shown from the phone's copy, not to be fetched (it may not exist there yet). */
 export function useVisit(id: string, initial?: VisitDetailDto, opts: { fromServer?: boolean } = {}) {
@@ -175,7 +171,6 @@ export function useVisitOutbox(visitId: string) {
 // ---------------------------------------------------------------------------------------------
 // History and charts.
 
-export type HistoryScope = 'equipment' | 'system';
 
 export function historyUrl(scope: HistoryScope, id: string, kinds: readonly EntryKind[], cursor?: string, limit = HISTORY_PAGE_SIZE): string {
   const params = new URLSearchParams();
@@ -195,14 +190,3 @@ export function useHistory(scope: HistoryScope, id: string, kinds: readonly Entr
   });
 }
 
-export interface ReadingPoint {
-  recordedAt: string;
-  value: number;
-}
-
-export function useReadingSeries(equipmentId: string, key: string) {
-  return useQuery({
-    queryKey: visitKeys.readings(equipmentId, key),
-    queryFn: ({ signal }) => apiFetch<{ key: string; points: ReadingPoint[] }>(`/api/equipment/${equipmentId}/readings?key=${encodeURIComponent(key)}`, { signal }),
-  });
-}

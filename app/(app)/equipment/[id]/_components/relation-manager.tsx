@@ -1,50 +1,27 @@
 'use client';
 
 import { Unlink } from 'lucide-react';
+import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { useState } from 'react';
-import { useForm, type Resolver } from 'react-hook-form';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
-import { schemaResolver } from '@/components/forms/schema-resolver';
-import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { Field, Select, describedBy } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { RelationDto } from '@/lib/equipment/dto';
-import { useAddRelation, useRemoveRelation, useSiteEquipment } from '@/lib/equipment/hooks';
-import { createRelationSchema, type CreateRelationInput } from '@/lib/equipment/schemas';
-import { equipmentTypeLabels, relationPhrases, type RelationKind } from '@/lib/equipment/types';
+import { useRemoveRelation } from '@/lib/equipment/hooks';
+import { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types';
 
-// One choice covers both the kind and which end this equipment is, read as a sentence:
-// "This equipment is wired to …" / "This equipment is switched by …".
-const ways: { value: string; kind: RelationKind; direction: 'from' | 'to'; text: string }[] = [
-  { value: 'controls:from', kind: 'controls', direction: 'from', text: 'is wired to (switches)' },
-  { value: 'controls:to', kind: 'controls', direction: 'to', text: 'is switched by' },
-  { value: 'serves:from', kind: 'serves', direction: 'from', text: 'feeds' },
-  { value: 'serves:to', kind: 'serves', direction: 'to', text: 'is fed by' },
-];
-
-interface RelationFormValues {
-  way: string;
-  otherId: string;
-}
-
-const relationResolver: Resolver<RelationFormValues, unknown, CreateRelationInput> = schemaResolver(
-  createRelationSchema,
-  (values: RelationFormValues) => {
-    const way = ways.find((w) => w.value === values.way);
-    return { kind: way?.kind ?? '', direction: way?.direction ?? 'from', otherId: values.otherId };
-  },
-  {
-    // The kind and its direction are one choice on the form.
-    adjust: (errors) => {
-      const kind = errors.kind ?? errors.direction;
-      if (kind) errors.way = kind;
-    },
-  },
-);
+// Loaded when "Change connections" opens (its form library and schemas are not needed before).
+const AddRelationForm = dynamic(() => import('@/app/(app)/equipment/[id]/_components/add-relation-form').then((m) => m.AddRelationForm), {
+  ssr: false,
+  loading: () => (
+    <p role="status" className="p-4 text-slate-600">
+      Loading the form…
+    </p>
+  ),
+});
 
 function phrase(r: RelationDto): string {
   return relationPhrases[r.kind][r.direction];
@@ -103,70 +80,10 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
         <details className="rounded-lg border border-slate-200 bg-white" onToggle={(e) => setEditing(e.currentTarget.open)}>
           <summary className="flex min-h-11 cursor-pointer items-center px-4 font-semibold text-slate-900 hover:bg-slate-50">Change connections</summary>
           <div className="border-t border-slate-200">
-            <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} />
+            {editing ? <AddRelationForm equipmentId={equipmentId} siteId={siteId} onAdded={setRelations} /> : null}
           </div>
         </details>
       ) : null}
     </div>
-  );
-}
-
-function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId: string; siteId: string; onAdded: (relations: RelationDto[]) => void }) {
-  const add = useAddRelation(equipmentId);
-  const candidates = useSiteEquipment(siteId);
-  const [banner, setBanner] = useState<string>();
-  const form = useForm<RelationFormValues, unknown, CreateRelationInput>({ resolver: relationResolver, defaultValues: { way: 'controls:from', otherId: '' } });
-  const errors = form.formState.errors;
-  // The list API leaves removed units out; the check here keeps a stale cache from offering one.
-  const others = (candidates.data?.items ?? []).filter((e) => e.id !== equipmentId && e.status !== 'removed');
-
-  const onSubmit = form.handleSubmit(async (input) => {
-    setBanner(undefined);
-    try {
-      const result = await add.mutateAsync(input);
-      onAdded(result.items);
-      form.reset({ way: form.getValues('way'), otherId: '' });
-    } catch (error) {
-      setBanner(
-        error instanceof ApiError && error.code === 'conflict'
-          ? 'These two are already connected that way.'
-          : applyServerErrors(error, form.setError, ['otherId']),
-      );
-    }
-  });
-
-  return (
-    <form onSubmit={onSubmit} noValidate className="grid gap-3 p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end lg:grid-cols-1 xl:grid-cols-[minmax(0,12rem)_minmax(0,1fr)] xl:[&>button]:col-span-2">
-      <h3 className="text-base font-semibold sm:col-span-3 lg:col-span-1 xl:col-span-2">Add a connection</h3>
-      {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3 lg:col-span-1 xl:col-span-2" /> : null}
-      <Field id="relation-way" label="This equipment" error={errors.way?.message}>
-        <Select id="relation-way" {...describedBy('relation-way', errors.way?.message)} {...form.register('way')}>
-          {ways.map((w) => (
-            <option key={w.value} value={w.value}>
-              {w.text}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field
-        id="relation-other"
-        label="Other equipment on this site"
-        error={errors.otherId?.message}
-        hint={candidates.isPending ? 'Loading the site’s equipment…' : others.length === 0 ? 'No other equipment on this site yet.' : undefined}
-      >
-        <Select id="relation-other" disabled={candidates.isPending} {...describedBy('relation-other', errors.otherId?.message)} {...form.register('otherId')}>
-          <option value="">Choose…</option>
-          {others.map((e) => (
-            <option key={e.id} value={e.id}>
-              {`${e.name} (${equipmentTypeLabels[e.type]}${e.areaName ? `, ${e.areaName}` : ''})`}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Button type="submit" disabled={form.formState.isSubmitting}>
-        {form.formState.isSubmitting ? 'Adding…' : 'Add connection'}
-      </Button>
-      {candidates.isError ? <p className="text-sm text-red-700 sm:col-span-3 lg:col-span-1 xl:col-span-2">The site’s equipment could not be loaded: {(candidates.error as Error).message}</p> : null}
-    </form>
   );
 }
