@@ -164,44 +164,55 @@ export interface AttentionPage {
  * in JavaScript; units past their expected life and nothing else can be most of a large estate,
  * so they are ordered and cut to the page in SQL (same score, then name and id in code-point
  * order) and merged in. The cursor is the last unit's rank key.
+ *
+ * The age-ordered units are asked for beside the signal lookups, not after them: `lookahead` more
+ * rows than the page needs, from which the units with other signals (ranked with those) are
+ * dropped; only when that leaves the page short is the query sent again without them. On a page
+ * that starts before the age-only units, the same scan counts them all (a window count), so the
+ * total needs no second pass over every unit.
  */
 export async function attentionPage(
   actor: Actor,
-  options: { siteId?: string | null; limit: number; cursor?: string | null; withTotal?: boolean },
+  options: { siteId?: string | null; limit: number; cursor?: string | null; withTotal?: boolean; lookahead?: number },
   db: Db = defaultDb,
   today = new Date(),
 ): Promise<AttentionPage> {
   assertCan(actor, 'overview.read');
   const siteId = options.siteId ?? null;
   const after = decodeRankCursor(options.cursor);
+  const wantTotal = options.withTotal !== false;
+  const lookahead = options.lookahead ?? 50;
   const pastLife = () =>
     visibleUnits(actor, siteId, db)
       .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
       .where(pastExpectedLifeSql(today));
-  // The count of every unit past its life needs no signal, so it runs beside their lookups.
-  const counting = options.withTotal === false ? null : pastLife().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow();
-  counting?.catch(() => undefined);
-  const found = await findSignals(actor, siteId, db, today);
-  const signalled = rankUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
-  const signalledIds = signalled.map((u) => u.equipmentId);
-  const ageOnly = () => pastLife().$if(signalledIds.length > 0, (q) => q.where('equipment.id', 'not in', signalledIds));
   // Age-only units are all "watch" with no dated problem; a cursor before the watch units takes them all.
+  const afterWatch = after?.priority === PRIORITIES.indexOf('watch');
   const score = pastLifeScoreSql(today);
-  const [rows, counted] = await Promise.all([
-    ageOnly()
-      .$if(after?.priority === PRIORITIES.indexOf('watch'), (q) =>
+  const ageOrdered = (exclude: string[], take: number, countAll: boolean) =>
+    pastLife()
+      .$if(exclude.length > 0, (q) => q.where('equipment.id', 'not in', exclude))
+      .$if(afterWatch, (q) =>
         q.where(sql<boolean>`(-${score}, equipment.name collate "C", equipment.id) > (${-after!.score}::float8, ${after!.name}::text collate "C", ${after!.id}::uuid)`),
       )
       .select(['equipment.id', 'equipment.name', 'equipment.type', 'equipment.site_id', 'sites.name as site_name', ageYearsSql(today).as('age_years'), 'life.median_years'])
+      .$if(countAll, (q) => q.select(sql<number>`(count(*) over ())::int`.as('matching')))
       .orderBy(score, 'desc')
       .orderBy(sql`equipment.name collate "C"`)
       .orderBy('equipment.id')
-      .limit(options.limit + 1)
-      .execute(),
-    counting,
-  ]);
+      .limit(take)
+      .execute();
+  const take = options.limit + 1 + lookahead;
+  // Counted in the same scan when the page starts before the age-only units; else on its own.
+  const countInScan = wantTotal && !afterWatch;
+  const counting = wantTotal && afterWatch ? pastLife().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow() : null;
+  const [found, ahead, counted] = await Promise.all([findSignals(actor, siteId, db, today), ageOrdered([], take, countInScan), counting]);
+  const signalled = rankUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
+  const signalledIds = new Set(signalled.map((u) => u.equipmentId));
+  let rows: Omit<(typeof ahead)[number], 'matching'>[] = ahead.filter((r) => !signalledIds.has(r.id));
+  if (rows.length < options.limit + 1 && ahead.length === take) rows = await ageOrdered([...signalledIds], options.limit + 1, false);
   const ageRanked = rankUnits(
-    rows.map((r) => ({
+    rows.slice(0, options.limit + 1).map((r) => ({
       equipmentId: r.id,
       equipmentName: r.name,
       equipmentType: r.type,
@@ -215,10 +226,12 @@ export async function attentionPage(
     .sort((a, b) => compareRankKeys(a.key, b.key));
   const kept = candidates.slice(0, options.limit);
   const last = kept.at(-1);
+  // Every unit past its life: the window count (or the count), which includes those with another reason too.
+  const pastLifeCount = counted ? counted.n : countInScan ? ((ahead[0] as { matching?: number } | undefined)?.matching ?? 0) : null;
   return {
     items: kept.map((c) => c.u),
     // Units past their life that also have another reason are in `signalled` already.
-    total: counted ? signalled.length + counted.n - signalled.filter((u) => u.signals.some((x) => x.kind === 'past_expected_life')).length : null,
+    total: pastLifeCount === null ? null : signalled.length + pastLifeCount - signalled.filter((u) => u.signals.some((x) => x.kind === 'past_expected_life')).length,
     nextCursor: candidates.length > options.limit && last ? encodeRankCursor(last.key) : null,
   };
 }

@@ -1,12 +1,13 @@
 // The attention list paged by its keyset cursor is the whole ranked list, in order: units past
 // their expected life and nothing else are ordered in SQL and merged with the units ranked in
 // JavaScript, so the pages must agree with needsAttention at every boundary (ties on score broken
-// by name and id, names differing only in case, a cursor inside the signalled units).
+// by name and id, names differing only in case, a cursor inside the signalled units), with and
+// without rows looked ahead.
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { attentionPage, needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { actorFor, createTestDb, demoEmails } from '@/tests/helpers/db';
+import { demoWithCircuit } from '@/tests/helpers/registry';
 import { call, mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -17,11 +18,10 @@ let owner: Actor;
 let stranger: Actor;
 
 beforeAll(async () => {
-  await resetToDemo(db);
-  office = await actorFor(db, demoEmails.office);
-  owner = await actorFor(db, demoEmails.client);
+  const demo = await demoWithCircuit(db);
+  ({ office, owner } = demo);
+  const { circuit } = demo;
   stranger = await actorFor(db, demoEmails.clientTwo);
-  const circuit = await createCoolerCircuit(db);
   // Twenty condensing units (expected life 20 years) installed 21 to 40 years ago, three of them
   // on the same day (same score: the name and then the id decide), names in mixed case.
   const today = new Date();
@@ -44,12 +44,12 @@ afterAll(async () => {
   await db.destroy();
 });
 
-async function allPages(actor: Actor, limit: number, siteId: string | null = null) {
+async function allPages(actor: Actor, limit: number, siteId: string | null = null, lookahead?: number) {
   const seen: string[] = [];
   const totals: (number | null)[] = [];
   let cursor: string | null = null;
   for (let guard = 0; guard < 100; guard++) {
-    const page = await attentionPage(actor, { siteId, limit, cursor });
+    const page = await attentionPage(actor, { siteId, limit, cursor, lookahead });
     expect(page.items.length).toBeLessThanOrEqual(limit);
     seen.push(...page.items.map((u) => u.equipmentId));
     totals.push(page.total);
@@ -65,10 +65,14 @@ describe('attention list pages', () => {
       const whole = await needsAttention(actor);
       expect(whole.length).toBeGreaterThan(20);
       expect(whole.filter((u) => u.equipmentName.toLowerCase().startsWith('aged unit')).length).toBe(20);
-      for (const limit of [1, 3, 7, 100]) {
-        const { seen, totals } = await allPages(actor, limit);
-        expect(seen).toEqual(whole.map((u) => u.equipmentId));
-        expect(new Set(totals)).toEqual(new Set([whole.length]));
+      // No lookahead: the units with another reason among the age-ordered rows leave the page
+      // short, and the age query is sent again without them.
+      for (const lookahead of [undefined, 0]) {
+        for (const limit of [1, 3, 7, 100]) {
+          const { seen, totals } = await allPages(actor, limit, null, lookahead);
+          expect(seen).toEqual(whole.map((u) => u.equipmentId));
+          expect(new Set(totals)).toEqual(new Set([whole.length]));
+        }
       }
     }
   });
