@@ -19,9 +19,11 @@ export async function getSitePack(actor: Actor, siteId: string, db: Db = default
   assertCan(actor, 'equipment.read');
   assertCan(actor, 'entries.write');
   if (actor.role === 'client') throw new AppError('forbidden');
-  // Scoped like every site read: another company's site is a 404.
-  const site = await getSite(actor, siteId, db);
-  const [unitRows, historyRows, followUpRows, openVisit, contexts] = await Promise.all([
+  // Scoped like every site read: another company's site is a 404. Checked beside the pack's own
+  // queries rather than before them (each is limited to the actor's company, and nothing is sent
+  // unless the check passes), so the pack costs one round trip less.
+  const [site, unitRows, historyRows, followUpRows, openVisit, contexts] = await Promise.all([
+    getSite(actor, siteId, db),
     packUnitsQuery(actor, db, siteId).execute(),
     packHistoryQuery(actor, db, siteId).execute(),
     packFollowUpsQuery(actor, db, siteId).execute(),

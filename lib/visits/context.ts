@@ -67,8 +67,8 @@ export async function entryContext(trx: Db, equipmentId: string): Promise<Server
  */
 export async function siteEntryContexts(actor: Actor, siteId: string, db: Db = defaultDb): Promise<Record<string, EntryContext>> {
   assertCan(actor, 'entries.write');
-  await getSite(actor, siteId, db);
-  const rows = await contextRows(db, { siteId });
+  // The site check and the rows at once: the rows are only returned when the check passes.
+  const [, rows] = await Promise.all([getSite(actor, siteId, db), contextRows(db, { siteId })]);
   return Object.fromEntries(
     [...rows].map(([id, c]) => [
       id,
