@@ -2,14 +2,13 @@
 
 import { useRouter } from 'next/navigation';
 import { useMemo, useState, type ReactNode } from 'react';
-import { useForm, type Resolver, type UseFormRegister } from 'react-hook-form';
+import { useForm, type Resolver, type UseFormRegister, type UseFormReturn } from 'react-hook-form';
 import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver, type PathErrors } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { conditionLook } from '@/components/equipment/condition-badge';
 import { Alert } from '@/components/ui/alert';
-import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
 import type { EquipmentDetailDto } from '@/lib/equipment/dto';
 import { useSaveEquipment } from '@/lib/equipment/hooks';
 import { nameplateFields, type NameplateField } from '@/lib/equipment/nameplate';
@@ -19,6 +18,7 @@ import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
 import { fieldLabel, nameplateFromForm, nameplateToForm, rangeText, type NameplateFormValues } from '@/app/(app)/equipment/_components/nameplate-values';
 import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 
 /** Everything as the user typed it; numbers become SI only on their way to the schema. */
 export interface EquipmentFormValues {
@@ -147,69 +147,45 @@ export function EquipmentForm({
       {type ? (
         <>
           <Section title="Identity">
-            <Field id="name" label="Name" error={errors.name?.message} hint="What technicians call it on site, e.g. “Walk-in cooler evaporator 1”." className="sm:col-span-2">
-              <Input id="name" autoComplete="off" {...describedBy('name', errors.name?.message)} {...form.register('name')} />
-            </Field>
-            <Field id="make" label="Make" error={errors.make?.message}>
-              <Input id="make" autoComplete="off" {...describedBy('make', errors.make?.message)} {...form.register('make')} />
-            </Field>
-            <Field id="model" label="Model" error={errors.model?.message}>
-              <Input id="model" autoComplete="off" {...describedBy('model', errors.model?.message)} {...form.register('model')} />
-            </Field>
-            <Field id="serial" label="Serial number" error={errors.serial?.message} hint="As printed on the nameplate." className="sm:col-span-2">
-              <Input id="serial" autoComplete="off" autoCapitalize="characters" spellCheck={false} className="font-mono" {...describedBy('serial', errors.serial?.message)} {...form.register('serial')} />
-            </Field>
+            <BoundField form={form} name="name" label="Name" hint="What technicians call it on site, e.g. “Walk-in cooler evaporator 1”." className="sm:col-span-2" input={{ autoComplete: 'off' }} />
+            <BoundField form={form} name="make" label="Make" input={{ autoComplete: 'off' }} />
+            <BoundField form={form} name="model" label="Model" input={{ autoComplete: 'off' }} />
+            <BoundField form={form} name="serial" label="Serial number" hint="As printed on the nameplate." className="sm:col-span-2" input={{ autoComplete: 'off', autoCapitalize: 'characters', spellCheck: false, className: 'font-mono' }} />
           </Section>
 
           <Section title="Where it is">
-            <Field id="areaId" label="Area" error={errors.areaId?.message} hint={areas.length === 0 ? 'This site has no areas yet; add them on the site page.' : undefined}>
-              <Select id="areaId" {...describedBy('areaId', errors.areaId?.message)} {...form.register('areaId')}>
-                <option value="">No area</option>
-                {areas.map((a) => (
-                  <option key={a.id} value={a.id}>
-                    {a.name}
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field id="systemId" label="System" error={errors.systemId?.message} hint={systems.length === 0 ? 'This site has no systems yet.' : 'The refrigeration circuit it belongs to.'}>
-              <Select id="systemId" {...describedBy('systemId', errors.systemId?.message)} {...form.register('systemId')}>
-                <option value="">Not part of a system</option>
-                {systems.map((s) => (
-                  <option key={s.id} value={s.id}>
-                    {s.name} ({s.refrigerant})
-                  </option>
-                ))}
-              </Select>
-            </Field>
+            <BoundSelect
+              form={form}
+              name="areaId"
+              label="Area"
+              hint={areas.length === 0 ? 'This site has no areas yet; add them on the site page.' : undefined}
+              placeholder="No area"
+              options={areas.map((a) => ({ value: a.id, label: a.name }))}
+            />
+            <BoundSelect
+              form={form}
+              name="systemId"
+              label="System"
+              hint={systems.length === 0 ? 'This site has no systems yet.' : 'The refrigeration circuit it belongs to.'}
+              placeholder="Not part of a system"
+              options={systems.map((s) => ({ value: s.id, label: `${s.name} (${s.refrigerant})` }))}
+            />
           </Section>
 
           <Section title="Condition and status">
             <ConditionChoice register={form.register} error={errors.condition?.message} />
             <BoundField form={form} name="conditionNote" label="Condition note" hint="What you saw, e.g. “coil fins corroded on the left side”." className="sm:col-span-2" multiline />
-            <Field id="status" label="Status" error={errors.status?.message}>
-              <Select id="status" {...describedBy('status', errors.status?.message)} {...form.register('status')}>
-                {EQUIPMENT_STATUSES.map((s) => (
-                  <option key={s} value={s}>
-                    {statusLabels[s]}
-                  </option>
-                ))}
-              </Select>
-            </Field>
+            <BoundSelect form={form} name="status" label="Status" options={optionsOf(EQUIPMENT_STATUSES, statusLabels)} />
           </Section>
 
           <Section title="Dates">
-            <Field id="manufacturedOn" label="Manufactured" error={errors.manufacturedOn?.message} hint="Often coded in the serial; leave empty if unknown.">
-              <Input id="manufacturedOn" type="date" {...describedBy('manufacturedOn', errors.manufacturedOn?.message)} {...form.register('manufacturedOn')} />
-            </Field>
-            <Field id="installedOn" label="Installed" error={errors.installedOn?.message}>
-              <Input id="installedOn" type="date" {...describedBy('installedOn', errors.installedOn?.message)} {...form.register('installedOn')} />
-            </Field>
+            <BoundField form={form} name="manufacturedOn" label="Manufactured" hint="Often coded in the serial; leave empty if unknown." input={{ type: 'date' }} />
+            <BoundField form={form} name="installedOn" label="Installed" input={{ type: 'date' }} />
           </Section>
 
           <Section title={`Nameplate: ${equipmentTypeLabels[type].toLowerCase()}`} note="Every field is optional: record what the nameplate shows.">
             {nameplateFields[type].map((field) => (
-              <NameplateInput key={`${type}.${field.key}`} field={field} prefs={prefs} register={form.register} error={(errors.nameplate as Record<string, { message?: string }> | undefined)?.[field.key]?.message} />
+              <NameplateInput key={`${type}.${field.key}`} field={field} prefs={prefs} form={form} />
             ))}
           </Section>
 
@@ -290,47 +266,22 @@ function ConditionChoice({ register, error }: { register: UseFormRegister<Equipm
   );
 }
 
-function NameplateInput({ field, prefs, register, error }: { field: NameplateField; prefs: UnitPrefs; register: UseFormRegister<EquipmentFormValues>; error?: string }) {
-  const id = `np-${field.key}`;
-  const label = fieldLabel(field, prefs);
-  const reg = register(`nameplate.${field.key}`);
-  const aria = describedBy(id, error);
+function NameplateInput({ field, prefs, form }: { field: NameplateField; prefs: UnitPrefs; form: Pick<UseFormReturn<EquipmentFormValues>, 'register' | 'formState'> }) {
+  const bound = { form, name: `nameplate.${field.key}` as const, id: `np-${field.key}`, label: fieldLabel(field, prefs), hint: field.hint };
   switch (field.kind) {
     case 'number':
-      return (
-        <Field id={id} label={label} error={error} hint={field.hint}>
-          {/* Text with a numeric keypad: iOS's decimal pad has no minus sign, and vacuum and freezer values are negative. */}
-          <Input id={id} inputMode={field.min < 0 ? 'text' : 'decimal'} autoComplete="off" {...aria} {...reg} />
-        </Field>
-      );
+      // Text with a numeric keypad: iOS's decimal pad has no minus sign, and vacuum and freezer values are negative.
+      return <BoundField {...bound} input={{ inputMode: field.min < 0 ? 'text' : 'decimal', autoComplete: 'off' }} />;
     case 'enum':
-      return (
-        <Field id={id} label={label} error={error} hint={field.hint}>
-          <Select id={id} {...aria} {...reg}>
-            <option value="">Not recorded</option>
-            {field.options.map(([value, text]) => (
-              <option key={value} value={value}>
-                {text}
-              </option>
-            ))}
-          </Select>
-        </Field>
-      );
+      return <BoundSelect {...bound} placeholder="Not recorded" options={field.options.map(([value, label]) => ({ value, label }))} />;
     case 'bool':
-      return (
-        <Field id={id} label={label} error={error} hint={field.hint}>
-          <Select id={id} {...aria} {...reg}>
-            <option value="">Not recorded</option>
-            <option value="true">Yes</option>
-            <option value="false">No</option>
-          </Select>
-        </Field>
-      );
+      return <BoundSelect {...bound} placeholder="Not recorded" options={yesNo} />;
     case 'text':
-      return (
-        <Field id={id} label={label} error={error} hint={field.hint} className={field.max > 100 ? 'sm:col-span-2' : undefined}>
-          {field.max > 100 ? <Textarea id={id} {...aria} {...reg} /> : <Input id={id} autoComplete="off" {...aria} {...reg} />}
-        </Field>
-      );
+      return <BoundField {...bound} className={field.max > 100 ? 'sm:col-span-2' : undefined} multiline={field.max > 100} input={{ autoComplete: 'off' }} />;
   }
 }
+
+const yesNo = [
+  { value: 'true', label: 'Yes' },
+  { value: 'false', label: 'No' },
+];

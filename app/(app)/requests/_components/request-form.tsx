@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundSelect } from '@/components/forms/bound-select';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { ApiError } from '@/lib/api/client';
 import { Alert } from '@/components/ui/alert';
@@ -61,16 +62,15 @@ export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: strin
   return (
     <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
       {banner ? <Alert tone="danger" title={banner} /> : null}
-      <Field id="req-site" label="Site" error={errors.siteId?.message}>
-        <Select id="req-site" {...describedBy('req-site', errors.siteId?.message)} {...form.register('siteId', { onChange: () => form.setValue('equipmentId', null) })}>
-          <option value="">Choose a site…</option>
-          {sites.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.name}
-            </option>
-          ))}
-        </Select>
-      </Field>
+      <BoundSelect
+        form={form}
+        name="siteId"
+        id="req-site"
+        label="Site"
+        placeholder="Choose a site…"
+        options={sites.map((site) => ({ value: site.id, label: site.name }))}
+        rules={{ onChange: () => form.setValue('equipmentId', null) }}
+      />
       <Field id="req-unit" label="Which unit (if you know)" error={errors.equipmentId?.message} hint={equipment.isLoading ? 'Loading the units of this site…' : undefined}>
         <Select id="req-unit" disabled={!chosenSite} {...describedBy('req-unit', errors.equipmentId?.message)} {...form.register('equipmentId', { setValueAs: (v) => v || null })}>
           <option value="">Not sure / the whole site</option>

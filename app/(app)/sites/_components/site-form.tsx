@@ -6,10 +6,11 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { FormFooter } from '@/components/forms/form-footer';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
-import { Field, Input, Select, describedBy } from '@/components/ui/field';
+import { Field, Input, describedBy } from '@/components/ui/field';
 import { useSaveSite } from '@/lib/sites/hooks';
 import { createSiteSchema } from '@/lib/sites/schemas';
 import type { SiteDto } from '@/lib/sites/dto';
@@ -78,42 +79,19 @@ export function SiteForm({
     <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
       {banner ? <Alert tone="danger" title={banner} /> : null}
       {!site ? (
-        <Field id="clientId" label="Client" error={errors.clientId?.message}>
-          <Select id="clientId" {...describedBy('clientId', errors.clientId?.message)} {...form.register('clientId')}>
-            <option value="">Choose a client…</option>
-            {clients.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        <BoundSelect form={form} name="clientId" label="Client" placeholder="Choose a client…" options={clients.map((c) => ({ value: c.id, label: c.name }))} />
       ) : null}
       <BoundField form={form} name="name" label="Site name" hint="How technicians and the owner call it, e.g. “Harbor Street kitchen”." />
-      <Field id="addressLine1" label="Street address" error={errors.addressLine1?.message}>
-        <Input id="addressLine1" autoComplete="address-line1" {...describedBy('addressLine1', errors.addressLine1?.message)} {...form.register('addressLine1')} />
-      </Field>
-      <Field id="addressLine2" label="Address line 2" error={errors.addressLine2?.message}>
-        <Input id="addressLine2" autoComplete="address-line2" {...describedBy('addressLine2', errors.addressLine2?.message)} {...form.register('addressLine2')} />
-      </Field>
+      <BoundField form={form} name="addressLine1" label="Street address" input={{ autoComplete: 'address-line1' }} />
+      <BoundField form={form} name="addressLine2" label="Address line 2" input={{ autoComplete: 'address-line2' }} />
       <div className="grid gap-4 sm:grid-cols-3">
         <BoundField form={form} name="city" label="City" />
         <BoundField form={form} name="region" label="State / region" />
         <BoundField form={form} name="postalCode" label="Postal code" />
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
-        <Field id="country" label="Country code" error={errors.country?.message}>
-          <Input id="country" maxLength={2} {...describedBy('country', errors.country?.message)} {...form.register('country')} />
-        </Field>
-        <Field id="timeZone" label="Time zone" error={errors.timeZone?.message} hint="Visits at this site show in this zone.">
-          <Select id="timeZone" {...describedBy('timeZone', errors.timeZone?.message)} {...form.register('timeZone')}>
-            {timeZones.map((z) => (
-              <option key={z} value={z}>
-                {z}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        <BoundField form={form} name="country" label="Country code" input={{ maxLength: 2 }} />
+        <BoundSelect form={form} name="timeZone" label="Time zone" hint="Visits at this site show in this zone." options={optionsOf(timeZones)} />
         <Field
           id="elevation"
           label={`Elevation (${units === 'imperial' ? 'ft' : 'm'})`}

@@ -4,12 +4,12 @@ import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { UnitNumberField } from '@/components/forms/unit-number-field';
 import { Alert } from '@/components/ui/alert';
-import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import type { SystemDto } from '@/lib/systems/dto';
 import { useSaveSystem } from '@/lib/systems/hooks';
@@ -75,7 +75,6 @@ export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDt
       notes: system?.notes ?? '',
     },
   });
-  const errors = form.formState.errors;
 
   const onSubmit = form.handleSubmit(async (input) => {
     setBanner(undefined);
@@ -92,44 +91,14 @@ export function SystemForm({ system, siteId, areas, prefs }: { system?: SystemDt
   return (
     <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
       {banner ? <Alert tone="danger" title={banner}>Your entries are still here; fix the marked fields and save again.</Alert> : null}
-      <Field id="name" label="System name" error={errors.name?.message} hint="e.g. “Walk-in cooler system” or “Rack A”.">
-        <Input id="name" autoComplete="off" {...describedBy('name', errors.name?.message)} {...form.register('name')} />
-      </Field>
+      <BoundField form={form} name="name" label="System name" hint="e.g. “Walk-in cooler system” or “Rack A”." input={{ autoComplete: 'off' }} />
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field id="refrigerant" label="Refrigerant" error={errors.refrigerant?.message} hint="ASHRAE number, as on the condensing unit’s nameplate.">
-          <Select id="refrigerant" {...describedBy('refrigerant', errors.refrigerant?.message)} {...form.register('refrigerant')}>
-            <option value="">Choose…</option>
-            {REFRIGERANT_IDS.map((r) => (
-              <option key={r} value={r}>
-                {r}
-              </option>
-            ))}
-          </Select>
-        </Field>
-        <Field id="application" label="Application" error={errors.application?.message} hint="Sets the leak-rate thresholds that apply.">
-          <Select id="application" {...describedBy('application', errors.application?.message)} {...form.register('application')}>
-            {APPLICATIONS.map((a) => (
-              <option key={a} value={a}>
-                {applicationLabels[a]}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        <BoundSelect form={form} name="refrigerant" label="Refrigerant" hint="ASHRAE number, as on the condensing unit’s nameplate." placeholder="Choose…" options={optionsOf(REFRIGERANT_IDS)} />
+        <BoundSelect form={form} name="application" label="Application" hint="Sets the leak-rate thresholds that apply." options={optionsOf(APPLICATIONS, applicationLabels)} />
         <UnitNumberField form={form} name="fullChargeKg" label="Full charge" quantity="mass" prefs={prefs} hint="Total refrigerant in the circuit, if known." />
         <UnitNumberField form={form} name="designBoxTempC" label="Design box temperature" quantity="temperature" prefs={prefs} hint="What the box is meant to hold." negative />
-        <Field id="areaId" label="Area it serves" error={errors.areaId?.message}>
-          <Select id="areaId" {...describedBy('areaId', errors.areaId?.message)} {...form.register('areaId')}>
-            <option value="">No particular area</option>
-            {areas.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </Select>
-        </Field>
-        <Field id="maintenanceIntervalDays" label="Maintenance every (days)" error={errors.maintenanceIntervalDays?.message} hint="Leave empty if there is no plan.">
-          <Input id="maintenanceIntervalDays" inputMode="numeric" autoComplete="off" {...describedBy('maintenanceIntervalDays', errors.maintenanceIntervalDays?.message)} {...form.register('maintenanceIntervalDays')} />
-        </Field>
+        <BoundSelect form={form} name="areaId" label="Area it serves" placeholder="No particular area" options={areas.map((a) => ({ value: a.id, label: a.name }))} />
+        <BoundField form={form} name="maintenanceIntervalDays" label="Maintenance every (days)" hint="Leave empty if there is no plan." input={{ inputMode: 'numeric', autoComplete: 'off' }} />
       </div>
       <BoundField form={form} name="notes" label="Notes" multiline />
       <FormFooter submitting={form.formState.isSubmitting} submitLabel={system ? 'Save changes' : 'Create system'} />

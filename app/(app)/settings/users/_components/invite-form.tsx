@@ -5,10 +5,11 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import { roleLabels, roles } from '@/lib/auth/permissions';
 import type { InvitationDto } from '@/lib/users/dto';
 import { useInvite, useRevokeInvitation } from '@/lib/users/hooks';
@@ -24,7 +25,6 @@ export function InviteForm({ clients, invitations }: { clients: { id: string; na
   const [status, setStatus] = useState<{ tone: 'success' | 'danger'; text: string }>();
   const form = useForm<Values>({ resolver: zodResolver(inviteUserSchema), defaultValues: { email: '', name: '', role: 'technician', clientId: null } });
   const role = form.watch('role');
-  const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (values) => {
     setStatus(undefined);
     try {
@@ -40,32 +40,11 @@ export function InviteForm({ clients, invitations }: { clients: { id: string; na
     <div className="space-y-3">
       <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2">
         {status ? <Alert tone={status.tone} title={status.text} className="sm:col-span-2" /> : null}
-        <Field id="invite-name" label="Name" error={errors.name?.message}>
-          <Input id="invite-name" {...describedBy('invite-name', errors.name?.message)} {...form.register('name')} />
-        </Field>
-        <Field id="invite-email" label="E-mail" error={errors.email?.message}>
-          <Input id="invite-email" type="email" {...describedBy('invite-email', errors.email?.message)} {...form.register('email')} />
-        </Field>
-        <Field id="invite-role" label="Role" error={errors.role?.message}>
-          <Select id="invite-role" {...describedBy('invite-role', errors.role?.message)} {...form.register('role')}>
-            {roles.map((r) => (
-              <option key={r} value={r}>
-                {roleLabels[r]}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        <BoundField form={form} name="name" id="invite-name" label="Name" />
+        <BoundField form={form} name="email" id="invite-email" label="E-mail" input={{ type: 'email' }} />
+        <BoundSelect form={form} name="role" id="invite-role" label="Role" options={optionsOf(roles, roleLabels)} />
         {role === 'client' ? (
-          <Field id="invite-client" label="Client" error={errors.clientId?.message} hint="An owner sees only this client's sites.">
-            <Select id="invite-client" {...describedBy('invite-client', errors.clientId?.message)} {...form.register('clientId')}>
-              <option value="">Choose a client…</option>
-              {clients.map((c) => (
-                <option key={c.id} value={c.id}>
-                  {c.name}
-                </option>
-              ))}
-            </Select>
-          </Field>
+          <BoundSelect form={form} name="clientId" id="invite-client" label="Client" hint="An owner sees only this client's sites." placeholder="Choose a client…" options={clients.map((c) => ({ value: c.id, label: c.name }))} />
         ) : null}
         <div className="sm:col-span-2">
           <Button type="submit" disabled={form.formState.isSubmitting}>

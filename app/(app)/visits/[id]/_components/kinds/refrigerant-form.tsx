@@ -4,10 +4,10 @@ import { useEffect, useMemo } from 'react';
 import { ArrowDownToLine, ArrowUpFromLine } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { UnitNumberField } from '@/components/forms/unit-number-field';
-import { describedBy, Field, Select } from '@/components/ui/field';
 import { CERTIFIED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import { fromDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
@@ -83,16 +83,7 @@ export function RefrigerantForm({
           Refrigerant: <strong>{ctx.refrigerant}</strong> <span className="text-sm text-slate-700">(the system’s refrigerant)</span>
         </p>
       ) : (
-        <Field id="refrigerant-id" label="Refrigerant" error={refrigerantError} hint="No refrigerant is on record for this system.">
-          <Select id="refrigerant-id" {...describedBy('refrigerant-id', refrigerantError)} {...form.register('refrigerant')}>
-            <option value="">Choose…</option>
-            {REFRIGERANT_IDS.map((r) => (
-              <option key={r} value={r}>
-                {r}
-              </option>
-            ))}
-          </Select>
-        </Field>
+        <BoundSelect form={form} name="refrigerant" id="refrigerant-id" label="Refrigerant" hint="No refrigerant is on record for this system." placeholder="Choose…" options={optionsOf(REFRIGERANT_IDS)} />
       )}
       {refrigerantError && ctx.refrigerant ? (
         <p role="alert" className="text-sm font-medium text-red-700">

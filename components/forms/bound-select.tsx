@@ -1,0 +1,55 @@
+'use client';
+
+import type { ReactNode } from 'react';
+import { get, type FieldValues, type Path, type RegisterOptions, type UseFormReturn } from 'react-hook-form';
+import { Field, Select, describedBy } from '@/components/ui/field';
+
+export interface SelectOption {
+  value: string;
+  label: string;
+}
+
+/** Options from plain values (ASHRAE numbers, time zones) or from labelled values. */
+export function optionsOf<T extends string>(values: readonly T[], labels?: Record<T, string>): SelectOption[] {
+  return values.map((v) => ({ value: v, label: labels ? labels[v] : v }));
+}
+
+/** A choice from a list, bound to a react-hook-form field: label, select, hint and the field's error. */
+export function BoundSelect<T extends FieldValues>({
+  form,
+  name,
+  id = name,
+  label,
+  hint,
+  options,
+  placeholder,
+  className,
+  rules,
+}: {
+  form: Pick<UseFormReturn<T>, 'register' | 'formState'>;
+  name: Path<T>;
+  /** The control's id when the name alone could clash with another form on the page. */
+  id?: string;
+  label: string;
+  hint?: ReactNode;
+  options: readonly SelectOption[];
+  /** A first, empty option ("Choose…") for a field with no value yet. */
+  placeholder?: string;
+  className?: string;
+  /** react-hook-form's own register options, e.g. an onChange that clears a dependent field. */
+  rules?: Pick<RegisterOptions<T, Path<T>>, 'onChange'>;
+}) {
+  const error = (get(form.formState.errors, name) as { message?: string } | undefined)?.message;
+  return (
+    <Field id={id} label={label} error={error} hint={hint} className={className}>
+      <Select id={id} {...describedBy(id, error)} {...form.register(name, rules)}>
+        {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </Select>
+    </Field>
+  );
+}
