@@ -5,10 +5,11 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select, Textarea, describedBy } from '@/components/ui/field';
 import { weekStart } from '@/lib/plans/days';
 import { useCreatePlan } from '@/lib/plans/hooks';
 import { createPlanSchema } from '@/lib/plans/schemas';
@@ -62,16 +63,7 @@ export function PlanForm({ siteId, siteToday, systems, equipment, technicians, d
   return (
     <form onSubmit={onSubmit} noValidate className="grid max-w-2xl gap-4">
       {banner ? <Alert tone="danger" title={banner} /> : null}
-      <Field id="plan-reason" label="Reason" error={errors.reason?.message}>
-        <Select id="plan-reason" {...describedBy('plan-reason', errors.reason?.message)} {...form.register('reason')}>
-          <option value="">Choose…</option>
-          {VISIT_REASONS.map((r) => (
-            <option key={r} value={r}>
-              {visitReasonLabels[r]}
-            </option>
-          ))}
-        </Select>
-      </Field>
+      <BoundSelect form={form} name="reason" id="plan-reason" label="Reason" placeholder="Choose…" options={optionsOf(VISIT_REASONS, visitReasonLabels)} />
       <fieldset className="space-y-1">
         <legend className="text-sm font-semibold text-slate-800">Systems</legend>
         {systems.length === 0 ? <p className="text-sm text-slate-700">No systems at this site yet: the visit is for the whole site.</p> : null}
@@ -97,30 +89,13 @@ export function PlanForm({ siteId, siteToday, systems, equipment, technicians, d
           </div>
         </details>
       ) : null}
-      <Field id="plan-technician" label="Technician" error={errors.technicianId?.message}>
-        <Select id="plan-technician" {...describedBy('plan-technician', errors.technicianId?.message)} {...form.register('technicianId')}>
-          <option value="">Choose…</option>
-          {technicians.map((t) => (
-            <option key={t.id} value={t.id}>
-              {t.name}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field id="plan-day" label="Day (site calendar)" error={errors.day?.message}>
-        <Input id="plan-day" type="date" min={siteToday} {...describedBy('plan-day', errors.day?.message)} {...form.register('day')} />
-      </Field>
+      <BoundSelect form={form} name="technicianId" id="plan-technician" label="Technician" placeholder="Choose…" options={technicians.map((t) => ({ value: t.id, label: t.name }))} />
+      <BoundField form={form} name="day" id="plan-day" label="Day (site calendar)" input={{ type: 'date', min: siteToday }} />
       <div className="grid grid-cols-2 gap-3">
-        <Field id="plan-start" label="From (site time)" error={errors.windowStart?.message}>
-          <Input id="plan-start" type="time" {...describedBy('plan-start', errors.windowStart?.message)} {...form.register('windowStart')} />
-        </Field>
-        <Field id="plan-end" label="To (site time)" error={errors.windowEnd?.message}>
-          <Input id="plan-end" type="time" {...describedBy('plan-end', errors.windowEnd?.message)} {...form.register('windowEnd')} />
-        </Field>
+        <BoundField form={form} name="windowStart" id="plan-start" label="From (site time)" input={{ type: 'time' }} />
+        <BoundField form={form} name="windowEnd" id="plan-end" label="To (site time)" input={{ type: 'time' }} />
       </div>
-      <Field id="plan-note" label="Note for the technician (optional)" error={errors.note?.message}>
-        <Textarea id="plan-note" {...describedBy('plan-note', errors.note?.message)} {...form.register('note')} />
-      </Field>
+      <BoundField form={form} name="note" id="plan-note" label="Note for the technician (optional)" multiline />
       <div>
         <Button type="submit" size="lg" disabled={form.formState.isSubmitting}>
           Plan this visit

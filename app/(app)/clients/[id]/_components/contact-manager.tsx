@@ -6,11 +6,11 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { Field, Input, describedBy } from '@/components/ui/field';
 import type { ContactDto } from '@/lib/clients/dto';
 import { useDeleteContact, useSaveContact } from '@/lib/clients/hooks';
 import { createContactSchema } from '@/lib/clients/schemas';
@@ -23,7 +23,6 @@ export function ContactManager({ clientId, contacts, canWrite }: { clientId: str
   const remove = useDeleteContact(clientId);
   const [banner, setBanner] = useState<string>();
   const form = useForm<Values>({ resolver: zodResolver(createContactSchema), defaultValues: { name: '', email: '', phone: '', title: '', receivesReports: true } });
-  const errors = form.formState.errors;
   const onSubmit = form.handleSubmit(async (values) => {
     setBanner(undefined);
     try {
@@ -81,18 +80,10 @@ export function ContactManager({ clientId, contacts, canWrite }: { clientId: str
       {canWrite ? (
         <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2">
           {banner ? <Alert tone="danger" title={banner} className="sm:col-span-2" /> : null}
-          <Field id="contact-name" label="Name" error={errors.name?.message}>
-            <Input id="contact-name" {...describedBy('contact-name', errors.name?.message)} {...form.register('name')} />
-          </Field>
-          <Field id="contact-title" label="Title" error={errors.title?.message}>
-            <Input id="contact-title" placeholder="Facilities lead" {...describedBy('contact-title', errors.title?.message)} {...form.register('title')} />
-          </Field>
-          <Field id="contact-email" label="E-mail" error={errors.email?.message}>
-            <Input id="contact-email" type="email" {...describedBy('contact-email', errors.email?.message)} {...form.register('email')} />
-          </Field>
-          <Field id="contact-phone" label="Phone" error={errors.phone?.message}>
-            <Input id="contact-phone" type="tel" {...describedBy('contact-phone', errors.phone?.message)} {...form.register('phone')} />
-          </Field>
+          <BoundField form={form} name="name" id="contact-name" label="Name" />
+          <BoundField form={form} name="title" id="contact-title" label="Title" input={{ placeholder: 'Facilities lead' }} />
+          <BoundField form={form} name="email" id="contact-email" label="E-mail" input={{ type: 'email' }} />
+          <BoundField form={form} name="phone" id="contact-phone" label="Phone" input={{ type: 'tel' }} />
           <label className="flex min-h-11 items-center gap-2 text-sm font-medium sm:col-span-2">
             <input type="checkbox" className="size-5" {...form.register('receivesReports')} />
             Send this contact a report after each visit

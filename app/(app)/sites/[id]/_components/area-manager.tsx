@@ -6,11 +6,12 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import type { AreaDto } from '@/lib/sites/dto';
 import { useArchiveArea, useSaveArea } from '@/lib/sites/hooks';
 import { areaKindLabels, areaKinds, createAreaSchema, type AreaKind } from '@/lib/sites/schemas';
@@ -25,7 +26,6 @@ function AreaForm({ siteId, area, onDone }: { siteId: string; area?: AreaDto; on
     resolver: zodResolver(createAreaSchema),
     defaultValues: { name: area?.name ?? '', kind: (area?.kind as AreaKind) ?? 'walk_in_cooler', notes: area?.notes ?? '' },
   });
-  const errors = form.formState.errors;
   const prefix = area ? `area-${area.id}` : 'new-area';
   const onSubmit = form.handleSubmit(async (values) => {
     try {
@@ -40,18 +40,8 @@ function AreaForm({ siteId, area, onDone }: { siteId: string; area?: AreaDto; on
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-[1fr_1fr_auto] sm:items-end">
       {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3" /> : null}
-      <Field id={`${prefix}-name`} label="Area name" error={errors.name?.message}>
-        <Input id={`${prefix}-name`} placeholder="Walk-in freezer 1" {...describedBy(`${prefix}-name`, errors.name?.message)} {...form.register('name')} />
-      </Field>
-      <Field id={`${prefix}-kind`} label="Kind" error={errors.kind?.message}>
-        <Select id={`${prefix}-kind`} {...describedBy(`${prefix}-kind`, errors.kind?.message)} {...form.register('kind')}>
-          {areaKinds.map((k) => (
-            <option key={k} value={k}>
-              {areaKindLabels[k]}
-            </option>
-          ))}
-        </Select>
-      </Field>
+      <BoundField form={form} name="name" id={`${prefix}-name`} label="Area name" input={{ placeholder: 'Walk-in freezer 1' }} />
+      <BoundSelect form={form} name="kind" id={`${prefix}-kind`} label="Kind" options={optionsOf(areaKinds, areaKindLabels)} />
       <div className="flex gap-2">
         <Button type="submit" disabled={form.formState.isSubmitting}>
           {area ? 'Save' : 'Add area'}
