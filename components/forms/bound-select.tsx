@@ -25,6 +25,7 @@ export function BoundSelect<T extends FieldValues>({
   placeholder,
   className,
   rules,
+  disabled,
 }: {
   form: Pick<UseFormReturn<T>, 'register' | 'formState'>;
   name: Path<T>;
@@ -36,13 +37,14 @@ export function BoundSelect<T extends FieldValues>({
   /** A first, empty option ("Choose…") for a field with no value yet. */
   placeholder?: string;
   className?: string;
-  /** react-hook-form's own register options, e.g. an onChange that clears a dependent field. */
-  rules?: Pick<RegisterOptions<T, Path<T>>, 'onChange'>;
+  /** react-hook-form's own register options: an onChange that clears a dependent field, a setValueAs ('' → null). */
+  rules?: Pick<RegisterOptions<T, Path<T>>, 'onChange' | 'setValueAs'>;
+  disabled?: boolean;
 }) {
   const error = (get(form.formState.errors, name) as { message?: string } | undefined)?.message;
   return (
     <Field id={id} label={label} error={error} hint={hint} className={className}>
-      <Select id={id} {...describedBy(id, error)} {...form.register(name, rules)}>
+      <Select id={id} disabled={disabled} {...describedBy(id, error)} {...form.register(name, rules)}>
         {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
         {options.map((o) => (
           <option key={o.value} value={o.value}>

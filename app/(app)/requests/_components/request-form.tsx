@@ -5,12 +5,12 @@ import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { BoundField } from '@/components/forms/bound-field';
 import { BoundSelect } from '@/components/forms/bound-select';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { ApiError } from '@/lib/api/client';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Select, Textarea, describedBy } from '@/components/ui/field';
 import { useCreateRequest, useSiteEquipmentChoices } from '@/lib/requests/hooks';
 import { photoFileProblem } from '@/lib/photos/schemas';
 import { createRequestSchema, URGENCIES, urgencyLabels } from '@/lib/requests/schemas';
@@ -71,20 +71,18 @@ export function RequestForm({ sites, siteId, equipmentId }: { sites: { id: strin
         options={sites.map((site) => ({ value: site.id, label: site.name }))}
         rules={{ onChange: () => form.setValue('equipmentId', null) }}
       />
-      <Field id="req-unit" label="Which unit (if you know)" error={errors.equipmentId?.message} hint={equipment.isLoading ? 'Loading the units of this site…' : undefined}>
-        <Select id="req-unit" disabled={!chosenSite} {...describedBy('req-unit', errors.equipmentId?.message)} {...form.register('equipmentId', { setValueAs: (v) => v || null })}>
-          <option value="">Not sure / the whole site</option>
-          {(equipment.data?.items ?? []).map((e) => (
-            <option key={e.id} value={e.id}>
-              {e.name}
-              {e.areaName ? ` — ${e.areaName}` : ''}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field id="req-desc" label="What is wrong" error={errors.description?.message} hint="What you see or hear, the box temperature if you know it, since when.">
-        <Textarea id="req-desc" rows={5} {...describedBy('req-desc', errors.description?.message)} {...form.register('description')} />
-      </Field>
+      <BoundSelect
+        form={form}
+        name="equipmentId"
+        id="req-unit"
+        label="Which unit (if you know)"
+        hint={equipment.isLoading ? 'Loading the units of this site…' : undefined}
+        disabled={!chosenSite}
+        placeholder="Not sure / the whole site"
+        options={(equipment.data?.items ?? []).map((e) => ({ value: e.id, label: `${e.name}${e.areaName ? ` — ${e.areaName}` : ''}` }))}
+        rules={{ setValueAs: (v: string) => v || null }}
+      />
+      <BoundField form={form} name="description" id="req-desc" label="What is wrong" hint="What you see or hear, the box temperature if you know it, since when." multiline={5} />
       <RequestPhotoField
         file={photo}
         error={photoError}
