@@ -118,7 +118,8 @@ function stripJpeg(buf: Buffer): boolean {
     const result = walkJpegImage(buf, pos + 2);
     removed = result.removed || removed;
     pos = result.end;
-    while (pos < buf.length && buf[pos] !== 0xff) pos++;
+    pos = buf.indexOf(0xff, pos);
+    if (pos < 0) break;
   }
   return removed;
 }
@@ -160,13 +161,13 @@ function walkJpegImage(buf: Buffer, from: number): { removed: boolean; end: numb
 
 /** Skips compressed scan data up to the next real marker (0xFF followed by neither 0x00 nor a restart). */
 function skipEntropyData(buf: Buffer, from: number): number {
-  let pos = from;
-  while (pos + 1 < buf.length) {
-    if (buf[pos] === 0xff) {
-      const next = buf[pos + 1]!;
-      if (next !== 0x00 && next !== 0xff && !(next >= 0xd0 && next <= 0xd7)) return pos;
-    }
-    pos++;
+  // From one 0xFF to the next (a native search): the scan is most of a photo's bytes, and a byte
+  // at a time in JavaScript made this the slowest step of the location removal.
+  let pos = buf.indexOf(0xff, from);
+  while (pos >= 0 && pos + 1 < buf.length) {
+    const next = buf[pos + 1]!;
+    if (next !== 0x00 && next !== 0xff && !(next >= 0xd0 && next <= 0xd7)) return pos;
+    pos = buf.indexOf(0xff, pos + 1);
   }
   return buf.length;
 }
