@@ -3,9 +3,13 @@
 import { Link2, PlusCircle, Search } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState, type FormEvent } from 'react';
+import { useForm } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
+import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Input } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import { EQUIPMENT_TYPES, equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
 import { formatCode } from '@/lib/tags/code';
@@ -21,6 +25,11 @@ export interface ClaimEquipment {
 }
 
 /** Claiming a blank tag on site: pick the unit it goes on, or register the unit here and attach. */
+interface NewUnitValues {
+  newEquipment: { type: string; name: string; areaId: string; make: string; model: string; serial: string };
+}
+const newUnitFields = ['type', 'name', 'areaId', 'make', 'model', 'serial'].map((f) => `newEquipment.${f}`);
+
 export function ClaimFlow({
   code,
   siteName,
@@ -39,8 +48,7 @@ export function ClaimFlow({
   const [q, setQ] = useState('');
   const [chosen, setChosen] = useState<string>('');
   const [error, setError] = useState<string>();
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
-  const [form, setForm] = useState({ type: '', name: '', areaId: '', make: '', model: '', serial: '' });
+  const form = useForm<NewUnitValues>({ defaultValues: { newEquipment: { type: '', name: '', areaId: '', make: '', model: '', serial: '' } } });
 
   const shown = useMemo(() => {
     const needle = q.trim().toLowerCase();
@@ -51,10 +59,7 @@ export function ClaimFlow({
   const chosenUnit = equipment.find((e) => e.id === chosen);
 
   function fail(e: unknown) {
-    if (e instanceof ApiError) {
-      setError(e.message);
-      setFieldErrors(Object.fromEntries(e.issues.map((i) => [i.path.replace(/^newEquipment\./, ''), i.message])));
-    } else setError('Something went wrong. Nothing was saved.');
+    setError(e instanceof ApiError ? e.message : 'Something went wrong. Nothing was saved.');
   }
 
   async function attachExisting(e: FormEvent) {
@@ -73,30 +78,20 @@ export function ClaimFlow({
     }
   }
 
-  async function createAndAttach(e: FormEvent) {
-    e.preventDefault();
+  // The server checks the new unit (its issues name `newEquipment.<field>`, the form's own names).
+  const createAndAttach = form.handleSubmit(async ({ newEquipment: n }) => {
     setError(undefined);
-    setFieldErrors({});
     try {
       const result = await attach.mutateAsync({
         code,
-        input: {
-          newEquipment: {
-            type: form.type,
-            name: form.name,
-            areaId: form.areaId || null,
-            make: form.make || null,
-            model: form.model || null,
-            serial: form.serial || null,
-          },
-        },
+        input: { newEquipment: { type: n.type, name: n.name, areaId: n.areaId || null, make: n.make || null, model: n.model || null, serial: n.serial || null } },
       });
       router.push(`/equipment/${result.equipmentId}?tag=attached`);
       router.refresh();
     } catch (err) {
-      fail(err);
+      setError(applyServerErrors(err, form.setError, newUnitFields));
     }
-  }
+  });
 
   return (
     <div className="space-y-6">
@@ -154,38 +149,12 @@ export function ClaimFlow({
             <PlusCircle aria-hidden className="size-5" /> Or register the unit and attach the tag
           </h2>
           <form onSubmit={createAndAttach} noValidate className="grid gap-3 sm:grid-cols-2">
-            <Field id="new-type" label="Type" error={fieldErrors.type}>
-              <Select id="new-type" value={form.type} onChange={(e) => setForm({ ...form, type: e.target.value })} className="min-h-12">
-                <option value="">Choose a type</option>
-                {EQUIPMENT_TYPES.map((t) => (
-                  <option key={t} value={t}>
-                    {equipmentTypeLabels[t]}
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field id="new-name" label="Name" error={fieldErrors.name} hint="As people on site call it, e.g. Walk-in cooler condensing unit.">
-              <Input id="new-name" value={form.name} onChange={(e) => setForm({ ...form, name: e.target.value })} className="min-h-12" />
-            </Field>
-            <Field id="new-area" label="Area" error={fieldErrors.areaId}>
-              <Select id="new-area" value={form.areaId} onChange={(e) => setForm({ ...form, areaId: e.target.value })} className="min-h-12">
-                <option value="">No area</option>
-                {areas.map((a) => (
-                  <option key={a.id} value={a.id}>
-                    {a.name}
-                  </option>
-                ))}
-              </Select>
-            </Field>
-            <Field id="new-make" label="Make" error={fieldErrors.make}>
-              <Input id="new-make" value={form.make} onChange={(e) => setForm({ ...form, make: e.target.value })} className="min-h-12" />
-            </Field>
-            <Field id="new-model" label="Model" error={fieldErrors.model}>
-              <Input id="new-model" value={form.model} onChange={(e) => setForm({ ...form, model: e.target.value })} className="min-h-12" />
-            </Field>
-            <Field id="new-serial" label="Serial" error={fieldErrors.serial}>
-              <Input id="new-serial" value={form.serial} onChange={(e) => setForm({ ...form, serial: e.target.value })} className="min-h-12" />
-            </Field>
+            <BoundSelect form={form} name="newEquipment.type" id="new-type" label="Type" placeholder="Choose a type" options={optionsOf(EQUIPMENT_TYPES, equipmentTypeLabels)} className="[&_select]:min-h-12" />
+            <BoundField form={form} name="newEquipment.name" id="new-name" label="Name" hint="As people on site call it, e.g. Walk-in cooler condensing unit." input={{ className: 'min-h-12' }} />
+            <BoundSelect form={form} name="newEquipment.areaId" id="new-area" label="Area" placeholder="No area" options={areas.map((a) => ({ value: a.id, label: a.name }))} className="[&_select]:min-h-12" />
+            <BoundField form={form} name="newEquipment.make" id="new-make" label="Make" input={{ className: 'min-h-12' }} />
+            <BoundField form={form} name="newEquipment.model" id="new-model" label="Model" input={{ className: 'min-h-12' }} />
+            <BoundField form={form} name="newEquipment.serial" id="new-serial" label="Serial" input={{ className: 'min-h-12' }} />
             <div className="sm:col-span-2">
               <Button type="submit" size="lg" className="min-h-14 w-full text-lg sm:w-auto" disabled={attach.isPending}>
                 {attach.isPending ? 'Saving…' : 'Register and attach tag'}
