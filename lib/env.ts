@@ -13,6 +13,10 @@ const serverEnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   DATABASE_URL: z.url().default(DEFAULT_DATABASE_URL),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+  // Where each app copy LISTENs for session changes (lib/auth/actor-cache.ts): a direct connection
+  // (a pooler in transaction mode does not deliver notices); `off` reads the signed-in person from
+  // the database on every request instead.
+  SESSION_NOTICES_URL: z.union([z.literal('off'), z.url()]).optional(),
   S3_ENDPOINT: z.url().optional(),
   S3_REGION: z.string().min(1).default('us-east-1'),
   S3_BUCKET: z.string().min(3).default('rimeline'),

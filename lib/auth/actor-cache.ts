@@ -70,8 +70,9 @@ function handleNotice(payload: string): void {
 }
 
 function listening(s: CacheState): boolean {
+  if (env.SESSION_NOTICES_URL === 'off') return false;
   if (!s.channel) {
-    s.channel = noticeChannel(env.DATABASE_URL, SESSION_NOTICE_CHANNEL, {
+    s.channel = noticeChannel(env.SESSION_NOTICES_URL ?? env.DATABASE_URL, SESSION_NOTICE_CHANNEL, {
       notice: handleNotice,
       up: () => forgetWhere(() => true),
       down: (error) => {
@@ -127,8 +128,8 @@ export function sessionNoticeHandled(event: string): Promise<void> {
 export async function sessionNoticesReady(): Promise<boolean> {
   const s = state();
   listening(s);
-  await s.channel!.connect();
-  return s.channel!.up;
+  await s.channel?.connect();
+  return s.channel?.up ?? false;
 }
 
 /** For tests and shutdown: stops listening and forgets everything. */
