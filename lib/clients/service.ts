@@ -9,6 +9,7 @@ import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { setArchived } from '@/lib/audit/archive';
 import { recordAudit } from '@/lib/audit/service';
 import { toClientFacts, toContactDto, type ClientDto, type ContactDto } from '@/lib/clients/dto';
 import { clientFlags } from '@/lib/clients/permissions';
@@ -105,18 +106,7 @@ export async function updateClient(actor: Actor, id: string, input: UpdateClient
 
 export async function setClientArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
   assertCan(actor, 'clients.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getClient(actor, id, trx);
-    await trx
-      .updateTable('clients')
-      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getClient(actor, id, trx);
-    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'client', entityId: id, before, after });
-    return after;
-  });
+  return setArchived(db, actor, { table: 'clients', entityType: 'client', id }, archived, (trx) => getClient(actor, id, trx));
 }
 
 export async function listContacts(actor: Actor, clientId: string, db: Db = defaultDb): Promise<ContactDto[]> {

@@ -130,6 +130,8 @@ async function checkPlace(actor: Actor, input: CreateRequestInput, trx: Db) {
   if (input.equipmentId) {
     const e = await getEquipment(actor, input.equipmentId, trx);
     if (e.siteId !== site.id) throw new AppError('validation_failed', 'That unit is on another site.', [{ path: 'equipmentId', message: 'Choose a unit on this site.' }]);
+    // As the unit's flags say (canAskForService, canLogRequest): a removed unit takes no new work.
+    if (e.status === 'removed') throw new AppError('validation_failed', 'That unit was removed.', [{ path: 'equipmentId', message: 'Choose a unit still in service, or ask for the site.' }]);
   }
   return site;
 }

@@ -9,6 +9,7 @@ import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { setArchived } from '@/lib/audit/archive';
 import { recordAudit } from '@/lib/audit/service';
 import { getClient } from '@/lib/clients/service';
 import { AppError } from '@/lib/errors';
@@ -142,18 +143,7 @@ export async function updateSite(actor: Actor, id: string, input: UpdateSiteInpu
 
 export async function setSiteArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
   assertCan(actor, 'sites.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getSite(actor, id, trx);
-    await trx
-      .updateTable('sites')
-      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getSite(actor, id, trx);
-    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'site', entityId: id, before, after });
-    return after;
-  });
+  return setArchived(db, actor, { table: 'sites', entityType: 'site', id }, archived, (trx) => getSite(actor, id, trx));
 }
 
 export async function listAreas(actor: Actor, siteId: string, includeArchived = false, db: Db = defaultDb): Promise<AreaDto[]> {

@@ -7,6 +7,7 @@ import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { setArchived } from '@/lib/audit/archive';
 import { recordAudit } from '@/lib/audit/service';
 import type { SystemDto } from '@/lib/systems/dto';
 import { systemFlags } from '@/lib/systems/permissions';
@@ -160,16 +161,5 @@ export async function updateSystem(actor: Actor, id: string, input: UpdateSystem
 
 export async function setSystemArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
   assertCan(actor, 'systems.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getSystem(actor, id, trx);
-    await trx
-      .updateTable('systems')
-      .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getSystem(actor, id, trx);
-    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'system', entityId: id, before, after });
-    return after;
-  });
+  return setArchived(db, actor, { table: 'systems', entityType: 'system', id }, archived, (trx) => getSystem(actor, id, trx));
 }

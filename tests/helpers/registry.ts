@@ -54,6 +54,14 @@ export async function demoWithCircuit(db: Kysely<DB>): Promise<{ tech: Actor; of
 
 export type CircuitDemo = Awaited<ReturnType<typeof demoWithCircuit>>;
 
+/** A test file's hooks: the demo reset before each test, the pool closed after all. */
+export function resetDemoEach(db: Kysely<DB>): void {
+  beforeEach(async () => resetToDemo(db));
+  afterAll(async () => {
+    await db.destroy();
+  });
+}
+
 /** A test file's hooks: the demo reset with a fresh circuit before each test, the pool closed after all. */
 export function resetDemoWithCircuitEach(db: Kysely<DB>, take: (demo: CircuitDemo) => void): void {
   beforeEach(async () => take(await demoWithCircuit(db)));

@@ -16,9 +16,9 @@ import { closeVisit } from '@/lib/visits/close';
 import { addEntry } from '@/lib/visits/entries';
 import { startVisit } from '@/lib/visits/service';
 import type { Actor } from '@/lib/auth/actor';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createTestDb, demoEmails } from '@/tests/helpers/db';
 import { clearMail, waitForMail } from '@/tests/helpers/mail';
-import { createCoolerCircuit } from '@/tests/helpers/registry';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
 import { call, mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -28,17 +28,13 @@ let tech: Actor;
 let office: Actor;
 let owner: Actor;
 let stranger: Actor;
-let circuit: Awaited<ReturnType<typeof createCoolerCircuit>>;
+let circuit: CoolerCircuit;
 const lb = 0.45359237;
 const entry = <T extends object>(equipmentId: string, body: T) => ({ equipmentId, clientEntryId: randomUUID(), ...body });
 
 beforeAll(async () => {
-  await resetToDemo(db);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  owner = await actorFor(db, demoEmails.client);
+  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
   stranger = await actorFor(db, demoEmails.clientTwo);
-  circuit = await createCoolerCircuit(db);
   await db.updateTable('equipment').set({ installed_on: '2001-05-01', condition: 2 }).where('id', '=', circuit.condensingUnitId).execute();
   const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: new Date(Date.now() - 20 * 86_400_000).toISOString() });
   await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'refrigerant' as const, recordedAt: new Date(Date.now() - 20 * 86_400_000).toISOString(), data: { direction: 'added' as const, amountKg: 2 * lb, refrigerant: 'R-404A' as const, cylinderId: 'CYL-0007', technicianCert: 'UNIV-5531' } }));

@@ -239,6 +239,7 @@ describe('equipment flags', () => {
     // The services refuse what the flags now deny.
     await expect(addRelation(office, id, createRelationSchema.parse({ kind: 'serves', otherId: circuit.condensingUnitId, direction: 'from' }))).rejects.toMatchObject({ code: 'validation_failed' });
     await expect(removeRelation(office, id, relations[0]!.id)).rejects.toMatchObject({ code: 'conflict' });
+    await expect(createRequest(owner, { siteId: circuit.siteId, equipmentId: id, description: 'The old unit is warm.', urgency: 'soon' })).rejects.toMatchObject({ code: 'validation_failed' });
     // Editing stays open: it is how a unit is brought back.
     const back = await updateEquipment(office, id, { status: 'in_service' });
     expect(pick(back)).toEqual(live.office);

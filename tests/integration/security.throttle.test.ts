@@ -1,16 +1,12 @@
 // Finding 7: a stranger cannot keep an account locked, X-Forwarded-For is only believed behind a
 // configured number of proxies, and a parallel burst cannot pass the limit.
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { beginAttempt, clientAddress, secondsLocked, throttleKeys } from '@/lib/auth/throttle';
-import { createTestDb, resetToDemo } from '@/tests/helpers/db';
+import { createTestDb } from '@/tests/helpers/db';
+import { resetDemoEach } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-beforeEach(async () => {
-  await resetToDemo(db);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+resetDemoEach(db);
 
 describe('fair throttling', () => {
   it('a stranger guessing from one address leaves the owner at another address a way in', async () => {

@@ -1,17 +1,13 @@
 // Failed sign-ins are slowed down in the database so every app copy agrees: per account and
 // address pair (doubling waits), per address (20 free), and per account from everywhere (a fixed
 // slow-down, never a long block). See lib/auth/throttle.ts.
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { beginAttempt, clearFailures, lockSecondsAfter, secondsLocked, throttleKeys } from '@/lib/auth/throttle';
-import { createTestDb, resetToDemo } from '@/tests/helpers/db';
+import { createTestDb } from '@/tests/helpers/db';
+import { resetDemoEach } from '@/tests/helpers/registry';
 
 const db = createTestDb();
-beforeEach(async () => {
-  await resetToDemo(db);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+resetDemoEach(db);
 
 describe('sign-in throttle', () => {
   it('a pair gets five attempts, then waits 30 s, doubling after each further failure', async () => {

@@ -1,19 +1,15 @@
 // Clients, sites and areas through their services: audit trail, validation that changes nothing,
 // client scoping, archive and restore.
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { createClient, getClient, listClients, setClientArchived, updateClient } from '@/lib/clients/service';
 import { createArea, createSite, getSite, listSites, updateSite } from '@/lib/sites/service';
 import { createSiteSchema } from '@/lib/sites/schemas';
-import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createOtherCompany, createTestDb, demoEmails } from '@/tests/helpers/db';
+import { resetDemoEach } from '@/tests/helpers/registry';
 
 const db = createTestDb();
 
-beforeEach(async () => {
-  await resetToDemo(db);
-});
-afterAll(async () => {
-  await db.destroy();
-});
+resetDemoEach(db);
 
 async function counts() {
   const [clients, sites, areas, audits] = await Promise.all(

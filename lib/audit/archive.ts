@@ -1,0 +1,31 @@
+import 'server-only';
+import { sql, type Kysely } from 'kysely';
+import type { DB } from '@/db/schema.gen';
+import type { Db } from '@/db/types';
+import type { Actor } from '@/lib/auth/actor';
+import { recordAudit } from '@/lib/audit/service';
+
+/** The records that are archived rather than deleted: they keep their history and leave the lists. */
+export type ArchivableTable = 'clients' | 'sites' | 'systems';
+
+/**
+ * Archives or restores one record of the caller's company in one transaction, audited with the
+ * record as `read` returns it before and after (so `read` also checks the caller may see it).
+ * Archiving twice keeps the first date. The caller checks the permission first.
+ */
+export async function setArchived<T>(
+  db: Kysely<DB>,
+  actor: Actor,
+  record: { table: ArchivableTable; entityType: string; id: string },
+  archived: boolean,
+  read: (trx: Db) => Promise<T>,
+): Promise<T> {
+  return db.transaction().execute(async (trx) => {
+    const before = await read(trx);
+    const archivedAt = archived ? sql`coalesce(archived_at, now())` : sql`null`;
+    await sql`update ${sql.table(record.table)} set archived_at = ${archivedAt}, updated_at = now() where id = ${record.id} and company_id = ${actor.companyId}`.execute(trx);
+    const after = await read(trx);
+    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: record.entityType, entityId: record.id, before, after });
+    return after;
+  });
+}
