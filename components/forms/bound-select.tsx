@@ -2,17 +2,8 @@
 
 import type { ReactNode } from 'react';
 import { get, type FieldValues, type Path, type RegisterOptions, type UseFormReturn } from 'react-hook-form';
+import { SelectOptions, type SelectOption } from '@/components/forms/select-options';
 import { Field, Select, describedBy } from '@/components/ui/field';
-
-export interface SelectOption {
-  value: string;
-  label: string;
-}
-
-/** Options from plain values (ASHRAE numbers, time zones) or from labelled values. */
-export function optionsOf<T extends string>(values: readonly T[], labels?: Record<T, string>): SelectOption[] {
-  return values.map((v) => ({ value: v, label: labels ? labels[v] : v }));
-}
 
 /** A choice from a list, bound to a react-hook-form field: label, select, hint and the field's error. */
 export function BoundSelect<T extends FieldValues>({
@@ -45,12 +36,7 @@ export function BoundSelect<T extends FieldValues>({
   return (
     <Field id={id} label={label} error={error} hint={hint} className={className}>
       <Select id={id} disabled={disabled} {...describedBy(id, error)} {...form.register(name, rules)}>
-        {placeholder !== undefined ? <option value="">{placeholder}</option> : null}
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        <SelectOptions options={options} empty={placeholder} />
       </Select>
     </Field>
   );

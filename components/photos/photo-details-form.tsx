@@ -9,6 +9,7 @@ import { describedBy, Input, Select } from '@/components/ui/field';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { useUpdatePhoto } from '@/lib/photos/hooks';
 import { photoKindLabels, photoKinds, updatePhotoSchema, type PhotoKind, type UpdatePhotoInput } from '@/lib/photos/schemas';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 interface DetailsValues {
   kind: PhotoKind;
@@ -51,11 +52,7 @@ export function PhotoDetailsForm({ photo, label, fileName, onSaved }: { photo: P
             Kind of {fileName}
           </label>
           <Select id={`${label}-kind`} {...form.register('kind')}>
-            {photoKinds.map((k) => (
-              <option key={k} value={k}>
-                {photoKindLabels[k]}
-              </option>
-            ))}
+            <SelectOptions options={optionsOf(photoKinds, photoKindLabels)} />
           </Select>
         </div>
         <div>

@@ -10,6 +10,7 @@ import type { PhotoDto } from '@/lib/photos/dto';
 import { useDeletePhoto, useUpdatePhoto } from '@/lib/photos/hooks';
 import { formatBytes, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/terms';
 import { cn } from '@/lib/utils';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 // Full-screen photo with zoom and pan. Past 2× it swaps the display copy for the original, so
 // small nameplate print stays sharp. Left/right page through the photos when not zoomed in.
@@ -186,11 +187,7 @@ function EditPhoto({ photo, onDone, onDeleted }: { photo: PhotoDto; onDone: () =
           Kind
         </label>
         <select id={`${id}-kind`} className={field} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
-          {photoKinds.map((k) => (
-            <option key={k} value={k}>
-              {photoKindLabels[k]}
-            </option>
-          ))}
+          <SelectOptions options={optionsOf(photoKinds, photoKindLabels)} />
         </select>
       </div>
       <div>

@@ -12,6 +12,7 @@ import { Field, Input, Select, describedBy } from '@/components/ui/field';
 import type { PlanDto } from '@/lib/plans/dto';
 import { useCancelPlan, useMovePlan } from '@/lib/plans/hooks';
 import { cancelPlanSchema, movePlanSchema } from '@/lib/plans/schemas';
+import { SelectOptions } from '@/components/forms/select-options';
 
 type MoveValues = z.input<typeof movePlanSchema>;
 type CancelValues = z.input<typeof cancelPlanSchema>;
@@ -63,11 +64,7 @@ function MoveForm({ plan, technicians, onDone }: { plan: PlanDto; technicians: {
       </Field>
       <Field id={id('tech')} label="Technician" error={errors.technicianId?.message}>
         <Select id={id('tech')} {...describedBy(id('tech'), errors.technicianId?.message)} {...form.register('technicianId')}>
-          {technicians.map((t) => (
-            <option key={t.id} value={t.id}>
-              {t.name}
-            </option>
-          ))}
+          <SelectOptions options={technicians.map((t) => ({ value: t.id, label: t.name }))} />
         </Select>
       </Field>
       <Field id={id('start')} label="From (site time)" error={errors.windowStart?.message}>

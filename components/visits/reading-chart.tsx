@@ -7,6 +7,7 @@ import { Field, Select } from '@/components/ui/field';
 import { conversionFor, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { useReadingSeries } from '@/lib/visits/reading-series';
 import { formatStamp } from '@/lib/format/dates';
+import { SelectOptions } from '@/components/forms/select-options';
 
 // The chart library is the largest script of the unit page and the chart sits below the history:
 // it is fetched when the chart comes near the screen (or the page is printed), not on first load.
@@ -81,11 +82,7 @@ export function ReadingChart({ equipmentId, prefs, timeZone, initialKey = 'super
     <div className="space-y-3">
       <Field id={selectId} label="Reading to plot" className="max-w-md">
         <Select id={selectId} value={key} onChange={(e) => setKey(e.target.value)}>
-          {chartableReadings.map((r) => (
-            <option key={r.key} value={r.key}>
-              {r.label}
-            </option>
-          ))}
+          <SelectOptions options={chartableReadings.map((r) => ({ value: r.key, label: r.label }))} />
         </Select>
       </Field>
       {series.isError ? (

@@ -12,6 +12,7 @@ import { countOpenBySeverity, listFollowUps } from '@/lib/follow-ups/service';
 import { listSites } from '@/lib/sites/service';
 import { SEVERITIES, severityLabels } from '@/lib/visits/schemas';
 import { listVisits } from '@/lib/visits/service';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 export const metadata: Metadata = { title: 'Follow-ups' };
 
@@ -66,32 +67,20 @@ export default async function FollowUpsPage({ searchParams }: { searchParams: Pr
           Site
           <Select name="siteId" defaultValue={query.siteId ?? ''} className="mt-1">
             <option value="">All sites</option>
-            {sites.items.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
-            ))}
+            <SelectOptions options={sites.items.map((s) => ({ value: s.id, label: s.name }))} />
           </Select>
         </label>
         <label className="block text-sm font-semibold text-slate-800">
           Severity
           <Select name="severity" defaultValue={query.severity ?? ''} className="mt-1">
             <option value="">Any severity</option>
-            {SEVERITIES.map((s) => (
-              <option key={s} value={s}>
-                {severityLabels[s]}
-              </option>
-            ))}
+            <SelectOptions options={optionsOf(SEVERITIES, severityLabels)} />
           </Select>
         </label>
         <label className="block text-sm font-semibold text-slate-800">
           Status
           <Select name="status" defaultValue={status} className="mt-1">
-            {statusViews.map((s) => (
-              <option key={s} value={s}>
-                {statusViewLabels[s]}
-              </option>
-            ))}
+            <SelectOptions options={optionsOf(statusViews, statusViewLabels)} />
           </Select>
         </label>
         <button type="submit" className="min-h-11 rounded-md border border-slate-300 bg-white px-4 font-semibold hover:bg-slate-100">

@@ -19,6 +19,7 @@ import { cn } from '@/lib/utils';
 import { CheckOption, DisclosureMenu } from '@/app/(app)/equipment/_components/disclosure-menu';
 import { ColumnChooser, EquipmentTable, useColumnVisibility } from '@/app/(app)/equipment/_components/equipment-table';
 import { hasActiveFilters, parseFilters } from '@/app/(app)/equipment/_components/table-filters';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 const sortLabels: Record<EquipmentSort, string> = {
   name: 'Name',
@@ -103,11 +104,7 @@ export function EquipmentBrowser({
           className="w-full text-sm font-semibold sm:w-56"
         >
           <option value="">All sites</option>
-          {sites.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.name}
-            </option>
-          ))}
+          <SelectOptions options={sites.map((s) => ({ value: s.id, label: s.name }))} />
         </Select>
         <label className="sr-only" htmlFor="filter-area">
           Area
@@ -120,11 +117,7 @@ export function EquipmentBrowser({
           className="w-full text-sm font-semibold sm:w-48"
         >
           <option value="">{filters.siteId ? 'All areas' : 'Area (site first)'}</option>
-          {(areas.data?.items ?? []).map((a) => (
-            <option key={a.id} value={a.id}>
-              {a.name}
-            </option>
-          ))}
+          <SelectOptions options={(areas.data?.items ?? []).map((a) => ({ value: a.id, label: a.name }))} />
         </Select>
         <DisclosureMenu label="Type" count={filters.type.length}>
           {EQUIPMENT_TYPES.map((t) => (
@@ -284,11 +277,7 @@ function PhoneSort({ sort, dir, onChange }: { sort: EquipmentSort; dir: 'asc' | 
           Sort by
         </label>
         <Select id="phone-sort" value={sort} onChange={(e) => onChange(e.target.value as EquipmentSort, dir)}>
-          {EQUIPMENT_SORTS.map((s) => (
-            <option key={s} value={s}>
-              {sortLabels[s]}
-            </option>
-          ))}
+          <SelectOptions options={optionsOf(EQUIPMENT_SORTS, sortLabels)} />
         </Select>
       </div>
       <Button variant="secondary" onClick={() => onChange(sort, dir === 'asc' ? 'desc' : 'asc')} aria-label={`Order: ${dir === 'asc' ? 'ascending' : 'descending'}. Switch.`}>

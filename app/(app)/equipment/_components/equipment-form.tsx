@@ -18,7 +18,8 @@ import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
 import { fieldLabel, nameplateFromForm, nameplateToForm, rangeText, type NameplateFormValues } from '@/app/(app)/equipment/_components/nameplate-values';
 import { BoundField } from '@/components/forms/bound-field';
-import { BoundSelect, optionsOf } from '@/components/forms/bound-select';
+import { BoundSelect } from '@/components/forms/bound-select';
+import { optionsOf } from '@/components/forms/select-options';
 
 /** Everything as the user typed it; numbers become SI only on their way to the schema. */
 export interface EquipmentFormValues {

@@ -4,6 +4,7 @@ import { FileDown, FileSpreadsheet } from 'lucide-react';
 import { useState } from 'react';
 import { EmptyState } from '@/components/ui/card';
 import { Field, Input, Select } from '@/components/ui/field';
+import { SelectOptions } from '@/components/forms/select-options';
 
 export function RefrigerantReportPicker({ systems }: { systems: { id: string; label: string }[] }) {
   const [systemId, setSystemId] = useState(systems[0]?.id ?? '');
@@ -15,11 +16,7 @@ export function RefrigerantReportPicker({ systems }: { systems: { id: string; la
     <div className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-[1fr_8rem_auto] sm:items-end">
       <Field id="ref-system" label="System">
         <Select id="ref-system" value={systemId} onChange={(e) => setSystemId(e.target.value)}>
-          {systems.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.label}
-            </option>
-          ))}
+          <SelectOptions options={systems.map((s) => ({ value: s.id, label: s.label }))} />
         </Select>
       </Field>
       <Field id="ref-year" label="Year" error={valid ? undefined : 'Use a four-digit year.'}>

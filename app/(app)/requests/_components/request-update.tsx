@@ -8,6 +8,7 @@ import { Field, Select, Textarea } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import { useUpdateRequest } from '@/lib/requests/hooks';
 import { REQUEST_STATUSES, requestStatusLabels, type RequestStatus } from '@/lib/requests/schemas';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 export function RequestUpdate({ id, status, note }: { id: string; status: RequestStatus; note: string | null }) {
   const router = useRouter();
@@ -32,11 +33,7 @@ export function RequestUpdate({ id, status, note }: { id: string; status: Reques
       {message ? <Alert tone={message.tone} title={message.text} /> : null}
       <Field id="req-status" label="Status">
         <Select id="req-status" value={next} onChange={(e) => setNext(e.target.value as RequestStatus)}>
-          {REQUEST_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {requestStatusLabels[s]}
-            </option>
-          ))}
+          <SelectOptions options={optionsOf(REQUEST_STATUSES, requestStatusLabels)} />
         </Select>
       </Field>
       <Field id="req-note" label="Note to the owner">

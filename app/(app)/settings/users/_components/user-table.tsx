@@ -10,6 +10,7 @@ import { roleLabels, roles, type Role } from '@/lib/auth/permissions';
 import type { UserDto } from '@/lib/users/dto';
 import { useChangeRole, useSetActive } from '@/lib/users/hooks';
 import { SignOutEverywhere } from '@/app/(app)/settings/_components/sign-out-everywhere';
+import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: string; name: string }[]; isSelf: boolean }) {
   const router = useRouter();
@@ -53,11 +54,7 @@ function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: stri
           Role for {user.name}
         </label>
         <Select id={`role-${user.id}`} value={role} onChange={(e) => setRole(e.target.value as Role)} className="w-auto">
-          {roles.map((r) => (
-            <option key={r} value={r}>
-              {roleLabels[r]}
-            </option>
-          ))}
+          <SelectOptions options={optionsOf(roles, roleLabels)} />
         </Select>
         {role === 'client' ? (
           <>
@@ -66,11 +63,7 @@ function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: stri
             </label>
             <Select id={`client-${user.id}`} value={clientId} onChange={(e) => setClientId(e.target.value)} className="w-auto">
               <option value="">Choose a client…</option>
-              {clients.map((c) => (
-                <option key={c.id} value={c.id}>
-                  {c.name}
-                </option>
-              ))}
+              <SelectOptions options={clients.map((c) => ({ value: c.id, label: c.name }))} />
             </Select>
           </>
         ) : null}

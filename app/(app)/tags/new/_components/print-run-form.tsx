@@ -14,6 +14,7 @@ import { formatCode } from '@/lib/tags/code';
 import type { LabelLayoutDto } from '@/lib/tags/dto';
 import { tagKeys, useCreatePrintRun } from '@/lib/tags/hooks';
 import { MAX_LABELS_PER_RUN } from '@/lib/tags/schemas';
+import { SelectOptions } from '@/components/forms/select-options';
 
 interface Initial {
   kind: 'equipment' | 'blank';
@@ -170,11 +171,7 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
       <div className="grid gap-4 sm:grid-cols-2">
         <Field id="run-layout" label="Label layout" error={issues.layoutId}>
           <Select id="run-layout" value={layoutId} onChange={(e) => setLayoutId(e.target.value)}>
-            {layouts.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
+            <SelectOptions options={layouts.map((l) => ({ value: l.id, label: l.name }))} />
           </Select>
         </Field>
         <Field

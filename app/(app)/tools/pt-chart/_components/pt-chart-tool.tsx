@@ -15,6 +15,7 @@ import { formatFixed } from '@/lib/format/numbers';
 import { PtConverter } from '@/app/(app)/tools/pt-chart/_components/pt-converter';
 import { PtTable } from '@/app/(app)/tools/pt-chart/_components/pt-table';
 import { RefrigerantSafety } from '@/app/(app)/tools/pt-chart/_components/refrigerant-safety';
+import { SelectOptions } from '@/components/forms/select-options';
 
 export interface SiteElevation {
   id: string;
@@ -107,11 +108,7 @@ export function PtChartTool(props: {
           <h2 className="text-lg font-bold text-slate-900">Refrigerant and units</h2>
           <Field id="pt-refrigerant" label="Refrigerant (ASHRAE designation)">
             <Select id="pt-refrigerant" value={refrigerantId} onChange={(e) => chooseRefrigerant(e.target.value as RefrigerantId)} className="text-lg font-semibold">
-              {REFRIGERANTS.map((r) => (
-                <option key={r.id} value={r.id}>
-                  {r.id} · {r.safetyClass} · {r.family}
-                </option>
-              ))}
+              <SelectOptions options={REFRIGERANTS.map((r) => ({ value: r.id, label: `${r.id} · ${r.safetyClass} · ${r.family}` }))} />
             </Select>
           </Field>
           <RefrigerantSafety refrigerant={refrigerant} />
@@ -132,11 +129,7 @@ export function PtChartTool(props: {
           </fieldset>
           <Field id="pt-pressure-unit" label="Pressure unit">
             <Select id="pt-pressure-unit" value={pressureUnit} onChange={(e) => setPressureUnit(e.target.value as PressureUnit)}>
-              {PRESSURE_UNIT_OPTIONS.map((o) => (
-                <option key={o.value} value={o.value}>
-                  {o.label}
-                </option>
-              ))}
+              <SelectOptions options={PRESSURE_UNIT_OPTIONS} />
             </Select>
           </Field>
 
@@ -146,11 +139,7 @@ export function PtChartTool(props: {
               <Field id="pt-site" label="Site">
                 <Select id="pt-site" value={siteId} onChange={(e) => chooseSite(e.target.value)}>
                   <option value="">None: use the elevation below</option>
-                  {props.sites.map((s) => (
-                    <option key={s.id} value={s.id}>
-                      {s.label}
-                    </option>
-                  ))}
+                  <SelectOptions options={props.sites.map((s) => ({ value: s.id, label: s.label }))} />
                 </Select>
               </Field>
             ) : null}
