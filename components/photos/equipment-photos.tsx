@@ -1,11 +1,10 @@
 'use client';
 
 import { Columns2, ImageOff, LoaderCircle } from 'lucide-react';
+import dynamic from 'next/dynamic';
 import { useState } from 'react';
-import { PhotoCompare } from '@/components/photos/photo-compare';
 import { formatPhotoDay, PhotoKindLabel, photoKindIcons } from '@/components/photos/photo-kind';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
-import { PhotoViewer } from '@/components/photos/photo-viewer';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
@@ -17,6 +16,10 @@ import { FilterChip } from '@/components/ui/filter-chip';
 
 // The photos section of an equipment page: uploader (for those who may upload), filter by kind,
 // thumbnails, the full-screen viewer and the side-by-side comparison.
+
+// The viewer and the comparison open on a tap: their code (zoom, edit, delete) loads then.
+const PhotoViewer = dynamic(() => import('@/components/photos/photo-viewer').then((m) => m.PhotoViewer), { ssr: false });
+const PhotoCompare = dynamic(() => import('@/components/photos/photo-compare').then((m) => m.PhotoCompare), { ssr: false });
 
 export function EquipmentPhotos({ equipmentId }: { equipmentId: string }) {
   const [kind, setKind] = useState<PhotoKind | null>(null);

@@ -1,8 +1,8 @@
 'use client';
 
 import { Camera, CircleCheck, Clock, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, X } from 'lucide-react';
+import dynamic from 'next/dynamic';
 import { useEffect, useId, useRef, useState } from 'react';
-import { PhotoDetailsForm } from '@/components/photos/photo-details-form';
 import { usePhotoUploads, unsentMessage, type UploadItem } from '@/components/photos/use-photo-uploads';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/field';
@@ -16,6 +16,10 @@ import { cn } from '@/lib/utils';
 // chosen, with its own progress bar; a failure keeps the file and waits for Retry; a caption (or
 // a corrected kind) can be added once it is stored. Leaving the page with a photo not yet sent
 // asks first. Independent of any page: the equipment page or a visit form mount it.
+
+// A sent photo's details form (its form library and schema) loads once a photo is sent, not
+// with every page that can take a photo (the unit page a scan lands on).
+const PhotoDetailsForm = dynamic(() => import('@/components/photos/photo-details-form').then((m) => m.PhotoDetailsForm), { ssr: false });
 
 export interface PhotoUploaderProps {
   equipmentId: string;

@@ -1,15 +1,18 @@
 'use client';
 
 import { Ban, Replace } from 'lucide-react';
+import dynamic from 'next/dynamic';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/field';
-import { CodeEntry } from '@/components/tags/code-entry';
 import { ApiError } from '@/lib/api/client';
 import { formatCode } from '@/lib/tags/code';
 import { useAttachTag, useRetireTag } from '@/lib/tags/hooks';
+
+// Typing a new code is the rarer path: its field loads when "Attach" or "Replace" is chosen.
+const CodeEntry = dynamic(() => import('@/components/tags/code-entry').then((m) => m.CodeEntry), { ssr: false });
 
 /**
  * "Replace tag" (or "Attach a tag"): type the code of a blank tag to put on this unit; the old tag is
