@@ -11,9 +11,16 @@ export interface AuditInput {
   after?: unknown;
 }
 
+// What the viewer may do (`canEdit`, `canArchive` … from the services' permission flags) is not
+// part of the record: it depends on who asked, so the snapshot leaves it out.
+const VIEWER_FLAG = /^can[A-Z]/;
+
 // Dates and other values become plain JSON so the stored snapshot reads the same years later.
 function snapshot(value: unknown): string | null {
-  return value === undefined || value === null ? null : JSON.stringify(value);
+  if (value === undefined || value === null) return null;
+  return JSON.stringify(value, function (this: unknown, key: string, v: unknown) {
+    return this === value && VIEWER_FLAG.test(key) ? undefined : v;
+  });
 }
 
 /** Written inside the caller's transaction, so an audit event exists exactly when the change does. */

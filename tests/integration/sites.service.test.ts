@@ -30,6 +30,10 @@ describe('clients and sites', () => {
     expect(events[0]?.actor_id).toBe(office.id);
     expect((events[1]?.before as { name: string }).name).toBe('Juniper Hollow Deli');
     expect((events[1]?.after as { name: string }).name).toBe('Juniper Hollow Deli & Market');
+    // The record as it was, without what this viewer happened to be allowed to do with it.
+    expect(client.canEdit).toBe(true);
+    expect(Object.keys(events[1]?.after as object).filter((k) => k.startsWith('can'))).toEqual([]);
+    expect(Object.keys(events[0]?.after as object).filter((k) => k.startsWith('can'))).toEqual([]);
   });
 
   it('audit events cannot be edited or deleted', async () => {
