@@ -1,14 +1,9 @@
 // The role × action matrix: the one table that says who may do what. Pure data, safe on the client
 // (navigation hides what a role cannot do); the server enforces it through lib/auth/access.ts.
-export const roles = ['admin', 'office', 'technician', 'client'] as const;
-export type Role = (typeof roles)[number];
+import { labelled } from '@/lib/labelled';
 
-export const roleLabels: Record<Role, string> = {
-  admin: 'Admin',
-  office: 'Office',
-  technician: 'Technician',
-  client: 'Owner',
-};
+export const { values: roles, labels: roleLabels } = labelled({ admin: 'Admin', office: 'Office', technician: 'Technician', client: 'Owner' });
+export type Role = (typeof roles)[number];
 
 const staff: Role[] = ['admin', 'office', 'technician'];
 const everyone: Role[] = ['admin', 'office', 'technician', 'client'];

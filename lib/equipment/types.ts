@@ -1,4 +1,5 @@
 import { EQUIPMENT_TYPES, type EquipmentType } from '@/lib/calc/service-life';
+import { labelled } from '@/lib/labelled';
 
 export { EQUIPMENT_TYPES, type EquipmentType };
 
@@ -17,13 +18,8 @@ export const equipmentTypeLabels: Record<EquipmentType, string> = {
   other: 'Other',
 };
 
-export const EQUIPMENT_STATUSES = ['in_service', 'out_of_service', 'removed'] as const;
+export const { values: EQUIPMENT_STATUSES, labels: statusLabels } = labelled({ in_service: 'In service', out_of_service: 'Out of service', removed: 'Removed' });
 export type EquipmentStatus = (typeof EQUIPMENT_STATUSES)[number];
-export const statusLabels: Record<EquipmentStatus, string> = {
-  in_service: 'In service',
-  out_of_service: 'Out of service',
-  removed: 'Removed',
-};
 
 // Condition is rated 1–5 by the technician; 5 is best. Words go with every number on screen.
 export const CONDITIONS = [5, 4, 3, 2, 1] as const;
@@ -48,10 +44,9 @@ export const relationPhrases: Record<RelationKind, { forward: string; backward: 
   serves: { forward: 'Feeds', backward: 'Fed by' },
 };
 
-export const APPLICATIONS = ['commercial_refrigeration', 'industrial_process', 'comfort_cooling'] as const;
-export type Application = (typeof APPLICATIONS)[number];
-export const applicationLabels: Record<Application, string> = {
+export const { values: APPLICATIONS, labels: applicationLabels } = labelled({
   commercial_refrigeration: 'Commercial refrigeration',
   industrial_process: 'Industrial process refrigeration',
   comfort_cooling: 'Comfort cooling',
-};
+});
+export type Application = (typeof APPLICATIONS)[number];

@@ -1,16 +1,10 @@
 import { z } from 'zod';
 import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
+import { labelled } from '@/lib/labelled';
 import { SEVERITIES } from '@/lib/visits/schemas';
 
-export const FOLLOW_UP_STATUSES = ['open', 'scheduled', 'resolved', 'declined'] as const;
+export const { values: FOLLOW_UP_STATUSES, labels: followUpStatusLabels } = labelled({ open: 'Open', scheduled: 'Scheduled', resolved: 'Resolved', declined: 'Declined' });
 export type FollowUpStatus = (typeof FOLLOW_UP_STATUSES)[number];
-export const followUpStatusLabels: Record<FollowUpStatus, string> = {
-  open: 'Open',
-  scheduled: 'Scheduled',
-  resolved: 'Resolved',
-  declined: 'Declined',
-};
-
 
 export const listFollowUpsQuerySchema = z.object({
   siteId: z.uuid().optional(),

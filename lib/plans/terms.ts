@@ -1,12 +1,8 @@
-// The words of planned visits. No imports: pages, forms, e-mails and tests all use them.
+// The words of planned visits (only the list helper imported): pages, forms, e-mails and tests all use them.
+import { labelled } from '@/lib/labelled';
 
-export const PLAN_STATUSES = ['planned', 'started', 'cancelled'] as const;
+export const { values: PLAN_STATUSES, labels: planStatusLabels } = labelled({ planned: 'Planned', started: 'Started', cancelled: 'Cancelled' });
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
-export const planStatusLabels: Record<PlanStatus, string> = {
-  planned: 'Planned',
-  started: 'Started',
-  cancelled: 'Cancelled',
-};
 
 /** A plan whose day has passed without the visit being started. */
 export const OVERDUE_LABEL = 'Not started — day passed';

@@ -1,23 +1,22 @@
 import { z } from 'zod';
 import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
+import { labelled } from '@/lib/labelled';
 
-export const URGENCIES = ['emergency', 'soon', 'routine'] as const;
-export type Urgency = (typeof URGENCIES)[number];
-export const urgencyLabels: Record<Urgency, string> = {
+export const { values: URGENCIES, labels: urgencyLabels } = labelled({
   emergency: 'Emergency — product at risk now',
   soon: 'Soon — within a day or two',
   routine: 'Routine — next convenient visit',
-};
+});
+export type Urgency = (typeof URGENCIES)[number];
 
-export const REQUEST_STATUSES = ['new', 'acknowledged', 'scheduled', 'done', 'declined'] as const;
-export type RequestStatus = (typeof REQUEST_STATUSES)[number];
-export const requestStatusLabels: Record<RequestStatus, string> = {
+export const { values: REQUEST_STATUSES, labels: requestStatusLabels } = labelled({
   new: 'New',
   acknowledged: 'Seen by the office',
   scheduled: 'Visit planned',
   done: 'Done',
   declined: 'Declined',
-};
+});
+export type RequestStatus = (typeof REQUEST_STATUSES)[number];
 
 export const createRequestSchema = z.object({
   siteId: z.uuid('Choose a site.'),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { listQueryBase, optionalText, requiredText } from '@/lib/api/schemas';
+import { labelled } from '@/lib/labelled';
 
 function isTimeZone(value: string): boolean {
   try {
@@ -50,20 +51,7 @@ export const createSiteSchema = z.object({
 export const updateSiteSchema = z.object(siteFields).partial();
 export const listSitesQuerySchema = listQueryBase.extend({ clientId: z.uuid().optional() });
 
-export const areaKinds = [
-  'walk_in_cooler',
-  'walk_in_freezer',
-  'reach_in',
-  'display_case',
-  'roof',
-  'mechanical_room',
-  'kitchen',
-  'sales_floor',
-  'warehouse',
-  'outdoor',
-  'other',
-] as const;
-export const areaKindLabels: Record<(typeof areaKinds)[number], string> = {
+export const { values: areaKinds, labels: areaKindLabels } = labelled({
   walk_in_cooler: 'Walk-in cooler',
   walk_in_freezer: 'Walk-in freezer',
   reach_in: 'Reach-in',
@@ -75,7 +63,7 @@ export const areaKindLabels: Record<(typeof areaKinds)[number], string> = {
   warehouse: 'Warehouse',
   outdoor: 'Outdoor pad',
   other: 'Other',
-};
+});
 
 export const createAreaSchema = z.object({
   name: requiredText('Name', 120),

@@ -1,19 +1,18 @@
 import { z } from 'zod';
 import { listQueryBase, optionalText } from '@/lib/api/schemas';
+import { labelled } from '@/lib/labelled';
 import { parseCode } from '@/lib/tags/code';
 
-export const TAG_STATES = ['blank', 'attached', 'retired'] as const;
+export const { values: TAG_STATES, labels: tagStateLabels } = labelled({ blank: 'Blank', attached: 'Attached', retired: 'Retired' });
 export type TagState = (typeof TAG_STATES)[number];
-export const tagStateLabels: Record<TagState, string> = { blank: 'Blank', attached: 'Attached', retired: 'Retired' };
 
-export const RETIRE_REASONS = ['replaced', 'damaged', 'lost', 'unused'] as const;
-export type RetireReason = (typeof RETIRE_REASONS)[number];
-export const retireReasonLabels: Record<RetireReason, string> = {
+export const { values: RETIRE_REASONS, labels: retireReasonLabels } = labelled({
   replaced: 'Replaced by a new tag',
   damaged: 'Damaged or unreadable',
   lost: 'Lost or removed from the unit',
   unused: 'Never used (voided)',
-};
+});
+export type RetireReason = (typeof RETIRE_REASONS)[number];
 
 export const SCAN_VIA = ['link', 'camera', 'typed'] as const;
 export type ScanVia = (typeof SCAN_VIA)[number];

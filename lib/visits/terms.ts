@@ -1,29 +1,22 @@
-// The visit's own words, shared by every kind, form and report. No imports: anything may use it.
+// The visit's own words, shared by every kind, form and report. Imports only the list helper:
+// anything may use it.
+import { labelled } from '@/lib/labelled';
 
-export const VISIT_REASONS = ['no_cooling', 'maintenance', 'install', 'inspection', 'leak_check', 'follow_up'] as const;
-export type VisitReason = (typeof VISIT_REASONS)[number];
-export const visitReasonLabels: Record<VisitReason, string> = {
+export const { values: VISIT_REASONS, labels: visitReasonLabels } = labelled({
   no_cooling: 'No-cooling call',
   maintenance: 'Maintenance',
   install: 'Install',
   inspection: 'Inspection',
   leak_check: 'Leak check',
   follow_up: 'Follow-up',
-};
+});
+export type VisitReason = (typeof VISIT_REASONS)[number];
 
-export const SEVERITIES = ['safety', 'down', 'degraded', 'minor'] as const;
+export const { values: SEVERITIES, labels: severityLabels } = labelled({ safety: 'Safety', down: 'Down', degraded: 'Degraded', minor: 'Minor' });
 export type Severity = (typeof SEVERITIES)[number];
-export const severityLabels: Record<Severity, string> = {
-  safety: 'Safety',
-  down: 'Down',
-  degraded: 'Degraded',
-  minor: 'Minor',
-};
 
 /** Mirrored by the entries.kind check constraint; each kind is a module in lib/visits/kinds/. */
-export const ENTRY_KINDS = ['reading', 'finding', 'action', 'setting_change', 'part', 'refrigerant', 'leak', 'condition', 'note', 'photo'] as const;
-export type EntryKind = (typeof ENTRY_KINDS)[number];
-export const entryKindLabels: Record<EntryKind, string> = {
+export const { values: ENTRY_KINDS, labels: entryKindLabels } = labelled({
   reading: 'Readings',
   finding: 'Finding',
   action: 'Action',
@@ -34,4 +27,5 @@ export const entryKindLabels: Record<EntryKind, string> = {
   condition: 'Condition',
   note: 'Note',
   photo: 'Photo',
-};
+});
+export type EntryKind = (typeof ENTRY_KINDS)[number];

@@ -1,39 +1,37 @@
 import { z } from 'zod';
 import { optionalText } from '@/lib/api/schemas';
+import { labelled } from '@/lib/labelled';
 import { defineKind } from '@/lib/visits/kinds/types';
 
 // Leak work as records: the inspection, the repair and the two verification tests that
 // 40 CFR 82.157 asks for after a leak-rate exceedance (names of the tests are the regulation's).
 
-export const LEAK_ACTIVITIES = ['inspection', 'repair', 'initial_verification', 'follow_up_verification'] as const;
-export type LeakActivity = (typeof LEAK_ACTIVITIES)[number];
-export const leakActivityLabels: Record<LeakActivity, string> = {
+export const { values: LEAK_ACTIVITIES, labels: leakActivityLabels } = labelled({
   inspection: 'Leak inspection',
   repair: 'Leak repair',
   initial_verification: 'Initial verification test',
   follow_up_verification: 'Follow-up verification test',
-};
+});
+export type LeakActivity = (typeof LEAK_ACTIVITIES)[number];
 
 /** Generic ways of finding or ruling out a leak; no open-flame (halide) method, since A2L/A3 refrigerants are flammable. */
-export const LEAK_METHODS = ['electronic_detector', 'ultrasonic', 'bubble_solution', 'fluorescent_dye', 'pressure_test', 'vacuum_test'] as const;
-export type LeakMethod = (typeof LEAK_METHODS)[number];
-export const leakMethodLabels: Record<LeakMethod, string> = {
+export const { values: LEAK_METHODS, labels: leakMethodLabels } = labelled({
   electronic_detector: 'Electronic leak detector',
   ultrasonic: 'Ultrasonic detector',
   bubble_solution: 'Bubble solution',
   fluorescent_dye: 'Fluorescent dye and UV lamp',
   pressure_test: 'Standing pressure test (dry nitrogen)',
   vacuum_test: 'Vacuum decay test',
-};
+});
+export type LeakMethod = (typeof LEAK_METHODS)[number];
 
-export const LEAK_RESULTS = ['leak_found', 'no_leak_found', 'passed', 'failed'] as const;
-export type LeakResult = (typeof LEAK_RESULTS)[number];
-export const leakResultLabels: Record<LeakResult, string> = {
+export const { values: LEAK_RESULTS, labels: leakResultLabels } = labelled({
   leak_found: 'Leak found',
   no_leak_found: 'No leak found',
   passed: 'Passed',
   failed: 'Failed',
-};
+});
+export type LeakResult = (typeof LEAK_RESULTS)[number];
 
 /** The results each activity can have; a repair has none (its test is a verification entry). */
 export const leakResultsFor: Record<LeakActivity, readonly LeakResult[]> = {
