@@ -3,16 +3,19 @@
 import { TZDate } from '@date-fns/tz';
 import { Hammer, ClipboardCheck, Droplets, Repeat, Search, ThermometerSun } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import { useMemo, useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { FormFooter } from '@/components/forms/form-footer';
+import { schemaResolver } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
-import { describedBy, Field, Input } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import { readPack } from '@/lib/offline/store';
 import { offlineUser } from '@/lib/offline/user';
 import { useStartVisit } from '@/lib/visits/hooks';
 import { startVisitOnPhone } from '@/lib/visits/start-on-phone';
-import { VISIT_REASONS, visitReasonLabels, type VisitReason } from '@/lib/visits/schemas';
-import { ChoiceCards } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { startVisitSchema, VISIT_REASONS, visitReasonLabels, type StartVisitInput, type VisitReason } from '@/lib/visits/schemas';
+import { BoundChoiceCards } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 const reasonIcons = {
   no_cooling: ThermometerSun,
@@ -23,7 +26,13 @@ const reasonIcons = {
   follow_up: Repeat,
 } as const;
 
-/** "07:30" today in the site's time zone → an instant. */
+const reasonChoices = VISIT_REASONS.map((r) => ({ value: r, label: visitReasonLabels[r], Icon: reasonIcons[r] }));
+const whenChoices = [
+  { value: 'now' as const, label: 'Just now' },
+  { value: 'earlier' as const, label: 'Earlier today' },
+];
+
+/** "07:30" today in the site's time zone → an instant; null for no time, a bad one or one still to come. */
 function todayAt(hhmm: string, timeZone: string): string | null {
   const m = /^(\d{1,2}):(\d{2})$/.exec(hhmm);
   if (!m) return null;
@@ -33,76 +42,63 @@ function todayAt(hhmm: string, timeZone: string): string | null {
   return new Date(at.getTime()).toISOString();
 }
 
-export function StartVisitForm({ siteId, timeZone, equipmentId }: { siteId: string; timeZone: string; equipmentId?: string }) {
+interface StartValues {
+  reason: VisitReason | '';
+  when: 'now' | 'earlier';
+  /** As typed in the time field, site time. */
+  time: string;
+}
+
+/** The visit's start checked by the API's own schema; an arrival time it cannot take is said on the time field. */
+function startResolver(siteId: string, timeZone: string) {
+  return schemaResolver(
+    startVisitSchema,
+    (v: StartValues) => ({ siteId, reason: v.reason || undefined, startedAt: v.when === 'earlier' ? todayAt(v.time, timeZone) : undefined }),
+    {
+      adjust: (errors) => {
+        if (!errors.startedAt) return;
+        errors.time = { type: 'custom', message: 'Give a time earlier today, like 07:30.' };
+        delete errors.startedAt;
+      },
+    },
+  );
+}
+
+export function StartVisitForm({ siteId, timeZone, equipmentId, onCancel }: { siteId: string; timeZone: string; equipmentId?: string; onCancel?: () => void }) {
   const router = useRouter();
   const start = useStartVisit();
-  const [reason, setReason] = useState<VisitReason | ''>('');
-  const [when, setWhen] = useState<'now' | 'earlier'>('now');
-  const [time, setTime] = useState('');
-  const [errors, setErrors] = useState<{ reason?: string; time?: string }>({});
+  const resolver = useMemo(() => startResolver(siteId, timeZone), [siteId, timeZone]);
+  const form = useForm<StartValues, unknown, StartVisitInput>({ resolver, defaultValues: { reason: '', when: 'now', time: '' } });
+  const when = useWatch({ control: form.control, name: 'when' });
   const [phoneProblem, setPhoneProblem] = useState<string | null>(null);
 
-  function submit(e: FormEvent) {
-    e.preventDefault();
-    const next: typeof errors = {};
-    if (!reason) next.reason = 'Choose the reason for the visit.';
-    const startedAt = when === 'earlier' ? todayAt(time, timeZone) : undefined;
-    if (when === 'earlier' && !startedAt) next.time = 'Give a time earlier today, like 07:30.';
-    setErrors(next);
-    if (Object.keys(next).length || !reason) return;
-    if (!navigator.onLine) {
-      void startHere(reason, startedAt);
-      return;
-    }
-    start.mutate(
-      { siteId, reason, ...(startedAt ? { startedAt } : {}) },
-      {
-        onSuccess: (visit) => router.push(`/visits/${visit.id}${equipmentId ? `?equipment=${equipmentId}` : ''}`),
-        // The signal went while sending: start it on the phone instead.
-        onError: (error) => {
-          if (error instanceof ApiError && error.code === 'network') void startHere(reason, startedAt);
-        },
+  const submit = form.handleSubmit((input) => {
+    if (!navigator.onLine) return startHere(input);
+    start.mutate(input, {
+      onSuccess: (visit) => router.push(`/visits/${visit.id}${equipmentId ? `?equipment=${equipmentId}` : ''}`),
+      // The signal went while sending: start it on the phone instead.
+      onError: (error) => {
+        if (error instanceof ApiError && error.code === 'network') void startHere(input);
       },
-    );
-  }
+    });
+  });
 
   /** No signal: the visit starts on the phone, if its site is kept here, and reaches the server later. */
-  async function startHere(r: VisitReason, startedAt: string | null | undefined) {
+  async function startHere({ reason, startedAt }: StartVisitInput) {
     setPhoneProblem(null);
     const kept = await readPack(await offlineUser(), siteId).catch(() => null);
     if (!kept) {
       setPhoneProblem('There is no signal, and this site is not kept on this phone. Keep a site on the phone while there is signal to start visits there without it.');
       return;
     }
-    window.location.assign(await startVisitOnPhone({ siteId, reason: r, startedAt: startedAt ?? undefined, equipmentId }));
+    window.location.assign(await startVisitOnPhone({ siteId, reason, startedAt, equipmentId }));
   }
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5">
-      <ChoiceCards<VisitReason>
-        name="reason"
-        legend="Why are you here?"
-        value={reason}
-        onChange={setReason}
-        error={errors.reason}
-        columns="grid-cols-1 min-[400px]:grid-cols-2 md:grid-cols-3"
-        choices={VISIT_REASONS.map((r) => ({ value: r, label: visitReasonLabels[r], Icon: reasonIcons[r] }))}
-      />
-      <ChoiceCards<'now' | 'earlier'>
-        name="when"
-        legend="Arrived"
-        value={when}
-        onChange={setWhen}
-        choices={[
-          { value: 'now', label: 'Just now' },
-          { value: 'earlier', label: 'Earlier today' },
-        ]}
-      />
-      {when === 'earlier' ? (
-        <Field id="arrived-at" label="Arrived at (site time)" error={errors.time} className="max-w-xs">
-          <Input id="arrived-at" type="time" value={time} onChange={(e) => setTime(e.target.value)} className="min-h-12 text-lg" {...describedBy('arrived-at', errors.time)} />
-        </Field>
-      ) : null}
+      <BoundChoiceCards form={form} name="reason" legend="Why are you here?" columns="grid-cols-1 min-[400px]:grid-cols-2 md:grid-cols-3" choices={reasonChoices} />
+      <BoundChoiceCards form={form} name="when" legend="Arrived" choices={whenChoices} />
+      {when === 'earlier' ? <BoundField form={form} name="time" id="arrived-at" label="Arrived at (site time)" className="max-w-xs" input={{ type: 'time', className: 'min-h-12 text-lg' }} /> : null}
       {phoneProblem ? (
         <Alert tone="danger" title="The visit was not started">
           {phoneProblem}
@@ -112,9 +108,7 @@ export function StartVisitForm({ siteId, timeZone, equipmentId }: { siteId: stri
           {start.error.message}
         </Alert>
       ) : null}
-      <button type="submit" disabled={start.isPending} className="min-h-14 w-full rounded-md bg-ice-900 px-6 text-lg font-semibold text-white hover:bg-ice-800 disabled:opacity-60 sm:w-auto">
-        {start.isPending ? 'Starting…' : 'Start visit'}
-      </button>
+      <FormFooter submitting={start.isPending || form.formState.isSubmitting} submitLabel="Start visit" busyLabel="Starting…" onCancel={onCancel} />
     </form>
   );
 }
