@@ -2,51 +2,33 @@ import { ChevronRight } from 'lucide-react';
 import Link from 'next/link';
 import { EntryKindLabel } from '@/components/visits/badges';
 import { EntrySummary } from '@/components/visits/entry-summary';
-import { formatClockWithZone, formatDay } from '@/lib/format/dates';
+import { groupByVisit, VisitGroupTitle, type VisitGroupVisit } from '@/components/visits/visit-group-title';
+import { formatClockWithZone } from '@/lib/format/dates';
 import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
 import type { EntryDto } from '@/lib/visits/dto';
-import { entryKindLabels, visitReasonLabels } from '@/lib/visits/terms';
+import { entryKindLabels } from '@/lib/visits/terms';
 
 // No 'use client': the server renders a history's first page with it (so a slow phone paints the
 // newest entries before any script runs), and the browser the pages loaded after it.
 
 const timeIn = formatClockWithZone;
 
-interface VisitGroup {
-  visitId: string;
-  visit: NonNullable<EntryDto['visit']>;
-  entries: EntryDto[];
-}
-
-/** Consecutive entries of one visit form a group; pages are newest first, so a visit never splits out of order. */
-function groupByVisit(items: EntryDto[]): VisitGroup[] {
-  const groups: VisitGroup[] = [];
-  for (const e of items) {
-    const last = groups.at(-1);
-    if (last && last.visitId === e.visitId) last.entries.push(e);
-    else groups.push({ visitId: e.visitId, visit: e.visit ?? { reason: 'maintenance', startedAt: e.recordedAt, technicianName: e.createdByName, status: 'closed', timeZone: 'UTC' }, entries: [e] });
-  }
-  return groups;
+/** An entry that comes without its visit still gets a heading. */
+function visitOf(e: EntryDto): VisitGroupVisit {
+  return e.visit ?? { reason: 'maintenance', startedAt: e.recordedAt, technicianName: e.createdByName, status: 'closed', timeZone: 'UTC' };
 }
 
 /** History entries, newest first, grouped by visit. */
 export function HistoryGroups({ items, prefs, showEquipment }: { items: EntryDto[]; prefs: UnitPrefs; showEquipment: boolean }) {
-  const groups = groupByVisit(items);
+  const groups = groupByVisit(items, visitOf);
   return (
     <ol aria-label="History, newest first" className="space-y-2">
       {groups.map((g, gi) => (
         <li key={`${g.visitId}-${gi}`} className="overflow-hidden rounded-lg border border-slate-200 bg-white" data-visit-group={g.visitId}>
           <Link href={`/visits/${g.visitId}`} className="flex min-h-11 items-center gap-2 border-b border-slate-200 bg-slate-50 px-3 py-1.5 hover:bg-ice-50">
             <span className="min-w-0 flex-1 text-sm leading-snug">
-              <span className="font-semibold text-slate-900">
-                {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
-              </span>
-              <span className="text-slate-700">
-                {' · '}
-                {g.visit.technicianName}
-                {g.visit.status === 'open' ? ' · visit still open' : ''}
-              </span>
+              <VisitGroupTitle visit={g.visit} />
             </span>
             <span className="sr-only">Open visit</span>
             <ChevronRight aria-hidden className="size-5 shrink-0 text-slate-500" />

@@ -9,6 +9,7 @@ import { buttonVariants } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { EntryKindLabel, SeverityBadge } from '@/components/visits/badges';
 import { EntrySummary } from '@/components/visits/entry-summary';
+import { groupByVisit, VisitGroupTitle } from '@/components/visits/visit-group-title';
 import { currentSettings } from '@/lib/equipment/current-settings';
 import type { Nameplate } from '@/lib/equipment/nameplate';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
@@ -17,12 +18,11 @@ import { formatMoment } from '@/lib/format/moments';
 import { readKeptUnit } from '@/lib/offline/keep-site';
 import type { UnitQuery } from '@/lib/offline/lookup';
 import type { StoredPack } from '@/lib/offline/store';
-import type { PackEntry, PackUnit, PackVisit, SitePack } from '@/lib/sites/pack-schema';
+import type { PackUnit } from '@/lib/sites/pack-schema';
 import { checkCode, formatCode } from '@/lib/tags/code';
 import { offlineUser } from '@/lib/offline/user';
 import { phoneVisitsAt } from '@/lib/visits/outbox';
 import { phoneVisitHref } from '@/lib/visits/start-on-phone';
-import { visitReasonLabels } from '@/lib/visits/terms';
 import { StartVisitForm } from '@/app/(app)/visits/new/_components/start-visit-form';
 
 type State = { status: 'loading' } | { status: 'missing'; query: UnitQuery | null } | { status: 'found'; kept: StoredPack; unit: PackUnit };
@@ -34,17 +34,6 @@ function queryFromLocation(): UnitQuery | null {
   if (code) return { code };
   const id = params.get('id');
   return id ? { id } : null;
-}
-
-/** Consecutive entries of one visit form a group (entries are newest first). */
-function groupByVisit(entries: PackEntry[], visits: SitePack['visits']): { visitId: string; visit: PackVisit | undefined; entries: PackEntry[] }[] {
-  const groups: { visitId: string; visit: PackVisit | undefined; entries: PackEntry[] }[] = [];
-  for (const e of entries) {
-    const last = groups.at(-1);
-    if (last && last.visitId === e.visitId) last.entries.push(e);
-    else groups.push({ visitId: e.visitId, visit: visits[e.visitId], entries: [e] });
-  }
-  return groups;
 }
 
 /** The unit named by `query`, else by the page's own address (?code= or ?id=). */
@@ -146,7 +135,7 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
     : phoneVisitId
       ? phoneVisitHref(phoneVisitId, unit.id)
       : `/visits/new?siteId=${pack.site.id}&equipmentId=${unit.id}`;
-  const groups = groupByVisit(unit.history, pack.visits);
+  const groups = groupByVisit(unit.history, (e) => pack.visits[e.visitId]);
   const details = [
     { label: 'Make', value: unit.make },
     { label: 'Model', value: unit.model },
@@ -239,7 +228,7 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
           <Card className="mt-2 space-y-3" data-testid="offline-start">
             <h2 className="text-lg font-semibold">Start a visit at {pack.site.name}</h2>
             <p className="text-sm text-slate-700">No signal: the visit starts on this phone and reaches the server, with everything recorded, when there is signal.</p>
-            <StartVisitForm siteId={pack.site.id} timeZone={pack.site.timeZone} equipmentId={unit.id} />
+            <StartVisitForm siteId={pack.site.id} timeZone={pack.site.timeZone} equipmentId={unit.id} onCancel={() => setStarting(false)} />
           </Card>
         ) : null}
       </div>
@@ -256,16 +245,7 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
               <li key={`${g.visitId}-${gi}`} className="overflow-hidden rounded-lg border border-slate-200 bg-white">
                 <p className="border-b border-slate-200 bg-slate-50 px-3 py-1.5 text-sm">
                   {g.visit ? (
-                    <>
-                      <span className="font-semibold text-slate-900">
-                        {visitReasonLabels[g.visit.reason]} · {formatDay(g.visit.startedAt, g.visit.timeZone)}
-                      </span>
-                      <span className="text-slate-700">
-                        {' · '}
-                        {g.visit.technicianName}
-                        {g.visit.status === 'open' ? ' · visit still open' : ''}
-                      </span>
-                    </>
+                    <VisitGroupTitle visit={g.visit} />
                   ) : (
                     <span className="font-semibold text-slate-900">Visit</span>
                   )}
