@@ -2,11 +2,11 @@
 
 import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
+import { BoundSelect } from '@/components/forms/bound-select';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Select, describedBy } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
 import type { RelationDto } from '@/lib/equipment/dto';
 import { useAddRelation, useSiteEquipment } from '@/lib/equipment/hooks';
@@ -18,11 +18,11 @@ import { equipmentTypeLabels, type RelationKind } from '@/lib/equipment/types';
 
 // One choice covers both the kind and which end this equipment is, read as a sentence:
 // "This equipment is wired to …" / "This equipment is switched by …".
-const ways: { value: string; kind: RelationKind; direction: 'from' | 'to'; text: string }[] = [
-  { value: 'controls:from', kind: 'controls', direction: 'from', text: 'is wired to (switches)' },
-  { value: 'controls:to', kind: 'controls', direction: 'to', text: 'is switched by' },
-  { value: 'serves:from', kind: 'serves', direction: 'from', text: 'feeds' },
-  { value: 'serves:to', kind: 'serves', direction: 'to', text: 'is fed by' },
+const ways: { value: string; kind: RelationKind; direction: 'from' | 'to'; label: string }[] = [
+  { value: 'controls:from', kind: 'controls', direction: 'from', label: 'is wired to (switches)' },
+  { value: 'controls:to', kind: 'controls', direction: 'to', label: 'is switched by' },
+  { value: 'serves:from', kind: 'serves', direction: 'from', label: 'feeds' },
+  { value: 'serves:to', kind: 'serves', direction: 'to', label: 'is fed by' },
 ];
 
 interface RelationFormValues {
@@ -50,7 +50,6 @@ export function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId:
   const candidates = useSiteEquipment(siteId);
   const [banner, setBanner] = useState<string>();
   const form = useForm<RelationFormValues, unknown, CreateRelationInput>({ resolver: relationResolver, defaultValues: { way: 'controls:from', otherId: '' } });
-  const errors = form.formState.errors;
   // The list API leaves removed units out; the check here keeps a stale cache from offering one.
   const others = (candidates.data?.items ?? []).filter((e) => e.id !== equipmentId && e.status !== 'removed');
 
@@ -73,30 +72,17 @@ export function AddRelationForm({ equipmentId, siteId, onAdded }: { equipmentId:
     <form onSubmit={onSubmit} noValidate className="grid gap-3 p-4 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end lg:grid-cols-1 xl:grid-cols-[minmax(0,12rem)_minmax(0,1fr)] xl:[&>button]:col-span-2">
       <h3 className="text-base font-semibold sm:col-span-3 lg:col-span-1 xl:col-span-2">Add a connection</h3>
       {banner ? <Alert tone="danger" title={banner} className="sm:col-span-3 lg:col-span-1 xl:col-span-2" /> : null}
-      <Field id="relation-way" label="This equipment" error={errors.way?.message}>
-        <Select id="relation-way" {...describedBy('relation-way', errors.way?.message)} {...form.register('way')}>
-          {ways.map((w) => (
-            <option key={w.value} value={w.value}>
-              {w.text}
-            </option>
-          ))}
-        </Select>
-      </Field>
-      <Field
+      <BoundSelect form={form} name="way" id="relation-way" label="This equipment" options={ways} />
+      <BoundSelect
+        form={form}
+        name="otherId"
         id="relation-other"
         label="Other equipment on this site"
-        error={errors.otherId?.message}
         hint={candidates.isPending ? 'Loading the site’s equipment…' : others.length === 0 ? 'No other equipment on this site yet.' : undefined}
-      >
-        <Select id="relation-other" disabled={candidates.isPending} {...describedBy('relation-other', errors.otherId?.message)} {...form.register('otherId')}>
-          <option value="">Choose…</option>
-          {others.map((e) => (
-            <option key={e.id} value={e.id}>
-              {`${e.name} (${equipmentTypeLabels[e.type]}${e.areaName ? `, ${e.areaName}` : ''})`}
-            </option>
-          ))}
-        </Select>
-      </Field>
+        options={others.map((e) => ({ value: e.id, label: `${e.name} (${equipmentTypeLabels[e.type]}${e.areaName ? `, ${e.areaName}` : ''})` }))}
+        placeholder="Choose…"
+        disabled={candidates.isPending}
+      />
       <Button type="submit" disabled={form.formState.isSubmitting}>
         {form.formState.isSubmitting ? 'Adding…' : 'Add connection'}
       </Button>
