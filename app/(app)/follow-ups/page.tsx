@@ -2,7 +2,6 @@ import type { Metadata } from 'next';
 import { z } from 'zod';
 import { ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
-import { Select } from '@/components/ui/field';
 import { SeverityBadge } from '@/components/visits/badges';
 import { FollowUpList } from '@/components/visits/follow-up-list';
 import { requirePageActor } from '@/lib/auth';
@@ -12,7 +11,8 @@ import { countOpenBySeverity, listFollowUps } from '@/lib/follow-ups/service';
 import { listSites } from '@/lib/sites/service';
 import { SEVERITIES, severityLabels } from '@/lib/visits/schemas';
 import { listVisits } from '@/lib/visits/service';
-import { optionsOf, SelectOptions } from '@/components/forms/select-options';
+import { FilterSelect } from '@/components/forms/filter-select';
+import { optionsOf } from '@/components/forms/select-options';
 
 export const metadata: Metadata = { title: 'Follow-ups' };
 
@@ -63,26 +63,9 @@ export default async function FollowUpsPage({ searchParams }: { searchParams: Pr
       </section>
 
       <form method="get" action="/follow-ups" className="grid grid-cols-1 gap-2 sm:grid-cols-4 sm:items-end">
-        <label className="block text-sm font-semibold text-slate-800">
-          Site
-          <Select name="siteId" defaultValue={query.siteId ?? ''} className="mt-1">
-            <option value="">All sites</option>
-            <SelectOptions options={sites.items.map((s) => ({ value: s.id, label: s.name }))} />
-          </Select>
-        </label>
-        <label className="block text-sm font-semibold text-slate-800">
-          Severity
-          <Select name="severity" defaultValue={query.severity ?? ''} className="mt-1">
-            <option value="">Any severity</option>
-            <SelectOptions options={optionsOf(SEVERITIES, severityLabels)} />
-          </Select>
-        </label>
-        <label className="block text-sm font-semibold text-slate-800">
-          Status
-          <Select name="status" defaultValue={status} className="mt-1">
-            <SelectOptions options={optionsOf(statusViews, statusViewLabels)} />
-          </Select>
-        </label>
+        <FilterSelect name="siteId" label="Site" value={query.siteId ?? ''} empty="All sites" options={sites.items.map((s) => ({ value: s.id, label: s.name }))} />
+        <FilterSelect name="severity" label="Severity" value={query.severity ?? ''} empty="Any severity" options={optionsOf(SEVERITIES, severityLabels)} />
+        <FilterSelect name="status" label="Status" value={status} options={optionsOf(statusViews, statusViewLabels)} />
         <button type="submit" className="min-h-11 rounded-md border border-slate-300 bg-white px-4 font-semibold hover:bg-slate-100">
           Show
         </button>

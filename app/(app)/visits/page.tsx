@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { z } from 'zod';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, PageHeader } from '@/components/ui/card';
-import { Select } from '@/components/ui/field';
+import { FilterSelect } from '@/components/forms/filter-select';
 import { NeedsReviewBadge, VisitStatusBadge } from '@/components/visits/badges';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
@@ -105,17 +105,7 @@ export default async function VisitsPage({ searchParams }: { searchParams: Promi
 
       <form method="get" action="/visits" className="flex flex-col gap-2 sm:flex-row sm:items-end">
         {view !== available[0] ? <input type="hidden" name="view" value={view} /> : null}
-        <label className="block text-sm font-semibold text-slate-800 sm:w-80">
-          Site
-          <Select name="siteId" defaultValue={query.siteId ?? ''} className="mt-1">
-            <option value="">All sites</option>
-            {sites.items.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
-            ))}
-          </Select>
-        </label>
+        <FilterSelect name="siteId" label="Site" value={query.siteId ?? ''} empty="All sites" options={sites.items.map((s) => ({ value: s.id, label: s.name }))} className="sm:w-80" />
         <button type="submit" className="min-h-11 rounded-md border border-slate-300 bg-white px-4 font-semibold hover:bg-slate-100">
           Show
         </button>
