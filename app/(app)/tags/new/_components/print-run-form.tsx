@@ -3,18 +3,21 @@
 import { useQuery } from '@tanstack/react-query';
 import { FileDown, Printer } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { BoundField } from '@/components/forms/bound-field';
+import { BoundSelect } from '@/components/forms/bound-select';
+import { schemaResolver } from '@/components/forms/schema-resolver';
+import { applyServerErrors } from '@/components/forms/server-errors';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select } from '@/components/ui/field';
 import { ApiError, apiFetch } from '@/lib/api/client';
 import { useSiteEquipment } from '@/lib/equipment/hooks';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
 import { formatCode } from '@/lib/tags/code';
 import type { LabelLayoutDto } from '@/lib/tags/dto';
 import { tagKeys, useCreatePrintRun } from '@/lib/tags/hooks';
-import { MAX_LABELS_PER_RUN } from '@/lib/tags/schemas';
-import { SelectOptions } from '@/components/forms/select-options';
+import { createPrintRunSchema, MAX_LABELS_PER_RUN, type CreatePrintRunInput } from '@/lib/tags/schemas';
 
 interface Initial {
   kind: 'equipment' | 'blank';
@@ -31,19 +34,46 @@ function useSiteTagCodes(siteId: string) {
   });
 }
 
+interface RunValues {
+  kind: 'equipment' | 'blank';
+  siteId: string;
+  equipmentIds: string[];
+  alreadyTagged: 'skip' | 'replace';
+  /** As typed. */
+  count: string;
+  layoutId: string;
+  /** As typed; an empty or unreadable one is the first label. */
+  startPosition: string;
+}
+
+const runFields = ['siteId', 'equipmentIds', 'count', 'layoutId', 'startPosition'];
+
+// The form's fields are the API's, so the schema's and the server's issues land on them as they are.
+const runResolver = schemaResolver(createPrintRunSchema, (v: RunValues) => {
+  const startPosition = Number.parseInt(v.startPosition, 10) || 1;
+  return v.kind === 'equipment'
+    ? { kind: v.kind, equipmentIds: v.equipmentIds, alreadyTagged: v.alreadyTagged, layoutId: v.layoutId, startPosition }
+    : { kind: v.kind, siteId: v.siteId, count: v.count.trim() === '' ? undefined : Number(v.count), layoutId: v.layoutId, startPosition };
+});
+
 /** Office: a print run for chosen equipment (tags bound now) or N blank tags for a site (bound on site). */
 export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string; name: string; clientName: string }[]; layouts: LabelLayoutDto[]; initial: Initial }) {
   const router = useRouter();
   const create = useCreatePrintRun();
-  const [kind, setKind] = useState<'equipment' | 'blank'>(initial.kind);
-  const [siteId, setSiteId] = useState(initial.siteId ?? '');
-  const [chosen, setChosen] = useState<Set<string>>(new Set(initial.equipmentIds ?? []));
-  const [alreadyTagged, setAlreadyTagged] = useState<'skip' | 'replace'>(initial.alreadyTagged ?? 'skip');
-  const [count, setCount] = useState('30');
-  const [layoutId, setLayoutId] = useState(layouts[0]?.id ?? '');
-  const [start, setStart] = useState('1');
+  const form = useForm<RunValues, unknown, CreatePrintRunInput>({
+    resolver: runResolver,
+    defaultValues: {
+      kind: initial.kind,
+      siteId: initial.siteId ?? '',
+      equipmentIds: initial.equipmentIds ?? [],
+      alreadyTagged: initial.alreadyTagged ?? 'skip',
+      count: '30',
+      layoutId: layouts[0]?.id ?? '',
+      startPosition: '1',
+    },
+  });
+  const [kind, siteId, chosen, layoutId] = useWatch({ control: form.control, name: ['kind', 'siteId', 'equipmentIds', 'layoutId'] });
   const [error, setError] = useState<string>();
-  const [issues, setIssues] = useState<Record<string, string>>({});
   const equipment = useSiteEquipment(siteId);
   const codes = useSiteTagCodes(siteId);
   const layout = layouts.find((l) => l.id === layoutId);
@@ -51,34 +81,16 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
   const items = siteId ? (equipment.data?.items ?? []) : [];
   const tagCodes = codes.data?.codes ?? {};
 
-  function toggle(id: string) {
-    setChosen((prev) => {
-      const next = new Set(prev);
-      if (next.has(id)) next.delete(id);
-      else next.add(id);
-      return next;
-    });
-  }
-
-  async function submit(e: FormEvent) {
-    e.preventDefault();
+  const submit = form.handleSubmit(async (input) => {
     setError(undefined);
-    setIssues({});
-    const startPosition = Number.parseInt(start, 10) || 1;
     try {
-      const run = await create.mutateAsync(
-        kind === 'equipment'
-          ? { kind, equipmentIds: [...chosen].filter((id) => items.some((i) => i.id === id)), alreadyTagged, layoutId, startPosition }
-          : { kind, siteId, count: Number.parseInt(count, 10), layoutId, startPosition },
-      );
+      // Units chosen at another site before the site was changed are not printed.
+      const run = await create.mutateAsync(input.kind === 'equipment' ? { ...input, equipmentIds: input.equipmentIds.filter((id) => items.some((i) => i.id === id)) } : input);
       router.push(`/tags/runs/${run.id}`);
     } catch (err) {
-      if (err instanceof ApiError) {
-        setError(err.message);
-        setIssues(Object.fromEntries(err.issues.map((i) => [i.path.split('.')[0] ?? i.path, i.message])));
-      } else setError('Something went wrong. Nothing was printed.');
+      setError(err instanceof ApiError ? applyServerErrors(err, form.setError, runFields) : 'Something went wrong. Nothing was printed.');
     }
-  }
+  });
 
   return (
     <form onSubmit={submit} noValidate className="max-w-3xl space-y-6">
@@ -92,7 +104,7 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
           ] as const
         ).map(([value, title, hint]) => (
           <label key={value} className="flex min-h-14 cursor-pointer items-start gap-3 rounded-md border border-slate-300 bg-white p-3 has-[:checked]:border-ice-700 has-[:checked]:bg-ice-50">
-            <input type="radio" name="kind" value={value} checked={kind === value} onChange={() => setKind(value)} className="mt-1 size-5" />
+            <input type="radio" value={value} {...form.register('kind')} className="mt-1 size-5" />
             <span>
               <span className="block font-semibold">{title}</span>
               <span className="block text-sm text-slate-600">{hint}</span>
@@ -101,16 +113,7 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
         ))}
       </fieldset>
 
-      <Field id="run-site" label="Site" error={issues.siteId}>
-        <Select id="run-site" value={siteId} onChange={(e) => setSiteId(e.target.value)}>
-          <option value="">Choose a site</option>
-          {sites.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.name} ({s.clientName})
-            </option>
-          ))}
-        </Select>
-      </Field>
+      <BoundSelect form={form} name="siteId" id="run-site" label="Site" placeholder="Choose a site" options={sites.map((s) => ({ value: s.id, label: `${s.name} (${s.clientName})` }))} />
 
       {kind === 'equipment' ? (
         <fieldset className="space-y-2">
@@ -124,10 +127,10 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
           ) : (
             <>
               <div className="flex flex-wrap gap-2">
-                <Button variant="secondary" onClick={() => setChosen(new Set(items.filter((i) => !tagCodes[i.id]).map((i) => i.id)))}>
+                <Button variant="secondary" onClick={() => form.setValue('equipmentIds', items.filter((i) => !tagCodes[i.id]).map((i) => i.id))}>
                   Choose all untagged
                 </Button>
-                <Button variant="ghost" onClick={() => setChosen(new Set())}>
+                <Button variant="ghost" onClick={() => form.setValue('equipmentIds', [])}>
                   Clear
                 </Button>
               </div>
@@ -135,7 +138,7 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
                 {items.map((i) => (
                   <li key={i.id}>
                     <label className="flex min-h-12 cursor-pointer items-center gap-3 px-3 py-2 has-[:checked]:bg-ice-50">
-                      <input type="checkbox" checked={chosen.has(i.id)} onChange={() => toggle(i.id)} className="size-5" />
+                      <input type="checkbox" value={i.id} {...form.register('equipmentIds')} className="size-5" />
                       <span className="flex-1">
                         <span className="block font-semibold">{i.name}</span>
                         <span className="block text-sm text-slate-600">
@@ -148,14 +151,18 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
                   </li>
                 ))}
               </ul>
-              {issues.equipmentIds ? <p className="text-sm font-medium text-red-700">{issues.equipmentIds}</p> : null}
+              {form.formState.errors.equipmentIds ? (
+                <p role="alert" className="text-sm font-medium text-red-700">
+                  {form.formState.errors.equipmentIds.message}
+                </p>
+              ) : null}
               <div className="space-y-1">
                 <p className="text-sm font-semibold">Equipment that already carries a tag</p>
                 <label className="flex min-h-11 items-center gap-2">
-                  <input type="radio" name="alreadyTagged" checked={alreadyTagged === 'skip'} onChange={() => setAlreadyTagged('skip')} className="size-5" /> Skip it
+                  <input type="radio" value="skip" {...form.register('alreadyTagged')} className="size-5" /> Skip it
                 </label>
                 <label className="flex min-h-11 items-center gap-2">
-                  <input type="radio" name="alreadyTagged" checked={alreadyTagged === 'replace'} onChange={() => setAlreadyTagged('replace')} className="size-5" />
+                  <input type="radio" value="replace" {...form.register('alreadyTagged')} className="size-5" />
                   Print a replacement (the old tag is retired; its scans still lead to the unit)
                 </label>
               </div>
@@ -163,25 +170,26 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
           )}
         </fieldset>
       ) : (
-        <Field id="run-count" label="How many blank tags" error={issues.count} hint={`Up to ${MAX_LABELS_PER_RUN} per run.`}>
-          <Input id="run-count" type="number" inputMode="numeric" min={1} max={MAX_LABELS_PER_RUN} value={count} onChange={(e) => setCount(e.target.value)} className="max-w-40" />
-        </Field>
+        <BoundField
+          form={form}
+          name="count"
+          id="run-count"
+          label="How many blank tags"
+          hint={`Up to ${MAX_LABELS_PER_RUN} per run.`}
+          input={{ type: 'number', inputMode: 'numeric', min: 1, max: MAX_LABELS_PER_RUN, className: 'max-w-40' }}
+        />
       )}
 
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field id="run-layout" label="Label layout" error={issues.layoutId}>
-          <Select id="run-layout" value={layoutId} onChange={(e) => setLayoutId(e.target.value)}>
-            <SelectOptions options={layouts.map((l) => ({ value: l.id, label: l.name }))} />
-          </Select>
-        </Field>
-        <Field
+        <BoundSelect form={form} name="layoutId" id="run-layout" label="Label layout" options={layouts.map((l) => ({ value: l.id, label: l.name }))} />
+        <BoundField
+          form={form}
+          name="startPosition"
           id="run-start"
           label="Start at label"
-          error={issues.startPosition}
           hint={perPage > 1 ? `1 is the top-left label; count left to right, then down (1–${perPage}). Lets a partly used sheet go through again.` : 'One label per page.'}
-        >
-          <Input id="run-start" type="number" inputMode="numeric" min={1} max={perPage} value={start} onChange={(e) => setStart(e.target.value)} disabled={perPage === 1} className="max-w-40" />
-        </Field>
+          input={{ type: 'number', inputMode: 'numeric', min: 1, max: perPage, disabled: perPage === 1, className: 'max-w-40' }}
+        />
       </div>
       {layout ? (
         <p className="text-sm text-slate-700">
@@ -192,9 +200,9 @@ export function PrintRunForm({ sites, layouts, initial }: { sites: { id: string;
         </p>
       ) : null}
 
-      <Button type="submit" size="lg" disabled={create.isPending || !siteId || (kind === 'equipment' && chosen.size === 0)}>
+      <Button type="submit" size="lg" disabled={create.isPending || !siteId || (kind === 'equipment' && chosen.length === 0)}>
         <Printer aria-hidden className="size-5" />
-        {create.isPending ? 'Making labels…' : kind === 'equipment' ? `Print ${chosen.size} ${chosen.size === 1 ? 'tag' : 'tags'}` : 'Print blank tags'}
+        {create.isPending ? 'Making labels…' : kind === 'equipment' ? `Print ${chosen.length} ${chosen.length === 1 ? 'tag' : 'tags'}` : 'Print blank tags'}
       </Button>
     </form>
   );
