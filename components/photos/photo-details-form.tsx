@@ -4,12 +4,12 @@ import { CircleCheck, OctagonAlert } from 'lucide-react';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { schemaResolver } from '@/components/forms/schema-resolver';
+import { PhotoKindSelect } from '@/components/photos/photo-kind-select';
 import { Button } from '@/components/ui/button';
-import { describedBy, Input, Select } from '@/components/ui/field';
+import { describedBy, Input } from '@/components/ui/field';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { useUpdatePhoto } from '@/lib/photos/hooks';
-import { photoKindLabels, photoKinds, updatePhotoSchema, type PhotoKind, type UpdatePhotoInput } from '@/lib/photos/schemas';
-import { optionsOf, SelectOptions } from '@/components/forms/select-options';
+import { photoKindLabels, updatePhotoSchema, type PhotoKind, type UpdatePhotoInput } from '@/lib/photos/schemas';
 
 interface DetailsValues {
   kind: PhotoKind;
@@ -47,14 +47,7 @@ export function PhotoDetailsForm({ photo, label, fileName, onSaved }: { photo: P
   return (
     <form className="space-y-2" noValidate onSubmit={submit}>
       <div className="grid gap-2 sm:grid-cols-[10rem_1fr]">
-        <div>
-          <label htmlFor={`${label}-kind`} className="sr-only">
-            Kind of {fileName}
-          </label>
-          <Select id={`${label}-kind`} {...form.register('kind')}>
-            <SelectOptions options={optionsOf(photoKinds, photoKindLabels)} />
-          </Select>
-        </div>
+        <PhotoKindSelect id={`${label}-kind`} label={`Kind of ${fileName}`} hideLabel {...form.register('kind')} />
         <div>
           <label htmlFor={`${label}-caption`} className="sr-only">
             Caption for {fileName}

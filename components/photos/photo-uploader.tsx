@@ -3,13 +3,13 @@
 import { Camera, CircleCheck, Clock, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, X } from 'lucide-react';
 import dynamic from 'next/dynamic';
 import { useEffect, useId, useRef, useState } from 'react';
+import { PhotoKindSelect } from '@/components/photos/photo-kind-select';
 import { usePhotoUploads, unsentMessage, type UploadItem } from '@/components/photos/use-photo-uploads';
 import { Button } from '@/components/ui/button';
-import { Select } from '@/components/ui/field';
 import { LeaveDialog } from '@/components/ui/leave-dialog';
 import { useLeaveGuard } from '@/components/ui/use-leave-guard';
 import type { PhotoDto } from '@/lib/photos/dto';
-import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, photoKinds, type PhotoKind } from '@/lib/photos/terms';
+import { formatBytes, MAX_PHOTO_BYTES, photoKindLabels, type PhotoKind } from '@/lib/photos/terms';
 import { cn } from '@/lib/utils';
 
 // Several photos at once, from the camera or from files. Each starts uploading the moment it is
@@ -54,18 +54,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
     <>
       <div className="space-y-4 rounded-lg border border-slate-200 bg-white p-4 shadow-sm">
         <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
-          <div className="space-y-1 sm:w-56">
-            <label htmlFor={`${baseId}-kind`} className="block text-sm font-semibold text-slate-800">
-              Kind for new photos
-            </label>
-            <Select id={`${baseId}-kind`} value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)}>
-              {photoKinds.map((k) => (
-                <option key={k} value={k}>
-                  {photoKindLabels[k]}
-                </option>
-              ))}
-            </Select>
-          </div>
+          <PhotoKindSelect id={`${baseId}-kind`} label="Kind for new photos" className="sm:w-56" value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)} />
           <div className="grid grid-cols-2 gap-2 sm:flex">
             <Button size="lg" className="whitespace-nowrap px-3" onClick={() => cameraInput.current?.click()}>
               <Camera aria-hidden className="size-5" />
@@ -230,18 +219,7 @@ function UploadRow({
         {item.status === 'done' && item.photo ? (
           <PhotoDetailsForm photo={item.photo} label={label} fileName={item.file.name} onSaved={(photo) => onChange({ photo, kind: photo.kind, caption: photo.caption ?? '' })} />
         ) : item.status === 'failed' && item.retryable ? (
-          <div>
-            <label htmlFor={`${label}-kind`} className="sr-only">
-              Kind of {item.file.name}
-            </label>
-            <Select id={`${label}-kind`} value={item.kind} onChange={(e) => onChange({ kind: e.target.value as PhotoKind })}>
-              {photoKinds.map((k) => (
-                <option key={k} value={k}>
-                  {photoKindLabels[k]}
-                </option>
-              ))}
-            </Select>
-          </div>
+          <PhotoKindSelect id={`${label}-kind`} label={`Kind of ${item.file.name}`} hideLabel value={item.kind} onChange={(e) => onChange({ kind: e.target.value as PhotoKind })} />
         ) : (
           <p className="text-sm text-slate-700">{photoKindLabels[item.kind]}</p>
         )}
