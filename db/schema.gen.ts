@@ -90,6 +90,15 @@ export interface Companies {
   updated_at: Generated<Timestamp>;
 }
 
+export interface ConditionTrends {
+  client_id: string | null;
+  company_id: string;
+  equipment_id: string;
+  latest_rating: number;
+  latest_visit_id: string;
+  previous_rating: number | null;
+}
+
 export interface Entries {
   client_entry_id: string;
   company_id: string;
@@ -422,6 +431,7 @@ export interface DB {
   client_contacts: ClientContacts;
   clients: Clients;
   companies: Companies;
+  condition_trends: ConditionTrends;
   entries: Entries;
   equipment: Equipment;
   equipment_relations: EquipmentRelations;

@@ -2,7 +2,7 @@ import 'server-only';
 import { sql } from 'kysely';
 import { z } from 'zod';
 import { db as defaultDb } from '@/db';
-import { entryVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
+import { conditionTrendVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -53,26 +53,14 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
     .having(sql<boolean>`count(distinct visits.id) >= 2`)
     .execute();
 
+  // The last two ratings of each unit as this actor may see them, kept up to date by triggers
+  // (migration 2026_12_05_0430), so only the units that got worse are read.
   const ratingsQuery = db
-    .with('ranked', (w) =>
-      w
-        .selectFrom('entries')
-        .where(entryVisibleTo(actor))
-        .where('entries.kind', '=', 'condition')
-        .where('entries.voided_at', 'is', null)
-        .$if(Boolean(siteId), (q) => q.where('entries.equipment_id', 'in', (eb) => eb.selectFrom('equipment').select('equipment.id').where('equipment.site_id', '=', siteId!)))
-        .select([
-          'entries.equipment_id',
-          'entries.visit_id',
-          sql<number>`(entries.data->>'rating')::int`.as('rating'),
-          sql<number>`row_number() over (partition by entries.equipment_id order by entries.recorded_at desc, entries.id desc)`.as('n'),
-        ]),
-    )
-    .selectFrom('ranked as latest')
-    .innerJoin('ranked as previous', (j) => j.onRef('previous.equipment_id', '=', 'latest.equipment_id').on('previous.n', '=', 2))
-    .where('latest.n', '=', 1)
-    .whereRef('latest.rating', '<', 'previous.rating')
-    .select(['latest.equipment_id', 'latest.visit_id', 'latest.rating as to', 'previous.rating as from'])
+    .selectFrom('condition_trends')
+    .where(conditionTrendVisibleTo(actor))
+    .whereRef('condition_trends.latest_rating', '<', 'condition_trends.previous_rating')
+    .$if(Boolean(siteId), (q) => q.where('condition_trends.equipment_id', 'in', (eb) => eb.selectFrom('equipment').select('equipment.id').where('equipment.site_id', '=', siteId!)))
+    .select(['condition_trends.equipment_id', 'condition_trends.latest_visit_id as visit_id', 'condition_trends.latest_rating as to', 'condition_trends.previous_rating as from'])
     .execute();
   // Independent lookups: sent at once, pushed in a fixed order (ties among a unit's reasons keep it).
   const [safety, leaks, noCooling, ratings] = await Promise.all([safetyQuery, openLeaks(actor, siteId, db, today), noCoolingQuery, ratingsQuery]);

@@ -66,6 +66,19 @@ export function entryVisibleTo(actor: Actor) {
       : sql<SqlBool>`(entries.company_id = ${actor.companyId} and exists (select 1 from visits as scope_visit inner join sites as scope_site on scope_site.id = scope_visit.site_id where scope_visit.id = entries.visit_id and scope_visit.status = 'closed' and scope_site.client_id = ${clientId}))`;
 }
 
+/**
+ * The kept last-two-ratings rows (table condition_trends, see its migration) an actor's ratings
+ * make: staff read the row built from every rating, an owner the one built from closed visits on
+ * their client's sites, the same entries `entryVisibleTo` lets each see. Needs `condition_trends`.
+ */
+export function conditionTrendVisibleTo(actor: Actor) {
+  const clientId = clientScope(actor);
+  return (): Expression<SqlBool> =>
+    clientId === null
+      ? sql<SqlBool>`(condition_trends.company_id = ${actor.companyId} and condition_trends.client_id is null)`
+      : sql<SqlBool>`(condition_trends.company_id = ${actor.companyId} and condition_trends.client_id = ${clientId})`;
+}
+
 /** Photos belong to their unit and are seen with it: needs `photos` and `sites` (the unit's). */
 export function photoVisibleTo(actor: Actor) {
   const site = siteVisibleTo(actor);
