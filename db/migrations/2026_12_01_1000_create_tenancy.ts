@@ -1,7 +1,8 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // Companies, people and places: the tenancy every later table hangs from.
-// Frozen in time: typed on Kysely<any> and importing nothing from the app.
+// Frozen in time: typed on Kysely<any>, importing nothing from the app (db/migration-columns never changes what it adds).
 
 const id = sql`gen_random_uuid()`;
 
@@ -14,26 +15,22 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('label_line', 'text')
     .addColumn('default_units', 'text', (c) => c.notNull().defaultTo('imperial').check(sql`default_units in ('imperial', 'metric')`))
     .addColumn('keep_photo_location', 'boolean', (c) => c.notNull().defaultTo(false))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
 
   await db.schema
     .createTable('clients')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('notes', 'text')
     .addColumn('archived_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await sql`create unique index clients_company_name_key on clients (company_id, lower(name))`.execute(db);
 
   await db.schema
     .createTable('users')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('email', 'text', (c) => c.notNull().unique().check(sql`email = lower(email)`))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('admin', 'office', 'technician', 'client')`))
@@ -44,31 +41,27 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('email_verified_at', 'timestamptz')
     .addColumn('last_sign_in_at', 'timestamptz')
     .addColumn('deactivated_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .addCheckConstraint('users_client_role_check', sql`(role = 'client') = (client_id is not null)`)
     .execute();
   await db.schema.createIndex('users_company_idx').on('users').column('company_id').execute();
 
   await db.schema
     .createTable('client_contacts')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('client_id', 'uuid', (c) => c.notNull().references('clients.id').onDelete('cascade'))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('email', 'text')
     .addColumn('phone', 'text')
     .addColumn('title', 'text')
     .addColumn('receives_reports', 'boolean', (c) => c.notNull().defaultTo(false))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await db.schema.createIndex('client_contacts_client_idx').on('client_contacts').column('client_id').execute();
 
   await db.schema
     .createTable('sites')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('client_id', 'uuid', (c) => c.notNull().references('clients.id').onDelete('restrict'))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('address_line1', 'text')
@@ -81,29 +74,25 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('elevation_m', 'numeric', (c) => c.notNull().defaultTo(0))
     .addColumn('access_notes', 'text')
     .addColumn('archived_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await db.schema.createIndex('sites_company_client_idx').on('sites').columns(['company_id', 'client_id']).execute();
 
   await db.schema
     .createTable('areas')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('kind', 'text', (c) => c.notNull().defaultTo('other'))
     .addColumn('notes', 'text')
     .addColumn('archived_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await db.schema.createIndex('areas_site_idx').on('areas').column('site_id').execute();
 
   await db.schema
     .createTable('invitations')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('email', 'text', (c) => c.notNull().check(sql`email = lower(email)`))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('admin', 'office', 'technician', 'client')`))
@@ -120,8 +109,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('audit_events')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('actor_id', 'uuid', (c) => c.references('users.id').onDelete('restrict'))
     .addColumn('action', 'text', (c) => c.notNull())
     .addColumn('entity_type', 'text', (c) => c.notNull())

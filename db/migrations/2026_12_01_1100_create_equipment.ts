@@ -1,17 +1,16 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // Systems (refrigeration circuits), equipment with type-specific nameplate data, and the
 // relations between pieces of equipment. Frozen in time: typed on Kysely<any>.
 
-const id = sql`gen_random_uuid()`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await sql`create extension if not exists pg_trgm`.execute(db);
 
   await db.schema
     .createTable('systems')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('area_id', 'uuid', (c) => c.references('areas.id').onDelete('restrict'))
     .addColumn('name', 'text', (c) => c.notNull())
@@ -24,15 +23,13 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('maintenance_interval_days', 'integer', (c) => c.check(sql`maintenance_interval_days is null or maintenance_interval_days > 0`))
     .addColumn('notes', 'text')
     .addColumn('archived_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await db.schema.createIndex('systems_site_idx').on('systems').columns(['company_id', 'site_id']).execute();
 
   await db.schema
     .createTable('equipment')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('area_id', 'uuid', (c) => c.references('areas.id').onDelete('restrict'))
     .addColumn('system_id', 'uuid', (c) => c.references('systems.id').onDelete('restrict'))
@@ -52,8 +49,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       c.generatedAlwaysAs(sql`lower(name || ' ' || coalesce(make, '') || ' ' || coalesce(model, '') || ' ' || coalesce(serial, ''))`).stored(),
     )
     .addColumn('deleted_at', 'timestamptz')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await sql`create index equipment_search_trgm_idx on equipment using gin (search_text gin_trgm_ops)`.execute(db);
   await sql`create index equipment_company_name_idx on equipment (company_id, lower(name), id) where deleted_at is null`.execute(db);
@@ -62,8 +58,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('equipment_relations')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('from_equipment_id', 'uuid', (c) => c.notNull().references('equipment.id').onDelete('cascade'))
     .addColumn('to_equipment_id', 'uuid', (c) => c.notNull().references('equipment.id').onDelete('cascade'))
     .addColumn('kind', 'text', (c) => c.notNull().check(sql`kind in ('controls', 'serves')`))

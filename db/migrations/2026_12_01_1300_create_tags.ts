@@ -1,9 +1,9 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // QR tags: label layouts (data rows, one per sheet or roll kind), print runs, the tags themselves
 // (blank → attached → retired) and the scan log. Frozen in time: typed on Kysely<any>.
 
-const id = sql`gen_random_uuid()`;
 
 // Issued codes: 8 Crockford Base32 data symbols + 1 check symbol (lib/tags/code.ts). The check
 // position allows the whole check alphabet so that the column holds any valid code.
@@ -97,8 +97,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('print_runs')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('kind', 'text', (c) => c.notNull().check(sql`kind in ('equipment', 'blank')`))
     .addColumn('site_id', 'uuid', (c) => c.references('sites.id').onDelete('restrict'))
     .addColumn('layout_id', 'text', (c) => c.notNull().references('label_layouts.id').onDelete('restrict'))
@@ -115,8 +114,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('tags')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     // Unique across the installation, whatever the company: a scanned code names one tag.
     .addColumn('code', 'text', (c) => c.notNull().unique().check(sql`code ~ ${sql.lit(codePattern)}`))
     .addColumn('state', 'text', (c) => c.notNull().defaultTo('blank').check(sql`state in ('blank', 'attached', 'retired')`))
@@ -130,8 +128,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('retired_reason', 'text', (c) => c.check(sql`retired_reason in ('replaced', 'damaged', 'lost', 'unused')`))
     .addColumn('retired_note', 'text')
     .addColumn('replaced_by_id', 'uuid', (c) => c.references('tags.id').onDelete('restrict'))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .addCheckConstraint('tags_blank_check', sql`state <> 'blank' or (equipment_id is null and retired_at is null)`)
     .addCheckConstraint('tags_attached_check', sql`state <> 'attached' or (equipment_id is not null and attached_at is not null and retired_at is null)`)
     .addCheckConstraint('tags_retired_check', sql`state <> 'retired' or (retired_at is not null and retired_reason is not null)`)
@@ -143,8 +140,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('tag_scans')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('tag_id', 'uuid', (c) => c.notNull().references('tags.id').onDelete('restrict'))
     // The equipment the tag led to at the moment of the scan (null for a blank tag).
     .addColumn('equipment_id', 'uuid', (c) => c.references('equipment.id').onDelete('restrict'))

@@ -1,4 +1,5 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany } from '@/db/migration-columns';
 
 // Photos of equipment: the bytes live in object storage (original, display size, thumbnail);
 // this row holds their keys and what was read from the image. Frozen in time: Kysely<any>.
@@ -6,8 +7,7 @@ import { sql, type Kysely } from 'kysely';
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('photos')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(sql`gen_random_uuid()`))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('equipment_id', 'uuid', (c) => c.notNull().references('equipment.id').onDelete('restrict'))
     .addColumn('kind', 'text', (c) =>
       c.notNull().check(sql`kind in ('nameplate', 'damage', 'corrosion', 'wiring', 'before', 'after', 'general')`),

@@ -1,16 +1,15 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // Visits, the timeline entries technicians record on equipment during them, and follow-ups.
 // These are records an owner may have to show a regulator years later: nothing here is ever
 // hard-deleted (entries are voided with a reason; visits are reopened, not removed).
 
-const id = sql`gen_random_uuid()`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('visits')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('technician_id', 'uuid', (c) => c.notNull().references('users.id').onDelete('restrict'))
     .addColumn('reason', 'text', (c) =>
@@ -26,8 +25,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('reviewed_at', 'timestamptz')
     .addColumn('reviewed_by', 'uuid', (c) => c.references('users.id').onDelete('restrict'))
     .addColumn('report_key', 'text')
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .addCheckConstraint('visits_closed_has_end', sql`status = 'open' or ended_at is not null`)
     .execute();
   // One open visit per technician per site.
@@ -36,8 +34,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('entries')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('visit_id', 'uuid', (c) => c.notNull().references('visits.id').onDelete('restrict'))
     .addColumn('equipment_id', 'uuid', (c) => c.notNull().references('equipment.id').onDelete('restrict'))
     // Copied from the equipment at the time, so a system's history and refrigerant totals
@@ -64,8 +61,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('follow_ups')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('equipment_id', 'uuid', (c) => c.references('equipment.id').onDelete('restrict'))
     .addColumn('entry_id', 'uuid', (c) => c.references('entries.id').onDelete('restrict'))
@@ -79,8 +75,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('closed_visit_id', 'uuid', (c) => c.references('visits.id').onDelete('restrict'))
     .addColumn('resolution', 'text')
     .addColumn('created_by', 'uuid', (c) => c.notNull().references('users.id').onDelete('restrict'))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await sql`create index follow_ups_open_idx on follow_ups (company_id, site_id, created_at) where status in ('open', 'scheduled')`.execute(db);
   await db.schema.createIndex('follow_ups_equipment_idx').on('follow_ups').column('equipment_id').execute();

@@ -1,13 +1,12 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // Service requests: an owner asks for service on a site or a unit; the office works the queue.
-const id = sql`gen_random_uuid()`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('service_requests')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('equipment_id', 'uuid', (c) => c.references('equipment.id').onDelete('restrict'))
     .addColumn('requested_by', 'uuid', (c) => c.notNull().references('users.id').onDelete('restrict'))
@@ -17,8 +16,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('status', 'text', (c) => c.notNull().defaultTo('new').check(sql`status in ('new', 'acknowledged', 'scheduled', 'done', 'declined')`))
     .addColumn('office_note', 'text')
     .addColumn('visit_id', 'uuid', (c) => c.references('visits.id').onDelete('restrict'))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .execute();
   await db.schema.createIndex('service_requests_queue_idx').on('service_requests').columns(['company_id', 'status', 'created_at']).execute();
   await db.schema.createIndex('service_requests_site_idx').on('service_requests').column('site_id').execute();

@@ -1,17 +1,16 @@
 import { sql, type Kysely } from 'kysely';
+import { idAndCompany, timestamps } from '@/db/migration-columns';
 
 // Planned visits: the office plans a visit for a site (optionally naming systems or units), a
 // technician, a day and a time window in the site's own time zone. A plan is never deleted: it is
 // cancelled, or started (then it names the visit). Every change is an audit event. A company may
 // have the client's contacts e-mailed when a visit is planned, moved or cancelled.
 
-const id = sql`gen_random_uuid()`;
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('visit_plans')
-    .addColumn('id', 'uuid', (c) => c.primaryKey().defaultTo(id))
-    .addColumn('company_id', 'uuid', (c) => c.notNull().references('companies.id').onDelete('restrict'))
+    .$call(idAndCompany)
     .addColumn('site_id', 'uuid', (c) => c.notNull().references('sites.id').onDelete('restrict'))
     .addColumn('reason', 'text', (c) =>
       c.notNull().check(sql`reason in ('no_cooling', 'maintenance', 'install', 'inspection', 'leak_check', 'follow_up')`),
@@ -28,8 +27,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('cancel_reason', 'text')
     .addColumn('created_by', 'uuid', (c) => c.notNull().references('users.id').onDelete('restrict'))
     .addColumn('updated_by', 'uuid', (c) => c.notNull().references('users.id').onDelete('restrict'))
-    .addColumn('created_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
-    .addColumn('updated_at', 'timestamptz', (c) => c.notNull().defaultTo(sql`now()`))
+    .$call(timestamps)
     .addCheckConstraint('visit_plans_window_order', sql`window_end > window_start`)
     .addCheckConstraint('visit_plans_started_has_visit', sql`(status = 'started') = (visit_id is not null)`)
     .execute();
