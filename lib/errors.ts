@@ -61,3 +61,9 @@ const defaultMessages: Record<ErrorCode, string> = {
 export function isAppError(e: unknown): e is AppError {
   return e instanceof AppError;
 }
+
+/** The row a lookup found, or a 404 saying what was not found (also what a record outside scope reads as). */
+export function foundOr404<T>(row: T | undefined, message: string): T {
+  if (row === undefined) throw new AppError('not_found', message);
+  return row;
+}

@@ -3,7 +3,7 @@ import { sql, type Kysely } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
 import type { Actor } from '@/lib/auth/actor';
-import { recordAudit } from '@/lib/audit/service';
+import { auditedChange } from '@/lib/audit/change';
 
 /** The records that are archived rather than deleted: they keep their history and leave the lists. */
 export type ArchivableTable = 'clients' | 'sites' | 'systems';
@@ -20,12 +20,8 @@ export async function setArchived<T>(
   archived: boolean,
   read: (trx: Db) => Promise<T>,
 ): Promise<T> {
-  return db.transaction().execute(async (trx) => {
-    const before = await read(trx);
-    const archivedAt = archived ? sql`coalesce(archived_at, now())` : sql`null`;
-    await sql`update ${sql.table(record.table)} set archived_at = ${archivedAt}, updated_at = now() where id = ${record.id} and company_id = ${actor.companyId}`.execute(trx);
-    const after = await read(trx);
-    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: record.entityType, entityId: record.id, before, after });
-    return after;
-  });
+  const archivedAt = archived ? sql`coalesce(archived_at, now())` : sql`null`;
+  return auditedChange(db, actor, { ...record, action: archived ? 'archive' : 'restore' }, read, (trx) =>
+    sql`update ${sql.table(record.table)} set archived_at = ${archivedAt}, updated_at = now() where id = ${record.id} and company_id = ${actor.companyId}`.execute(trx),
+  );
 }

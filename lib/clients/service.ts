@@ -10,7 +10,9 @@ import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { setArchived } from '@/lib/audit/archive';
+import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
+import { changedColumns } from '@/lib/changed-columns';
 import { toClientFacts, toContactDto, type ClientDto, type ContactDto } from '@/lib/clients/dto';
 import { clientFlags } from '@/lib/clients/permissions';
 import type {
@@ -20,7 +22,7 @@ import type {
   UpdateClientInput,
   UpdateContactInput,
 } from '@/lib/clients/schemas';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 
 /** What this actor sees of a client, with what they may do on it: the page and the API alike. */
 function clientDtoFor(actor: Actor) {
@@ -65,43 +67,27 @@ export async function listClients(actor: Actor, query: ListClientsQuery, db: Db 
 
 export async function getClient(actor: Actor, id: string, db: Db = defaultDb): Promise<ClientDto> {
   assertCan(actor, 'clients.read');
-  const row = await clientQuery(actor, db).where('clients.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Client not found.');
+  const row = foundOr404(await clientQuery(actor, db).where('clients.id', '=', id).executeTakeFirst(), 'Client not found.');
   return clientDtoFor(actor)(row);
 }
 
 export async function createClient(actor: Actor, input: CreateClientInput, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
   assertCan(actor, 'clients.write');
-  return db.transaction().execute(async (trx) => {
-    const row = await trx
-      .insertInto('clients')
-      .values({ company_id: actor.companyId, name: input.name, notes: input.notes ?? null })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    const created = await getClient(actor, row.id, trx);
-    await recordAudit(trx, actor, { action: 'create', entityType: 'client', entityId: row.id, after: created });
-    return created;
-  });
+  const insert = async (trx: Db) =>
+    (await trx.insertInto('clients').values({ company_id: actor.companyId, name: input.name, notes: input.notes ?? null }).returning('id').executeTakeFirstOrThrow()).id;
+  return auditedCreate(db, actor, 'client', insert, (trx, id) => getClient(actor, id, trx));
 }
 
 export async function updateClient(actor: Actor, id: string, input: UpdateClientInput, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
   assertCan(actor, 'clients.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getClient(actor, id, trx);
-    await trx
+  return auditedChange(db, actor, { entityType: 'client', id }, (trx) => getClient(actor, id, trx), (trx) =>
+    trx
       .updateTable('clients')
-      .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.notes !== undefined ? { notes: input.notes } : {}),
-        updated_at: sql`now()`,
-      })
+      .set({ ...changedColumns({ name: input.name, notes: input.notes }), updated_at: sql`now()` })
       .where('id', '=', id)
       .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getClient(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'client', entityId: id, before, after });
-    return after;
-  });
+      .execute(),
+  );
 }
 
 export async function setClientArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<ClientDto> {
@@ -165,25 +151,17 @@ export async function updateContact(
   db: Kysely<DB> = defaultDb,
 ): Promise<ContactDto> {
   assertCan(actor, 'contacts.write');
-  return db.transaction().execute(async (trx) => {
-    const before = toContactDto(await getContactRow(actor, clientId, contactId, trx));
-    const row = await trx
+  const read = async (trx: Db) => toContactDto(await getContactRow(actor, clientId, contactId, trx));
+  return auditedChange(db, actor, { entityType: 'client_contact', id: contactId }, read, (trx) =>
+    trx
       .updateTable('client_contacts')
       .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.email !== undefined ? { email: input.email } : {}),
-        ...(input.phone !== undefined ? { phone: input.phone } : {}),
-        ...(input.title !== undefined ? { title: input.title } : {}),
-        ...(input.receivesReports !== undefined ? { receives_reports: input.receivesReports } : {}),
+        ...changedColumns({ name: input.name, email: input.email, phone: input.phone, title: input.title, receives_reports: input.receivesReports }),
         updated_at: sql`now()`,
       })
       .where('id', '=', contactId)
-      .returningAll()
-      .executeTakeFirstOrThrow();
-    const after = toContactDto(row);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'client_contact', entityId: contactId, before, after });
-    return after;
-  });
+      .execute(),
+  );
 }
 
 export async function deleteContact(actor: Actor, clientId: string, contactId: string, db: Kysely<DB> = defaultDb): Promise<void> {

@@ -9,7 +9,9 @@ import { zodIssues } from '@/lib/api/issues';
 import { assertCan, can } from '@/lib/auth/access';
 import { entryVisibleTo } from '@/lib/auth/scope';
 import type { Actor } from '@/lib/auth/actor';
+import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
+import { changedColumns } from '@/lib/changed-columns';
 import { toEquipmentDto, type EquipmentDetailDto, type EquipmentDto, type RelationDto, type UnitFactsDto } from '@/lib/equipment/dto';
 import { nameplateSchemaFor } from '@/lib/equipment/nameplate';
 import { equipmentFlags } from '@/lib/equipment/permissions';
@@ -126,20 +128,16 @@ export async function insertEquipment(actor: Actor, input: CreateEquipmentInput,
 
 export async function createEquipment(actor: Actor, input: CreateEquipmentInput, db: Kysely<DB> = defaultDb): Promise<EquipmentDetailDto> {
   assertCan(actor, 'equipment.write');
-  return db.transaction().execute(async (trx) => {
+  return auditedCreate(db, actor, 'equipment', async (trx) => {
     const site = await getSite(actor, input.siteId, trx);
     if (site.archivedAt) throw new AppError('validation_failed', 'This site is archived.', [{ path: 'siteId', message: 'Restore the site first.' }]);
-    const id = await insertEquipment(actor, input, trx);
-    const created = await getEquipment(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'create', entityType: 'equipment', entityId: id, after: created });
-    return created;
-  });
+    return insertEquipment(actor, input, trx);
+  }, (trx, id) => getEquipment(actor, id, trx));
 }
 
 export async function updateEquipment(actor: Actor, id: string, input: UpdateEquipmentInput, db: Kysely<DB> = defaultDb): Promise<EquipmentDetailDto> {
   assertCan(actor, 'equipment.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getEquipment(actor, id, trx);
+  return auditedChange(db, actor, { entityType: 'equipment', id }, (trx) => getEquipment(actor, id, trx), async (trx, before) => {
     const areaId = input.areaId !== undefined ? input.areaId : before.areaId;
     const systemId = input.systemId !== undefined ? input.systemId : before.systemId;
     await assertPlacement(trx, before.siteId, areaId, systemId, systemId !== before.systemId);
@@ -151,17 +149,19 @@ export async function updateEquipment(actor: Actor, id: string, input: UpdateEqu
     await trx
       .updateTable('equipment')
       .set({
-        ...(input.areaId !== undefined ? { area_id: input.areaId } : {}),
-        ...(input.systemId !== undefined ? { system_id: input.systemId } : {}),
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.make !== undefined ? { make: input.make } : {}),
-        ...(input.model !== undefined ? { model: input.model } : {}),
-        ...(input.serial !== undefined ? { serial: input.serial } : {}),
-        ...(input.manufacturedOn !== undefined ? { manufactured_on: input.manufacturedOn } : {}),
-        ...(input.installedOn !== undefined ? { installed_on: input.installedOn } : {}),
-        ...(input.condition !== undefined ? { condition: input.condition } : {}),
-        ...(input.conditionNote !== undefined ? { condition_note: input.conditionNote } : {}),
-        ...(input.status !== undefined ? { status: input.status } : {}),
+        ...changedColumns({
+          area_id: input.areaId,
+          system_id: input.systemId,
+          name: input.name,
+          make: input.make,
+          model: input.model,
+          serial: input.serial,
+          manufactured_on: input.manufacturedOn,
+          installed_on: input.installedOn,
+          condition: input.condition,
+          condition_note: input.conditionNote,
+          status: input.status,
+        }),
         // The removal date is set once, when the unit leaves; a unit brought back is current again.
         ...(input.status === 'removed' && before.status !== 'removed' ? { removed_at: sql<Date>`now()` } : {}),
         ...(input.status !== undefined && input.status !== 'removed' && before.status === 'removed' ? { removed_at: null, replaced_by_id: null } : {}),
@@ -171,9 +171,6 @@ export async function updateEquipment(actor: Actor, id: string, input: UpdateEqu
       .where('id', '=', id)
       .where('company_id', '=', actor.companyId)
       .execute();
-    const after = await getEquipment(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'equipment', entityId: id, before, after });
-    return after;
   });
 }
 

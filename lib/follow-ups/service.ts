@@ -10,7 +10,7 @@ import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { getEquipment } from '@/lib/equipment/service';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import type { CreateFollowUpInput, FollowUpStatus, ListFollowUpsQuery, UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
 import { getSite } from '@/lib/sites/service';
 import type { FollowUpDto } from '@/lib/follow-ups/dto';
@@ -89,8 +89,7 @@ export async function listFollowUps(actor: Actor, query: ListFollowUpsQuery, db:
 
 export async function getFollowUp(actor: Actor, id: string, db: Db = defaultDb): Promise<FollowUpDto> {
   assertCan(actor, 'followups.read');
-  const row = await followUpQuery(actor, db).where('follow_ups.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Follow-up not found.');
+  const row = foundOr404(await followUpQuery(actor, db).where('follow_ups.id', '=', id).executeTakeFirst(), 'Follow-up not found.');
   return toDto(actor, row);
 }
 

@@ -6,7 +6,7 @@ import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { localDate } from '@/lib/format/dates';
 import { kickMailDelivery } from '@/lib/mail/outbox';
 import { addDays, isOverdue } from '@/lib/plans/days';
@@ -87,8 +87,7 @@ function toPlanDto(actor: Actor, r: PlanRow, now: Date): PlanDto {
 
 export async function getPlan(actor: Actor, id: string, db: Db = defaultDb, now = new Date()): Promise<PlanDto> {
   assertCan(actor, 'plans.read');
-  const row = await planQuery(actor, db).where('visit_plans.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Planned visit not found.');
+  const row = foundOr404(await planQuery(actor, db).where('visit_plans.id', '=', id).executeTakeFirst(), 'Planned visit not found.');
   return toPlanDto(actor, row, now);
 }
 

@@ -6,11 +6,13 @@ import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { auditedChange } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
+import { changedColumns } from '@/lib/changed-columns';
 import { getEquipment } from '@/lib/equipment/service';
 import { storePhoto } from '@/lib/photos/service';
 import { env } from '@/lib/env';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { escapeHtml } from '@/lib/mail/escape';
 import { enqueueMail, kickMailDelivery } from '@/lib/mail/outbox';
 import {
@@ -88,8 +90,7 @@ export async function listRequests(actor: Actor, query: ListRequestsQuery, db: D
 
 export async function getRequest(actor: Actor, id: string, db: Db = defaultDb): Promise<ServiceRequestDto> {
   assertCan(actor, 'requests.read');
-  const row = await requestQuery(actor, db).where('r.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Service request not found.');
+  const row = foundOr404(await requestQuery(actor, db).where('r.id', '=', id).executeTakeFirst(), 'Service request not found.');
   return toDto(actor, row);
 }
 
@@ -191,24 +192,15 @@ async function insertRequest(actor: Actor, input: CreateRequestInput, photoId: s
 
 export async function updateRequest(actor: Actor, id: string, input: UpdateRequestInput, db: Kysely<DB> = defaultDb): Promise<ServiceRequestDto> {
   assertCan(actor, 'requests.manage');
-  return db.transaction().execute(async (trx) => {
-    const before = await getRequest(actor, id, trx);
+  return auditedChange(db, actor, { entityType: 'service_request', id }, (trx) => getRequest(actor, id, trx), async (trx, before) => {
     if (input.visitId) {
       const visit = await trx.selectFrom('visits').select('site_id').where('id', '=', input.visitId).where('company_id', '=', actor.companyId).executeTakeFirst();
       if (!visit || visit.site_id !== before.siteId) throw new AppError('validation_failed', 'Choose a visit at this site.', [{ path: 'visitId', message: 'That visit is not at this site.' }]);
     }
     await trx
       .updateTable('service_requests')
-      .set({
-        status: input.status,
-        ...(input.officeNote !== undefined ? { office_note: input.officeNote } : {}),
-        ...(input.visitId !== undefined ? { visit_id: input.visitId } : {}),
-        updated_at: sql`now()`,
-      })
+      .set({ status: input.status, ...changedColumns({ office_note: input.officeNote, visit_id: input.visitId }), updated_at: sql`now()` })
       .where('id', '=', id)
       .execute();
-    const after = await getRequest(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'service_request', entityId: id, before, after });
-    return after;
   });
 }

@@ -10,9 +10,11 @@ import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { setArchived } from '@/lib/audit/archive';
+import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
+import { changedColumns } from '@/lib/changed-columns';
 import { getClient } from '@/lib/clients/service';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { toAreaDto, toSiteDto, type AreaDto, type SiteDto } from '@/lib/sites/dto';
 import { siteFlags } from '@/lib/sites/permissions';
 import type {
@@ -73,8 +75,7 @@ export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = de
 
 export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Promise<SiteDto> {
   assertCan(actor, 'sites.read');
-  const row = await siteQuery(actor, db).where('sites.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Site not found.');
+  const row = foundOr404(await siteQuery(actor, db).where('sites.id', '=', id).executeTakeFirst(), 'Site not found.');
   return siteDtoFor(actor)(row);
 }
 
@@ -89,7 +90,7 @@ function siteDtoFor(actor: Actor) {
 
 export async function createSite(actor: Actor, input: CreateSiteInput, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
   assertCan(actor, 'sites.write');
-  return db.transaction().execute(async (trx) => {
+  return auditedCreate(db, actor, 'site', async (trx) => {
     const client = await getClient(actor, input.clientId, trx).catch(() => {
       throw new AppError('validation_failed', 'Choose a client.', [{ path: 'clientId', message: 'This client does not exist.' }]);
     });
@@ -112,33 +113,27 @@ export async function createSite(actor: Actor, input: CreateSiteInput, db: Kysel
       })
       .returning('id')
       .executeTakeFirstOrThrow();
-    const created = await getSite(actor, row.id, trx);
-    await recordAudit(trx, actor, { action: 'create', entityType: 'site', entityId: row.id, after: created });
-    return created;
-  });
+    return row.id;
+  }, (trx, id) => getSite(actor, id, trx));
 }
 
 export async function updateSite(actor: Actor, id: string, input: UpdateSiteInput, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
   assertCan(actor, 'sites.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getSite(actor, id, trx);
-    const set = {
-      ...(input.name !== undefined ? { name: input.name } : {}),
-      ...(input.addressLine1 !== undefined ? { address_line1: input.addressLine1 } : {}),
-      ...(input.addressLine2 !== undefined ? { address_line2: input.addressLine2 } : {}),
-      ...(input.city !== undefined ? { city: input.city } : {}),
-      ...(input.region !== undefined ? { region: input.region } : {}),
-      ...(input.postalCode !== undefined ? { postal_code: input.postalCode } : {}),
-      ...(input.country !== undefined ? { country: input.country } : {}),
-      ...(input.timeZone !== undefined ? { time_zone: input.timeZone } : {}),
-      ...(input.elevationM !== undefined ? { elevation_m: input.elevationM } : {}),
-      ...(input.accessNotes !== undefined ? { access_notes: input.accessNotes } : {}),
-    };
-    await trx.updateTable('sites').set({ ...set, updated_at: sql`now()` }).where('id', '=', id).where('company_id', '=', actor.companyId).execute();
-    const after = await getSite(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'site', entityId: id, before, after });
-    return after;
+  const set = changedColumns({
+    name: input.name,
+    address_line1: input.addressLine1,
+    address_line2: input.addressLine2,
+    city: input.city,
+    region: input.region,
+    postal_code: input.postalCode,
+    country: input.country,
+    time_zone: input.timeZone,
+    elevation_m: input.elevationM,
+    access_notes: input.accessNotes,
   });
+  return auditedChange(db, actor, { entityType: 'site', id }, (trx) => getSite(actor, id, trx), (trx) =>
+    trx.updateTable('sites').set({ ...set, updated_at: sql`now()` }).where('id', '=', id).where('company_id', '=', actor.companyId).execute(),
+  );
 }
 
 export async function setSiteArchived(actor: Actor, id: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<SiteDto> {
@@ -167,6 +162,11 @@ async function getAreaRow(actor: Actor, siteId: string, areaId: string, db: Db) 
   return row;
 }
 
+/** An area as its DTO, read within a change's transaction (also checks the caller sees the site). */
+function readArea(actor: Actor, siteId: string, areaId: string) {
+  return async (trx: Db) => toAreaDto(await getAreaRow(actor, siteId, areaId, trx));
+}
+
 export async function createArea(actor: Actor, siteId: string, input: CreateAreaInput, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
   assertCan(actor, 'areas.write');
   return db.transaction().execute(async (trx) => {
@@ -184,37 +184,23 @@ export async function createArea(actor: Actor, siteId: string, input: CreateArea
 
 export async function updateArea(actor: Actor, siteId: string, areaId: string, input: UpdateAreaInput, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
   assertCan(actor, 'areas.write');
-  return db.transaction().execute(async (trx) => {
-    const before = toAreaDto(await getAreaRow(actor, siteId, areaId, trx));
-    const row = await trx
+  return auditedChange(db, actor, { entityType: 'area', id: areaId }, readArea(actor, siteId, areaId), (trx) =>
+    trx
       .updateTable('areas')
-      .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.kind !== undefined ? { kind: input.kind } : {}),
-        ...(input.notes !== undefined ? { notes: input.notes } : {}),
-        updated_at: sql`now()`,
-      })
+      .set({ ...changedColumns({ name: input.name, kind: input.kind, notes: input.notes }), updated_at: sql`now()` })
       .where('id', '=', areaId)
-      .returningAll()
-      .executeTakeFirstOrThrow();
-    const after = toAreaDto(row);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'area', entityId: areaId, before, after });
-    return after;
-  });
+      .execute(),
+  );
 }
 
 export async function setAreaArchived(actor: Actor, siteId: string, areaId: string, archived: boolean, db: Kysely<DB> = defaultDb): Promise<AreaDto> {
   assertCan(actor, 'areas.write');
-  return db.transaction().execute(async (trx) => {
-    const before = toAreaDto(await getAreaRow(actor, siteId, areaId, trx));
-    const row = await trx
+  const action = archived ? 'archive' : 'restore';
+  return auditedChange(db, actor, { entityType: 'area', id: areaId, action }, readArea(actor, siteId, areaId), (trx) =>
+    trx
       .updateTable('areas')
       .set({ archived_at: archived ? sql`coalesce(archived_at, now())` : null, updated_at: sql`now()` })
       .where('id', '=', areaId)
-      .returningAll()
-      .executeTakeFirstOrThrow();
-    const after = toAreaDto(row);
-    await recordAudit(trx, actor, { action: archived ? 'archive' : 'restore', entityType: 'area', entityId: areaId, before, after });
-    return after;
-  });
+      .execute(),
+  );
 }

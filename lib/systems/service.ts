@@ -8,11 +8,12 @@ import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { setArchived } from '@/lib/audit/archive';
-import { recordAudit } from '@/lib/audit/service';
+import { auditedChange, auditedCreate } from '@/lib/audit/change';
+import { changedColumns } from '@/lib/changed-columns';
 import type { SystemDto } from '@/lib/systems/dto';
 import { systemFlags } from '@/lib/systems/permissions';
 import type { CreateSystemInput, ListSystemsQuery, UpdateSystemInput } from '@/lib/systems/schemas';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
 
 function systemQuery(actor: Actor, db: Db) {
@@ -94,8 +95,7 @@ export async function listSystems(actor: Actor, query: ListSystemsQuery, db: Db 
 
 export async function getSystem(actor: Actor, id: string, db: Db = defaultDb): Promise<SystemDto> {
   assertCan(actor, 'systems.read');
-  const row = await systemQuery(actor, db).where('systems.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'System not found.');
+  const row = foundOr404(await systemQuery(actor, db).where('systems.id', '=', id).executeTakeFirst(), 'System not found.');
   return toSystemDto(actor, row);
 }
 
@@ -107,7 +107,7 @@ async function assertAreaOnSite(db: Db, siteId: string, areaId: string | null | 
 
 export async function createSystem(actor: Actor, input: CreateSystemInput, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
   assertCan(actor, 'systems.write');
-  return db.transaction().execute(async (trx) => {
+  return auditedCreate(db, actor, 'system', async (trx) => {
     await getSite(actor, input.siteId, trx);
     await assertAreaOnSite(trx, input.siteId, input.areaId);
     const row = await trx
@@ -126,36 +126,25 @@ export async function createSystem(actor: Actor, input: CreateSystemInput, db: K
       })
       .returning('id')
       .executeTakeFirstOrThrow();
-    const created = await getSystem(actor, row.id, trx);
-    await recordAudit(trx, actor, { action: 'create', entityType: 'system', entityId: row.id, after: created });
-    return created;
-  });
+    return row.id;
+  }, (trx, id) => getSystem(actor, id, trx));
 }
 
 export async function updateSystem(actor: Actor, id: string, input: UpdateSystemInput, db: Kysely<DB> = defaultDb): Promise<SystemDto> {
   assertCan(actor, 'systems.write');
-  return db.transaction().execute(async (trx) => {
-    const before = await getSystem(actor, id, trx);
+  const set = changedColumns({
+    name: input.name,
+    area_id: input.areaId,
+    refrigerant: input.refrigerant,
+    full_charge_kg: input.fullChargeKg,
+    application: input.application,
+    design_box_temp_c: input.designBoxTempC,
+    maintenance_interval_days: input.maintenanceIntervalDays,
+    notes: input.notes,
+  });
+  return auditedChange(db, actor, { entityType: 'system', id }, (trx) => getSystem(actor, id, trx), async (trx, before) => {
     if (input.areaId !== undefined) await assertAreaOnSite(trx, before.siteId, input.areaId);
-    await trx
-      .updateTable('systems')
-      .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.areaId !== undefined ? { area_id: input.areaId } : {}),
-        ...(input.refrigerant !== undefined ? { refrigerant: input.refrigerant } : {}),
-        ...(input.fullChargeKg !== undefined ? { full_charge_kg: input.fullChargeKg } : {}),
-        ...(input.application !== undefined ? { application: input.application } : {}),
-        ...(input.designBoxTempC !== undefined ? { design_box_temp_c: input.designBoxTempC } : {}),
-        ...(input.maintenanceIntervalDays !== undefined ? { maintenance_interval_days: input.maintenanceIntervalDays } : {}),
-        ...(input.notes !== undefined ? { notes: input.notes } : {}),
-        updated_at: sql`now()`,
-      })
-      .where('id', '=', id)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getSystem(actor, id, trx);
-    await recordAudit(trx, actor, { action: 'update', entityType: 'system', entityId: id, before, after });
-    return after;
+    await trx.updateTable('systems').set({ ...set, updated_at: sql`now()` }).where('id', '=', id).where('company_id', '=', actor.companyId).execute();
   });
 }
 

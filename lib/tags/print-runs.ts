@@ -12,7 +12,7 @@ import { recordAudit } from '@/lib/audit/service';
 import { env } from '@/lib/env';
 import { equipmentBaseQuery } from '@/lib/equipment/queries';
 import { equipmentTypeLabels, type EquipmentType } from '@/lib/equipment/types';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { getSite } from '@/lib/sites/service';
 import { generateCode } from '@/lib/tags/code';
 import { toTagDto, type LabelLayoutDto, type PrintRunDetailDto, type PrintRunDto } from '@/lib/tags/dto';
@@ -77,8 +77,7 @@ export async function listPrintRuns(actor: Actor, query: ListPrintRunsQuery, db:
 
 export async function getPrintRun(actor: Actor, id: string, db: Db = defaultDb): Promise<PrintRunDetailDto> {
   assertCan(actor, 'tags.print');
-  const row = await printRunQuery(db, actor.companyId).where('print_runs.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'Print run not found.');
+  const row = foundOr404(await printRunQuery(db, actor.companyId).where('print_runs.id', '=', id).executeTakeFirst(), 'Print run not found.');
   const tags = await tagQuery(db, actor.companyId).where('tags.print_run_id', '=', id).orderBy('tags.created_at').orderBy('tags.code').execute();
   return { ...toPrintRunDto(row), tags: tags.map(toTagDto) };
 }

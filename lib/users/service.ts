@@ -1,6 +1,6 @@
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely, type UpdateObject } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
@@ -8,10 +8,12 @@ import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { hashPassword } from '@/lib/auth/password';
 import { roleLabels, type Role } from '@/lib/auth/permissions';
+import { auditedChange } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
+import { changedColumns } from '@/lib/changed-columns';
 import { getClient } from '@/lib/clients/service';
 import { env } from '@/lib/env';
-import { AppError } from '@/lib/errors';
+import { AppError, foundOr404 } from '@/lib/errors';
 import { enqueueMail, kickMailDelivery } from '@/lib/mail/outbox';
 import { invitationMail } from '@/lib/mail/templates';
 import type { InvitationDto, UserDto } from '@/lib/users/dto';
@@ -65,8 +67,7 @@ export async function listUsers(actor: Actor, db: Db = defaultDb): Promise<UserD
 
 export async function getUser(actor: Actor, id: string, db: Db = defaultDb): Promise<UserDto> {
   assertCan(actor, 'users.manage');
-  const row = await userQuery(db, actor.companyId).where('users.id', '=', id).executeTakeFirst();
-  if (!row) throw new AppError('not_found', 'User not found.');
+  const row = foundOr404(await userQuery(db, actor.companyId).where('users.id', '=', id).executeTakeFirst(), 'User not found.');
   return toUserDto(row);
 }
 
@@ -231,40 +232,28 @@ async function assertNotLastAdmin(trx: Db, actor: Actor, userId: string): Promis
 
 export async function changeRole(actor: Actor, userId: string, input: ChangeRoleInput, db: Kysely<DB> = defaultDb): Promise<UserDto> {
   assertCan(actor, 'users.manage');
-  return db.transaction().execute(async (trx) => {
-    const before = await getUser(actor, userId, trx);
+  return auditedChange(db, actor, { entityType: 'user', id: userId, action: 'role_change' }, (trx) => getUser(actor, userId, trx), async (trx, before) => {
     if (input.clientId) await getClient(actor, input.clientId, trx);
     if (before.role === 'admin' && input.role !== 'admin') await assertNotLastAdmin(trx, actor, userId);
-    await trx
-      .updateTable('users')
-      .set({ role: input.role, client_id: input.role === 'client' ? (input.clientId ?? null) : null, updated_at: sql`now()` })
-      .where('id', '=', userId)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getUser(actor, userId, trx);
-    await recordAudit(trx, actor, { action: 'role_change', entityType: 'user', entityId: userId, before, after });
-    return after;
+    await setUserColumns(trx, actor, userId, { role: input.role, client_id: input.role === 'client' ? (input.clientId ?? null) : null });
   });
 }
 
 export async function setUserActive(actor: Actor, userId: string, active: boolean, db: Kysely<DB> = defaultDb): Promise<UserDto> {
   assertCan(actor, 'users.manage');
-  return db.transaction().execute(async (trx) => {
-    const before = await getUser(actor, userId, trx);
+  const action = active ? 'reactivate' : 'deactivate';
+  return auditedChange(db, actor, { entityType: 'user', id: userId, action }, (trx) => getUser(actor, userId, trx), async (trx, before) => {
     if (!active) {
       if (userId === actor.id) throw new AppError('conflict', 'You cannot deactivate your own account.');
       if (before.role === 'admin') await assertNotLastAdmin(trx, actor, userId);
     }
-    await trx
-      .updateTable('users')
-      .set({ deactivated_at: active ? null : sql`coalesce(deactivated_at, now())`, updated_at: sql`now()` })
-      .where('id', '=', userId)
-      .where('company_id', '=', actor.companyId)
-      .execute();
-    const after = await getUser(actor, userId, trx);
-    await recordAudit(trx, actor, { action: active ? 'reactivate' : 'deactivate', entityType: 'user', entityId: userId, before, after });
-    return after;
+    await setUserColumns(trx, actor, userId, { deactivated_at: active ? null : sql`coalesce(deactivated_at, now())` });
   });
+}
+
+/** Writes a person's own columns (role, client, deactivation), stamping the change. */
+function setUserColumns(trx: Db, actor: Actor, userId: string, set: UpdateObject<DB, 'users'>) {
+  return trx.updateTable('users').set({ ...set, updated_at: sql`now()` }).where('id', '=', userId).where('company_id', '=', actor.companyId).execute();
 }
 
 export async function updateProfile(actor: Actor, input: UpdateProfileInput, db: Kysely<DB> = defaultDb) {
@@ -273,12 +262,7 @@ export async function updateProfile(actor: Actor, input: UpdateProfileInput, db:
     const before = await trx.selectFrom('users').select(['name', 'units', 'metric_pressure']).where('id', '=', actor.id).executeTakeFirstOrThrow();
     const after = await trx
       .updateTable('users')
-      .set({
-        ...(input.name !== undefined ? { name: input.name } : {}),
-        ...(input.units !== undefined ? { units: input.units } : {}),
-        ...(input.metricPressure !== undefined ? { metric_pressure: input.metricPressure } : {}),
-        updated_at: sql`now()`,
-      })
+      .set({ ...changedColumns({ name: input.name, units: input.units, metric_pressure: input.metricPressure }), updated_at: sql`now()` })
       .where('id', '=', actor.id)
       .returning(['name', 'units', 'metric_pressure'])
       .executeTakeFirstOrThrow();
