@@ -1,11 +1,10 @@
 import { NextResponse, type NextRequest } from 'next/server';
-import { API_CSP, HSTS, pageCsp, staticSecurityHeaders } from '@/lib/api/security-headers';
+import { badQuery } from '@/lib/api/query-check';
+import { API_CSP, cameOverHttps, pageCsp, setSecurityHeaders } from '@/lib/api/security-headers';
 import { REQUEST_ID_HEADER, requestIdFrom } from '@/lib/api/request-id';
-import { isValidText } from '@/lib/api/text';
-import { isWellFormedCallbackUrl } from '@/lib/auth/redirect';
 
-// Runs before every page and route (not the hashed static files). Access is never decided here:
-// every page, handler and action checks itself. It
+// Runs before every page and the API routes withApi does not wrap (the auth routes, health; see
+// `config` below). Access is never decided here: every page, handler and action checks itself. It
 // - refuses a query string with a NUL, broken Unicode or a malformed callbackUrl (400) before a
 //   page parses it;
 // - sets the security headers, with a fresh CSP nonce per page request (Next puts the nonce on
@@ -13,51 +12,19 @@ import { isWellFormedCallbackUrl } from '@/lib/auth/redirect';
 // - passes the requested path on to server layouts so a signed-out visitor returns to it;
 // - gives every request an id (a well-formed incoming x-request-id is kept), passed on to the
 //   handlers and pages and returned in the response's x-request-id header.
-
-function badQuery(req: NextRequest): string | null {
-  let pairs: [string, string][];
-  try {
-    // searchParams replaces bad percent-escapes silently; decode by hand to notice them.
-    pairs = req.nextUrl.search
-      .slice(1)
-      .split('&')
-      .filter(Boolean)
-      .map((part) => {
-        const [k, ...v] = part.split('=');
-        return [decodeURIComponent(k!.replace(/\+/g, ' ')), decodeURIComponent(v.join('=').replace(/\+/g, ' '))];
-      });
-  } catch {
-    return 'The address has a malformed percent-escape.';
-  }
-  for (const [key, value] of pairs) {
-    if (!isValidText(key) || !isValidText(value)) return 'The address contains a NUL character or broken Unicode.';
-    if (key === 'callbackUrl' && !isWellFormedCallbackUrl(value)) return 'The callbackUrl is not a valid address.';
-  }
-  if (!isValidText(safeDecode(req.nextUrl.pathname))) return 'The address contains a NUL character or broken Unicode.';
-  return null;
-}
-
-function safeDecode(value: string): string {
-  try {
-    return decodeURIComponent(value);
-  } catch {
-    return '\u0000';
-  }
-}
+// The API routes withApi wraps do the same checks, id and headers in the wrapper itself
+// (lib/api/handler.ts): a proxy pass costs every request a second round through the framework,
+// and buffers every request body (photos included) before the route may read it.
 
 function secure(res: NextResponse, req: NextRequest, csp: string, requestId: string): NextResponse {
-  res.headers.set(REQUEST_ID_HEADER, requestId);
-  for (const [name, value] of Object.entries(staticSecurityHeaders)) res.headers.set(name, value);
-  res.headers.set('Content-Security-Policy', csp);
-  // Browsers ignore HSTS over plain HTTP, so trusting the forwarded scheme here cannot hurt.
-  if (req.nextUrl.protocol === 'https:' || req.headers.get('x-forwarded-proto') === 'https') res.headers.set('Strict-Transport-Security', HSTS);
+  setSecurityHeaders(res.headers, csp, cameOverHttps(req.nextUrl, req.headers), requestId);
   return res;
 }
 
 export function proxy(req: NextRequest) {
   const isApi = req.nextUrl.pathname.startsWith('/api/');
   const requestId = requestIdFrom(req.headers);
-  const problem = badQuery(req);
+  const problem = badQuery(req.nextUrl.search, req.nextUrl.pathname);
   if (problem) {
     const res = isApi
       ? NextResponse.json({ error: { code: 'bad_request', message: problem } }, { status: 400 })
@@ -76,4 +43,9 @@ export function proxy(req: NextRequest) {
   return secure(NextResponse.next({ request: { headers } }), req, csp, requestId);
 }
 
-export const config = { matcher: ['/((?!_next/static|_next/image|favicon.ico).*)'] };
+// Everything but the hashed static files and the API routes; the two API routes that are not
+// wrapped by withApi (next-auth's own handler, the health check) still come through here, and an
+// unknown API path is answered by app/api/[...path] through the same wrapper as the rest.
+export const config = {
+  matcher: ['/((?!_next/static|_next/image|favicon.ico|api/).*)', '/api/auth/:path*', '/api/health'],
+};
