@@ -1,7 +1,7 @@
 'use client';
 
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { archiveRecord, saveRecord, useChange } from '@/lib/mutations';
 import type { ClientDto, ContactDto } from '@/lib/clients/dto';
 import type { CreateClientInput, CreateContactInput, UpdateClientInput } from '@/lib/clients/schemas';
 
@@ -12,37 +12,17 @@ export const clientKeys = {
 };
 
 export function useSaveClient(id?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateClientInput | UpdateClientInput) =>
-      id ? apiFetch<ClientDto>(`/api/clients/${id}`, { method: 'PATCH', json: input }) : apiFetch<ClientDto>('/api/clients', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: clientKeys.all }),
-  });
+  return useChange((input: CreateClientInput | UpdateClientInput) => saveRecord<ClientDto>('/api/clients', id, input), clientKeys.all);
 }
 
 export function useArchiveClient(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (archived: boolean) => apiFetch<ClientDto>(`/api/clients/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: clientKeys.all }),
-  });
+  return useChange((archived: boolean) => archiveRecord<ClientDto>(`/api/clients/${id}`, archived), clientKeys.all);
 }
 
 export function useSaveContact(clientId: string, contactId?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateContactInput) =>
-      contactId
-        ? apiFetch<ContactDto>(`/api/clients/${clientId}/contacts/${contactId}`, { method: 'PATCH', json: input })
-        : apiFetch<ContactDto>(`/api/clients/${clientId}/contacts`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: clientKeys.detail(clientId) }),
-  });
+  return useChange((input: CreateContactInput) => saveRecord<ContactDto>(`/api/clients/${clientId}/contacts`, contactId, input), clientKeys.detail(clientId));
 }
 
 export function useDeleteContact(clientId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (contactId: string) => apiFetch<void>(`/api/clients/${clientId}/contacts/${contactId}`, { method: 'DELETE' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: clientKeys.detail(clientId) }),
-  });
+  return useChange((contactId: string) => apiFetch<void>(`/api/clients/${clientId}/contacts/${contactId}`, { method: 'DELETE' }), clientKeys.detail(clientId));
 }

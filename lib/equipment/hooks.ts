@@ -2,6 +2,7 @@
 
 import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { saveRecord, useChange } from '@/lib/mutations';
 import type { Page } from '@/lib/api/cursor';
 import type { RefrigerantId } from '@/lib/calc/refrigerants';
 import type { EquipmentDetailDto, EquipmentDto, RelationDto } from '@/lib/equipment/dto';
@@ -89,38 +90,19 @@ export function useSiteAreas(siteId: string | undefined) {
 }
 
 export function useSaveEquipment(id?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateEquipmentInput | UpdateEquipmentInput) =>
-      id
-        ? apiFetch<EquipmentDetailDto>(`/api/equipment/${id}`, { method: 'PATCH', json: input })
-        : apiFetch<EquipmentDetailDto>('/api/equipment', { method: 'POST', json: input }),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: equipmentKeys.all }), qc.invalidateQueries({ queryKey: systemKeys.all })]),
-  });
+  return useChange((input: CreateEquipmentInput | UpdateEquipmentInput) => saveRecord<EquipmentDetailDto>('/api/equipment', id, input), equipmentKeys.all, systemKeys.all);
 }
 
 export function useDeleteEquipment(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: () => apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' }),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: equipmentKeys.all }), qc.invalidateQueries({ queryKey: systemKeys.all })]),
-  });
+  return useChange<void, void>(() => apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' }), equipmentKeys.all, systemKeys.all);
 }
 
 export function useAddRelation(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateRelationInput) => apiFetch<Page<RelationDto>>(`/api/equipment/${id}/relations`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: equipmentKeys.all }),
-  });
+  return useChange((input: CreateRelationInput) => apiFetch<Page<RelationDto>>(`/api/equipment/${id}/relations`, { method: 'POST', json: input }), equipmentKeys.all);
 }
 
 export function useRemoveRelation(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (relationId: string) => apiFetch<void>(`/api/equipment/${id}/relations/${relationId}`, { method: 'DELETE' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: equipmentKeys.all }),
-  });
+  return useChange((relationId: string) => apiFetch<void>(`/api/equipment/${id}/relations/${relationId}`, { method: 'DELETE' }), equipmentKeys.all);
 }
 
 /** CSV import: a preview first ({ commit: false }), then the same file with { commit: true }. */

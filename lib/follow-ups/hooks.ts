@@ -1,7 +1,8 @@
 'use client';
 
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { saveRecord, useChange } from '@/lib/mutations';
 import type { Page } from '@/lib/api/cursor';
 import type { CreateFollowUpInput, FollowUpStatus, UpdateFollowUpInput } from '@/lib/follow-ups/schemas';
 import type { FollowUpDto } from '@/lib/follow-ups/dto';
@@ -37,17 +38,9 @@ export function useFollowUps(filters: FollowUpFilters, initial?: Page<FollowUpDt
 }
 
 export function useCreateFollowUp() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateFollowUpInput) => apiFetch<FollowUpDto>('/api/follow-ups', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: followUpKeys.all }),
-  });
+  return useChange((input: CreateFollowUpInput) => saveRecord<FollowUpDto>('/api/follow-ups', undefined, input), followUpKeys.all);
 }
 
 export function useUpdateFollowUp(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: UpdateFollowUpInput) => apiFetch<FollowUpDto>(`/api/follow-ups/${id}`, { method: 'PATCH', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: followUpKeys.all }),
-  });
+  return useChange((input: UpdateFollowUpInput) => saveRecord<FollowUpDto>('/api/follow-ups', id, input), followUpKeys.all);
 }

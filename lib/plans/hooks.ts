@@ -1,7 +1,7 @@
 'use client';
 
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { saveRecord, useChange } from '@/lib/mutations';
 import type { PlanDto } from '@/lib/plans/dto';
 import type { CancelPlanInput, CreatePlanInput, MovePlanInput } from '@/lib/plans/schemas';
 
@@ -11,25 +11,13 @@ export const planKeys = {
 };
 
 export function useCreatePlan() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreatePlanInput) => apiFetch<PlanDto>('/api/plans', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: planKeys.all }),
-  });
+  return useChange((input: CreatePlanInput) => saveRecord<PlanDto>('/api/plans', undefined, input), planKeys.all);
 }
 
 export function useMovePlan(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: MovePlanInput) => apiFetch<PlanDto>(`/api/plans/${id}`, { method: 'PATCH', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: planKeys.all }),
-  });
+  return useChange((input: MovePlanInput) => saveRecord<PlanDto>('/api/plans', id, input), planKeys.all);
 }
 
 export function useCancelPlan(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CancelPlanInput) => apiFetch<PlanDto>(`/api/plans/${id}/cancel`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: planKeys.all }),
-  });
+  return useChange((input: CancelPlanInput) => apiFetch<PlanDto>(`/api/plans/${id}/cancel`, { method: 'POST', json: input }), planKeys.all);
 }

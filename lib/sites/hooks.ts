@@ -1,7 +1,8 @@
 'use client';
 
-import { useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
+import { useInfiniteQuery } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { archiveRecord, saveRecord, useChange } from '@/lib/mutations';
 import type { Page } from '@/lib/api/cursor';
 import type { AreaDto, SiteDto } from '@/lib/sites/dto';
 import type { CreateAreaInput, CreateSiteInput, UpdateSiteInput } from '@/lib/sites/schemas';
@@ -32,38 +33,20 @@ export function useSites(query: { q?: string; clientId?: string; archived?: stri
 }
 
 export function useSaveSite(id?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateSiteInput | UpdateSiteInput) =>
-      id ? apiFetch<SiteDto>(`/api/sites/${id}`, { method: 'PATCH', json: input }) : apiFetch<SiteDto>('/api/sites', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.all }),
-  });
+  return useChange((input: CreateSiteInput | UpdateSiteInput) => saveRecord<SiteDto>('/api/sites', id, input), siteKeys.all);
 }
 
 export function useArchiveSite(id: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (archived: boolean) => apiFetch<SiteDto>(`/api/sites/${id}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.all }),
-  });
+  return useChange((archived: boolean) => archiveRecord<SiteDto>(`/api/sites/${id}`, archived), siteKeys.all);
 }
 
 export function useSaveArea(siteId: string, areaId?: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreateAreaInput) =>
-      areaId
-        ? apiFetch<AreaDto>(`/api/sites/${siteId}/areas/${areaId}`, { method: 'PATCH', json: input })
-        : apiFetch<AreaDto>(`/api/sites/${siteId}/areas`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.areas(siteId) }),
-  });
+  return useChange((input: CreateAreaInput) => saveRecord<AreaDto>(`/api/sites/${siteId}/areas`, areaId, input), siteKeys.areas(siteId));
 }
 
 export function useArchiveArea(siteId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ areaId, archived }: { areaId: string; archived: boolean }) =>
-      apiFetch<AreaDto>(`/api/sites/${siteId}/areas/${areaId}/${archived ? 'archive' : 'restore'}`, { method: 'POST' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: siteKeys.areas(siteId) }),
-  });
+  return useChange(
+    ({ areaId, archived }: { areaId: string; archived: boolean }) => archiveRecord<AreaDto>(`/api/sites/${siteId}/areas/${areaId}`, archived),
+    siteKeys.areas(siteId),
+  );
 }

@@ -2,6 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiFetch } from '@/lib/api/client';
+import { saveRecord, useChange } from '@/lib/mutations';
 import type { AttachResultDto, EquipmentTagInfoDto, LabelLayoutDto, PrintRunDto, ScanResultDto, TagDto } from '@/lib/tags/dto';
 import type { AttachTagInput, CreatePrintRunInput, RetireTagInput, ScanVia } from '@/lib/tags/schemas';
 import { equipmentKeys } from '@/lib/equipment/hooks';
@@ -19,11 +20,7 @@ export function useLabelLayouts() {
 }
 
 export function useCreatePrintRun() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: CreatePrintRunInput) => apiFetch<PrintRunDto>('/api/print-runs', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: tagKeys.all }),
-  });
+  return useChange((input: CreatePrintRunInput) => saveRecord<PrintRunDto>('/api/print-runs', undefined, input), tagKeys.all);
 }
 
 export function useEquipmentTagInfo(equipmentId: string, initialData?: EquipmentTagInfoDto) {
@@ -48,11 +45,7 @@ export function useAttachTag() {
 }
 
 export function useRetireTag() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ code, input }: { code: string; input: RetireTagInput }) => apiFetch<TagDto>(`/api/tags/${code}/retire`, { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: tagKeys.all }),
-  });
+  return useChange(({ code, input }: { code: string; input: RetireTagInput }) => apiFetch<TagDto>(`/api/tags/${code}/retire`, { method: 'POST', json: input }), tagKeys.all);
 }
 
 export function useScan() {

@@ -1,8 +1,9 @@
 'use client';
 
-import { useInfiniteQuery, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { useInfiniteQuery, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useState } from 'react';
 import { ApiError, apiFetch } from '@/lib/api/client';
+import { saveRecord, useChange } from '@/lib/mutations';
 import type { Page } from '@/lib/api/cursor';
 import type { EntryDto, VisitDetailDto, VisitDto } from '@/lib/visits/dto';
 import type { PhotoKind } from '@/lib/photos/schemas';
@@ -26,27 +27,18 @@ export function useVisit(id: string, initial?: VisitDetailDto, opts: { fromServe
 }
 
 export function useStartVisit() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: StartVisitInput) => apiFetch<VisitDto>('/api/visits', { method: 'POST', json: input }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: visitKeys.all }),
-  });
+  return useChange((input: StartVisitInput) => saveRecord<VisitDto>('/api/visits', undefined, input), visitKeys.all);
 }
 
 export function useVisitCommand(id: string, command: 'reopen' | 'review') {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: () => apiFetch<VisitDto>(`/api/visits/${id}/${command}`, { method: 'POST' }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: visitKeys.all }),
-  });
+  return useChange<void, VisitDto>(() => apiFetch<VisitDto>(`/api/visits/${id}/${command}`, { method: 'POST' }), visitKeys.all);
 }
 
 export function useVoidEntry(visitId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ entryId, reason }: { entryId: string; reason: string }) => apiFetch<EntryDto>(`/api/entries/${entryId}/void`, { method: 'POST', json: { reason } }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: visitKeys.detail(visitId) }),
-  });
+  return useChange(
+    ({ entryId, reason }: { entryId: string; reason: string }) => apiFetch<EntryDto>(`/api/entries/${entryId}/void`, { method: 'POST', json: { reason } }),
+    visitKeys.detail(visitId),
+  );
 }
 
 // ---------------------------------------------------------------------------------------------
