@@ -5,7 +5,9 @@ import { Minus, OctagonAlert, Plus, TriangleAlert } from 'lucide-react';
 import { useState, type ReactNode, type Ref } from 'react';
 import { useController, type Control, type FieldValues, type Path, type UseFormReturn } from 'react-hook-form';
 import { Alert } from '@/components/ui/alert';
+import type { UnitPrefs } from '@/lib/units/quantities';
 import { cn } from '@/lib/utils';
+import type { EntryContext } from '@/lib/visits/kinds/types';
 
 // Building blocks of the visit's entry forms on react-hook-form: big targets for gloved fingers,
 // choices as cards. Numbers and text use the shared fields of components/forms.
@@ -14,6 +16,18 @@ export type FieldErrors = Record<string, string>;
 
 /** What a form hands to the workspace; the workspace validates with the shared schema and saves. */
 export type SubmitResult = { ok: true } | { ok: false; errors: FieldErrors; message?: string };
+
+/** What the workspace gives every entry form: the save of the kind's data and the close. */
+export interface EntryFormProps<D> {
+  onSubmit: (data: D) => Promise<SubmitResult>;
+  onCancel: () => void;
+}
+
+/** A form that works out values from the unit and its system as they are typed, in the reader's units. */
+export interface ComputingFormProps<D> extends EntryFormProps<D> {
+  ctx: EntryContext;
+  prefs: UnitPrefs;
+}
 
 function Stepper({ id, label, value, onChange, min = 1, max = 1000, buttonRef }: { id: string; label: string; value: number; onChange: (v: number) => void; min?: number; max?: number; buttonRef?: Ref<HTMLButtonElement> }) {
   return (

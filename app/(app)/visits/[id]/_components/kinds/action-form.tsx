@@ -7,7 +7,7 @@ import { schemaResolver } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
 import { SAFETY_CONTROL_CAUTION } from '@/lib/calc/cautions';
 import { actionDataSchema, type ActionData } from '@/lib/visits/kinds/action';
-import { BoundCheckCard, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundCheckCard, NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 interface ActionValues {
   text: string;
@@ -18,7 +18,7 @@ interface ActionValues {
 const resolver = schemaResolver(actionDataSchema, (v: ActionValues) => ({ ...v, bypassDescription: v.bypassedControl ? v.bypassDescription : '' }));
 const blank: ActionValues = { text: '', bypassedControl: false, bypassDescription: '' };
 
-export function ActionForm({ onSubmit, onCancel }: { onSubmit: (data: ActionData) => Promise<SubmitResult>; onCancel: () => void }) {
+export function ActionForm({ onSubmit, onCancel }: EntryFormProps<ActionData>) {
   const form = useForm<ActionValues, unknown, ActionData>({ resolver, defaultValues: blank });
   const f = useEntrySubmit(form, onSubmit);
   const bypass = useWatch({ control: form.control, name: 'bypassedControl' });

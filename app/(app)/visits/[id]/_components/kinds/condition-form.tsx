@@ -7,7 +7,7 @@ import { schemaResolver } from '@/components/forms/schema-resolver';
 import { conditionLook } from '@/components/equipment/condition-badge';
 import { CONDITIONS } from '@/lib/equipment/types';
 import { conditionDataSchema, type ConditionData } from '@/lib/visits/kinds/condition';
-import { BoundChoiceCards, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 interface ConditionValues {
   rating: string;
@@ -16,7 +16,7 @@ interface ConditionValues {
 
 const resolver = schemaResolver(conditionDataSchema, (v: ConditionValues) => ({ rating: v.rating ? Number(v.rating) : undefined, note: v.note }));
 
-export function ConditionForm({ current, onSubmit, onCancel }: { current: number | null; onSubmit: (data: ConditionData) => Promise<SubmitResult>; onCancel: () => void }) {
+export function ConditionForm({ current, onSubmit, onCancel }: { current: number | null } & EntryFormProps<ConditionData>) {
   const form = useForm<ConditionValues, unknown, ConditionData>({ resolver, defaultValues: { rating: current ? String(current) : '', note: '' } });
   const f = useEntrySubmit(form, onSubmit);
   return (

@@ -7,7 +7,7 @@ import { schemaResolver } from '@/components/forms/schema-resolver';
 import { severityLooks } from '@/components/visits/badges';
 import { findingDataSchema, type FindingData } from '@/lib/visits/kinds/finding';
 import { SEVERITIES, severityLabels, type Severity } from '@/lib/visits/schemas';
-import { BoundCheckCard, BoundChoiceCards, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundCheckCard, BoundChoiceCards, NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 interface FindingValues {
   text: string;
@@ -24,7 +24,7 @@ const resolver = schemaResolver(findingDataSchema, (v: FindingValues) => ({
 }));
 const blank: FindingValues = { text: '', severity: '', raiseFollowUp: false, followUpTitle: '' };
 
-export function FindingForm({ onSubmit, onCancel }: { onSubmit: (data: FindingData) => Promise<SubmitResult>; onCancel: () => void }) {
+export function FindingForm({ onSubmit, onCancel }: EntryFormProps<FindingData>) {
   const form = useForm<FindingValues, unknown, FindingData>({ resolver, defaultValues: blank });
   const f = useEntrySubmit(form, onSubmit);
   const raise = useWatch({ control: form.control, name: 'raiseFollowUp' });

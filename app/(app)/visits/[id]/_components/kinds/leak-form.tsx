@@ -8,7 +8,7 @@ import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { leakDataSchema, type LeakData } from '@/lib/visits/kinds/leak';
 import { LEAK_ACTIVITIES, LEAK_METHODS, leakActivityLabels, leakMethodLabels, leakResultLabels, leakResultsFor, type LeakActivity, type LeakMethod, type LeakResult } from '@/lib/visits/schemas';
-import { BoundChoiceCards, Cautions, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, Cautions, NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 const leakActivityLooks: Record<LeakActivity, { Icon: LucideIcon; hint: string }> = {
   inspection: { Icon: ScanSearch, hint: 'Searching the system for leaks' },
@@ -39,7 +39,7 @@ const resolver = schemaResolver(leakDataSchema, (v: LeakValues) => {
 const blank: LeakValues = { activity: '', method: '', result: '', location: '', note: '' };
 
 /** Leak inspections, repairs and the verification tests after a repair, each a record of its own. */
-export function LeakForm({ refrigerantCautions, onSubmit, onCancel }: { refrigerantCautions: string[]; onSubmit: (data: LeakData) => Promise<SubmitResult>; onCancel: () => void }) {
+export function LeakForm({ refrigerantCautions, onSubmit, onCancel }: { refrigerantCautions: string[] } & EntryFormProps<LeakData>) {
   const form = useForm<LeakValues, unknown, LeakData>({ resolver, defaultValues: blank });
   const f = useEntrySubmit(form, onSubmit);
   const [activity, method, result] = useWatch({ control: form.control, name: ['activity', 'method', 'result'] });

@@ -5,7 +5,7 @@ import { BoundField } from '@/components/forms/bound-field';
 import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { noteDataSchema, type NoteData } from '@/lib/visits/kinds/note';
-import { NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 interface NoteValues {
   text: string;
@@ -13,7 +13,7 @@ interface NoteValues {
 
 const resolver = schemaResolver(noteDataSchema, (v: NoteValues) => v);
 
-export function NoteForm({ onSubmit, onCancel }: { onSubmit: (data: NoteData) => Promise<SubmitResult>; onCancel: () => void }) {
+export function NoteForm({ onSubmit, onCancel }: EntryFormProps<NoteData>) {
   const form = useForm<NoteValues, unknown, NoteData>({ resolver, defaultValues: { text: '' } });
   const f = useEntrySubmit(form, onSubmit);
   return (

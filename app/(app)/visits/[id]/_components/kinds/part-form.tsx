@@ -5,7 +5,7 @@ import { BoundField } from '@/components/forms/bound-field';
 import { FormFooter } from '@/components/forms/form-footer';
 import { schemaResolver } from '@/components/forms/schema-resolver';
 import { partDataSchema, type PartData } from '@/lib/visits/kinds/part';
-import { BoundCheckCard, BoundStepper, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundCheckCard, BoundStepper, NotSaved, useEntrySubmit, type EntryFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 interface PartValues {
   part: string;
@@ -18,7 +18,7 @@ interface PartValues {
 const resolver = schemaResolver(partDataSchema, (v: PartValues) => v);
 const blank: PartValues = { part: '', quantity: 1, oldSerial: '', newSerial: '', replacesEquipment: false };
 
-export function PartForm({ onSubmit, onCancel, equipmentName }: { onSubmit: (data: PartData) => Promise<SubmitResult>; onCancel: () => void; equipmentName: string }) {
+export function PartForm({ onSubmit, onCancel, equipmentName }: { equipmentName: string } & EntryFormProps<PartData>) {
   const form = useForm<PartValues, unknown, PartData>({ resolver, defaultValues: blank });
   const f = useEntrySubmit(form, onSubmit);
   return (

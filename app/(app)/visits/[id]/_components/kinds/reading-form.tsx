@@ -12,9 +12,8 @@ import { gaugeBasis } from '@/lib/format/barometer';
 import { formatFactor, formatPercent, formatRatio } from '@/lib/format/numbers';
 import { conversionFor, formatQuantity, fromDisplayValue, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { computeReading, readingDataSchema, type ReadingComputed, type ValueLevel } from '@/lib/visits/kinds/reading';
-import type { EntryContext } from '@/lib/visits/kinds/types';
 import type { ReadingData, ReadingKey } from '@/lib/visits/schemas';
-import { Cautions, ComputedPanel, NotSaved, useEntrySubmit, type ComputedRow, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { Cautions, ComputedPanel, NotSaved, useEntrySubmit, type ComputedRow, type ComputingFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 type Unit = Quantity | 'V' | 'A';
 
@@ -172,13 +171,7 @@ export function ReadingForm({
   refrigerantCautions,
   onSubmit,
   onCancel,
-}: {
-  ctx: EntryContext;
-  prefs: UnitPrefs;
-  refrigerantCautions: string[];
-  onSubmit: (data: ReadingData) => Promise<SubmitResult>;
-  onCancel: () => void;
-}) {
+}: ComputingFormProps<ReadingData> & { refrigerantCautions: string[] }) {
   const resolver = useMemo(() => schemaResolver(readingDataSchema, (v: ReadingValues) => readingInput(v, prefs), { prefs, unitFields }), [prefs]);
   const form = useForm<ReadingValues, unknown, ReadingData>({ resolver, defaultValues: blank });
   const f = useEntrySubmit(form, onSubmit);

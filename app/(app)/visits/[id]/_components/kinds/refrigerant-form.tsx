@@ -11,10 +11,9 @@ import { schemaResolver } from '@/components/forms/schema-resolver';
 import { UnitNumberField } from '@/components/forms/unit-number-field';
 import { CERTIFIED_WORK_CAUTION } from '@/lib/calc/cautions';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
-import { fromDisplayValue, type UnitPrefs } from '@/lib/units/quantities';
+import { fromDisplayValue } from '@/lib/units/quantities';
 import { refrigerantDataSchema, type RefrigerantData } from '@/lib/visits/kinds/refrigerant';
-import type { EntryContext } from '@/lib/visits/kinds/types';
-import { BoundChoiceCards, Cautions, NotSaved, useEntrySubmit, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, Cautions, NotSaved, useEntrySubmit, type ComputingFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 const CERT_KEY = 'rimeline:technician-cert';
 
@@ -33,13 +32,7 @@ export function RefrigerantForm({
   refrigerantCautions,
   onSubmit,
   onCancel,
-}: {
-  ctx: EntryContext;
-  prefs: UnitPrefs;
-  refrigerantCautions: string[];
-  onSubmit: (data: RefrigerantData) => Promise<SubmitResult>;
-  onCancel: () => void;
-}) {
+}: ComputingFormProps<RefrigerantData> & { refrigerantCautions: string[] }) {
   const resolver = useMemo(
     () =>
       schemaResolver(

@@ -24,7 +24,7 @@ import {
 import { gaugeSaturationC } from '@/lib/calc/saturation';
 import { gaugeBasis } from '@/lib/format/barometer';
 import type { EntryContext, UnitShape } from '@/lib/visits/kinds/types';
-import { BoundChoiceCards, ComputedPanel, Cautions, NotSaved, useEntrySubmit, type ComputedRow, type SubmitResult } from '@/app/(app)/visits/[id]/_components/form-kit';
+import { BoundChoiceCards, ComputedPanel, Cautions, NotSaved, useEntrySubmit, type ComputedRow, type ComputingFormProps } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 // Settings as found → as left. "As found" starts empty: the technician reads the dial. The unit's
 // recorded settings fill it only on an explicit tap, rounded to the reader's units.
@@ -129,13 +129,7 @@ export function SettingForm({
   prefs,
   onSubmit,
   onCancel,
-}: {
-  unit: UnitShape;
-  ctx: EntryContext;
-  prefs: UnitPrefs;
-  onSubmit: (data: SettingChangeData) => Promise<SubmitResult>;
-  onCancel: () => void;
-}) {
+}: ComputingFormProps<SettingChangeData> & { unit: UnitShape }) {
   const controls = controlsFor(unit);
   const resolver = useMemo(
     () => schemaResolver(settingChangeDataSchema, (v: SettingValues) => ({ control: v.control, asFound: toSi(v.control, v.asFound, prefs), asLeft: toSi(v.control, v.asLeft, prefs) }), { prefs, unitFields }),
