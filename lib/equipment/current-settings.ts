@@ -17,27 +17,24 @@ function num(v: Nameplate[string]): number | null {
   return typeof v === 'number' && Number.isFinite(v) ? v : null;
 }
 
+/**
+ * One side of a pressure control: the end it is set by, the other end (set − differential) and
+ * the differential; none when the nameplate holds neither value.
+ */
+function pressureSide(side: string, ends: { set: string; derived: string }, set: number | null, diff: number | null, prefs: UnitPrefs): SettingLine[] {
+  if (set === null && diff === null) return [];
+  const values = [];
+  if (set !== null) values.push({ label: ends.set, text: formatQuantity(set, 'pressureGauge', prefs) });
+  if (set !== null && diff !== null) values.push({ label: ends.derived, text: formatQuantity(set - diff, 'pressureGauge', prefs) });
+  if (diff !== null) values.push({ label: 'differential', text: formatQuantity(diff, 'pressureDiff', prefs) });
+  return [{ side, values }];
+}
+
 export function currentSettings(type: EquipmentType, nameplate: Nameplate, prefs: UnitPrefs): SettingLine[] {
   const lines: SettingLine[] = [];
   if (type === 'pressure_control') {
-    const lowIn = num(nameplate.lowCutInKpa);
-    const lowDiff = num(nameplate.lowDifferentialKpa);
-    if (lowIn !== null || lowDiff !== null) {
-      const values = [];
-      if (lowIn !== null) values.push({ label: 'cut-in', text: formatQuantity(lowIn, 'pressureGauge', prefs) });
-      if (lowIn !== null && lowDiff !== null) values.push({ label: 'cut-out', text: formatQuantity(lowIn - lowDiff, 'pressureGauge', prefs) });
-      if (lowDiff !== null) values.push({ label: 'differential', text: formatQuantity(lowDiff, 'pressureDiff', prefs) });
-      lines.push({ side: 'Low side', values });
-    }
-    const highOut = num(nameplate.highCutOutKpa);
-    const highDiff = num(nameplate.highDifferentialKpa);
-    if (highOut !== null || highDiff !== null) {
-      const values = [];
-      if (highOut !== null) values.push({ label: 'cut-out', text: formatQuantity(highOut, 'pressureGauge', prefs) });
-      if (highOut !== null && highDiff !== null) values.push({ label: 'cut-in', text: formatQuantity(highOut - highDiff, 'pressureGauge', prefs) });
-      if (highDiff !== null) values.push({ label: 'differential', text: formatQuantity(highDiff, 'pressureDiff', prefs) });
-      lines.push({ side: 'High side', values });
-    }
+    lines.push(...pressureSide('Low side', { set: 'cut-in', derived: 'cut-out' }, num(nameplate.lowCutInKpa), num(nameplate.lowDifferentialKpa), prefs));
+    lines.push(...pressureSide('High side', { set: 'cut-out', derived: 'cut-in' }, num(nameplate.highCutOutKpa), num(nameplate.highDifferentialKpa), prefs));
   }
   if (type === 'thermostat') {
     const setpoint = num(nameplate.setpointC);

@@ -6,6 +6,7 @@ import { env } from '@/lib/env';
 import { formatTimeWindow, formatWeekday } from '@/lib/format/local-times';
 import { escapeHtml } from '@/lib/mail/escape';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { reportRecipients } from '@/lib/mail/recipients';
 import type { PlanDto } from '@/lib/plans/dto';
 import { visitReasonLabels } from '@/lib/visits/terms';
 
@@ -28,15 +29,7 @@ function when(plan: PlanDto): string {
 export async function queuePlanMail(actor: Actor, plan: PlanDto, event: PlanMailEvent, trx: Kysely<DB> | Transaction<DB>, before?: PlanDto): Promise<number> {
   const company = await trx.selectFrom('companies').select(['name', 'mail_visit_plans']).where('id', '=', actor.companyId).executeTakeFirstOrThrow();
   if (!company.mail_visit_plans) return 0;
-  const contacts = await trx
-    .selectFrom('client_contacts')
-    .innerJoin('sites', 'sites.client_id', 'client_contacts.client_id')
-    .select('client_contacts.email')
-    .where('sites.id', '=', plan.siteId)
-    .where('client_contacts.receives_reports', '=', true)
-    .where('client_contacts.email', 'is not', null)
-    .execute();
-  const to = [...new Set(contacts.map((c) => c.email ?? '').filter(Boolean))];
+  const to = await reportRecipients(trx, plan.siteId);
   if (to.length === 0) return 0;
   const heading = headings[event];
   const siteUrl = `${env.APP_URL}/sites/${plan.siteId}`;

@@ -5,21 +5,14 @@ import type { Actor } from '@/lib/auth/actor';
 import { env } from '@/lib/env';
 import { escapeHtml } from '@/lib/mail/escape';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { reportRecipients } from '@/lib/mail/recipients';
 import { buildVisitReport } from '@/lib/visits/report-content';
 import { getVisit } from '@/lib/visits/service';
 
 /** Queues the report e-mail to the client's contacts who chose to receive reports. */
 export async function queueVisitReport(actor: Actor, visitId: string, trx: Kysely<DB> | Transaction<DB>): Promise<number> {
   const visit = await getVisit(actor, visitId, trx);
-  const contacts = await trx
-    .selectFrom('client_contacts')
-    .innerJoin('sites', 'sites.client_id', 'client_contacts.client_id')
-    .select('client_contacts.email')
-    .where('sites.id', '=', visit.siteId)
-    .where('client_contacts.receives_reports', '=', true)
-    .where('client_contacts.email', 'is not', null)
-    .execute();
-  const to = [...new Set(contacts.map((c) => c.email!).filter(Boolean))];
+  const to = await reportRecipients(trx, visit.siteId);
   if (to.length === 0) return 0;
   const company = await trx.selectFrom('companies').select(['name', 'default_units']).where('id', '=', actor.companyId).executeTakeFirstOrThrow();
   const report = buildVisitReport(visit, { units: company.default_units as 'imperial' | 'metric', metricPressure: 'kPa' }, company.name);
