@@ -49,17 +49,25 @@ async function relationsOf(db: Db, id: string): Promise<RelationDto[]> {
 
 export async function getEquipment(actor: Actor, id: string, db: Db = defaultDb): Promise<EquipmentDetailDto> {
   assertCan(actor, 'equipment.read');
-  const row = await equipmentBaseQuery(actor, db)
-    .where('equipment.id', '=', id)
-    .where('equipment.deleted_at', 'is', null)
-    .select([...selection, refrigerantExpr.as('refrigerant'), 'sites.elevation_m', 'systems.design_box_temp_c'])
-    .executeTakeFirst();
+  // The relations are read beside the unit (one round trip, not two) and dropped unless the
+  // unit's own scoped lookup found it.
+  const [found, relations] = await Promise.allSettled([
+    equipmentBaseQuery(actor, db)
+      .where('equipment.id', '=', id)
+      .where('equipment.deleted_at', 'is', null)
+      .select([...selection, refrigerantExpr.as('refrigerant'), 'sites.elevation_m', 'systems.design_box_temp_c'])
+      .executeTakeFirst(),
+    relationsOf(db, id),
+  ]);
+  if (found.status === 'rejected') throw found.reason;
+  const row = found.value;
   if (!row) throw new AppError('not_found', 'Equipment not found.');
+  if (relations.status === 'rejected') throw relations.reason;
   const dto = toEquipmentDto(row);
   return {
     ...dto,
     ...equipmentFlags(actor, dto),
-    relations: await relationsOf(db, id),
+    relations: relations.value,
     siteElevationM: Number(row.elevation_m),
     systemDesignBoxTempC: row.design_box_temp_c === null ? null : Number(row.design_box_temp_c),
   };

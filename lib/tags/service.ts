@@ -59,7 +59,10 @@ export function scanTarget(code: string): string {
  */
 export async function resolveTag(actor: Actor, code: string, via?: ScanVia, db: Db = defaultDb): Promise<TagResolution> {
   assertCan(actor, 'tags.scan');
-  const tag = await tagByCode(db, actor, code);
+  return resolveFound(actor, await tagByCode(db, actor, code), via, db);
+}
+
+async function resolveFound(actor: Actor, tag: TagDto, via: ScanVia | undefined, db: Db): Promise<TagResolution> {
   let resolution: TagResolution;
   if (tag.state === 'attached' && tag.equipmentId) {
     if (!(await equipmentVisible(db, actor, tag.equipmentId))) throw new AppError('not_found', 'Tag not found.');
@@ -94,7 +97,18 @@ export async function resolveTag(actor: Actor, code: string, via?: ScanVia, db: 
 
 /** A scan through the API: the resolution plus the equipment page's data when the tag leads to equipment. */
 export async function scanTag(actor: Actor, code: string, via: ScanVia, db: Db = defaultDb): Promise<ScanResultDto> {
-  const resolution = await resolveTag(actor, code, via, db);
+  assertCan(actor, 'tags.scan');
+  const tag = await tagByCode(db, actor, code);
+  if (tag.state === 'attached' && tag.equipmentId) {
+    // The equipment page's data is the scope check too (one lookup instead of two); a unit the
+    // viewer may not see reads as an unknown tag, and the scan is written only after it passed.
+    const equipment = await getEquipment(actor, tag.equipmentId, db).catch((error: unknown) => {
+      throw error instanceof AppError && error.code === 'not_found' ? new AppError('not_found', 'Tag not found.') : error;
+    });
+    await db.insertInto('tag_scans').values({ company_id: actor.companyId, tag_id: tag.id, equipment_id: equipment.id, user_id: actor.id, via }).execute();
+    return { resolution: { state: 'attached', tag, equipmentId: equipment.id, target: `/equipment/${equipment.id}` }, equipment };
+  }
+  const resolution = await resolveFound(actor, tag, via, db);
   const equipmentId = resolution.state === 'attached' ? resolution.equipmentId : resolution.state === 'retired' ? resolution.equipment?.id : undefined;
   return { resolution, equipment: equipmentId ? await getEquipment(actor, equipmentId, db) : null };
 }

@@ -20,8 +20,12 @@ import { toEntryDto } from '@/lib/visits/service';
 /** Newest first, keyset on (recorded_at, id); owners see entries of closed visits only. */
 export async function equipmentHistory(actor: Actor, equipmentId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
   assertCan(actor, 'visits.read');
-  await assertEquipmentVisible(actor, equipmentId, db);
-  return historyPage(actor, db, query, { equipmentId });
+  // The unit's scope check runs beside the page's query (one round trip instead of two); the
+  // rows are returned only when it passed, and its refusal wins over anything the query threw.
+  const [visible, page] = await Promise.allSettled([assertEquipmentVisible(actor, equipmentId, db), historyPage(actor, db, query, { equipmentId })]);
+  if (visible.status === 'rejected') throw visible.reason;
+  if (page.status === 'rejected') throw page.reason;
+  return page.value;
 }
 
 export async function systemHistory(actor: Actor, systemId: string, query: HistoryQuery, db: Db = defaultDb): Promise<Page<EntryDto>> {
