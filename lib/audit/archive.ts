@@ -1,5 +1,5 @@
 import 'server-only';
-import { sql, type Kysely } from 'kysely';
+import { sql, type Expression, type Kysely, type SqlBool } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
 import type { Actor } from '@/lib/auth/actor';
@@ -7,6 +7,13 @@ import { auditedChange } from '@/lib/audit/change';
 
 /** The records that are archived rather than deleted: they keep their history and leave the lists. */
 export type ArchivableTable = 'clients' | 'sites' | 'systems';
+
+/** A list's view of archived records: left out (the default), only them, or both; for `.where(…)`. */
+export function archivedView(table: ArchivableTable, view: 'exclude' | 'only' | 'include') {
+  const archivedAt = sql.ref(`${table}.archived_at`);
+  return (): Expression<SqlBool> =>
+    view === 'exclude' ? sql<SqlBool>`${archivedAt} is null` : view === 'only' ? sql<SqlBool>`${archivedAt} is not null` : sql<SqlBool>`true`;
+}
 
 /**
  * Archives or restores one record of the caller's company in one transaction, audited with the

@@ -9,7 +9,7 @@ import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { setArchived } from '@/lib/audit/archive';
+import { archivedView, setArchived } from '@/lib/audit/archive';
 import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
 import { changedColumns } from '@/lib/changed-columns';
@@ -57,8 +57,7 @@ export async function listClients(actor: Actor, query: ListClientsQuery, db: Db 
   assertCan(actor, 'clients.read');
   const cursor = decodeCursor(query.cursor);
   let q = clientQuery(actor, db);
-  if (query.archived === 'exclude') q = q.where('clients.archived_at', 'is', null);
-  if (query.archived === 'only') q = q.where('clients.archived_at', 'is not', null);
+  q = q.where(archivedView('clients', query.archived));
   if (query.q) q = q.where('clients.name', 'ilike', `%${escapeLike(query.q)}%`);
   if (cursor) q = q.where(afterCursor(cursor, 'lower(clients.name)', 'clients.id', 'asc'));
   const rows = await q.orderBy(sql`lower(clients.name)`).orderBy('clients.id').limit(query.limit + 1).execute();

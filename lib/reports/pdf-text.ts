@@ -1,6 +1,6 @@
-import type { PDFFont } from 'pdf-lib';
+import { PDFDocument, StandardFonts, type PDFFont } from 'pdf-lib';
 
-// The standard PDF fonts cover WinAnsi only: a few symbols the reports use are spelled out, and
+// Text and fonts of the reports' PDFs. The standard PDF fonts cover WinAnsi only: a few symbols the reports use are spelled out, and
 // anything else the font cannot encode becomes "?" rather than failing the whole document.
 const replacements: Record<string, string> = { '→': '->', '≥': '>=', '≤': '<=', '−': '-' };
 
@@ -15,4 +15,12 @@ export function pdfSafeText(text: string, font: PDFFont): string {
     }
   }
   return out;
+}
+
+/** A new report document with its title and the two standard fonts every report writes in (nothing to embed). */
+export async function newReportPdf(title: string): Promise<{ pdf: PDFDocument; regular: PDFFont; bold: PDFFont }> {
+  const pdf = await PDFDocument.create();
+  pdf.setTitle(title);
+  pdf.setProducer('Rimeline');
+  return { pdf, regular: await pdf.embedFont(StandardFonts.Helvetica), bold: await pdf.embedFont(StandardFonts.HelveticaBold) };
 }

@@ -1,5 +1,5 @@
-import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
-import { pdfSafeText } from '@/lib/reports/pdf-text';
+import { rgb, type PDFFont } from 'pdf-lib';
+import { newReportPdf, pdfSafeText } from '@/lib/reports/pdf-text';
 
 // A landscape table report for printing: title, facts, one table that pages as needed, notes.
 
@@ -36,11 +36,7 @@ function wrap(text: string, font: PDFFont, size: number, width: number, maxLines
 }
 
 export async function renderTablePdf(report: TableReport): Promise<Uint8Array> {
-  const pdf = await PDFDocument.create();
-  pdf.setTitle(report.title);
-  pdf.setProducer('Rimeline');
-  const regular = await pdf.embedFont(StandardFonts.Helvetica);
-  const bold = await pdf.embedFont(StandardFonts.HelveticaBold);
+  const { pdf, regular, bold } = await newReportPdf(report.title);
   const size: [number, number] = [792, 612];
   const margin = 36;
   const total = report.columns.reduce((a, c) => a + c.width, 0);

@@ -9,7 +9,7 @@ import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { setArchived } from '@/lib/audit/archive';
+import { archivedView, setArchived } from '@/lib/audit/archive';
 import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
 import { changedColumns } from '@/lib/changed-columns';
@@ -62,8 +62,7 @@ export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = de
   const cursor = decodeCursor(query.cursor);
   let q = siteQuery(actor, db);
   if (query.clientId) q = q.where('sites.client_id', '=', query.clientId);
-  if (query.archived === 'exclude') q = q.where('sites.archived_at', 'is', null);
-  if (query.archived === 'only') q = q.where('sites.archived_at', 'is not', null);
+  q = q.where(archivedView('sites', query.archived));
   if (query.q) {
     const like = `%${escapeLike(query.q)}%`;
     q = q.where((eb) => eb.or([eb('sites.name', 'ilike', like), eb('sites.city', 'ilike', like), eb('clients.name', 'ilike', like)]));

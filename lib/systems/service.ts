@@ -7,7 +7,7 @@ import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { setArchived } from '@/lib/audit/archive';
+import { archivedView, setArchived } from '@/lib/audit/archive';
 import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { changedColumns } from '@/lib/changed-columns';
 import type { SystemDto } from '@/lib/systems/dto';
@@ -86,8 +86,7 @@ export async function listSystems(actor: Actor, query: ListSystemsQuery, db: Db 
   assertCan(actor, 'systems.read');
   let q = systemQuery(actor, db);
   if (query.siteId) q = q.where('systems.site_id', '=', query.siteId);
-  if (query.archived === 'exclude') q = q.where('systems.archived_at', 'is', null);
-  if (query.archived === 'only') q = q.where('systems.archived_at', 'is not', null);
+  q = q.where(archivedView('systems', query.archived));
   if (query.q) q = q.where('systems.name', 'ilike', `%${escapeLike(query.q)}%`);
   const rows = await q.orderBy('sites.name').orderBy('systems.name').limit(query.limit).execute();
   return rows.map((r) => toSystemDto(actor, r));

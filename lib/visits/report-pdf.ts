@@ -1,5 +1,5 @@
-import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
-import { pdfSafeText } from '@/lib/reports/pdf-text';
+import { rgb, type PDFFont } from 'pdf-lib';
+import { newReportPdf, pdfSafeText } from '@/lib/reports/pdf-text';
 import type { VisitReport } from '@/lib/visits/report-content';
 
 function wrap(text: string, font: PDFFont, size: number, width: number): string[] {
@@ -20,11 +20,7 @@ function wrap(text: string, font: PDFFont, size: number, width: number): string[
 
 /** A plain, printable A4/letter-safe report (US letter page, margins that fit A4 too). */
 export async function renderVisitReportPdf(report: VisitReport): Promise<Uint8Array> {
-  const pdf = await PDFDocument.create();
-  pdf.setTitle(report.title);
-  pdf.setProducer('Rimeline');
-  const regular = await pdf.embedFont(StandardFonts.Helvetica);
-  const bold = await pdf.embedFont(StandardFonts.HelveticaBold);
+  const { pdf, regular, bold } = await newReportPdf(report.title);
   const margin = 54;
   const pageSize: [number, number] = [612, 792];
   const width = pageSize[0] - margin * 2;

@@ -8,6 +8,7 @@ import { decodeCursor, type Page } from '@/lib/api/cursor';
 import { afterCursor, cursorKey, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
+import { auditedChange } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
 import { AppError } from '@/lib/errors';
 import { linkPlanToVisit } from '@/lib/plans/service';
@@ -148,13 +149,7 @@ export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysel
     }
     const site = await getSite(actor, input.siteId, trx);
     if (site.archivedAt) throw new AppError('validation_failed', 'This site is archived.');
-    const open = await trx
-      .selectFrom('visits')
-      .select('id')
-      .where('technician_id', '=', actor.id)
-      .where('site_id', '=', input.siteId)
-      .where('status', '=', 'open')
-      .executeTakeFirst();
+    const open = await openVisitOf(trx, actor.id, input.siteId);
     if (open) throw new AppError('conflict', `You already have an open visit at this site (${open.id}). Continue it or close it first.`);
     const row = await trx
       .insertInto('visits')
@@ -185,32 +180,22 @@ export async function openVisitForWriting(actor: Actor, visitId: string, trx: Db
 
 export async function reopenVisit(actor: Actor, visitId: string, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
   assertCan(actor, 'visits.review');
-  return db.transaction().execute(async (trx) => {
-    const before = await getVisitSummary(actor, visitId, trx);
+  return auditedChange(db, actor, { entityType: 'visit', id: visitId, action: 'reopen' }, (trx) => getVisitSummary(actor, visitId, trx), async (trx, before) => {
     if (before.status === 'open') throw new AppError('conflict', 'This visit is already open.');
-    const clash = await trx
-      .selectFrom('visits')
-      .select('id')
-      .where('technician_id', '=', before.technicianId)
-      .where('site_id', '=', before.siteId)
-      .where('status', '=', 'open')
-      .executeTakeFirst();
-    if (clash) throw new AppError('conflict', 'The technician has another open visit at this site; close it first.');
+    if (await openVisitOf(trx, before.technicianId, before.siteId)) throw new AppError('conflict', 'The technician has another open visit at this site; close it first.');
     await trx.updateTable('visits').set({ status: 'open', reopened_at: sql`now()`, reopened_by: actor.id, updated_at: sql`now()` }).where('id', '=', visitId).execute();
-    const after = await getVisitSummary(actor, visitId, trx);
-    await recordAudit(trx, actor, { action: 'reopen', entityType: 'visit', entityId: visitId, before, after });
-    return after;
   });
+}
+
+/** A technician's open visit at a site: at most one (the unique index visits_one_open_idx), checked first for a clear message. */
+function openVisitOf(trx: Db, technicianId: string, siteId: string) {
+  return trx.selectFrom('visits').select('id').where('technician_id', '=', technicianId).where('site_id', '=', siteId).where('status', '=', 'open').executeTakeFirst();
 }
 
 export async function markReviewed(actor: Actor, visitId: string, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
   assertCan(actor, 'visits.review');
-  return db.transaction().execute(async (trx) => {
-    const before = await getVisitSummary(actor, visitId, trx);
+  return auditedChange(db, actor, { entityType: 'visit', id: visitId, action: 'review' }, (trx) => getVisitSummary(actor, visitId, trx), async (trx, before) => {
     if (before.status !== 'closed') throw new AppError('conflict', 'Only a closed visit can be reviewed.');
     await trx.updateTable('visits').set({ reviewed_at: sql`now()`, reviewed_by: actor.id }).where('id', '=', visitId).execute();
-    const after = await getVisitSummary(actor, visitId, trx);
-    await recordAudit(trx, actor, { action: 'review', entityType: 'visit', entityId: visitId, before, after });
-    return after;
   });
 }
