@@ -1,22 +1,17 @@
 // Equipment search at 100,000 rows across 2,000 sites: p50/p95 of GET /api/equipment over HTTP
 // (session, validation, scoping, JSON) next to the same SQL sent straight through pg.
 // Needs the app: bench.sh runs it with BENCH_APP_URL set.
-import { performance } from 'node:perf_hooks';
-import { Kysely, PostgresDialect, sql } from 'kysely';
-import { pg } from '@/db/pg-types';
-import type { DB } from '@/db/schema.gen';
+import { sql } from 'kysely';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
-import type { Actor } from '@/lib/auth/actor';
 import { buildEquipmentListQuery } from '@/lib/equipment/queries';
 import { listEquipmentQuerySchema } from '@/lib/equipment/schemas';
-import { benchRow, floorRow, percentile, signedInFetch, timeFloor } from '@/tests/bench/support/http';
+import { benchDatabase, demoActor, requireAppUrl, sendSql, timeApiBesideSql } from '@/tests/bench/support/db';
+import { benchRow, floorRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const SITES = 2_000;
 const ROWS = 100_000;
 const SAMPLES = 300;
-const appUrl = process.env.BENCH_APP_URL;
-const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
+const { db, pool } = benchDatabase();
 
 async function seed(): Promise<void> {
   await seedDemo(db);
@@ -57,44 +52,35 @@ function queries(serials: string[], siteIds: string[]): Record<string, string>[]
 }
 
 async function main(): Promise<void> {
-  if (!appUrl) {
-    console.error('BENCH_APP_URL is not set: run through `npm run bench` (it starts the app).');
-    process.exit(1);
-  }
+  const appUrl = requireAppUrl();
   await seed();
   const serials = (await db.selectFrom('equipment').select('serial').where('serial', 'is not', null).orderBy(sql`md5(id::text)`).limit(100).execute()).map((r) => r.serial!);
   const siteIds = (await db.selectFrom('sites').select('id').where('name', 'like', 'Bench site %').limit(100).execute()).map((r) => r.id);
-  const office = await db.selectFrom('users').selectAll().where('email', '=', 'office@rimeline.test').executeTakeFirstOrThrow();
-  const actor: Actor = { id: office.id, companyId: office.company_id, role: 'office', clientId: null, name: office.name, email: office.email, units: 'imperial', metricPressure: 'kPa' };
+  const actor = await demoActor(db, 'office@rimeline.test');
   const api = await signedInFetch(appUrl, 'office@rimeline.test');
   const list = queries(serials, siteIds);
+  const sqlOf = (q: Record<string, string>) => buildEquipmentListQuery(actor, listEquipmentQuerySchema.parse(q), db).compile();
 
   // Warm both paths (connection pools, plan caches, the app's route compilation).
   for (const q of list.slice(0, 20)) {
     await api(`/api/equipment?${new URLSearchParams(q)}`);
-    const c = buildEquipmentListQuery(actor, listEquipmentQuerySchema.parse(q), db).compile();
-    await pool.query(c.sql, c.parameters as unknown[]);
+    await sendSql(pool, sqlOf(q));
   }
 
-  const apiTimes: number[] = [];
-  const sqlTimes: number[] = [];
-  const floorTimes: number[] = [];
-  for (const q of list) {
-    floorTimes.push(await timeFloor(api));
-    let t = performance.now();
-    const res = await api(`/api/equipment?${new URLSearchParams(q)}`);
-    await res.json();
-    if (!res.ok) throw new Error(`API answered ${res.status}`);
-    apiTimes.push(performance.now() - t);
-
-    const compiled = buildEquipmentListQuery(actor, listEquipmentQuerySchema.parse(q), db).compile();
-    t = performance.now();
-    await pool.query(compiled.sql, compiled.parameters as unknown[]);
-    sqlTimes.push(performance.now() - t);
-  }
-  apiTimes.sort((a, b) => a - b);
-  sqlTimes.sort((a, b) => a - b);
-  floorTimes.sort((a, b) => a - b);
+  const { apiTimes, sqlTimes, floorTimes } = await timeApiBesideSql(
+    api,
+    list.map((q) => {
+      const compiled = sqlOf(q);
+      return {
+        call: async () => {
+          const res = await api(`/api/equipment?${new URLSearchParams(q)}`);
+          await res.json();
+          if (!res.ok) throw new Error(`API answered ${res.status}`);
+        },
+        sql: () => sendSql(pool, compiled),
+      };
+    }),
+  );
   const fmt = (ms: number) => `${ms.toFixed(1)} ms`;
   for (const p of [50, 95]) {
     const a = percentile(apiTimes, p);

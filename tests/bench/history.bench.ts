@@ -1,22 +1,17 @@
 // The first history page of one equipment item with 5,000 entries, in a database of 2,000,000
 // entries: p50/p95 of GET /api/equipment/:id/history over HTTP next to the same SQL through pg.
-import { performance } from 'node:perf_hooks';
-import { Kysely, PostgresDialect, sql } from 'kysely';
-import { pg } from '@/db/pg-types';
-import type { DB } from '@/db/schema.gen';
+import { sql } from 'kysely';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
-import type { Actor } from '@/lib/auth/actor';
 import { buildHistoryQuery } from '@/lib/visits/queries';
 import { historyQuerySchema } from '@/lib/visits/schemas';
-import { benchRow, floorRow, percentile, signedInFetch, timeFloor } from '@/tests/bench/support/http';
+import { benchDatabase, demoActor, requireAppUrl, sendSql, timeApiBesideSql } from '@/tests/bench/support/db';
+import { benchRow, floorRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const TOTAL = 2_000_000;
 const TARGET = 5_000;
 const VISITS = 40_000;
 const SAMPLES = 200;
-const appUrl = process.env.BENCH_APP_URL;
-const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
+const { db, pool } = benchDatabase();
 
 async function seed(): Promise<string> {
   await seedDemo(db);
@@ -58,36 +53,24 @@ async function seed(): Promise<string> {
 }
 
 async function main(): Promise<void> {
-  if (!appUrl) {
-    console.error('BENCH_APP_URL is not set: run through `npm run bench` (it starts the app).');
-    process.exit(1);
-  }
+  const appUrl = requireAppUrl();
   const equipmentId = await seed();
-  const office = await db.selectFrom('users').selectAll().where('email', '=', 'office@rimeline.test').executeTakeFirstOrThrow();
-  const actor: Actor = { id: office.id, companyId: office.company_id, role: 'office', clientId: null, name: office.name, email: office.email, units: 'imperial', metricPressure: 'kPa' };
+  const actor = await demoActor(db, 'office@rimeline.test');
   const api = await signedInFetch(appUrl, 'office@rimeline.test');
   const compiled = buildHistoryQuery(actor, db, historyQuerySchema.parse({}), { equipmentId }).compile();
   for (let i = 0; i < 20; i++) {
     await (await api(`/api/equipment/${equipmentId}/history`)).json();
-    await pool.query(compiled.sql, compiled.parameters as unknown[]);
+    await sendSql(pool, compiled);
   }
-  const apiTimes: number[] = [];
-  const sqlTimes: number[] = [];
-  const floorTimes: number[] = [];
-  for (let i = 0; i < SAMPLES; i++) {
-    floorTimes.push(await timeFloor(api));
-    let t = performance.now();
-    const res = await api(`/api/equipment/${equipmentId}/history`);
-    const body = (await res.json()) as { items: unknown[] };
-    if (!res.ok || body.items.length !== 25) throw new Error(`history answered ${res.status} with ${body.items?.length} items`);
-    apiTimes.push(performance.now() - t);
-    t = performance.now();
-    await pool.query(compiled.sql, compiled.parameters as unknown[]);
-    sqlTimes.push(performance.now() - t);
-  }
-  apiTimes.sort((a, b) => a - b);
-  sqlTimes.sort((a, b) => a - b);
-  floorTimes.sort((a, b) => a - b);
+  const sample = {
+    call: async () => {
+      const res = await api(`/api/equipment/${equipmentId}/history`);
+      const body = (await res.json()) as { items: unknown[] };
+      if (!res.ok || body.items.length !== 25) throw new Error(`history answered ${res.status} with ${body.items?.length} items`);
+    },
+    sql: () => sendSql(pool, compiled),
+  };
+  const { apiTimes, sqlTimes, floorTimes } = await timeApiBesideSql(api, Array.from({ length: SAMPLES }, () => sample));
   for (const p of [50, 95]) {
     const a = percentile(apiTimes, p);
     const s = percentile(sqlTimes, p);

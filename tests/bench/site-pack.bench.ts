@@ -5,20 +5,16 @@
 import { performance } from 'node:perf_hooks';
 import { gzipSync } from 'node:zlib';
 import { chromium } from '@playwright/test';
-import { Kysely, PostgresDialect, sql } from 'kysely';
-import { pg } from '@/db/pg-types';
-import type { DB } from '@/db/schema.gen';
+import { sql } from 'kysely';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
-import { actorFromRow } from '@/lib/auth/actor';
 import { packFollowUpsQuery, packHistoryQuery, packOpenVisitQuery, packUnitsQuery } from '@/lib/sites/pack-queries';
 import { checkSymbol, formatCode } from '@/lib/tags/code';
+import { benchDatabase, demoActor, requireAppUrl } from '@/tests/bench/support/db';
 import { benchRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const SAMPLES = 30;
 const ENTRIES_PER_UNIT = 25;
-const appUrl = process.env.BENCH_APP_URL;
-const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
+const { db, pool } = benchDatabase();
 
 /** A site of `units` units with tags, history and follow-ups; returns its id and one tag code. */
 async function seedSite(units: number): Promise<{ siteId: string; code: string; unitName: string }> {
@@ -87,8 +83,7 @@ async function seedSite(units: number): Promise<{ siteId: string; code: string; 
 }
 
 async function packFigures(label: string, siteId: string, api: Awaited<ReturnType<typeof signedInFetch>>): Promise<void> {
-  const techRow = await db.selectFrom('users').selectAll().where('email', '=', 'tech@rimeline.test').executeTakeFirstOrThrow();
-  const actor = actorFromRow(techRow);
+  const actor = await demoActor(db, 'tech@rimeline.test');
   const compiled = [packUnitsQuery(actor, db, siteId), packHistoryQuery(actor, db, siteId), packFollowUpsQuery(actor, db, siteId), packOpenVisitQuery(actor, db, siteId)].map((q) => q.compile());
   const runSql = () => Promise.all(compiled.map((c) => pool.query(c.sql, c.parameters as unknown[])));
   let bytes = 0;
@@ -124,7 +119,7 @@ async function packFigures(label: string, siteId: string, api: Awaited<ReturnTyp
 }
 
 /** In Chromium: keep the site, go offline, type the code on Scan, time until the unit's heading shows. */
-async function offlineOpenTimes(siteId: string, code: string, unitName: string): Promise<number[]> {
+async function offlineOpenTimes(appUrl: string, siteId: string, code: string, unitName: string): Promise<number[]> {
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu'] });
   try {
     const context = await browser.newContext({ baseURL: appUrl, viewport: { width: 360, height: 740 }, isMobile: true, hasTouch: true });
@@ -160,10 +155,7 @@ async function offlineOpenTimes(siteId: string, code: string, unitName: string):
 }
 
 async function main(): Promise<void> {
-  if (!appUrl) {
-    console.error('BENCH_APP_URL is not set: run through `npm run bench` (it starts the app).');
-    process.exit(1);
-  }
+  const appUrl = requireAppUrl();
   await seedDemo(db);
   const small = await seedSite(30);
   const large = await seedSite(300);
@@ -171,7 +163,7 @@ async function main(): Promise<void> {
   await packFigures('30 units', small.siteId, api);
   await packFigures('300 units', large.siteId, api);
   try {
-    const times = await offlineOpenTimes(large.siteId, large.code, large.unitName);
+    const times = await offlineOpenTimes(appUrl, large.siteId, large.code, large.unitName);
     benchRow('typed code → unit page offline p50 (300-unit pack, Chromium)', `${percentile(times, 50).toFixed(0)} ms`, '-', '-', '≤ 300 ms');
     benchRow('typed code → unit page offline p95 (300-unit pack, Chromium)', `${percentile(times, 95).toFixed(0)} ms`, '-', '-', '≤ 300 ms');
   } catch (error) {

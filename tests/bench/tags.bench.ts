@@ -3,10 +3,8 @@
 // database — the same SQL straight through pg, and POST /api/scan over HTTP when the app runs
 // (BENCH_APP_URL, set by `npm run bench -- --with-app`). Goals: under 2 s for 1,000 labels; p95 under 30 ms.
 import { performance } from 'node:perf_hooks';
-import { Kysely, PostgresDialect, sql } from 'kysely';
+import { sql } from 'kysely';
 import * as QRCode from 'qrcode';
-import { pg } from '@/db/pg-types';
-import type { DB } from '@/db/schema.gen';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import type { Actor } from '@/lib/auth/actor';
 import { equipmentBaseQuery, refrigerantExpr, selection } from '@/lib/equipment/queries';
@@ -14,6 +12,7 @@ import { generateCode } from '@/lib/tags/code';
 import { renderLabelSheet, type LabelContent } from '@/lib/tags/pdf';
 import { chooseErrorCorrection, tagUrl } from '@/lib/tags/qr';
 import { lastScanQuery, layoutQuery, tagByCodeQuery, toLayout } from '@/lib/tags/queries';
+import { benchDatabase, demoActor } from '@/tests/bench/support/db';
 import { benchRow, floorRow, percentile, signedInFetch, timeFloor } from '@/tests/bench/support/http';
 
 const LABELS = 1_000;
@@ -22,8 +21,7 @@ const SITES = 1_000;
 const SAMPLES = 400;
 const appUrl = process.env.BENCH_APP_URL;
 const APP_URL = process.env.APP_URL ?? 'http://localhost:3100';
-const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
-const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool }) });
+const { db } = benchDatabase();
 const fmt = (ms: number) => (ms >= 1000 ? `${(ms / 1000).toFixed(2)} s` : `${ms.toFixed(1)} ms`);
 
 function median(xs: number[]): number {
@@ -121,12 +119,11 @@ async function resolveViaSql(actor: Actor, code: string): Promise<void> {
 
 async function benchScan(): Promise<void> {
   await seedDemo(db);
-  const tech = await db.selectFrom('users').selectAll().where('email', '=', 'tech@rimeline.test').executeTakeFirstOrThrow();
-  const actor: Actor = { id: tech.id, companyId: tech.company_id, role: 'technician', clientId: null, name: tech.name, email: tech.email, units: 'imperial', metricPressure: 'kPa' };
-  await seedTags(tech.company_id);
+  const actor = await demoActor(db, 'tech@rimeline.test');
+  await seedTags(actor.companyId);
   const count = await db.selectFrom('tags').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   const codes = (
-    await db.selectFrom('tags').select('code').where('state', '=', 'attached').where('company_id', '=', tech.company_id).orderBy(sql`md5(code)`).limit(SAMPLES).execute()
+    await db.selectFrom('tags').select('code').where('state', '=', 'attached').where('company_id', '=', actor.companyId).orderBy(sql`md5(code)`).limit(SAMPLES).execute()
   ).map((r) => r.code);
   for (const c of codes.slice(0, 20)) await resolveViaSql(actor, c);
   const sqlTimes: number[] = [];
