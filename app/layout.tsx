@@ -2,7 +2,6 @@ import type { Metadata, Viewport } from 'next';
 import { cookies } from 'next/headers';
 import type { ReactNode } from 'react';
 import { inter } from '@/app/fonts';
-import { Providers } from '@/app/providers';
 import './globals.css';
 
 export const metadata: Metadata = {
@@ -18,7 +17,8 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   return (
     <html lang="en" className={`${inter.variable} ${contrast ? 'contrast-high' : ''}`}>
       <body className="min-h-screen bg-slate-50 font-sans text-slate-900 antialiased">
-        <Providers>{children}</Providers>
+        {/* No app-wide providers: the query provider sits in the layouts of the pages that fetch in the browser. */}
+        {children}
       </body>
     </html>
   );

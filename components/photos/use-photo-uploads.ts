@@ -1,10 +1,10 @@
 'use client';
 
-import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { ApiError } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { photoKeys, uploadPhotoFile } from '@/lib/photos/hooks';
+import { invalidateQueries } from '@/lib/query/invalidate';
 import { photoFileProblem, type PhotoKind } from '@/lib/photos/terms';
 
 // The upload queue behind every photo picker: a chosen file starts at once (two at a time), each
@@ -48,7 +48,6 @@ export function unsentMessage(count: number): string {
 }
 
 export function usePhotoUploads(equipmentId: string, { onUploaded }: { onUploaded?: (photo: PhotoDto) => void } = {}) {
-  const queryClient = useQueryClient();
   // The list lives in a ref so the queue reads it synchronously; state mirrors it for rendering.
   const store = useRef<UploadItem[]>([]);
   const [items, setItems] = useState<UploadItem[]>([]);
@@ -109,7 +108,8 @@ export function usePhotoUploads(equipmentId: string, { onUploaded }: { onUploade
       if (!mounted.current) return;
       patch(item.id, { status: 'done', percent: 100, photo, caption: photo.caption ?? '', kind: photo.kind });
       uploadedRef.current?.(photo);
-      void queryClient.invalidateQueries({ queryKey: photoKeys.lists() });
+      // The registry, not useQueryClient: a unit's page has no query provider (DEVELOPERS.md, "Phone pages").
+      void invalidateQueries(photoKeys.lists());
     } catch (error) {
       if (!mounted.current) return;
       const message = error instanceof ApiError ? error.message : 'The upload failed. Nothing was saved; press Retry.';

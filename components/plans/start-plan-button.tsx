@@ -3,11 +3,23 @@
 import { useRouter } from 'next/navigation';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
+import { QueryProvider } from '@/components/query/query-provider';
 import type { PlanDto } from '@/lib/plans/dto';
 import { useStartVisit } from '@/lib/visits/hooks';
 
-/** Starts the visit a plan describes; the server marks the plan started with it. */
-export function StartPlanButton({ plan }: { plan: Pick<PlanDto, 'id' | 'siteId' | 'reason' | 'siteName'> }) {
+type PlanRef = Pick<PlanDto, 'id' | 'siteId' | 'reason' | 'siteName'>;
+
+/** Starts the visit a plan describes; the server marks the plan started with it. Brings its own
+ * query provider: the home page, where it also shows, has none (DEVELOPERS.md, "Phone pages"). */
+export function StartPlanButton({ plan }: { plan: PlanRef }) {
+  return (
+    <QueryProvider>
+      <StartPlanButtonInner plan={plan} />
+    </QueryProvider>
+  );
+}
+
+function StartPlanButtonInner({ plan }: { plan: PlanRef }) {
   const router = useRouter();
   const start = useStartVisit();
   return (

@@ -7,9 +7,13 @@ import { useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/field';
-import { ApiError } from '@/lib/api/client';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import { equipmentKeys } from '@/lib/equipment/keys';
+import { invalidateQueries } from '@/lib/query/invalidate';
 import { formatCode } from '@/lib/tags/code';
-import { useAttachTag, useRetireTag } from '@/lib/tags/hooks';
+import type { AttachResultDto } from '@/lib/tags/dto';
+import { tagKeys } from '@/lib/tags/keys';
+import type { AttachTagInput, RetireTagInput } from '@/lib/tags/schemas';
 
 // Typing a new code is the rarer path: its field loads when "Attach" or "Replace" is chosen.
 const CodeEntry = dynamic(() => import('@/components/tags/code-entry').then((m) => m.CodeEntry), { ssr: false });
@@ -21,8 +25,8 @@ const CodeEntry = dynamic(() => import('@/components/tags/code-entry').then((m) 
  */
 export function TagActions({ equipmentId, currentCode }: { equipmentId: string; currentCode: string | null }) {
   const router = useRouter();
-  const attach = useAttachTag();
-  const retire = useRetireTag();
+  // Plain requests, not useMutation: a unit's page ships without the query library (DEVELOPERS.md, "Phone pages").
+  const [pending, setPending] = useState<'attach' | 'retire' | null>(null);
   const [mode, setMode] = useState<'idle' | 'replace' | 'retire'>('idle');
   const [reason, setReason] = useState<'damaged' | 'lost'>('damaged');
   const [error, setError] = useState<string>();
@@ -30,26 +34,36 @@ export function TagActions({ equipmentId, currentCode }: { equipmentId: string; 
 
   async function attachCode(code: string) {
     setError(undefined);
+    setPending('attach');
     try {
-      const result = await attach.mutateAsync({ code, input: { equipmentId } });
+      const input: AttachTagInput = { equipmentId };
+      const result = await apiFetch<AttachResultDto>(`/api/tags/${code}/attach`, { method: 'POST', json: input });
+      void invalidateQueries(tagKeys.all, equipmentKeys.all);
       setDone(result.replaced ? `Tag ${formatCode(code)} attached; ${formatCode(result.replaced.code)} is retired.` : `Tag ${formatCode(code)} attached.`);
       setMode('idle');
       router.refresh();
     } catch (e) {
       setError(e instanceof ApiError ? (e.status === 404 ? 'No blank tag of your company has this code.' : e.message) : 'Something went wrong. Nothing was changed.');
+    } finally {
+      setPending(null);
     }
   }
 
   async function retireCurrent() {
     if (!currentCode) return;
     setError(undefined);
+    setPending('retire');
     try {
-      await retire.mutateAsync({ code: currentCode, input: { reason } });
+      const input: RetireTagInput = { reason };
+      await apiFetch(`/api/tags/${currentCode}/retire`, { method: 'POST', json: input });
+      void invalidateQueries(tagKeys.all);
       setDone(`Tag ${formatCode(currentCode)} retired.`);
       setMode('idle');
       router.refresh();
     } catch (e) {
       setError(e instanceof ApiError ? e.message : 'Something went wrong. Nothing was changed.');
+    } finally {
+      setPending(null);
     }
   }
 
@@ -73,7 +87,7 @@ export function TagActions({ equipmentId, currentCode }: { equipmentId: string; 
           <p className="text-sm text-slate-700">
             Put a blank tag on the unit, then type its code.{currentCode ? ' The current tag is retired; scanning it will still open this unit.' : ''}
           </p>
-          <CodeEntry label="New tag code" submitLabel={currentCode ? 'Replace' : 'Attach'} busy={attach.isPending} onSubmit={(code) => void attachCode(code)} autoFocus />
+          <CodeEntry label="New tag code" submitLabel={currentCode ? 'Replace' : 'Attach'} busy={pending === 'attach'} onSubmit={(code) => void attachCode(code)} autoFocus />
           <Button variant="ghost" onClick={() => setMode('idle')}>
             Cancel
           </Button>
@@ -88,8 +102,8 @@ export function TagActions({ equipmentId, currentCode }: { equipmentId: string; 
             <option value="lost">Lost or removed from the unit</option>
           </Select>
           <div className="flex flex-wrap gap-2">
-            <Button variant="danger" size="lg" disabled={retire.isPending} onClick={() => void retireCurrent()}>
-              {retire.isPending ? 'Retiring…' : 'Retire tag'}
+            <Button variant="danger" size="lg" disabled={pending === 'retire'} onClick={() => void retireCurrent()}>
+              {pending === 'retire' ? 'Retiring…' : 'Retire tag'}
             </Button>
             <Button variant="ghost" size="lg" onClick={() => setMode('idle')}>
               Cancel

@@ -52,8 +52,9 @@ export function HistoryShell({
     setLive(true);
     setLoadFailed(false);
     if (HistoryPages) return;
-    import('@/components/visits/history-pages')
-      .then((m) => setHistoryPages(() => m.HistoryPages))
+    // With its query provider: a unit's page has none until the list goes live (DEVELOPERS.md, "Phone pages").
+    Promise.all([import('@/components/visits/history-pages'), import('@/components/query/query-provider')])
+      .then(([m, q]) => setHistoryPages(() => q.withQueryProvider(m.HistoryPages)))
       .catch(() => setLoadFailed(true));
   }
 

@@ -1,39 +1,18 @@
 'use client';
 
 import dynamic from 'next/dynamic';
-import { useEffect, useId, useState } from 'react';
+import { useId, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Field, Select } from '@/components/ui/field';
 import { conversionFor, type Quantity, type UnitPrefs } from '@/lib/units/quantities';
 import { useReadingSeries } from '@/lib/visits/reading-series';
 import { formatStamp } from '@/lib/format/dates';
 import { SelectOptions } from '@/components/forms/select-options';
+import { useNearScreen } from '@/components/ui/use-near-screen';
 
 // The chart library is the largest script of the unit page and the chart sits below the history:
 // it is fetched when the chart comes near the screen (or the page is printed), not on first load.
 const ReadingChartPlot = dynamic(() => import('@/components/visits/reading-chart-plot').then((m) => m.ReadingChartPlot), { ssr: false });
-
-/** True once the element is within a screen of the viewport, or the page is about to print. */
-function useNearScreen(): [(el: HTMLDivElement | null) => void, boolean] {
-  const [el, setEl] = useState<HTMLDivElement | null>(null);
-  const [near, setNear] = useState(false);
-  useEffect(() => {
-    if (!el || near) return;
-    const show = () => setNear(true);
-    window.addEventListener('beforeprint', show);
-    if (typeof IntersectionObserver === 'undefined') {
-      show();
-      return () => window.removeEventListener('beforeprint', show);
-    }
-    const io = new IntersectionObserver((seen) => seen.some((e) => e.isIntersecting) && show(), { rootMargin: '100% 0px' });
-    io.observe(el);
-    return () => {
-      io.disconnect();
-      window.removeEventListener('beforeprint', show);
-    };
-  }, [el, near]);
-  return [setEl, near];
-}
 
 type Unit = Quantity | 'V' | 'A' | '%' | 'ratio';
 

@@ -7,6 +7,7 @@ import { listEquipment } from '@/lib/equipment/service';
 import { listSites } from '@/lib/sites/service';
 import { getSystem } from '@/lib/systems/service';
 import { EquipmentBrowser } from '@/app/(app)/equipment/_components/equipment-browser';
+import { QueryProvider } from '@/components/query/query-provider';
 import { parseFilters } from '@/app/(app)/equipment/_components/table-filters';
 
 export const metadata: Metadata = { title: 'Equipment' };
@@ -39,12 +40,15 @@ export default async function EquipmentIndexPage({ searchParams }: { searchParam
           can(actor, 'equipment.write') ? <ButtonLink href={filters.siteId ? `/equipment/new?siteId=${filters.siteId}` : '/equipment/new'}>Register equipment</ButtonLink> : null
         }
       />
-      <EquipmentBrowser
-        sites={sites.items.map((s) => ({ id: s.id, name: s.name }))}
-        initial={{ filters, page }}
-        systemName={system?.name ?? null}
-        showSite={actor.role !== 'client' || sites.items.length > 1}
-      />
+      {/* The provider is per page here: a unit's page under /equipment ships without it. */}
+      <QueryProvider>
+        <EquipmentBrowser
+          sites={sites.items.map((s) => ({ id: s.id, name: s.name }))}
+          initial={{ filters, page }}
+          systemName={system?.name ?? null}
+          showSite={actor.role !== 'client' || sites.items.length > 1}
+        />
+      </QueryProvider>
     </>
   );
 }

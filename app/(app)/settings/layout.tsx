@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
+import { QueryProvider } from '@/components/query/query-provider';
 import { requirePageActor } from '@/lib/auth';
 import { can } from '@/lib/auth/access';
 import { mailCatcherEnabled } from '@/lib/mail/catcher';
@@ -22,7 +23,10 @@ export default async function SettingsLayout({ children }: { children: ReactNode
           </Link>
         ))}
       </nav>
-      <div>{children}</div>
+      <div>
+        {/* Settings forms fetch in the browser; the provider is per section (DEVELOPERS.md, "Phone pages"). */}
+        <QueryProvider>{children}</QueryProvider>
+      </div>
     </div>
   );
 }

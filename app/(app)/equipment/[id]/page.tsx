@@ -1,15 +1,14 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import type { ReactNode } from 'react';
-import { EquipmentPhotos } from '@/components/photos/equipment-photos';
 import { EquipmentTagPanel } from '@/components/tags/equipment-tag-panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { EquipmentHistory } from '@/components/visits/equipment-history';
-import { ReadingChart } from '@/components/visits/reading-chart';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { nameplateFields } from '@/lib/equipment/nameplate';
+import { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types';
 import { getEquipment, getUnitFacts } from '@/lib/equipment/service';
 import { getEquipmentTagInfo } from '@/lib/tags/service';
 import { formatDay } from '@/lib/format/dates';
@@ -18,6 +17,7 @@ import { equipmentHistory } from '@/lib/visits/history';
 import { DeleteEquipmentButton } from '@/app/(app)/equipment/[id]/_components/delete-equipment-button';
 import { RelationManager } from '@/app/(app)/equipment/[id]/_components/relation-manager';
 import { UnitHeader } from '@/app/(app)/equipment/[id]/_components/unit-header';
+import { UnitPhotos, UnitReadingChart } from '@/app/(app)/equipment/[id]/_components/unit-islands';
 import { formatNameplateValue } from '@/app/(app)/equipment/_components/nameplate-values';
 import { Section } from '@/components/ui/section';
 
@@ -127,13 +127,19 @@ export default async function EquipmentPage({ params }: { params: Promise<{ id: 
         <EquipmentTagPanel info={tagInfo} />
 
         <Section id="relations-h" title="Connected equipment">
-          <RelationManager equipmentId={equipment.id} siteId={equipment.siteId} relations={equipment.relations} canWrite={equipment.canEditRelations} />
+          <RelationManager
+            equipmentId={equipment.id}
+            siteId={equipment.siteId}
+            relations={equipment.relations}
+            canWrite={equipment.canEditRelations}
+            words={{ phrases: relationPhrases, typeLabels: equipmentTypeLabels }}
+          />
         </Section>
 
-        <EquipmentPhotos equipmentId={equipment.id} />
+        <UnitPhotos equipmentId={equipment.id} />
 
         <Section id="trend-h" title="Readings over time">
-          <ReadingChart equipmentId={equipment.id} prefs={prefs} timeZone={equipment.siteTimeZone} />
+          <UnitReadingChart equipmentId={equipment.id} prefs={prefs} timeZone={equipment.siteTimeZone} />
         </Section>
 
         {canEdit || canDelete || canLogRequest ? (

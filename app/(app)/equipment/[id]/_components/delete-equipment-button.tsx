@@ -4,32 +4,38 @@ import { Trash2 } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { ApiError } from '@/lib/api/client';
-import { useDeleteEquipment } from '@/lib/equipment/hooks';
+import { ApiError, apiFetch } from '@/lib/api/client';
+import { equipmentKeys } from '@/lib/equipment/keys';
+import { invalidateQueries } from '@/lib/query/invalidate';
+import { systemKeys } from '@/lib/systems/keys';
 
 export function DeleteEquipmentButton({ id, name, siteId }: { id: string; name: string; siteId: string }) {
   const router = useRouter();
-  const remove = useDeleteEquipment(id);
+  // A plain request, not useMutation: a unit's page ships without the query library (DEVELOPERS.md, "Phone pages").
+  const [pending, setPending] = useState(false);
   const [error, setError] = useState<string>();
   return (
     <>
       <Button
         variant="danger"
-        disabled={remove.isPending}
+        disabled={pending}
         onClick={async () => {
           if (!window.confirm(`Delete “${name}”? It leaves every list, but its records stay for audits.`)) return;
           setError(undefined);
+          setPending(true);
           try {
-            await remove.mutateAsync();
+            await apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' });
+            await invalidateQueries(equipmentKeys.all, systemKeys.all);
             router.push(`/sites/${siteId}`);
             router.refresh();
           } catch (e) {
             setError(e instanceof ApiError ? e.message : 'Nothing was deleted. Try again.');
+            setPending(false);
           }
         }}
       >
         <Trash2 aria-hidden className="size-4" />
-        {remove.isPending ? 'Deleting…' : 'Delete'}
+        {pending ? 'Deleting…' : 'Delete'}
       </Button>
       {error ? (
         <p role="alert" className="basis-full text-sm font-medium text-red-700">

@@ -8,13 +8,20 @@ import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { ApiError } from '@/lib/api/client';
+import { ApiError, apiFetch } from '@/lib/api/client';
 import type { RelationDto } from '@/lib/equipment/dto';
-import { useRemoveRelation } from '@/lib/equipment/hooks';
-import { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types';
+import { equipmentKeys } from '@/lib/equipment/keys';
+import { invalidateQueries } from '@/lib/query/invalidate';
+import type { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types';
 
-// Loaded when "Change connections" opens (its form library and schemas are not needed before).
-const AddRelationForm = dynamic(() => import('@/app/(app)/equipment/[id]/_components/add-relation-form').then((m) => m.AddRelationForm), {
+// Loaded when "Change connections" opens (its form library, schemas and the query provider it
+// needs are not needed before).
+const AddRelationForm = dynamic(
+  () =>
+    Promise.all([import('@/app/(app)/equipment/[id]/_components/add-relation-form'), import('@/components/query/query-provider')]).then(([m, q]) =>
+      q.withQueryProvider(m.AddRelationForm),
+    ),
+  {
   ssr: false,
   loading: () => (
     <p role="status" className="p-4 text-slate-600">
@@ -23,13 +30,27 @@ const AddRelationForm = dynamic(() => import('@/app/(app)/equipment/[id]/_compon
   ),
 });
 
-function phrase(r: RelationDto): string {
-  return relationPhrases[r.kind][r.direction];
-}
+/** The words for relations and types come from the page: their module would bring the whole
+ * service-life table (lib/calc) into the unit page's first scripts. */
+export type RelationWords = { phrases: typeof relationPhrases; typeLabels: typeof equipmentTypeLabels };
 
-export function RelationManager({ equipmentId, siteId, relations: initial, canWrite }: { equipmentId: string; siteId: string; relations: RelationDto[]; canWrite: boolean }) {
+export function RelationManager({
+  equipmentId,
+  siteId,
+  relations: initial,
+  canWrite,
+  words,
+}: {
+  equipmentId: string;
+  siteId: string;
+  relations: RelationDto[];
+  canWrite: boolean;
+  words: RelationWords;
+}) {
+  const phrase = (r: RelationDto): string => words.phrases[r.kind][r.direction];
   const [relations, setRelations] = useState(initial);
-  const remove = useRemoveRelation(equipmentId);
+  // A plain request, not useMutation: a unit's page ships without the query library (DEVELOPERS.md, "Phone pages").
+  const [removing, setRemoving] = useState(false);
   const [removeError, setRemoveError] = useState<string>();
   // Editing tools show only when asked for: the list reads as plain links until then.
   const [editing, setEditing] = useState(false);
@@ -50,21 +71,25 @@ export function RelationManager({ equipmentId, siteId, relations: initial, canWr
                 <Link href={`/equipment/${r.other.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
                   {r.other.name}
                 </Link>
-                <span className="block text-sm text-slate-600">{equipmentTypeLabels[r.other.type]}</span>
+                <span className="block text-sm text-slate-600">{words.typeLabels[r.other.type]}</span>
               </span>
               {canWrite && editing ? (
                 <Button
                   variant="ghost"
                   size="md"
                   aria-label={`Remove connection: ${phrase(r)} ${r.other.name}`}
-                  disabled={remove.isPending}
+                  disabled={removing}
                   onClick={async () => {
                     setRemoveError(undefined);
+                    setRemoving(true);
                     try {
-                      await remove.mutateAsync(r.id);
+                      await apiFetch<void>(`/api/equipment/${equipmentId}/relations/${r.id}`, { method: 'DELETE' });
+                      void invalidateQueries(equipmentKeys.all);
                       setRelations((rs) => rs.filter((x) => x.id !== r.id));
                     } catch (e) {
                       setRemoveError(e instanceof ApiError ? e.message : 'The connection was not removed. Try again.');
+                    } finally {
+                      setRemoving(false);
                     }
                   }}
                 >

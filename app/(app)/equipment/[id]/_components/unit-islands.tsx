@@ -1,0 +1,43 @@
+'use client';
+
+import dynamic from 'next/dynamic';
+import { Section } from '@/components/ui/section';
+import { useNearScreen } from '@/components/ui/use-near-screen';
+import type { UnitPrefs } from '@/lib/units/quantities';
+
+// The photos and the readings chart sit below a phone's first screen and fetch in the browser:
+// their scripts, the query library and its provider load when they come near the screen, so a
+// scanned unit's first load carries none of them (DEVELOPERS.md, "Phone pages").
+const EquipmentPhotos = dynamic(
+  () => Promise.all([import('@/components/photos/equipment-photos'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.EquipmentPhotos)),
+  { ssr: false, loading: () => <Waiting what="photos" /> },
+);
+const ReadingChart = dynamic(
+  () => Promise.all([import('@/components/visits/reading-chart'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.ReadingChart)),
+  { ssr: false, loading: () => <Waiting what="readings" /> },
+);
+
+function Waiting({ what }: { what: string }) {
+  return (
+    <p role="status" className="min-h-24 text-slate-600">
+      Loading the {what}…
+    </p>
+  );
+}
+
+export function UnitPhotos({ equipmentId }: { equipmentId: string }) {
+  const [ref, near] = useNearScreen();
+  if (near) return <EquipmentPhotos equipmentId={equipmentId} />;
+  return (
+    <div ref={ref}>
+      <Section id="photos-h" title="Photos">
+        <div className="min-h-24" />
+      </Section>
+    </div>
+  );
+}
+
+export function UnitReadingChart(props: { equipmentId: string; prefs: UnitPrefs; timeZone: string }) {
+  const [ref, near] = useNearScreen();
+  return near ? <ReadingChart {...props} /> : <div ref={ref} className="min-h-24" />;
+}

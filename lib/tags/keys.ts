@@ -1,0 +1,9 @@
+// TanStack Query keys for tags, apart from the hooks so that pages without the query library
+// (a scanned unit's page) can mark them stale through lib/query/invalidate.
+export const tagKeys = {
+  all: ['tags'] as const,
+  layouts: () => ['tags', 'layouts'] as const,
+  runs: () => ['tags', 'print-runs'] as const,
+  run: (id: string) => ['tags', 'print-runs', id] as const,
+  equipment: (equipmentId: string) => ['tags', 'equipment', equipmentId] as const,
+};
