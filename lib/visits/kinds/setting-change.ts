@@ -121,63 +121,75 @@ function controlUnits(prefs?: UnitPrefs) {
   return { ...calcUnitsFor(prefs), p: p.fromSi, dp: dp.fromSi, t: t.fromSi, pSi: p.toSi, tSi: t.toSi };
 }
 
-function lowComputed(found: LowSettings, left: LowSettings, ctx: EntryContext, out: SettingComputed, prefs?: UnitPrefs): SideComputed {
-  const side = emptySide();
-  if (!ctx.refrigerant) {
-    side.asFoundOtherKpaG = found.cutInKpaG - found.differentialKpa;
-    side.asLeftOtherKpaG = left.cutInKpaG - left.differentialKpa;
-    return side;
-  }
-  const u = controlUnits(prefs);
-  const run = (s: LowSettings) =>
-    attempt(out.problems, () =>
-      lowPressureControl({
-        refrigerant: ctx.refrigerant!,
-        unit: u.pressureUnit,
-        temperatureUnit: u.temperatureUnit,
-        elevationM: ctx.elevationM,
-        cutIn: u.p(s.cutInKpaG),
-        differential: u.dp(s.differentialKpa),
-        designBoxTemp: orNull(ctx.designBoxTempC, u.t) ?? undefined,
-      }),
-    );
-  const f = run(found);
-  const l = run(left);
-  side.asFoundOtherKpaG = orNull(f?.cutOut, u.pSi) ?? found.cutInKpaG - found.differentialKpa;
-  side.asLeftOtherKpaG = orNull(l?.cutOut, u.pSi) ?? left.cutInKpaG - left.differentialKpa;
-  side.asFoundSaturation = { setting: orNull(f?.cutInSaturation?.dew, u.tSi), other: orNull(f?.cutOutSaturation?.dew, u.tSi) };
-  side.asLeftSaturation = { setting: orNull(l?.cutInSaturation?.dew, u.tSi), other: orNull(l?.cutOutSaturation?.dew, u.tSi) };
-  out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
-  out.basis ??= l?.basis ?? null;
-  return side;
+type ControlUnits = ReturnType<typeof controlUnits>;
+type ControlRun = ReturnType<typeof lowPressureControl> | ReturnType<typeof highPressureControl>;
+
+/**
+ * One side of a pressure control: the end it is set by, how the calculation runs (only with a
+ * refrigerant on record), and which results are the other end and each end's saturation (dew on the
+ * low side, bubble on the high side). Without a result the other end is set end − differential.
+ */
+interface PressureSide<S extends { differentialKpa: number }, R extends ControlRun> {
+  set: (s: S) => number;
+  run: (s: S, u: ControlUnits, ctx: EntryContext, refrigerant: string) => R;
+  read: (r: R) => { other: number; settingSat: number | null | undefined; otherSat: number | null | undefined };
 }
 
-function highComputed(found: HighSettings, left: HighSettings, ctx: EntryContext, out: SettingComputed, prefs?: UnitPrefs): SideComputed {
+const lowPressureSide: PressureSide<LowSettings, ReturnType<typeof lowPressureControl>> = {
+  set: (s) => s.cutInKpaG,
+  run: (s, u, ctx, refrigerant) =>
+    lowPressureControl({
+      refrigerant,
+      unit: u.pressureUnit,
+      temperatureUnit: u.temperatureUnit,
+      elevationM: ctx.elevationM,
+      cutIn: u.p(s.cutInKpaG),
+      differential: u.dp(s.differentialKpa),
+      designBoxTemp: orNull(ctx.designBoxTempC, u.t) ?? undefined,
+    }),
+  read: (r) => ({ other: r.cutOut, settingSat: r.cutInSaturation?.dew, otherSat: r.cutOutSaturation?.dew }),
+};
+
+const highPressureSide: PressureSide<HighSettings, ReturnType<typeof highPressureControl>> = {
+  set: (s) => s.cutOutKpaG,
+  run: (s, u, ctx, refrigerant) =>
+    highPressureControl({
+      refrigerant,
+      unit: u.pressureUnit,
+      temperatureUnit: u.temperatureUnit,
+      elevationM: ctx.elevationM,
+      cutOut: u.p(s.cutOutKpaG),
+      differential: u.dp(s.differentialKpa),
+      designPressure: orNull(ctx.designPressureHighKpaG, u.p) ?? undefined,
+    }),
+  read: (r) => ({ other: r.cutIn, settingSat: r.cutOutSaturation?.bubble, otherSat: r.cutInSaturation?.bubble }),
+};
+
+function sideComputed<S extends { differentialKpa: number }, R extends ControlRun>(
+  spec: PressureSide<S, R>,
+  found: S,
+  left: S,
+  ctx: EntryContext,
+  out: SettingComputed,
+  prefs?: UnitPrefs,
+): SideComputed {
   const side = emptySide();
-  if (!ctx.refrigerant) {
-    side.asFoundOtherKpaG = found.cutOutKpaG - found.differentialKpa;
-    side.asLeftOtherKpaG = left.cutOutKpaG - left.differentialKpa;
+  const fallback = (s: S) => spec.set(s) - s.differentialKpa;
+  const refrigerant = ctx.refrigerant;
+  if (!refrigerant) {
+    side.asFoundOtherKpaG = fallback(found);
+    side.asLeftOtherKpaG = fallback(left);
     return side;
   }
   const u = controlUnits(prefs);
-  const run = (s: HighSettings) =>
-    attempt(out.problems, () =>
-      highPressureControl({
-        refrigerant: ctx.refrigerant!,
-        unit: u.pressureUnit,
-        temperatureUnit: u.temperatureUnit,
-        elevationM: ctx.elevationM,
-        cutOut: u.p(s.cutOutKpaG),
-        differential: u.dp(s.differentialKpa),
-        designPressure: orNull(ctx.designPressureHighKpaG, u.p) ?? undefined,
-      }),
-    );
+  const run = (s: S) => attempt(out.problems, () => spec.run(s, u, ctx, refrigerant));
   const f = run(found);
   const l = run(left);
-  side.asFoundOtherKpaG = orNull(f?.cutIn, u.pSi) ?? found.cutOutKpaG - found.differentialKpa;
-  side.asLeftOtherKpaG = orNull(l?.cutIn, u.pSi) ?? left.cutOutKpaG - left.differentialKpa;
-  side.asFoundSaturation = { setting: orNull(f?.cutOutSaturation?.bubble, u.tSi), other: orNull(f?.cutInSaturation?.bubble, u.tSi) };
-  side.asLeftSaturation = { setting: orNull(l?.cutOutSaturation?.bubble, u.tSi), other: orNull(l?.cutInSaturation?.bubble, u.tSi) };
+  const [fr, lr] = [f && spec.read(f), l && spec.read(l)];
+  side.asFoundOtherKpaG = orNull(fr?.other, u.pSi) ?? fallback(found);
+  side.asLeftOtherKpaG = orNull(lr?.other, u.pSi) ?? fallback(left);
+  side.asFoundSaturation = { setting: orNull(fr?.settingSat, u.tSi), other: orNull(fr?.otherSat, u.tSi) };
+  side.asLeftSaturation = { setting: orNull(lr?.settingSat, u.tSi), other: orNull(lr?.otherSat, u.tSi) };
   out.warnings.push(...(l?.warnings.map((w) => ({ code: w.code, message: w.message, data: w.data })) ?? []));
   out.basis ??= l?.basis ?? null;
   return side;
@@ -200,15 +212,15 @@ export function computeSettingChange(data: SettingChangeData, ctx: EntryContext,
   if (!ctx.refrigerant) out.problems.push('No refrigerant is on record for this system, so settings cannot be turned into temperatures.');
   // Each side fills in out's warnings and basis first, then its values are laid over out.
   if (data.control === 'low') {
-    const side = lowComputed(data.asFound, data.asLeft, ctx, out, prefs);
+    const side = sideComputed(lowPressureSide, data.asFound, data.asLeft, ctx, out, prefs);
     return { ...out, ...side };
   }
   if (data.control === 'high') {
-    const side = highComputed(data.asFound, data.asLeft, ctx, out, prefs);
+    const side = sideComputed(highPressureSide, data.asFound, data.asLeft, ctx, out, prefs);
     return { ...out, ...side };
   }
-  const low = lowComputed(data.asFound.low, data.asLeft.low, ctx, out, prefs);
-  const high = highComputed(data.asFound.high, data.asLeft.high, ctx, out, prefs);
+  const low = sideComputed(lowPressureSide, data.asFound.low, data.asLeft.low, ctx, out, prefs);
+  const high = sideComputed(highPressureSide, data.asFound.high, data.asLeft.high, ctx, out, prefs);
   return { ...out, ...low, sides: { low, high } };
 }
 
