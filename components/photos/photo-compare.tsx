@@ -1,17 +1,16 @@
 'use client';
 
-import { ArrowLeftRight, Info, Maximize2, X, ZoomIn, ZoomOut } from 'lucide-react';
+import { ArrowLeftRight, Info, X } from 'lucide-react';
 import { useId, useState } from 'react';
 import { FullScreenDialog } from '@/components/photos/full-screen-dialog';
 import { formatPhotoDay, PhotoKindLabel, photoDayKey, timeApart } from '@/components/photos/photo-kind';
 import { useZoomPan } from '@/components/photos/use-zoom-pan';
+import { darkButton as dark, ZoomButtons } from '@/components/photos/zoom-buttons';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { photoKindLabels } from '@/lib/photos/terms';
 
 // Two photos of the same equipment side by side (stacked on a phone), earlier on the left, with
 // one zoom and pan for both so the same spot lines up: corrosion then and now.
-
-const dark = 'inline-flex min-h-11 min-w-11 items-center justify-center gap-2 rounded-md border border-slate-600 bg-slate-900 px-3 text-sm font-semibold text-white hover:bg-slate-800 disabled:opacity-50';
 
 /**
  * The oldest and newest photo of one kind (the kind whose photos span the longest time), so the
@@ -53,18 +52,7 @@ export function PhotoCompare({ photos, timeZone, onClose }: { photos: PhotoDto[]
           {left && right ? <span className="font-normal text-slate-300"> · {timeApart(left.sortAt, right.sortAt, timeZone)}</span> : null}
         </h2>
         <div className="order-3 flex w-full flex-wrap items-center gap-2 sm:order-2 sm:w-auto">
-          <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out both">
-            <ZoomOut aria-hidden className="size-5" />
-          </button>
-          <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
-            {Math.round(zoom.view.scale * 100)}%
-          </span>
-          <button type="button" className={dark} onClick={zoom.zoomIn} aria-label="Zoom in both">
-            <ZoomIn aria-hidden className="size-5" />
-          </button>
-          <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit both">
-            <Maximize2 aria-hidden className="size-5" />
-          </button>
+          <ZoomButtons zoom={zoom} both />
           <button
             type="button"
             className={dark}

@@ -2,7 +2,7 @@
 
 import { Camera, CircleCheck, Clock, ImageOff, ImagePlus, LoaderCircle, OctagonAlert, RotateCcw, X } from 'lucide-react';
 import dynamic from 'next/dynamic';
-import { useEffect, useId, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState, type ChangeEvent } from 'react';
 import { PhotoKindSelect } from '@/components/photos/photo-kind-select';
 import { usePhotoUploads, unsentMessage, type UploadItem } from '@/components/photos/use-photo-uploads';
 import { Button } from '@/components/ui/button';
@@ -49,6 +49,11 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
   const sending = items.filter((i) => i.status === 'queued' || i.status === 'uploading' || i.status === 'processing').length;
   const failed = items.filter((i) => i.status === 'failed' && i.retryable).length;
   const done = items.filter((i) => i.status === 'done').length;
+  // Emptied after each choice, so choosing the same file again still sends it.
+  const takeFiles = (e: ChangeEvent<HTMLInputElement>) => {
+    uploads.add(e.target.files, kind);
+    e.target.value = '';
+  };
 
   return (
     <>
@@ -75,10 +80,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
             className="hidden"
             aria-label="Take a photo with the camera"
             data-testid="photo-camera-input"
-            onChange={(e) => {
-              uploads.add(e.target.files, kind);
-              e.target.value = '';
-            }}
+            onChange={takeFiles}
           />
           <input
             ref={filesInput}
@@ -88,10 +90,7 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
             className="hidden"
             aria-label="Choose photo files"
             data-testid="photo-file-input"
-            onChange={(e) => {
-              uploads.add(e.target.files, kind);
-              e.target.value = '';
-            }}
+            onChange={takeFiles}
           />
         </div>
         <p className="text-sm text-slate-600">

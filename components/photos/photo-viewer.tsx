@@ -1,10 +1,11 @@
 'use client';
 
-import { ChevronLeft, ChevronRight, Download, LoaderCircle, Maximize2, Pencil, Trash2, X, ZoomIn, ZoomOut } from 'lucide-react';
+import { ChevronLeft, ChevronRight, Download, LoaderCircle, Pencil, Trash2, X } from 'lucide-react';
 import { useEffect, useId, useState } from 'react';
 import { FullScreenDialog } from '@/components/photos/full-screen-dialog';
 import { formatPhotoTime, PhotoKindLabel } from '@/components/photos/photo-kind';
 import { useZoomPan } from '@/components/photos/use-zoom-pan';
+import { darkButton as dark, ZoomButtons } from '@/components/photos/zoom-buttons';
 import { ApiError } from '@/lib/api/client';
 import type { PhotoDto } from '@/lib/photos/dto';
 import { useDeletePhoto, useUpdatePhoto } from '@/lib/photos/hooks';
@@ -14,8 +15,6 @@ import { optionsOf, SelectOptions } from '@/components/forms/select-options';
 
 // Full-screen photo with zoom and pan. Past 2× it swaps the display copy for the original, so
 // small nameplate print stays sharp. Left/right page through the photos when not zoomed in.
-
-const dark = 'inline-flex min-h-11 min-w-11 items-center justify-center gap-2 rounded-md border border-slate-600 bg-slate-900 px-3 text-sm font-semibold text-white hover:bg-slate-800 disabled:opacity-50';
 
 export function PhotoViewer({
   photos,
@@ -72,18 +71,7 @@ export function PhotoViewer({
           <span className="text-sm text-slate-300" aria-hidden>
             {index + 1} / {photos.length}
           </span>
-          <button type="button" className={dark} onClick={zoom.zoomOut} disabled={zoom.view.scale <= 1} aria-label="Zoom out">
-            <ZoomOut aria-hidden className="size-5" />
-          </button>
-          <span className="w-14 text-center text-sm tabular-nums" aria-live="polite">
-            {Math.round(zoom.view.scale * 100)}%
-          </span>
-          <button type="button" className={dark} onClick={zoom.zoomIn} disabled={zoom.view.scale >= 8} aria-label="Zoom in">
-            <ZoomIn aria-hidden className="size-5" />
-          </button>
-          <button type="button" className={dark} onClick={zoom.reset} disabled={zoom.view.scale === 1} aria-label="Fit to screen">
-            <Maximize2 aria-hidden className="size-5" />
-          </button>
+          <ZoomButtons zoom={zoom} />
           <a className={dark} href={photo.urls.download} aria-label="Download the original">
             <Download aria-hidden className="size-5" />
           </a>
