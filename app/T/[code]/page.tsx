@@ -1,7 +1,8 @@
-import { LogIn, QrCode, Snowflake } from 'lucide-react';
+import { LogIn, QrCode } from 'lucide-react';
 import type { Metadata } from 'next';
 import { notFound, redirect } from 'next/navigation';
 import { ButtonLink } from '@/components/ui/button';
+import { SignedOutShell } from '@/components/ui/signed-out-shell';
 import { getActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
 import { codeFromPathSegment } from '@/lib/tags/code';
@@ -45,25 +46,18 @@ export default async function TagLinkPage({
 
 function SignedOutTag({ code }: { code: string }) {
   return (
-    <div className="flex min-h-screen flex-col bg-slate-900 px-4 py-10">
-      <main className="mx-auto w-full max-w-md">
-        <p className="mb-6 flex items-center gap-2 text-2xl font-bold text-white">
-          <Snowflake aria-hidden className="size-7 text-ice-300" /> Rimeline
-        </p>
-        <div className="space-y-4 rounded-lg bg-white p-5 shadow-lg sm:p-6">
-          <h1 className="flex items-center gap-2 text-xl font-bold">
-            <QrCode aria-hidden className="size-6 text-ice-800" />
-            This unit is registered
-          </h1>
-          <p className="text-slate-700">
-            Tag <TagCode code={code} className="text-lg font-bold" /> belongs to equipment serviced through Rimeline.
-            Service staff and the owner can sign in to see it.
-          </p>
-          <ButtonLink href={`/sign-in?callbackUrl=${encodeURIComponent(`/T/${code}`)}`} size="lg" className="min-h-14 w-full text-lg">
-            <LogIn aria-hidden className="size-6" /> Sign in to open it
-          </ButtonLink>
-        </div>
-      </main>
-    </div>
+    <SignedOutShell className="space-y-4">
+      <h1 className="flex items-center gap-2 text-xl font-bold">
+        <QrCode aria-hidden className="size-6 text-ice-800" />
+        This unit is registered
+      </h1>
+      <p className="text-slate-700">
+        Tag <TagCode code={code} className="text-lg font-bold" /> belongs to equipment serviced through Rimeline.
+        Service staff and the owner can sign in to see it.
+      </p>
+      <ButtonLink href={`/sign-in?callbackUrl=${encodeURIComponent(`/T/${code}`)}`} size="lg" className="min-h-14 w-full text-lg">
+        <LogIn aria-hidden className="size-6" /> Sign in to open it
+      </ButtonLink>
+    </SignedOutShell>
   );
 }
