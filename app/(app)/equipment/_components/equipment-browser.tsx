@@ -8,7 +8,7 @@ import { conditionLook } from '@/components/equipment/condition-badge';
 import { Alert } from '@/components/ui/alert';
 import { Button, buttonVariants } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { Input, Select } from '@/components/ui/field';
+import { Input } from '@/components/ui/field';
 import type { Page } from '@/lib/api/cursor';
 import { REFRIGERANT_IDS } from '@/lib/calc/refrigerants';
 import type { EquipmentDto } from '@/lib/equipment/dto';
@@ -19,7 +19,8 @@ import { cn } from '@/lib/utils';
 import { CheckOption, DisclosureMenu } from '@/app/(app)/equipment/_components/disclosure-menu';
 import { ColumnChooser, EquipmentTable, useColumnVisibility } from '@/app/(app)/equipment/_components/equipment-table';
 import { hasActiveFilters, parseFilters } from '@/app/(app)/equipment/_components/table-filters';
-import { optionsOf, SelectOptions } from '@/components/forms/select-options';
+import { LabelledSelect } from '@/components/forms/labelled-select';
+import { optionsOf } from '@/components/forms/select-options';
 
 const sortLabels: Record<EquipmentSort, string> = {
   name: 'Name',
@@ -94,31 +95,29 @@ export function EquipmentBrowser({
       </div>
 
       <div id="equipment-filters" className={cn('flex-wrap items-start gap-2 md:flex', filtersOpen ? 'flex' : 'hidden')} role="group" aria-label="Filters">
-        <label className="sr-only" htmlFor="filter-site">
-          Site
-        </label>
-        <Select
+        <LabelledSelect
           id="filter-site"
+          label="Site"
+          hideLabel
           value={filters.siteId ?? ''}
           onChange={(e) => update({ siteId: e.target.value || undefined, areaId: undefined })}
-          className="w-full text-sm font-semibold sm:w-56"
-        >
-          <option value="">All sites</option>
-          <SelectOptions options={sites.map((s) => ({ value: s.id, label: s.name }))} />
-        </Select>
-        <label className="sr-only" htmlFor="filter-area">
-          Area
-        </label>
-        <Select
+          empty="All sites"
+          options={sites.map((s) => ({ value: s.id, label: s.name }))}
+          className="w-full sm:w-56"
+          selectClassName="text-sm font-semibold"
+        />
+        <LabelledSelect
           id="filter-area"
+          label="Area"
+          hideLabel
           value={filters.areaId ?? ''}
           disabled={!filters.siteId}
           onChange={(e) => update({ areaId: e.target.value || undefined })}
-          className="w-full text-sm font-semibold sm:w-48"
-        >
-          <option value="">{filters.siteId ? 'All areas' : 'Area (site first)'}</option>
-          <SelectOptions options={(areas.data?.items ?? []).map((a) => ({ value: a.id, label: a.name }))} />
-        </Select>
+          empty={filters.siteId ? 'All areas' : 'Area (site first)'}
+          options={(areas.data?.items ?? []).map((a) => ({ value: a.id, label: a.name }))}
+          className="w-full sm:w-48"
+          selectClassName="text-sm font-semibold"
+        />
         <DisclosureMenu label="Type" count={filters.type.length}>
           {EQUIPMENT_TYPES.map((t) => (
             <CheckOption key={t} checked={filters.type.includes(t)} onChange={(on) => update({ type: toggle(filters.type, t, on) })}>
@@ -272,14 +271,7 @@ function RemovedToggle({ removed, onChange }: { removed: boolean; onChange: (onl
 function PhoneSort({ sort, dir, onChange }: { sort: EquipmentSort; dir: 'asc' | 'desc'; onChange: (sort: EquipmentSort, dir: 'asc' | 'desc') => void }) {
   return (
     <div className="flex items-end gap-2 md:hidden">
-      <div className="flex-1">
-        <label htmlFor="phone-sort" className="block text-sm font-semibold text-slate-800">
-          Sort by
-        </label>
-        <Select id="phone-sort" value={sort} onChange={(e) => onChange(e.target.value as EquipmentSort, dir)}>
-          <SelectOptions options={optionsOf(EQUIPMENT_SORTS, sortLabels)} />
-        </Select>
-      </div>
+      <LabelledSelect id="phone-sort" label="Sort by" className="flex-1" value={sort} onChange={(e) => onChange(e.target.value as EquipmentSort, dir)} options={optionsOf(EQUIPMENT_SORTS, sortLabels)} />
       <Button variant="secondary" onClick={() => onChange(sort, dir === 'asc' ? 'desc' : 'asc')} aria-label={`Order: ${dir === 'asc' ? 'ascending' : 'descending'}. Switch.`}>
         {dir === 'asc' ? <ArrowUpNarrowWide aria-hidden className="size-5" /> : <ArrowDownWideNarrow aria-hidden className="size-5" />}
         {dir === 'asc' ? 'Ascending' : 'Descending'}

@@ -3,8 +3,8 @@
 import { FileDown, FileSpreadsheet } from 'lucide-react';
 import { useState } from 'react';
 import { EmptyState } from '@/components/ui/card';
-import { Field, Input, Select } from '@/components/ui/field';
-import { SelectOptions } from '@/components/forms/select-options';
+import { Field, Input } from '@/components/ui/field';
+import { LabelledSelect } from '@/components/forms/labelled-select';
 
 export function RefrigerantReportPicker({ systems }: { systems: { id: string; label: string }[] }) {
   const [systemId, setSystemId] = useState(systems[0]?.id ?? '');
@@ -14,11 +14,7 @@ export function RefrigerantReportPicker({ systems }: { systems: { id: string; la
   const href = (format: 'pdf' | 'csv') => `/api/reports/refrigerant?systemId=${systemId}&year=${year}&format=${format}`;
   return (
     <div className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-[1fr_8rem_auto] sm:items-end">
-      <Field id="ref-system" label="System">
-        <Select id="ref-system" value={systemId} onChange={(e) => setSystemId(e.target.value)}>
-          <SelectOptions options={systems.map((s) => ({ value: s.id, label: s.label }))} />
-        </Select>
-      </Field>
+      <LabelledSelect id="ref-system" label="System" value={systemId} onChange={(e) => setSystemId(e.target.value)} options={systems.map((s) => ({ value: s.id, label: s.label }))} />
       <Field id="ref-year" label="Year" error={valid ? undefined : 'Use a four-digit year.'}>
         <Input id="ref-year" inputMode="numeric" value={year} onChange={(e) => setYear(e.target.value)} />
       </Field>

@@ -3,7 +3,7 @@
 import { useMemo, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Card } from '@/components/ui/card';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Field, Input } from '@/components/ui/field';
 import { barometricPressureKpa, MAX_ELEVATION_M, MIN_ELEVATION_M } from '@/lib/calc/atmosphere';
 import { REFERENCE_CAUTION } from '@/lib/calc/cautions';
 import { isCalcError } from '@/lib/calc/errors';
@@ -15,7 +15,7 @@ import { formatFixed } from '@/lib/format/numbers';
 import { PtConverter } from '@/app/(app)/tools/pt-chart/_components/pt-converter';
 import { PtTable } from '@/app/(app)/tools/pt-chart/_components/pt-table';
 import { RefrigerantSafety } from '@/app/(app)/tools/pt-chart/_components/refrigerant-safety';
-import { SelectOptions } from '@/components/forms/select-options';
+import { LabelledSelect } from '@/components/forms/labelled-select';
 
 export interface SiteElevation {
   id: string;
@@ -106,11 +106,14 @@ export function PtChartTool(props: {
       <div className="grid gap-5">
         <Card className="grid gap-4">
           <h2 className="text-lg font-bold text-slate-900">Refrigerant and units</h2>
-          <Field id="pt-refrigerant" label="Refrigerant (ASHRAE designation)">
-            <Select id="pt-refrigerant" value={refrigerantId} onChange={(e) => chooseRefrigerant(e.target.value as RefrigerantId)} className="text-lg font-semibold">
-              <SelectOptions options={REFRIGERANTS.map((r) => ({ value: r.id, label: `${r.id} · ${r.safetyClass} · ${r.family}` }))} />
-            </Select>
-          </Field>
+          <LabelledSelect
+            id="pt-refrigerant"
+            label="Refrigerant (ASHRAE designation)"
+            value={refrigerantId}
+            onChange={(e) => chooseRefrigerant(e.target.value as RefrigerantId)}
+            selectClassName="text-lg font-semibold"
+            options={REFRIGERANTS.map((r) => ({ value: r.id, label: `${r.id} · ${r.safetyClass} · ${r.family}` }))}
+          />
           <RefrigerantSafety refrigerant={refrigerant} />
 
           <fieldset>
@@ -127,21 +130,19 @@ export function PtChartTool(props: {
               ))}
             </div>
           </fieldset>
-          <Field id="pt-pressure-unit" label="Pressure unit">
-            <Select id="pt-pressure-unit" value={pressureUnit} onChange={(e) => setPressureUnit(e.target.value as PressureUnit)}>
-              <SelectOptions options={PRESSURE_UNIT_OPTIONS} />
-            </Select>
-          </Field>
+          <LabelledSelect id="pt-pressure-unit" label="Pressure unit" value={pressureUnit} onChange={(e) => setPressureUnit(e.target.value as PressureUnit)} options={PRESSURE_UNIT_OPTIONS} />
 
           <fieldset className="grid gap-3 rounded-md border border-slate-200 p-3">
             <legend className="px-1 text-sm font-semibold text-slate-800">Site elevation (for gauge pressures)</legend>
             {props.sites.length > 0 ? (
-              <Field id="pt-site" label="Site">
-                <Select id="pt-site" value={siteId} onChange={(e) => chooseSite(e.target.value)}>
-                  <option value="">None: use the elevation below</option>
-                  <SelectOptions options={props.sites.map((s) => ({ value: s.id, label: s.label }))} />
-                </Select>
-              </Field>
+              <LabelledSelect
+                id="pt-site"
+                label="Site"
+                value={siteId}
+                onChange={(e) => chooseSite(e.target.value)}
+                empty="None: use the elevation below"
+                options={props.sites.map((s) => ({ value: s.id, label: s.label }))}
+              />
             ) : null}
             <Field id="pt-elevation" label={`Elevation (${lengthUnit})`} error={barometer.error ?? undefined} hint="Blank means sea level.">
               <Input
