@@ -1,20 +1,19 @@
 'use client';
 
-import { TZDate } from '@date-fns/tz';
 import { Hammer, ClipboardCheck, Droplets, Repeat, Search, ThermometerSun } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { BoundField } from '@/components/forms/bound-field';
 import { FormFooter } from '@/components/forms/form-footer';
-import { schemaResolver } from '@/components/forms/schema-resolver';
 import { Alert } from '@/components/ui/alert';
 import { ApiError } from '@/lib/api/client';
 import { readPack } from '@/lib/offline/store';
 import { offlineUser } from '@/lib/offline/user';
 import { useStartVisit } from '@/lib/visits/hooks';
 import { startVisitOnPhone } from '@/lib/visits/start-on-phone';
-import { startVisitSchema, VISIT_REASONS, visitReasonLabels, type StartVisitInput, type VisitReason } from '@/lib/visits/schemas';
+import { VISIT_REASONS, visitReasonLabels, type StartVisitInput } from '@/lib/visits/schemas';
+import { startResolver, type StartValues } from '@/app/(app)/visits/new/_components/start-visit-values';
 import { BoundChoiceCards } from '@/app/(app)/visits/[id]/_components/form-kit';
 
 const reasonIcons = {
@@ -31,38 +30,6 @@ const whenChoices = [
   { value: 'now' as const, label: 'Just now' },
   { value: 'earlier' as const, label: 'Earlier today' },
 ];
-
-/** "07:30" today in the site's time zone → an instant; null for no time, a bad one or one still to come. */
-function todayAt(hhmm: string, timeZone: string): string | null {
-  const m = /^(\d{1,2}):(\d{2})$/.exec(hhmm);
-  if (!m) return null;
-  const now = new TZDate(Date.now(), timeZone);
-  const at = new TZDate(now.getFullYear(), now.getMonth(), now.getDate(), Number(m[1]), Number(m[2]), 0, timeZone);
-  if (at.getTime() > Date.now()) return null;
-  return new Date(at.getTime()).toISOString();
-}
-
-interface StartValues {
-  reason: VisitReason | '';
-  when: 'now' | 'earlier';
-  /** As typed in the time field, site time. */
-  time: string;
-}
-
-/** The visit's start checked by the API's own schema; an arrival time it cannot take is said on the time field. */
-function startResolver(siteId: string, timeZone: string) {
-  return schemaResolver(
-    startVisitSchema,
-    (v: StartValues) => ({ siteId, reason: v.reason || undefined, startedAt: v.when === 'earlier' ? todayAt(v.time, timeZone) : undefined }),
-    {
-      adjust: (errors) => {
-        if (!errors.startedAt) return;
-        errors.time = { type: 'custom', message: 'Give a time earlier today, like 07:30.' };
-        delete errors.startedAt;
-      },
-    },
-  );
-}
 
 export function StartVisitForm({ siteId, timeZone, equipmentId, onCancel }: { siteId: string; timeZone: string; equipmentId?: string; onCancel?: () => void }) {
   const router = useRouter();
