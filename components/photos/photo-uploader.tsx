@@ -58,8 +58,9 @@ export function PhotoUploader({ equipmentId, defaultKind = 'general', onUploaded
   return (
     <>
       <div className="space-y-4 rounded-lg border border-slate-200 bg-white p-4 shadow-sm">
-        <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
-          <PhotoKindSelect id={`${baseId}-kind`} label="Kind for new photos" className="sm:w-56" value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)} />
+        {/* Wraps in a narrow column (the unit page's side) so the kind keeps its width. */}
+        <div className="flex flex-col gap-3 sm:flex-row sm:flex-wrap sm:items-end">
+          <PhotoKindSelect id={`${baseId}-kind`} label="Kind for new photos" className="sm:w-56 sm:shrink-0" value={kind} onChange={(e) => setKind(e.target.value as PhotoKind)} />
           <div className="grid grid-cols-2 gap-2 sm:flex">
             <Button size="lg" className="whitespace-nowrap px-3" onClick={() => cameraInput.current?.click()}>
               <Camera aria-hidden className="size-5" />
