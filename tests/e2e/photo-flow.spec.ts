@@ -10,6 +10,17 @@ import { cameraImage, nameplateImage } from '../helpers/photo-images';
 import { siteLike } from '../helpers/sites';
 import { shot, signIn } from './helpers';
 
+/** Signed in as the technician, on a new unit's page scrolled to its photos, with a camera image written to `file`. */
+async function unitWithCameraPhoto(page: Page, file: string, unitName: string): Promise<{ id: string; file: string }> {
+  await signIn(page, 'tech@rimeline.test');
+  const id = await newEquipment(page, 'Pell Street Kitchen', `${unitName} ${Date.now() % 100000}`);
+  await writeFile(file, await cameraImage());
+  await page.goto(`/equipment/${id}`);
+  // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
+  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  return { id, file };
+}
+
 async function siteId(page: Page, name: string): Promise<string> {
   const sites = await (await page.request.get(`/api/sites?q=${encodeURIComponent(name)}`)).json();
   return (sites.items as { id: string; name: string }[]).find((s) => s.name === name)!.id;
@@ -46,11 +57,7 @@ async function holdThenDropUploads(page: Page, equipmentId: string): Promise<{ r
 }
 
 test('a chosen photo is stored with no further tap, and a caption is added after @phone', async ({ page }, info) => {
-  await signIn(page, 'tech@rimeline.test');
-  const id = await newEquipment(page, 'Pell Street Kitchen', `Prep cooler condensing unit ${Date.now() % 100000}`);
-  const file = info.outputPath('coil.jpg');
-  await writeFile(file, await cameraImage());
-  await page.goto(`/equipment/${id}`);
+  const { id, file } = await unitWithCameraPhoto(page, info.outputPath('coil.jpg'), 'Prep cooler condensing unit');
   expect((await storedPhotos(page, id)).total).toBe(0);
 
   await page.getByLabel('Kind for new photos').selectOption('damage');
@@ -70,11 +77,7 @@ test('a chosen photo is stored with no further tap, and a caption is added after
 });
 
 test('leaving with a photo not yet sent asks first; after Stay the failed upload is retried @phone', async ({ page }, info) => {
-  await signIn(page, 'tech@rimeline.test');
-  const id = await newEquipment(page, 'Pell Street Kitchen', `Bar cooler condensing unit ${Date.now() % 100000}`);
-  const file = info.outputPath('wiring.jpg');
-  await writeFile(file, await cameraImage());
-  await page.goto(`/equipment/${id}`);
+  const { id, file } = await unitWithCameraPhoto(page, info.outputPath('wiring.jpg'), 'Bar cooler condensing unit');
   const here = page.url();
   const uploads = await holdThenDropUploads(page, id);
 
@@ -200,5 +203,7 @@ test('a nameplate photo from the unit header takes at most three taps @phone', a
   await expect(status).toContainText('Added to this unit’s photos');
   await shot(page, `photo-flow-quick-done-${info.project.name}`);
   expect((await storedPhotos(page, id)).items.map((p) => p.kind)).toEqual(['nameplate']);
+  // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
+  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
   await expect(page.getByRole('button', { name: 'Nameplate (1)' })).toBeVisible();
 });

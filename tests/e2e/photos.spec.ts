@@ -60,6 +60,8 @@ test('uploads two photos with progress, shows both thumbnails, views, filters an
   await writeFile(coil, await cameraImage({ width: 2400, height: 1800, grain: 30, quality: 90, takenAt: '2023:05:02 10:15:00' }));
 
   await page.goto(`/equipment/${id}`);
+  // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
+  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
   await expect(page.getByRole('heading', { name: 'Photos' })).toBeVisible();
   await expect(page.getByText('No photos yet.')).toBeVisible();
   await page.getByLabel('Kind for new photos').selectOption('nameplate');
@@ -146,6 +148,8 @@ test('a refused file says why; a dropped upload is retried alone @phone', async 
   await writeFile(notPhoto, 'these are notes, not a photo');
   await writeFile(damage, await sharp(await cameraImage({ width: 1200, height: 900 })).jpeg().toBuffer());
   await page.goto(`/equipment/${id}`);
+  // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
+  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
 
   // The first try of damage.jpg loses its connection; the second goes through.
   let dropped = 0;
@@ -188,6 +192,8 @@ test('an owner sees photos of their equipment but no uploader', async ({ page, b
   const owner = await browser.newPage();
   await signIn(owner, 'owner@client-one.test');
   await owner.goto(`/equipment/${id}`);
+  // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
+  await owner.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
   await expect(owner.getByRole('list', { name: 'Photos' }).getByTestId('photo-thumb')).toHaveCount(1);
   await expect(owner.getByRole('button', { name: 'Take photo' })).toHaveCount(0);
   await expect(owner.getByRole('button', { name: 'Add photo' })).toHaveCount(0);

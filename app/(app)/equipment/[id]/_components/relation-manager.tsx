@@ -22,13 +22,14 @@ const AddRelationForm = dynamic(
       q.withQueryProvider(m.AddRelationForm),
     ),
   {
-  ssr: false,
-  loading: () => (
-    <p role="status" className="p-4 text-slate-600">
-      Loading the form…
-    </p>
-  ),
-});
+    ssr: false,
+    loading: () => (
+      <p role="status" className="p-4 text-slate-600">
+        Loading the form…
+      </p>
+    ),
+  },
+);
 
 /** The words for relations and types come from the page: their module would bring the whole
  * service-life table (lib/calc) into the unit page's first scripts. */
