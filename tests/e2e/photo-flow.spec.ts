@@ -17,7 +17,7 @@ async function unitWithCameraPhoto(page: Page, file: string, unitName: string): 
   await writeFile(file, await cameraImage());
   await page.goto(`/equipment/${id}`);
   // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
-  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  await page.getByTestId('unit-photos').scrollIntoViewIfNeeded();
   return { id, file };
 }
 
@@ -204,6 +204,6 @@ test('a nameplate photo from the unit header takes at most three taps @phone', a
   await shot(page, `photo-flow-quick-done-${info.project.name}`);
   expect((await storedPhotos(page, id)).items.map((p) => p.kind)).toEqual(['nameplate']);
   // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
-  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  await page.getByTestId('unit-photos').scrollIntoViewIfNeeded();
   await expect(page.getByRole('button', { name: 'Nameplate (1)' })).toBeVisible();
 });

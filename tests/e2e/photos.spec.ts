@@ -61,7 +61,7 @@ test('uploads two photos with progress, shows both thumbnails, views, filters an
 
   await page.goto(`/equipment/${id}`);
   // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
-  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  await page.getByTestId('unit-photos').scrollIntoViewIfNeeded();
   await expect(page.getByRole('heading', { name: 'Photos' })).toBeVisible();
   await expect(page.getByText('No photos yet.')).toBeVisible();
   await page.getByLabel('Kind for new photos').selectOption('nameplate');
@@ -149,7 +149,7 @@ test('a refused file says why; a dropped upload is retried alone @phone', async 
   await writeFile(damage, await sharp(await cameraImage({ width: 1200, height: 900 })).jpeg().toBuffer());
   await page.goto(`/equipment/${id}`);
   // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
-  await page.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  await page.getByTestId('unit-photos').scrollIntoViewIfNeeded();
 
   // The first try of damage.jpg loses its connection; the second goes through.
   let dropped = 0;
@@ -193,7 +193,7 @@ test('an owner sees photos of their equipment but no uploader', async ({ page, b
   await signIn(owner, 'owner@client-one.test');
   await owner.goto(`/equipment/${id}`);
   // The photos load as they come near the screen (a unit's page on a phone, issue 17): scroll to them.
-  await owner.getByRole('heading', { name: 'Photos' }).scrollIntoViewIfNeeded();
+  await owner.getByTestId('unit-photos').scrollIntoViewIfNeeded();
   await expect(owner.getByRole('list', { name: 'Photos' }).getByTestId('photo-thumb')).toHaveCount(1);
   await expect(owner.getByRole('button', { name: 'Take photo' })).toHaveCount(0);
   await expect(owner.getByRole('button', { name: 'Add photo' })).toHaveCount(0);

@@ -27,17 +27,25 @@ function Waiting({ what }: { what: string }) {
 
 export function UnitPhotos({ equipmentId }: { equipmentId: string }) {
   const [ref, near] = useNearScreen();
-  if (near) return <EquipmentPhotos equipmentId={equipmentId} />;
+  // The wrapper stays while its content swaps, so a spec (or a link) can scroll to it either way.
   return (
-    <div ref={ref}>
-      <Section id="photos-h" title="Photos">
-        <div className="min-h-24" />
-      </Section>
+    <div ref={ref} data-testid="unit-photos">
+      {near ? (
+        <EquipmentPhotos equipmentId={equipmentId} />
+      ) : (
+        <Section id="photos-h" title="Photos">
+          <div className="min-h-24" />
+        </Section>
+      )}
     </div>
   );
 }
 
 export function UnitReadingChart(props: { equipmentId: string; prefs: UnitPrefs; timeZone: string }) {
   const [ref, near] = useNearScreen();
-  return near ? <ReadingChart {...props} /> : <div ref={ref} className="min-h-24" />;
+  return (
+    <div ref={ref} className="min-h-24" data-testid="unit-readings">
+      {near ? <ReadingChart {...props} /> : null}
+    </div>
+  );
 }
