@@ -230,6 +230,18 @@ export function waitingWords(items: readonly OutboxItem[]): string | null {
   return `${list} waiting`;
 }
 
+/**
+ * The outbox banner's title: what waits, in words, and whether there is signal. A visit started
+ * without signal and nothing recorded yet waits only for its start, which the words leave out,
+ * so the title names the start rather than printing nothing.
+ */
+export function outboxTitle(online: boolean, unsent: readonly OutboxItem[]): string {
+  const starting = unsent.some((i) => i.type === 'start' && i.state !== 'refused');
+  const what = waitingWords(unsent) ?? (starting ? 'the visit’s start waiting' : null);
+  if (!online) return what ? `No signal: ${what}` : 'No signal';
+  return what ? `${what.charAt(0).toUpperCase()}${what.slice(1)} to be sent` : 'Work waiting to be sent';
+}
+
 /** A v4 uuid; crypto.randomUUID exists only in secure contexts, getRandomValues everywhere. */
 export function newClientId(): string {
   const c = globalThis.crypto;

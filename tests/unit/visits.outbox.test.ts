@@ -3,7 +3,7 @@
 // never dropped; the close waits until everything before it has reached the server.
 import 'fake-indexeddb/auto';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { nextSeq, outboxItems, phoneVisit, phoneVisitsAt, putItem, removeItem, startOnPhone, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
+import { nextSeq, outboxItems, phoneVisit, phoneVisitsAt, putItem, removeItem, startOnPhone, outboxTitle, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
 import { backoffMs, drainOutbox } from '@/lib/visits/outbox-sender';
 
 const visitId = '11111111-1111-4111-8111-111111111111';
@@ -110,6 +110,15 @@ describe('visit outbox', () => {
     const photo: OutboxItem = { ...entry(ids[3]!, 'p'), type: 'photo', equipmentId: unit, file: new Blob(['x']), fileName: 'plate.jpg', photoKind: 'nameplate', caption: null, uploadKey: ids[3]! } as OutboxItem;
     expect(waitingWords([entry(ids[0]!, 'a'), entry(ids[1]!, 'b'), entry(ids[2]!, 'c'), photo, close(ids[2]!)])).toBe('3 entries, 1 photo and the close waiting');
     expect(waitingWords([])).toBeNull();
+  });
+
+  it('titles the banner with what waits, naming a start that waits alone', () => {
+    const start = { id: 'aaaaaaaa-0000-4000-8000-000000000005', visitId, type: 'start', state: 'waiting' } as unknown as OutboxItem;
+    expect(outboxTitle(false, [start])).toBe('No signal: the visit’s start waiting');
+    expect(outboxTitle(false, [start, entry(ids[0]!, 'a')])).toBe('No signal: 1 entry waiting');
+    expect(outboxTitle(false, [])).toBe('No signal');
+    expect(outboxTitle(true, [entry(ids[0]!, 'a'), entry(ids[1]!, 'b')])).toBe('2 entries waiting to be sent');
+    expect(outboxTitle(true, [{ ...start, state: 'refused' } as OutboxItem])).toBe('Work waiting to be sent');
   });
 
   it('sends a visit started without signal first, and forgets the phone’s record of it once the server has it', async () => {

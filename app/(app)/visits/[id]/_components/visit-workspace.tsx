@@ -25,7 +25,7 @@ import type { VisitDetailDto } from '@/lib/visits/dto';
 import { useVisit, useVisitOutbox, type SaveOutcome } from '@/lib/visits/hooks';
 import { kindsFor } from '@/lib/visits/kinds';
 import type { EntryContext } from '@/lib/visits/kinds/types';
-import { newClientId, waitingWords, type OutboxItem } from '@/lib/visits/outbox';
+import { newClientId, outboxTitle, type OutboxItem } from '@/lib/visits/outbox';
 import { createEntrySchema, type CreateEntryInput } from '@/lib/visits/schemas';
 import { ENTRY_KINDS, entryKindLabels, type EntryKind } from '@/lib/visits/terms';
 import { CloseVisitPanel, stillMissing } from '@/app/(app)/visits/[id]/_components/close-visit-panel';
@@ -331,7 +331,7 @@ export function VisitWorkspace({
         </Alert>
       ) : null}
       {!online || waitingCount > 0 ? (
-        <Alert tone="warning" title={online ? `${capitalised(waitingWords(unsent) ?? 'Nothing')} to be sent` : `No signal${waitingCount > 0 ? `: ${waitingWords(unsent)}` : ''}`}>
+        <Alert tone="warning" title={outboxTitle(online, unsent)}>
           <p>
             {waitingCount > 0
               ? 'They are kept on this phone and sent as soon as there is a connection. Do not clear this browser’s data until they are sent.'
@@ -387,8 +387,6 @@ export function VisitWorkspace({
     </div>
   );
 }
-
-const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** An item still on the phone, as a row of the visit's entries. */
 function outboxRow(p: Exclude<OutboxItem, { type: 'close' | 'start' }>, names: Map<string, string>): Row {
