@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { clearMail } from '../helpers/mail';
-import { expectHome, signIn } from './helpers';
+import { expectHome, fillFields, signIn } from './helpers';
 
 test('an admin invites a technician, who follows the link from the mail inbox and signs in', async ({ page }) => {
   await clearMail();
@@ -24,13 +24,13 @@ test('an admin invites a technician, who follows the link from the mail inbox an
   await page.getByRole('button', { name: 'Sign out' }).click();
   await page.waitForURL(/\/sign-in/);
   await page.goto(link);
-  await page.getByLabel('Choose a password').fill('short');
-  await page.getByLabel('Repeat the password').fill('short');
-  await page.getByRole('button', { name: 'Create my account' }).click();
+  const createAccount = async (password: string) => {
+    await fillFields(page, { 'Choose a password': password, 'Repeat the password': password });
+    await page.getByRole('button', { name: 'Create my account' }).click();
+  };
+  await createAccount('short');
   await expect(page.getByText('Use at least 10 characters.')).toBeVisible();
-  await page.getByLabel('Choose a password').fill('rooftop-coil-7');
-  await page.getByLabel('Repeat the password').fill('rooftop-coil-7');
-  await page.getByRole('button', { name: 'Create my account' }).click();
+  await createAccount('rooftop-coil-7');
   await page.waitForURL(/\/sign-in/);
   await signIn(page, 'rhea@example.test', 'rooftop-coil-7');
   await expectHome(page, 'technician');

@@ -12,6 +12,11 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.waitForURL((url) => url.pathname === returnTo.split('?')[0]);
 }
 
+/** Fills labelled fields in order: label → text (a label matches as getByLabel's text does). */
+export async function fillFields(scope: Pick<Page, 'getByLabel'>, values: Record<string, string>): Promise<void> {
+  for (const [label, text] of Object.entries(values)) await scope.getByLabel(label).fill(text);
+}
+
 export async function shot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(screenshotDir, `${name}.png`), fullPage: true });
 }

@@ -31,22 +31,10 @@ async function mountainSite(request: APIRequestContext, label: string) {
     application: 'commercial_refrigeration',
     designBoxTempC: (-10 - 32) / 1.8,
   });
-  const unit = await api<{ id: string; name: string }>(request, 'POST', '/api/equipment', {
-    siteId: site.id,
-    systemId: system.id,
-    type: 'condensing_unit',
-    name: `Freezer condensing unit ${label}`,
-    make: 'Kelvrin',
-    nameplate: { voltage: 208, phase: '3' },
-  });
-  const control = await api<{ id: string; name: string }>(request, 'POST', '/api/equipment', {
-    siteId: site.id,
-    systemId: system.id,
-    type: 'pressure_control',
-    name: `Freezer low control ${label}`,
-    make: 'Kelvrin',
-    nameplate: { controlKind: 'low' },
-  });
+  const onCircuit = (type: string, name: string, nameplate: Record<string, unknown>) =>
+    api<{ id: string; name: string }>(request, 'POST', '/api/equipment', { siteId: site.id, systemId: system.id, type, name: `${name} ${label}`, make: 'Kelvrin', nameplate });
+  const unit = await onCircuit('condensing_unit', 'Freezer condensing unit', { voltage: 208, phase: '3' });
+  const control = await onCircuit('pressure_control', 'Freezer low control', { controlKind: 'low' });
   return { siteId: site.id, unit, control };
 }
 

@@ -255,6 +255,10 @@ test('the whole freezer no-cooling call from a scanned tag, taps counted @phone'
     typed += text.length;
     await l.fill(text);
   };
+  /** Each labelled field typed in order (labels matched exactly), counted like `type`. */
+  const typeAll = async (values: Record<string, string>) => {
+    for (const [label, text] of Object.entries(values)) await type(page.getByLabel(label, { exact: true }), text);
+  };
   const changeUnit = async (search: string, name: string) => {
     await tap(page.getByRole('button', { name: 'Change unit' }));
     await type(page.getByRole('searchbox', { name: /Find a unit/ }), search);
@@ -276,15 +280,17 @@ test('the whole freezer no-cooling call from a scanned tag, taps counted @phone'
 
   // Readings on the condensing unit.
   await kind('Readings');
-  await type(page.getByLabel('Suction pressure (psig)', { exact: true }), '4');
-  await type(page.getByLabel('Discharge pressure (psig)', { exact: true }), '180');
-  await type(page.getByLabel('Suction-line temperature (°F)', { exact: true }), '10');
-  await type(page.getByLabel('Liquid-line temperature (°F)', { exact: true }), '88');
-  await type(page.getByLabel('Box (return air) (°F)', { exact: true }), '28');
-  await type(page.getByLabel('Ambient (°F)', { exact: true }), '85');
-  await type(page.getByLabel('L1–L2 (V)', { exact: true }), '208');
-  await type(page.getByLabel('L2–L3 (V)', { exact: true }), '206');
-  await type(page.getByLabel('L1–L3 (V)', { exact: true }), '209');
+  await typeAll({
+    'Suction pressure (psig)': '4',
+    'Discharge pressure (psig)': '180',
+    'Suction-line temperature (°F)': '10',
+    'Liquid-line temperature (°F)': '88',
+    'Box (return air) (°F)': '28',
+    'Ambient (°F)': '85',
+    'L1–L2 (V)': '208',
+    'L2–L3 (V)': '206',
+    'L1–L3 (V)': '209',
+  });
   await tap(page.getByRole('button', { name: 'Save readings' }));
   await savedAs('Readings on Freezer condensing unit');
 
@@ -292,10 +298,7 @@ test('the whole freezer no-cooling call from a scanned tag, taps counted @phone'
   await changeUnit('dual', 'Freezer dual pressure control');
   await kind('Setting change');
   await tap(page.getByRole('button', { name: /^Same as recorded/ }));
-  await type(page.getByLabel('Low cut-in as left (psig)', { exact: true }), '8');
-  await type(page.getByLabel('Low differential as left (psi)', { exact: true }), '12');
-  await type(page.getByLabel('High cut-out as left (psig)', { exact: true }), '400');
-  await type(page.getByLabel('High differential as left (psi)', { exact: true }), '100');
+  await typeAll({ 'Low cut-in as left (psig)': '8', 'Low differential as left (psi)': '12', 'High cut-out as left (psig)': '400', 'High differential as left (psi)': '100' });
   await tap(page.getByRole('button', { name: 'Save setting change' }));
   await savedAs('Dual pressure control');
 

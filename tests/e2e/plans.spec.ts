@@ -4,7 +4,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { waitForMail } from '../helpers/mail';
 import { siteLike } from '../helpers/sites';
-import { apiAs, shot, signIn } from './helpers';
+import { apiAs, fillFields, shot, signIn } from './helpers';
 
 const base = process.env.APP_URL ?? 'http://localhost:3100';
 const ownerEmail = 'owner@client-one.test';
@@ -39,12 +39,10 @@ test('the office plans a visit from the due list and moves it; the technician st
   await expect(page.getByRole('checkbox', { name: systemName })).toBeChecked();
   await page.getByLabel('Technician', { exact: true }).selectOption({ label: 'Tomas Rivane' });
   // The window the wrong way round is refused in words, and nothing is planned.
-  await page.getByLabel('From (site time)').fill('11:00');
-  await page.getByLabel('To (site time)').fill('09:00');
+  await fillFields(page, { 'From (site time)': '11:00', 'To (site time)': '09:00' });
   await page.getByRole('button', { name: 'Plan this visit' }).click();
   await expect(page.getByText('The window must end after it starts.')).toBeVisible();
-  await page.getByLabel('From (site time)').fill('08:00');
-  await page.getByLabel('To (site time)').fill('10:00');
+  await fillFields(page, { 'From (site time)': '08:00', 'To (site time)': '10:00' });
   await shot(page, `plans-new-${info.project.name}`);
   await page.getByRole('button', { name: 'Plan this visit' }).click();
   await page.waitForURL(/\/plans\?week=/);

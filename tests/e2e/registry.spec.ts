@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { shot, signIn } from './helpers';
+import { fillFields, shot, signIn } from './helpers';
 
 // The equipment registry from the office's side: a new system at a demo site, its equipment with
 // nameplate data in imperial units, relations read from both ends, and the table's serial search.
@@ -78,27 +78,26 @@ test('the office registers a system with related equipment and finds the unit by
   });
   await expect(page.getByText(serial)).toBeVisible();
   const evap1 = await register(page, systemUrl, 'Evaporator / unit cooler', 'Evaporator 1', async (p) => {
-    await p.getByLabel('Make').fill('Frostwell');
-    await p.getByLabel('Fans').fill('2');
+    await fillFields(p, { Make: 'Frostwell', Fans: '2' });
     await p.getByLabel('Defrost', { exact: true }).selectOption('off_cycle');
   });
   const evap2 = await register(page, systemUrl, 'Evaporator / unit cooler', 'Evaporator 2', async (p) => {
-    await p.getByLabel('Make').fill('Frostwell');
-    await p.getByLabel('Fans').fill('2');
+    await fillFields(p, { Make: 'Frostwell', Fans: '2' });
   });
   const control = await register(page, systemUrl, 'Pressure control', 'Dual pressure control', async (p) => {
     await p.getByLabel('Kind').selectOption('dual');
-    await p.getByLabel('Low side: cut-in (current setting) (psig)').fill('22');
-    await p.getByLabel('Low side: differential (psi)').fill('15');
-    await p.getByLabel('High side: cut-out (current setting) (psig)').fill('400');
-    await p.getByLabel('High side: differential (psi)').fill('100');
+    await fillFields(p, {
+      'Low side: cut-in (current setting) (psig)': '22',
+      'Low side: differential (psi)': '15',
+      'High side: cut-out (current setting) (psig)': '400',
+      'High side: differential (psi)': '100',
+    });
   });
   // In the header's current settings and in the nameplate.
   await expect(page.getByText('22 psig').first()).toBeVisible();
   await expect(page.getByTestId('current-settings').getByRole('row').filter({ hasText: 'Low side' }).getByRole('cell')).toHaveText(['22 psig', '7 psig', '15 psi']);
   const thermostat = await register(page, systemUrl, 'Thermostat / temperature control', 'Box thermostat', async (p) => {
-    await p.getByLabel('Setpoint (current setting) (°F)').fill('36');
-    await p.getByLabel('Differential (°F)').fill('4');
+    await fillFields(p, { 'Setpoint (current setting) (°F)': '36', 'Differential (°F)': '4' });
   });
   const solenoid = await register(page, systemUrl, 'Solenoid valve', 'Liquid-line solenoid', async (p) => {
     await p.getByLabel('Coil voltage (V)').fill('24');
