@@ -12,6 +12,7 @@ import type { EquipmentStatus, EquipmentType } from '@/lib/equipment/types';
 import type { AreaDto } from '@/lib/sites/dto';
 import { siteKeys } from '@/lib/sites/hooks';
 import { systemKeys } from '@/lib/systems/keys';
+import { equipmentKeys } from '@/lib/equipment/keys';
 
 /** What the equipment table asks the API for; also what its URL carries. */
 export interface EquipmentListFilters {
@@ -29,12 +30,6 @@ export interface EquipmentListFilters {
   dir: 'asc' | 'desc';
 }
 
-export const equipmentKeys = {
-  all: ['equipment'] as const,
-  lists: () => ['equipment', 'list'] as const,
-  list: (filters: EquipmentListFilters | Record<string, unknown>) => ['equipment', 'list', filters] as const,
-  detail: (id: string) => ['equipment', 'detail', id] as const,
-};
 
 /** Query string for GET /api/equipment and its CSV export (repeated keys for several values). */
 export function equipmentSearchParams(filters: Partial<EquipmentListFilters>): URLSearchParams {

@@ -1,6 +1,6 @@
 'use client';
 
-import { equipmentKeys } from '@/lib/equipment/hooks';
+import { equipmentKeys } from '@/lib/equipment/keys';
 import { archiveRecord, saveRecord, useChange } from '@/lib/mutations';
 import type { SystemDto } from '@/lib/systems/dto';
 import { systemKeys } from '@/lib/systems/keys';

@@ -5,15 +5,9 @@ import { apiFetch } from '@/lib/api/client';
 import { saveRecord, useChange } from '@/lib/mutations';
 import type { AttachResultDto, EquipmentTagInfoDto, LabelLayoutDto, PrintRunDto, ScanResultDto, TagDto } from '@/lib/tags/dto';
 import type { AttachTagInput, CreatePrintRunInput, RetireTagInput, ScanVia } from '@/lib/tags/schemas';
-import { equipmentKeys } from '@/lib/equipment/hooks';
+import { equipmentKeys } from '@/lib/equipment/keys';
+import { tagKeys } from '@/lib/tags/keys';
 
-export const tagKeys = {
-  all: ['tags'] as const,
-  layouts: () => ['tags', 'layouts'] as const,
-  runs: () => ['tags', 'print-runs'] as const,
-  run: (id: string) => ['tags', 'print-runs', id] as const,
-  equipment: (equipmentId: string) => ['tags', 'equipment', equipmentId] as const,
-};
 
 export function useLabelLayouts() {
   return useQuery({ queryKey: tagKeys.layouts(), queryFn: ({ signal }) => apiFetch<LabelLayoutDto[]>('/api/tags/layouts', { signal }) });

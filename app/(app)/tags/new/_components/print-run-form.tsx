@@ -16,7 +16,8 @@ import { useSiteEquipment } from '@/lib/equipment/hooks';
 import { equipmentTypeLabels } from '@/lib/equipment/types';
 import { formatCode } from '@/lib/tags/code';
 import type { LabelLayoutDto } from '@/lib/tags/dto';
-import { tagKeys, useCreatePrintRun } from '@/lib/tags/hooks';
+import { useCreatePrintRun } from '@/lib/tags/hooks';
+import { tagKeys } from '@/lib/tags/keys';
 import { createPrintRunSchema, MAX_LABELS_PER_RUN, type CreatePrintRunInput } from '@/lib/tags/schemas';
 
 interface Initial {
