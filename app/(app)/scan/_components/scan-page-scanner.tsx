@@ -9,7 +9,11 @@ import { OFFLINE_UNIT_PATH } from '@/lib/offline/cache-names';
 import { openTagCode } from '@/lib/offline/open-unit';
 
 // Only shown without signal, so its script waits until then (the service worker keeps a copy).
-const OfflineUnitView = dynamic(() => import('@/app/(app)/offline/unit/_components/offline-unit-view').then((m) => m.OfflineUnitView));
+// It brings the query provider with it: its start-visit form saves through the query library,
+// which the Scan page itself ships without (DEVELOPERS.md, "Phone pages").
+const OfflineUnitView = dynamic(() =>
+  Promise.all([import('@/app/(app)/offline/unit/_components/offline-unit-view'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.OfflineUnitView)),
+);
 
 /**
  * The Scan page's scanner: a code read opens what the tag leads to (and is logged there); without
