@@ -2,7 +2,8 @@
 
 import dynamic from 'next/dynamic';
 import { useRouter } from 'next/navigation';
-import { useCallback, useEffect, useState } from 'react';
+import { useCallback, useEffect, useState, type ComponentProps } from 'react';
+import type { OfflineUnitView as OfflineUnit } from '@/app/(app)/offline/unit/_components/offline-unit-view';
 import { TagScanner } from '@/components/tags/tag-scanner';
 import { PageHeader } from '@/components/ui/card';
 import { OFFLINE_UNIT_PATH } from '@/lib/offline/cache-names';
@@ -12,7 +13,7 @@ import { openTagCode } from '@/lib/offline/open-unit';
 // It brings the query provider with it: its start-visit form saves through the query library,
 // which the Scan page itself ships without (DEVELOPERS.md, "Phone pages").
 const OfflineUnitView = dynamic(() =>
-  Promise.all([import('@/app/(app)/offline/unit/_components/offline-unit-view'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.OfflineUnitView)),
+  Promise.all([import('@/app/(app)/offline/unit/_components/offline-unit-view'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider<NonNullable<ComponentProps<typeof OfflineUnit>>>(m.OfflineUnitView)),
 );
 
 /**
