@@ -12,7 +12,16 @@ function forgetS3Client(): void {
   delete (globalThis as { rimelineS3?: unknown }).rimelineS3;
 }
 
-export async function openPrivateObjectStore(bucket: string): Promise<{ store: TestObjectStore; close: () => Promise<void> }> {
+export interface PrivateObjectStore {
+  store: TestObjectStore;
+  /** Starts the store (again: a test may stop it) and makes its bucket. */
+  start: () => Promise<void>;
+  /** Deletes every object, so a test starts from an empty bucket. */
+  empty: () => Promise<void>;
+  close: () => Promise<void>;
+}
+
+export async function openPrivateObjectStore(bucket: string): Promise<PrivateObjectStore> {
   const directory = mkdtempSync(path.join(tmpdir(), `rimeline-${bucket}-s3-`));
   const store = await openTestObjectStore(directory);
   const previous = Object.fromEntries(KEYS.map((k) => [k, process.env[k]]));
@@ -20,8 +29,17 @@ export async function openPrivateObjectStore(bucket: string): Promise<{ store: T
   process.env.S3_BUCKET = bucket;
   process.env.S3_FORCE_PATH_STYLE = 'true';
   forgetS3Client();
+  // The storage module is imported on call: by then the app reads this store's address.
   return {
     store,
+    async start() {
+      await store.start();
+      await (await import('@/storage/objects')).ensureBucket();
+    },
+    async empty() {
+      const { deleteObject, listObjects } = await import('@/storage/objects');
+      for (const o of await listObjects('')) await deleteObject(o.key);
+    },
     async close() {
       await store.close();
       rmSync(directory, { recursive: true, force: true });

@@ -5,13 +5,13 @@ import { NextRequest } from 'next/server';
 import sharp from 'sharp';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
-import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createOtherCompany, createTestDb, demoActors, resetToDemo } from '@/tests/helpers/db';
 import { cameraImage, gifImage, hasLocation, heicHeader, isRed, pixelAt, pngBomb, readBack } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
 // A private object store on a port of its own (port 0 behind a front that stays put while the
 // store stops and starts), set before any app module reads the environment.
-const { store, close: closeStore } = await vi.hoisted(async () =>
+const { store, start: startStore, empty: emptyStore, close: closeStore } = await vi.hoisted(async () =>
   (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-api-test'),
 );
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -19,15 +19,8 @@ vi.mock('@/lib/auth', () => mockAuthModule());
 const { GET: listRoute, POST: uploadRoute } = await import('@/app/api/equipment/[id]/photos/route');
 const { GET: getRoute, PATCH: patchRoute, DELETE: deleteRoute } = await import('@/app/api/photos/[id]/route');
 const { GET: fileRoute } = await import('@/app/api/photos/[id]/[variant]/route');
-const { deleteObject, ensureBucket, listObjects } = await import('@/storage/objects');
+const { listObjects } = await import('@/storage/objects');
 
-async function startStore(): Promise<void> {
-  await store.start();
-  await ensureBucket();
-}
-async function stopStore(): Promise<void> {
-  await store.stop();
-}
 
 const db = createTestDb();
 let tech: Actor;
@@ -60,12 +53,8 @@ afterAll(async () => {
 });
 beforeEach(async () => {
   await resetToDemo(db);
-  for (const o of await listObjects('')) await deleteObject(o.key);
-  tech = await actorFor(db, demoEmails.technician);
-  office = await actorFor(db, demoEmails.office);
-  admin = await actorFor(db, demoEmails.admin);
-  clientOne = await actorFor(db, demoEmails.client);
-  clientTwo = await actorFor(db, demoEmails.clientTwo);
+  await emptyStore();
+  ({ technician: tech, office, admin, client: clientOne, clientTwo } = await demoActors(db));
   companyId = tech.companyId;
   equipmentOne = await newEquipment('Marrowgate Eatery Group', 'Walk-in condensing unit');
   equipmentTwo = await newEquipment('Tidewell Family Grocers', 'Produce case condensing unit');
@@ -358,7 +347,7 @@ describe('object store outage', () => {
     const bytes = await cameraImage({ gps: true });
     const before = await upload(equipmentOne, form({ kind: 'general' }, { bytes }));
     const id = (before.body as PhotoBody).id;
-    await stopStore();
+    await store.stop();
     try {
       const failed = await upload(equipmentOne, form({ kind: 'damage' }, { bytes }));
       expect(failed.status).toBe(503);

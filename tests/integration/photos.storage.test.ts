@@ -8,11 +8,11 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import type { StorageReportDto, StorageRepairDto } from '@/lib/photos/dto';
-import { actorFor, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { createTestDb, demoActors, resetToDemo } from '@/tests/helpers/db';
 import { cameraImage } from '@/tests/helpers/photo-images';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const { store, close: closeStore } = await vi.hoisted(async () =>
+const { start: startStore, empty: emptyStore, close: closeStore } = await vi.hoisted(async () =>
   (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-storage-test'),
 );
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -21,7 +21,7 @@ const { uploadPhoto } = await import('@/lib/photos/service');
 const { inspectPhotoStorage, repairPhotoStorage } = await import('@/lib/photos/consistency');
 const { GET: checkRoute } = await import('@/app/api/photos/consistency/route');
 const { POST: repairRoute } = await import('@/app/api/photos/consistency/repair/route');
-const { deleteObject, ensureBucket, getObjectBytes, listObjects, objectKey, putObject } = await import('@/storage/objects');
+const { deleteObject, getObjectBytes, listObjects, objectKey, putObject } = await import('@/storage/objects');
 
 const db = createTestDb();
 let tech: Actor;
@@ -30,8 +30,7 @@ let equipmentId: string;
 const later = () => new Date(Date.now() + 20 * 60_000);
 
 beforeAll(async () => {
-  await store.start();
-  await ensureBucket();
+  await startStore();
 });
 afterAll(async () => {
   await closeStore();
@@ -39,9 +38,8 @@ afterAll(async () => {
 });
 beforeEach(async () => {
   await resetToDemo(db);
-  for (const o of await listObjects('')) await deleteObject(o.key);
-  tech = await actorFor(db, demoEmails.technician);
-  admin = await actorFor(db, demoEmails.admin);
+  await emptyStore();
+  ({ technician: tech, admin } = await demoActors(db));
   const site = await db.selectFrom('sites').select(['id', 'company_id']).orderBy('name').executeTakeFirstOrThrow();
   equipmentId = (await db.insertInto('equipment').values({ company_id: site.company_id, site_id: site.id, type: 'evaporator', name: 'Unit cooler A' }).returning('id').executeTakeFirstOrThrow()).id;
 });

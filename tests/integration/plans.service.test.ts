@@ -12,7 +12,7 @@ import { createPlanSchema, movePlanSchema } from '@/lib/plans/schemas';
 import { officeToday, plansForTechnician } from '@/lib/plans/scheduling';
 import { cancelPlan, createPlan, getPlan, listPlans, movePlan, upcomingPlansForSite } from '@/lib/plans/service';
 import { startVisit } from '@/lib/visits/service';
-import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createOtherCompany, createTestDb, demoActors, demoEmails, resetToDemo } from '@/tests/helpers/db';
 
 const db = createTestDb();
 let office: Actor;
@@ -39,10 +39,7 @@ async function outboxFor(kind: string): Promise<{ to_addresses: string[]; subjec
 
 beforeAll(async () => {
   await resetToDemo(db);
-  office = await actorFor(db, demoEmails.office);
-  tech = await actorFor(db, demoEmails.technician);
-  owner = await actorFor(db, demoEmails.client);
-  ownerTwo = await actorFor(db, demoEmails.clientTwo);
+  ({ office, technician: tech, client: owner, clientTwo: ownerTwo } = await demoActors(db));
   await db.insertInto('users').values({ company_id: office.companyId, email: 'second-tech@example.test', name: 'Second Technician', role: 'technician' }).execute();
   otherTech = await actorFor(db, 'second-tech@example.test');
   const other = await createOtherCompany(db);

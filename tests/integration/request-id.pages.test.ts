@@ -3,8 +3,8 @@
 // The scope is made here with Next's own store constructor and storage, as `next start` makes it
 // for a page render or an action, so a Next upgrade that moves them fails this file.
 import { AsyncLocalStorage } from 'node:async_hooks';
-import { Writable } from 'node:stream';
 import { describe, expect, it, vi } from 'vitest';
+import { captureLog, overlapping } from '@/tests/helpers/log-capture';
 
 // What Next's server does first thing (node-environment-baseline): its storages need this global.
 (globalThis as { AsyncLocalStorage?: unknown }).AsyncLocalStorage ??= AsyncLocalStorage;
@@ -13,19 +13,7 @@ const { NextRequest } = await import('next/server');
 const { workUnitAsyncStorage } = await import('next/dist/server/app-render/work-unit-async-storage.external');
 const { createRequestStore } = await import('next/dist/server/async-storage/request-store');
 const { proxy } = await import('@/proxy');
-const { createLogger } = await import('@/lib/logger');
 const { runWithRequestId } = await import('@/lib/request-context');
-
-function capture() {
-  const lines: Record<string, unknown>[] = [];
-  const stream = new Writable({
-    write(chunk: Buffer, _enc, done) {
-      for (const line of chunk.toString().split('\n').filter(Boolean)) lines.push(JSON.parse(line) as Record<string, unknown>);
-      done();
-    },
-  });
-  return { lines, log: createLogger(stream) };
-}
 
 /** The request headers the page receives after the proxy: Next applies its x-middleware-request-* overrides. */
 function headersAfterProxy(path: string, incoming: Record<string, string> = {}): { headers: Record<string, string>; responseId: string | null } {
@@ -59,7 +47,7 @@ function inNextRequest<T>(phase: 'render' | 'action', headers: Record<string, st
 
 describe('log lines of pages and server actions', () => {
   it('carry the id the proxy kept, and a page response says the same id', async () => {
-    const { lines, log } = capture();
+    const { lines, log } = await captureLog();
     const { headers, responseId } = headersAfterProxy('/clients', { 'x-request-id': 'page-request-0001' });
     expect(responseId).toBe('page-request-0001');
     await inNextRequest('render', headers, async () => {
@@ -75,7 +63,7 @@ describe('log lines of pages and server actions', () => {
   });
 
   it('carry the id the proxy made when the request came without one (a server action post)', async () => {
-    const { lines, log } = capture();
+    const { lines, log } = await captureLog();
     const { headers, responseId } = headersAfterProxy('/settings');
     const made = headers['x-request-id'];
     expect(made).toMatch(/^[0-9a-f-]{36}$/);
@@ -85,24 +73,23 @@ describe('log lines of pages and server actions', () => {
   });
 
   it('keep two requests apart', async () => {
-    const { lines, log } = capture();
-    let release!: () => void;
-    const gate = new Promise<void>((r) => (release = r));
-    const first = inNextRequest('render', { 'x-request-id': 'first-page-01' }, async () => {
-      await gate;
-      log.info('first');
-    });
-    await inNextRequest('action', { 'x-request-id': 'second-action' }, async () => log.info('second'));
-    release();
-    await first;
+    const { lines, log } = await captureLog();
+    await overlapping(
+      (held) =>
+        inNextRequest('render', { 'x-request-id': 'first-page-01' }, async () => {
+          await held;
+          log.info('first');
+        }),
+      () => inNextRequest('action', { 'x-request-id': 'second-action' }, async () => log.info('second')),
+    );
     expect(lines.map((l) => [l.msg, l.reqId])).toEqual([
       ['second', 'second-action'],
       ['first', 'first-page-01'],
     ]);
   });
 
-  it('never log a malformed header as an id, and an id set by withApi or a job wins', () => {
-    const { lines, log } = capture();
+  it('never log a malformed header as an id, and an id set by withApi or a job wins', async () => {
+    const { lines, log } = await captureLog();
     inNextRequest('render', { 'x-request-id': 'bad id\n{"reqId":"forged"}' }, () => log.info('malformed'));
     inNextRequest('render', { 'x-request-id': 'from-the-page-1' }, () => runWithRequestId('from-withapi-1', () => log.info('route')));
     log.info('outside any request');
@@ -113,8 +100,8 @@ describe('log lines of pages and server actions', () => {
     ]);
   });
 
-  it('say none in a scope that is not a live request (a prerender has no request id)', () => {
-    const { lines, log } = capture();
+  it('say none in a scope that is not a live request (a prerender has no request id)', async () => {
+    const { lines, log } = await captureLog();
     workUnitAsyncStorage.run({ type: 'prerender-legacy', headers: new Headers({ 'x-request-id': 'prerender-id-01' }) } as never, () => log.info('prerendering'));
     expect(lines.map((l) => l.reqId)).toEqual(['none']);
   });

@@ -1,31 +1,19 @@
 // Request ids: the proxy keeps a well-formed incoming x-request-id and replaces anything else,
 // passes it on to the handler and returns it; withApi puts it on every response (errors too)
 // and on every log line written while the request is handled, including work it starts.
-import { Writable } from 'node:stream';
 import { NextRequest } from 'next/server';
 import { describe, expect, it, vi } from 'vitest';
 import { isWellFormedRequestId, requestIdFrom } from '@/lib/api/request-id';
+import { captureLog, overlapping } from '@/tests/helpers/log-capture';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const { proxy } = await import('@/proxy');
 const { withApi } = await import('@/lib/api/handler');
-const { createLogger } = await import('@/lib/logger');
 const { currentRequestId, runWithRequestId } = await import('@/lib/request-context');
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/;
-
-function capture() {
-  const lines: Record<string, unknown>[] = [];
-  const stream = new Writable({
-    write(chunk: Buffer, _enc, done) {
-      for (const line of chunk.toString().split('\n').filter(Boolean)) lines.push(JSON.parse(line) as Record<string, unknown>);
-      done();
-    },
-  });
-  return { lines, log: createLogger(stream) };
-}
 
 describe('well-formed request ids', () => {
   it('accepts 8–128 letters, digits and . _ : - and nothing else', () => {
@@ -70,7 +58,7 @@ describe('the proxy', () => {
 
 describe('withApi', () => {
   it('tags every log line written during the request, and the response, with the request id', async () => {
-    const { lines, log } = capture();
+    const { lines, log } = await captureLog();
     const route = withApi({}, async () => {
       log.info('inside the handler');
       // Work started by the request and finished later keeps the id.
@@ -114,27 +102,30 @@ describe('withApi', () => {
   });
 
   it('two requests at once keep their own ids', async () => {
-    const { lines, log } = capture();
+    const { lines, log } = await captureLog();
     session.actor = { id: 'u1' } as never;
-    let release!: () => void;
-    const gate = new Promise<void>((r) => (release = r));
+    let firstHeld: Promise<void> | undefined;
     const route = withApi({}, async ({ req }) => {
-      if (req.headers.get('x-request-id') === 'first-request') await gate;
+      if (req.headers.get('x-request-id') === 'first-request') await firstHeld;
       log.info(req.headers.get('x-request-id')!);
       return null;
     });
-    const first = route(new NextRequest('http://localhost/api/x', { headers: { 'x-request-id': 'first-request' } }), { params: Promise.resolve({}) });
-    await route(new NextRequest('http://localhost/api/x', { headers: { 'x-request-id': 'second-request' } }), { params: Promise.resolve({}) });
-    release();
-    await first;
+    const send = (id: string) => route(new NextRequest('http://localhost/api/x', { headers: { 'x-request-id': id } }), { params: Promise.resolve({}) });
+    await overlapping(
+      (held) => {
+        firstHeld = held;
+        return send('first-request');
+      },
+      () => send('second-request'),
+    );
     expect(lines.map((l) => [l.msg, l.reqId])).toEqual([
       ['second-request', 'second-request'],
       ['first-request', 'first-request'],
     ]);
   });
 
-  it('lines outside any request say none; a background job has its own id', () => {
-    const { lines, log } = capture();
+  it('lines outside any request say none; a background job has its own id', async () => {
+    const { lines, log } = await captureLog();
     log.info('at start-up');
     runWithRequestId('job-1234-abcd', () => log.info('outbox pass'));
     expect(lines.map((l) => l.reqId)).toEqual(['none', 'job-1234-abcd']);

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import { isValidCode } from '@/lib/tags/code';
-import { actorFor, createOtherCompany, createTestDb, demoEmails, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createOtherCompany, createTestDb, demoActors, resetToDemo } from '@/tests/helpers/db';
 import { call, mockAuthModule, session } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -25,10 +25,7 @@ beforeAll(async () => {
 });
 beforeEach(async () => {
   await resetToDemo(db);
-  office = await actorFor(db, demoEmails.office);
-  tech = await actorFor(db, demoEmails.technician);
-  owner = await actorFor(db, demoEmails.client);
-  ownerTwo = await actorFor(db, demoEmails.clientTwo);
+  ({ office, technician: tech, client: owner, clientTwo: ownerTwo } = await demoActors(db));
   siteId = (await db.selectFrom('sites').select('id').where('name', '=', 'Pell Street Kitchen').executeTakeFirstOrThrow()).id;
   session.actor = null;
 });
