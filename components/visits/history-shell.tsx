@@ -2,6 +2,7 @@
 
 import { SlidersHorizontal } from 'lucide-react';
 import { useState, type ComponentType, type ReactNode } from 'react';
+import { loadWithQuery } from '@/components/query/lazy-with-query';
 import { Button } from '@/components/ui/button';
 import { FilterChip } from '@/components/ui/filter-chip';
 import { OlderEntries } from '@/components/visits/older-entries';
@@ -53,8 +54,8 @@ export function HistoryShell({
     setLoadFailed(false);
     if (HistoryPages) return;
     // With its query provider: a unit's page has none until the list goes live (DEVELOPERS.md, "Phone pages").
-    Promise.all([import('@/components/visits/history-pages'), import('@/components/query/query-provider')])
-      .then(([m, q]) => setHistoryPages(() => q.withQueryProvider(m.HistoryPages)))
+    loadWithQuery(async () => (await import('@/components/visits/history-pages')).HistoryPages)
+      .then((Loaded) => setHistoryPages(() => Loaded))
       .catch(() => setLoadFailed(true));
   }
 

@@ -1,9 +1,8 @@
 'use client';
 
-import dynamic from 'next/dynamic';
 import { useRouter } from 'next/navigation';
-import { useCallback, useEffect, useState, type ComponentProps } from 'react';
-import type { OfflineUnitView as OfflineUnit } from '@/app/(app)/offline/unit/_components/offline-unit-view';
+import { useCallback, useEffect, useState } from 'react';
+import { lazyWithQuery } from '@/components/query/lazy-with-query';
 import { TagScanner } from '@/components/tags/tag-scanner';
 import { PageHeader } from '@/components/ui/card';
 import { OFFLINE_UNIT_PATH } from '@/lib/offline/cache-names';
@@ -12,9 +11,7 @@ import { openTagCode } from '@/lib/offline/open-unit';
 // Only shown without signal, so its script waits until then (the service worker keeps a copy).
 // It brings the query provider with it: its start-visit form saves through the query library,
 // which the Scan page itself ships without (DEVELOPERS.md, "Phone pages").
-const OfflineUnitView = dynamic(() =>
-  Promise.all([import('@/app/(app)/offline/unit/_components/offline-unit-view'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider<NonNullable<ComponentProps<typeof OfflineUnit>>>(m.OfflineUnitView)),
-);
+const OfflineUnitView = lazyWithQuery(async () => (await import('@/app/(app)/offline/unit/_components/offline-unit-view')).OfflineUnitView);
 
 /**
  * The Scan page's scanner: a code read opens what the tag leads to (and is logged there); without

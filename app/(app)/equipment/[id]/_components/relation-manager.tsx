@@ -1,10 +1,10 @@
 'use client';
 
 import { Unlink } from 'lucide-react';
-import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { useState } from 'react';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
+import { lazyWithQuery } from '@/components/query/lazy-with-query';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
@@ -16,20 +16,13 @@ import type { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types
 
 // Loaded when "Change connections" opens (its form library, schemas and the query provider it
 // needs are not needed before).
-const AddRelationForm = dynamic(
-  () =>
-    Promise.all([import('@/app/(app)/equipment/[id]/_components/add-relation-form'), import('@/components/query/query-provider')]).then(([m, q]) =>
-      q.withQueryProvider(m.AddRelationForm),
-    ),
-  {
-    ssr: false,
-    loading: () => (
-      <p role="status" className="p-4 text-slate-600">
-        Loading the form…
-      </p>
-    ),
-  },
-);
+const AddRelationForm = lazyWithQuery(async () => (await import('@/app/(app)/equipment/[id]/_components/add-relation-form')).AddRelationForm, {
+  loading: () => (
+    <p role="status" className="p-4 text-slate-600">
+      Loading the form…
+    </p>
+  ),
+});
 
 /** The words for relations and types come from the page: their module would bring the whole
  * service-life table (lib/calc) into the unit page's first scripts. */

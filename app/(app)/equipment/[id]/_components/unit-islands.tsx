@@ -1,6 +1,6 @@
 'use client';
 
-import dynamic from 'next/dynamic';
+import { lazyWithQuery } from '@/components/query/lazy-with-query';
 import { Section } from '@/components/ui/section';
 import { useNearScreen } from '@/components/ui/use-near-screen';
 import type { UnitPrefs } from '@/lib/units/quantities';
@@ -8,14 +8,12 @@ import type { UnitPrefs } from '@/lib/units/quantities';
 // The photos and the readings chart sit below a phone's first screen and fetch in the browser:
 // their scripts, the query library and its provider load when they come near the screen, so a
 // scanned unit's first load carries none of them (DEVELOPERS.md, "Phone pages").
-const EquipmentPhotos = dynamic(
-  () => Promise.all([import('@/components/photos/equipment-photos'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.EquipmentPhotos)),
-  { ssr: false, loading: () => <Waiting what="photos" /> },
-);
-const ReadingChart = dynamic(
-  () => Promise.all([import('@/components/visits/reading-chart'), import('@/components/query/query-provider')]).then(([m, q]) => q.withQueryProvider(m.ReadingChart)),
-  { ssr: false, loading: () => <Waiting what="readings" /> },
-);
+const EquipmentPhotos = lazyWithQuery(async () => (await import('@/components/photos/equipment-photos')).EquipmentPhotos, {
+  loading: () => <Waiting what="photos" />,
+});
+const ReadingChart = lazyWithQuery(async () => (await import('@/components/visits/reading-chart')).ReadingChart, {
+  loading: () => <Waiting what="readings" />,
+});
 
 function Waiting({ what }: { what: string }) {
   return (
