@@ -7,12 +7,12 @@ import { useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/field';
-import { ApiError, apiFetch } from '@/lib/api/client';
+import { ApiError } from '@/lib/api/client';
 import { equipmentKeys } from '@/lib/equipment/keys';
 import { invalidateQueries } from '@/lib/query/invalidate';
 import { formatCode } from '@/lib/tags/code';
-import type { AttachResultDto } from '@/lib/tags/dto';
 import { tagKeys } from '@/lib/tags/keys';
+import { attachTag, retireTag } from '@/lib/tags/requests';
 import type { AttachTagInput, RetireTagInput } from '@/lib/tags/schemas';
 
 // Typing a new code is the rarer path: its field loads when "Attach" or "Replace" is chosen.
@@ -37,7 +37,7 @@ export function TagActions({ equipmentId, currentCode }: { equipmentId: string; 
     setPending('attach');
     try {
       const input: AttachTagInput = { equipmentId };
-      const result = await apiFetch<AttachResultDto>(`/api/tags/${code}/attach`, { method: 'POST', json: input });
+      const result = await attachTag(code, input);
       void invalidateQueries(tagKeys.all, equipmentKeys.all);
       setDone(result.replaced ? `Tag ${formatCode(code)} attached; ${formatCode(result.replaced.code)} is retired.` : `Tag ${formatCode(code)} attached.`);
       setMode('idle');
@@ -55,7 +55,7 @@ export function TagActions({ equipmentId, currentCode }: { equipmentId: string; 
     setPending('retire');
     try {
       const input: RetireTagInput = { reason };
-      await apiFetch(`/api/tags/${currentCode}/retire`, { method: 'POST', json: input });
+      await retireTag(currentCode, input);
       void invalidateQueries(tagKeys.all);
       setDone(`Tag ${formatCode(currentCode)} retired.`);
       setMode('idle');

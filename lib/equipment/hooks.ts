@@ -5,7 +5,7 @@ import { apiFetch } from '@/lib/api/client';
 import { saveRecord, useChange } from '@/lib/mutations';
 import type { Page } from '@/lib/api/cursor';
 import type { RefrigerantId } from '@/lib/calc/refrigerants';
-import type { EquipmentDetailDto, EquipmentDto, RelationDto } from '@/lib/equipment/dto';
+import type { EquipmentDetailDto, EquipmentDto } from '@/lib/equipment/dto';
 import type { ImportPreview } from '@/lib/equipment/import';
 import type { CreateEquipmentInput, CreateRelationInput, EquipmentSort, UpdateEquipmentInput } from '@/lib/equipment/schemas';
 import type { EquipmentStatus, EquipmentType } from '@/lib/equipment/types';
@@ -13,6 +13,7 @@ import type { AreaDto } from '@/lib/sites/dto';
 import { siteKeys } from '@/lib/sites/hooks';
 import { systemKeys } from '@/lib/systems/keys';
 import { equipmentKeys } from '@/lib/equipment/keys';
+import { addRelation } from '@/lib/equipment/requests';
 
 /** What the equipment table asks the API for; also what its URL carries. */
 export interface EquipmentListFilters {
@@ -88,16 +89,8 @@ export function useSaveEquipment(id?: string) {
   return useChange((input: CreateEquipmentInput | UpdateEquipmentInput) => saveRecord<EquipmentDetailDto>('/api/equipment', id, input), equipmentKeys.all, systemKeys.all);
 }
 
-export function useDeleteEquipment(id: string) {
-  return useChange<void, void>(() => apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' }), equipmentKeys.all, systemKeys.all);
-}
-
 export function useAddRelation(id: string) {
-  return useChange((input: CreateRelationInput) => apiFetch<Page<RelationDto>>(`/api/equipment/${id}/relations`, { method: 'POST', json: input }), equipmentKeys.all);
-}
-
-export function useRemoveRelation(id: string) {
-  return useChange((relationId: string) => apiFetch<void>(`/api/equipment/${id}/relations/${relationId}`, { method: 'DELETE' }), equipmentKeys.all);
+  return useChange((input: CreateRelationInput) => addRelation(id, input), equipmentKeys.all);
 }
 
 /** CSV import: a preview first ({ commit: false }), then the same file with { commit: true }. */

@@ -2,8 +2,6 @@
 // (a scanned unit's page) can mark them stale through lib/query/invalidate.
 export const tagKeys = {
   all: ['tags'] as const,
-  layouts: () => ['tags', 'layouts'] as const,
   runs: () => ['tags', 'print-runs'] as const,
   run: (id: string) => ['tags', 'print-runs', id] as const,
-  equipment: (equipmentId: string) => ['tags', 'equipment', equipmentId] as const,
 };

@@ -4,8 +4,9 @@ import { Trash2 } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { ApiError, apiFetch } from '@/lib/api/client';
+import { ApiError } from '@/lib/api/client';
 import { equipmentKeys } from '@/lib/equipment/keys';
+import { deleteEquipment } from '@/lib/equipment/requests';
 import { invalidateQueries } from '@/lib/query/invalidate';
 import { systemKeys } from '@/lib/systems/keys';
 
@@ -24,7 +25,7 @@ export function DeleteEquipmentButton({ id, name, siteId }: { id: string; name: 
           setError(undefined);
           setPending(true);
           try {
-            await apiFetch<void>(`/api/equipment/${id}`, { method: 'DELETE' });
+            await deleteEquipment(id);
             await invalidateQueries(equipmentKeys.all, systemKeys.all);
             router.push(`/sites/${siteId}`);
             router.refresh();

@@ -8,9 +8,10 @@ import { lazyWithQuery } from '@/components/query/lazy-with-query';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/card';
-import { ApiError, apiFetch } from '@/lib/api/client';
+import { ApiError } from '@/lib/api/client';
 import type { RelationDto } from '@/lib/equipment/dto';
 import { equipmentKeys } from '@/lib/equipment/keys';
+import { removeRelation } from '@/lib/equipment/requests';
 import { invalidateQueries } from '@/lib/query/invalidate';
 import type { equipmentTypeLabels, relationPhrases } from '@/lib/equipment/types';
 
@@ -77,7 +78,7 @@ export function RelationManager({
                     setRemoveError(undefined);
                     setRemoving(true);
                     try {
-                      await apiFetch<void>(`/api/equipment/${equipmentId}/relations/${r.id}`, { method: 'DELETE' });
+                      await removeRelation(equipmentId, r.id);
                       void invalidateQueries(equipmentKeys.all);
                       setRelations((rs) => rs.filter((x) => x.id !== r.id));
                     } catch (e) {
