@@ -224,6 +224,15 @@ export interface MailOutbox {
   to_addresses: string[];
 }
 
+export interface NoCoolingVisits {
+  client_id: string | null;
+  company_id: string;
+  equipment_id: string;
+  second_started_at: Timestamp | null;
+  started_ats: Timestamp[];
+  visit_ids: string[];
+}
+
 export interface Photos {
   byte_size: number;
   caption: string | null;
@@ -439,6 +448,7 @@ export interface DB {
   invitations: Invitations;
   label_layouts: LabelLayouts;
   mail_outbox: MailOutbox;
+  no_cooling_visits: NoCoolingVisits;
   photos: Photos;
   print_runs: PrintRuns;
   service_requests: ServiceRequests;

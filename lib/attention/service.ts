@@ -2,7 +2,7 @@ import 'server-only';
 import { sql } from 'kysely';
 import { z } from 'zod';
 import { db as defaultDb } from '@/db';
-import { conditionTrendVisibleTo, siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
+import { conditionTrendVisibleTo, noCoolingVisitsVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -39,18 +39,18 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
     .select(['equipment.id', 'follow_ups.id as follow_up_id', 'follow_ups.title', 'follow_ups.created_at'])
     .execute();
 
-  // From the recent no-cooling visits to their entries (by visit), never through every unit.
+  // Two no-cooling visits within 90 days, from each unit's kept list of such visits as this actor
+  // may see them (migration 2026_12_05_0800): only units whose second latest one is recent are
+  // read, and their visits inside the window are picked and sorted as text in SQL.
+  const noCoolingSince = new Date(today.getTime() - 90 * 86_400_000);
   const noCoolingQuery = db
-    .selectFrom('visits')
-    .innerJoin('sites', 'sites.id', 'visits.site_id')
-    .innerJoin('entries', 'entries.visit_id', 'visits.id')
-    .where(visitVisibleTo(actor))
-    .where('visits.reason', '=', 'no_cooling')
-    .where('visits.started_at', '>', new Date(today.getTime() - 90 * 86_400_000))
-    .where('entries.equipment_id', 'is not', null)
-    .select(['entries.equipment_id as id', sql<string[]>`array_agg(distinct visits.id::text)`.as('visit_ids')])
-    .groupBy('entries.equipment_id')
-    .having(sql<boolean>`count(distinct visits.id) >= 2`)
+    .selectFrom('no_cooling_visits')
+    .where(noCoolingVisitsVisibleTo(actor))
+    .where('no_cooling_visits.second_started_at', '>', noCoolingSince)
+    .select([
+      'no_cooling_visits.equipment_id as id',
+      sql<string[]>`array(select w.v::text from unnest(no_cooling_visits.visit_ids, no_cooling_visits.started_ats) as w(v, s) where w.s > ${noCoolingSince} order by w.v::text)`.as('visit_ids'),
+    ])
     .execute();
 
   // The last two ratings of each unit as this actor may see them, kept up to date by triggers

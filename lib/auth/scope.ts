@@ -47,6 +47,20 @@ export function siteVisibleTo(actor: Actor) {
       : sql<SqlBool>`(sites.company_id = ${actor.companyId} and sites.client_id = ${clientId})`;
 }
 
+/** The records that hang from one site, each with its own company column. */
+export type SiteRecordTable = 'equipment' | 'follow_ups' | 'photos' | 'service_requests' | 'systems' | 'visit_plans' | 'visits';
+
+/**
+ * A record that hangs from a site (a system, a unit, a visit, a follow-up, a request, a plan, a
+ * photo through its unit): of
+ * the actor's company and at a site the actor sees. Needs `table` and `sites` (the record's own).
+ */
+export function siteRecordVisibleTo(actor: Actor, table: SiteRecordTable) {
+  const site = siteVisibleTo(actor);
+  const companyId = sql.ref(`${table}.company_id`);
+  return (): Expression<SqlBool> => sql<SqlBool>`(${companyId} = ${actor.companyId} and ${site()})`;
+}
+
 /** Visits: needs `visits` and `sites` (the visit's own site) in the query. */
 export function visitVisibleTo(actor: Actor) {
   const site = siteVisibleTo(actor);
@@ -79,10 +93,22 @@ export function conditionTrendVisibleTo(actor: Actor) {
       : sql<SqlBool>`(condition_trends.company_id = ${actor.companyId} and condition_trends.client_id = ${clientId})`;
 }
 
+/**
+ * The kept no-cooling visit rows (table no_cooling_visits, see its migration) an actor's visits
+ * make: staff read the row built from every visit of their company, an owner the one built from
+ * closed visits on their client's sites, as `visitVisibleTo` lets each see. Needs `no_cooling_visits`.
+ */
+export function noCoolingVisitsVisibleTo(actor: Actor) {
+  const clientId = clientScope(actor);
+  return (): Expression<SqlBool> =>
+    clientId === null
+      ? sql<SqlBool>`(no_cooling_visits.company_id = ${actor.companyId} and no_cooling_visits.client_id is null)`
+      : sql<SqlBool>`(no_cooling_visits.company_id = ${actor.companyId} and no_cooling_visits.client_id = ${clientId})`;
+}
+
 /** Photos belong to their unit and are seen with it: needs `photos` and `sites` (the unit's). */
 export function photoVisibleTo(actor: Actor) {
-  const site = siteVisibleTo(actor);
-  return (): Expression<SqlBool> => sql<SqlBool>`(photos.company_id = ${actor.companyId} and ${site()})`;
+  return siteRecordVisibleTo(actor, 'photos');
 }
 
 /**
@@ -90,9 +116,6 @@ export function photoVisibleTo(actor: Actor) {
  * included; an owner sees their own client's sites' plans, and never a cancelled one.
  */
 export function planVisibleTo(actor: Actor) {
-  const site = siteVisibleTo(actor);
-  return (): Expression<SqlBool> =>
-    actor.role === 'client'
-      ? sql<SqlBool>`(visit_plans.company_id = ${actor.companyId} and ${site()} and visit_plans.status <> 'cancelled')`
-      : sql<SqlBool>`(visit_plans.company_id = ${actor.companyId} and ${site()})`;
+  const plan = siteRecordVisibleTo(actor, 'visit_plans');
+  return (): Expression<SqlBool> => (actor.role === 'client' ? sql<SqlBool>`(${plan()} and visit_plans.status <> 'cancelled')` : plan());
 }

@@ -1,0 +1,128 @@
+// The kept no-cooling visit rows behind "no cooling twice within 90 days" (table
+// no_cooling_visits, migration 2026_12_05_0800): after each change that can alter what someone
+// sees (a visit's entries added, the visit closed, reopened and closed again, an entry voided, a
+// visit of another reason, the 90-day window moving on) the attention list says what grouping
+// every visible visit's entries says, for staff (open visits count) and for the owner (closed
+// visits only).
+import { randomUUID } from 'node:crypto';
+import { sql } from 'kysely';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { needsAttention } from '@/lib/attention/service';
+import type { Actor } from '@/lib/auth/actor';
+import { visitVisibleTo } from '@/lib/auth/scope';
+import { closeVisit } from '@/lib/visits/close';
+import { addEntry, voidEntry } from '@/lib/visits/entries';
+import { reopenVisit, startVisit } from '@/lib/visits/service';
+import { createTestDb } from '@/tests/helpers/db';
+import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { mockAuthModule } from '@/tests/helpers/session';
+
+vi.mock('@/lib/auth', () => mockAuthModule());
+
+const db = createTestDb();
+const DAY = 86_400_000;
+let tech: Actor;
+let office: Actor;
+let owner: Actor;
+let circuit: CoolerCircuit;
+const ago = (days: number) => new Date(Date.now() - days * DAY).toISOString();
+const rate = (visitId: string, equipmentId: string, rating: number, days: number) =>
+  addEntry(tech, visitId, { equipmentId, clientEntryId: randomUUID(), kind: 'condition' as const, recordedAt: ago(days), data: { rating } });
+
+/** What the attention list says had no cooling twice on the circuit's site: unit, then its visits. */
+async function listed(actor: Actor, today: Date): Promise<string[]> {
+  const units = await needsAttention(actor, circuit.siteId, db, today);
+  return units.flatMap((u) => u.signals.flatMap((s) => (s.kind === 'repeat_no_cooling' ? [`${u.equipmentId} ${s.visitIds.join(',')}`] : []))).sort();
+}
+
+/** The same, grouped from every visible no-cooling visit's entries (the query the kept rows replace). */
+async function grouped(actor: Actor, today: Date): Promise<string[]> {
+  const rows = await db
+    .selectFrom('visits')
+    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .innerJoin('entries', 'entries.visit_id', 'visits.id')
+    .where(visitVisibleTo(actor))
+    .where('visits.reason', '=', 'no_cooling')
+    .where('visits.started_at', '>', new Date(today.getTime() - 90 * DAY))
+    .where('entries.equipment_id', 'in', (eb) => eb.selectFrom('equipment').select('equipment.id').where('equipment.site_id', '=', circuit.siteId))
+    .select(['entries.equipment_id as id', sql<string[]>`array_agg(distinct visits.id::text)`.as('visit_ids')])
+    .groupBy('entries.equipment_id')
+    .having(sql<boolean>`count(distinct visits.id) >= 2`)
+    .execute();
+  return rows.map((r) => `${r.id} ${r.visit_ids.join(',')}`).sort();
+}
+
+async function expectBoth(staff: string[], ownerSees: string[], today = new Date()): Promise<void> {
+  expect(await listed(office, today)).toEqual(staff.sort());
+  expect(await grouped(office, today)).toEqual(staff.sort());
+  expect(await listed(owner, today)).toEqual(ownerSees.sort());
+  expect(await grouped(owner, today)).toEqual(ownerSees.sort());
+}
+
+let first: string;
+let second: string;
+let secondEntry: string;
+const both = () => [first, second].sort().join(',');
+
+beforeAll(async () => {
+  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
+  first = (await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(40) })).id;
+  await rate(first, circuit.evaporatorId, 3, 40);
+  await rate(first, circuit.condensingUnitId, 4, 40);
+  await closeVisit(tech, first, { summary: 'Iced coil; defrost reset.', confirmBypassRemoved: false });
+});
+afterAll(async () => {
+  await db.destroy();
+});
+
+describe('no cooling twice within 90 days, from the kept rows', () => {
+  it('one no-cooling visit is not a repeat', async () => {
+    await expectBoth([], []);
+  });
+
+  it('a second one, still open, counts for staff only', async () => {
+    second = (await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(3) })).id;
+    secondEntry = (await rate(second, circuit.evaporatorId, 2, 3)).id;
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], []);
+  });
+
+  it('closing it shows it to the owner', async () => {
+    await closeVisit(tech, second, { summary: 'Fan motor seized.', confirmBypassRemoved: false });
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], [`${circuit.evaporatorId} ${both()}`]);
+  });
+
+  it('reopening hides it from the owner again; closing it again shows it', async () => {
+    await reopenVisit(office, second);
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], []);
+    await closeVisit(tech, second, { summary: 'Fan motor replaced.', confirmBypassRemoved: false });
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], [`${circuit.evaporatorId} ${both()}`]);
+  });
+
+  it('a voided entry still ties its visit to the unit, as the grouped query counts it', async () => {
+    await reopenVisit(office, second);
+    await voidEntry(tech, secondEntry, 'Rated the wrong evaporator.');
+    await closeVisit(tech, second, { summary: 'Fan motor replaced.', confirmBypassRemoved: false });
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], [`${circuit.evaporatorId} ${both()}`]);
+  });
+
+  it('a visit for another reason adds nothing', async () => {
+    const other = (await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance', startedAt: ago(2) })).id;
+    await rate(other, circuit.condensingUnitId, 4, 2);
+    await closeVisit(tech, other, { summary: 'Routine check.', confirmBypassRemoved: false });
+    await expectBoth([`${circuit.evaporatorId} ${both()}`], [`${circuit.evaporatorId} ${both()}`]);
+  });
+
+  it('once the first visit is more than 90 days back, the unit drops off both lists', async () => {
+    const later = new Date(Date.now() + 55 * DAY);
+    await expectBoth([], [], later);
+  });
+
+  it('keeps one row per unit and audience, rebuilt by the migration exactly as the triggers left it', async () => {
+    const rows = async () =>
+      (await db.selectFrom('no_cooling_visits').selectAll().orderBy('equipment_id').orderBy('company_id').orderBy(sql`client_id nulls first`).execute()).map((r) => JSON.stringify(r));
+    const kept = await rows();
+    expect(kept.length).toBeGreaterThanOrEqual(4);
+    await sql`select refresh_no_cooling_visits(array(select id from equipment))`.execute(db);
+    expect(await rows()).toEqual(kept);
+  });
+});
