@@ -65,6 +65,9 @@ test.beforeAll(async ({ baseURL }) => {
   // A site of its own for client one (so its owner walks it too): the visit left open here never
   // blocks another spec's visit at a demo site, and a rerun of this set-up gets a fresh one.
   const site = await siteLike(office, 'Orchard Row Bistro', label);
+  // A client with a long name: the people page's client choice sizes to its longest option, and the
+  // walk should not depend on which names other specs happened to leave behind.
+  await ok(office.post('/api/clients', { data: { name: `Harbourside Cold Chain and Catering Supply Cooperative of the Lower Quays ${label}` } }));
   const system = await ok<{ id: string }>(
     office.post('/api/systems', { data: { siteId: site.id, name: `Walk-in cooler circuit with a long name ${label}`, refrigerant: 'R-404A', fullChargeKg: 6.5, application: 'commercial_refrigeration', designBoxTempC: 2 } }),
   );

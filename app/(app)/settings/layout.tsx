@@ -15,7 +15,7 @@ export default async function SettingsLayout({ children }: { children: ReactNode
     { href: '/settings/storage', label: 'Photo storage', show: can(actor, 'photos.maintain') },
   ].filter((l) => l.show);
   return (
-    <div className="grid gap-6 md:grid-cols-[12rem_1fr]">
+    <div className="grid grid-cols-1 gap-6 md:grid-cols-[12rem_minmax(0,1fr)]">
       <nav aria-label="Settings" className="flex gap-1 overflow-x-auto md:flex-col">
         {links.map((l) => (
           <Link key={l.href} href={l.href} className="flex min-h-11 shrink-0 items-center rounded-md px-3 text-sm font-semibold text-slate-800 hover:bg-ice-50">
@@ -23,7 +23,7 @@ export default async function SettingsLayout({ children }: { children: ReactNode
           </Link>
         ))}
       </nav>
-      <div>
+      <div className="min-w-0">
         {/* Settings forms fetch in the browser; the provider is per section (DEVELOPERS.md, "Phone pages"). */}
         <QueryProvider>{children}</QueryProvider>
       </div>

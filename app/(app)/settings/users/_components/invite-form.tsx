@@ -39,7 +39,7 @@ export function InviteForm({ clients, invitations }: { clients: { id: string; na
   });
   return (
     <div className="space-y-3">
-      <form onSubmit={onSubmit} noValidate className="grid gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2">
+      <form onSubmit={onSubmit} noValidate className="grid grid-cols-1 gap-3 rounded-lg border border-slate-200 bg-white p-4 sm:grid-cols-2">
         {status ? <Alert tone={status.tone} title={status.text} className="sm:col-span-2" /> : null}
         <BoundField form={form} name="name" id="invite-name" label="Name" />
         <BoundField form={form} name="email" id="invite-email" label="E-mail" input={{ type: 'email' }} />
@@ -59,7 +59,7 @@ export function InviteForm({ clients, invitations }: { clients: { id: string; na
           <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
             {invitations.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-3 px-4 py-2 text-sm">
-                <span className="flex-1">
+                <span className="min-w-0 flex-1 wrap-anywhere">
                   <strong>{i.name}</strong> · {i.email} · {roleLabels[i.role]} · expires {formatDay(i.expiresAt)}
                 </span>
                 <Button

@@ -32,12 +32,12 @@ function UserRow({ user, clients, isSelf }: { user: UserDto; clients: { id: stri
   }
 
   return (
-    <li className="grid gap-2 px-4 py-3 sm:grid-cols-[1fr_auto] sm:items-center">
-      <div>
+    <li className="grid grid-cols-1 gap-2 px-4 py-3 sm:grid-cols-[minmax(0,1fr)_auto] sm:items-center">
+      <div className="min-w-0">
         <p className="font-semibold">
           {user.name} {isSelf ? <span className="text-sm font-normal text-slate-600">(you)</span> : null}
         </p>
-        <p className="text-sm text-slate-600">{user.email}</p>
+        <p className="text-sm text-slate-600 wrap-anywhere">{user.email}</p>
         <p className="flex items-center gap-1 text-sm">
           {user.active ? <CircleCheck aria-hidden className="size-4 text-emerald-700" /> : <CircleSlash aria-hidden className="size-4 text-red-700" />}
           {user.active ? 'Active' : 'Deactivated'}

@@ -334,7 +334,7 @@ export function VisitWorkspace({
         <Alert tone="warning" title={outboxTitle(online, unsent)}>
           <p>
             {waitingCount > 0
-              ? 'They are kept on this phone and sent as soon as there is a connection. Do not clear this browser’s data until they are sent.'
+              ? 'What waits is kept on this phone and sent as soon as there is a connection. Do not clear this browser’s data until it is sent.'
               : 'You can keep working: entries are kept on this phone and sent when the connection returns.'}
           </p>
           {waitingCount > 0 ? (
