@@ -1,5 +1,5 @@
-import { sql, type Expression, type SqlBool } from 'kysely';
-import { encodeCursor, type Cursor, type Page } from '@/lib/api/cursor';
+import { sql, type Expression, type SelectQueryBuilder, type SqlBool } from 'kysely';
+import { decodeCursor, encodeCursor, type Cursor, type Page } from '@/lib/api/cursor';
 
 // Keyset paging for the list services: the filter after a cursor and the page from its rows.
 
@@ -31,4 +31,46 @@ export function toPage<R, T>(rows: R[], limit: number, map: (row: R) => T, curso
   const kept = rows.slice(0, limit);
   const last = kept.at(-1);
   return { items: kept.map(map), nextCursor: rows.length > limit && last ? encodeCursor(cursorOf(last)) : null };
+}
+
+/** A list's keyset order: `key` and `id` as for `afterCursor`, in one direction. */
+export interface KeysetOrder {
+  key: string;
+  id: string;
+  direction: 'asc' | 'desc';
+  cast?: CursorCast;
+}
+
+/**
+ * One page of a list query: the rows after the page's cursor in the keyset order, `limit + 1`
+ * fetched so the page knows whether another follows. The query brings its filters and columns.
+ * The next cursor holds the key as Postgres prints it, so a time keeps its microseconds (a JS
+ * Date would round them off and the next page would repeat the row) and a case-folded name is
+ * folded as the ORDER BY folds it.
+ */
+export async function keysetPage<DB, TB extends keyof DB, O extends { id: string }, T>(
+  query: SelectQueryBuilder<DB, TB, O>,
+  order: KeysetOrder,
+  page: { cursor?: string; limit: number },
+  map: (row: O) => T,
+): Promise<Page<T>> {
+  const cursor = decodeCursor(page.cursor);
+  const q = cursor ? query.where(afterCursor(cursor, order.key, order.id, order.direction, order.cast)) : query;
+  const rows = await q
+    .select(sql<string | null>`(${sql.raw(order.key)})::text`.as('cursor_key'))
+    .orderBy(sql.raw(order.key), order.direction)
+    .orderBy(sql.ref(order.id), order.direction)
+    .limit(page.limit + 1)
+    .execute();
+  return toPage(rows, page.limit, (r) => map(r), (r) => ({ k: printedKey(r), id: r.id }));
+}
+
+/** The key column `keysetPage` adds, read back with a check rather than a type assertion. */
+function printedKey(row: object): string | null {
+  return 'cursor_key' in row && typeof row.cursor_key === 'string' ? row.cursor_key : null;
+}
+
+/** Name order, case folded (what a person scanning a list expects), for a table with `name`. */
+export function byName(table: 'clients' | 'sites'): KeysetOrder {
+  return { key: `lower(${table}.name)`, id: `${table}.id`, direction: 'asc' };
 }

@@ -5,8 +5,8 @@ import { escapeLike } from '@/db/helpers';
 import { clientVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { decodeCursor, type Page } from '@/lib/api/cursor';
-import { afterCursor, toPage } from '@/lib/api/paging';
+import type { Page } from '@/lib/api/cursor';
+import { byName, keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { archivedView, setArchived } from '@/lib/audit/archive';
@@ -55,13 +55,10 @@ function clientQuery(actor: Actor, db: Db) {
 
 export async function listClients(actor: Actor, query: ListClientsQuery, db: Db = defaultDb): Promise<Page<ClientDto>> {
   assertCan(actor, 'clients.read');
-  const cursor = decodeCursor(query.cursor);
   let q = clientQuery(actor, db);
   q = q.where(archivedView('clients', query.archived));
   if (query.q) q = q.where('clients.name', 'ilike', `%${escapeLike(query.q)}%`);
-  if (cursor) q = q.where(afterCursor(cursor, 'lower(clients.name)', 'clients.id', 'asc'));
-  const rows = await q.orderBy(sql`lower(clients.name)`).orderBy('clients.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, clientDtoFor(actor), (r) => ({ k: r.name.toLowerCase(), id: r.id }));
+  return keysetPage(q, byName('clients'), query, clientDtoFor(actor));
 }
 
 export async function getClient(actor: Actor, id: string, db: Db = defaultDb): Promise<ClientDto> {

@@ -1,6 +1,6 @@
 import { sql } from 'kysely';
 import { escapeLike } from '@/db/helpers';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { siteRecordVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
 import { afterCursor, type CursorCast } from '@/lib/api/paging';
@@ -19,8 +19,7 @@ export function equipmentBaseQuery(actor: Actor, db: Db) {
     .leftJoin('systems', 'systems.id', 'equipment.system_id')
     // A deleted replacement is not linked to: its page would not open.
     .leftJoin('equipment as replacement', (join) => join.onRef('replacement.id', '=', 'equipment.replaced_by_id').on('replacement.deleted_at', 'is', null))
-    .where(siteVisibleTo(actor))
-    .where('equipment.company_id', '=', actor.companyId);
+    .where(siteRecordVisibleTo(actor, 'equipment'));
 }
 
 export const refrigerantExpr = sql<string | null>`coalesce(systems.refrigerant, equipment.nameplate->>'refrigerant')`;

@@ -1,11 +1,11 @@
 import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { siteRecordVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
-import { decodeCursor, type Page } from '@/lib/api/cursor';
-import { afterCursor, toPage } from '@/lib/api/paging';
+import type { Page } from '@/lib/api/cursor';
+import { keysetPage } from '@/lib/api/paging';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -23,8 +23,7 @@ function followUpQuery(actor: Actor, db: Db) {
     .leftJoin('equipment', 'equipment.id', 'follow_ups.equipment_id')
     .innerJoin('users as author', 'author.id', 'follow_ups.created_by')
     .leftJoin('users as closer', 'closer.id', 'follow_ups.closed_by')
-    .where(siteVisibleTo(actor))
-    .where('follow_ups.company_id', '=', actor.companyId)
+    .where(siteRecordVisibleTo(actor, 'follow_ups'))
     .select([
       'follow_ups.id',
       'follow_ups.site_id',
@@ -76,15 +75,13 @@ const severityRank = sql<number>`case follow_ups.severity when 'safety' then 0 w
 /** Oldest first within the list; open and scheduled by default. */
 export async function listFollowUps(actor: Actor, query: ListFollowUpsQuery, db: Db = defaultDb): Promise<Page<FollowUpDto>> {
   assertCan(actor, 'followups.read');
-  const cursor = decodeCursor(query.cursor);
   let q = followUpQuery(actor, db);
   q = q.where('follow_ups.status', 'in', query.status ?? ['open', 'scheduled']);
   if (query.siteId) q = q.where('follow_ups.site_id', '=', query.siteId);
   if (query.equipmentId) q = q.where('follow_ups.equipment_id', '=', query.equipmentId);
   if (query.severity?.length) q = q.where('follow_ups.severity', 'in', query.severity);
-  if (cursor) q = q.where(afterCursor(cursor, 'follow_ups.created_at', 'follow_ups.id', 'asc', 'timestamptz'));
-  const rows = await q.orderBy('follow_ups.created_at').orderBy('follow_ups.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, (r) => toDto(actor, r), (r) => ({ k: r.created_at.toISOString(), id: r.id }));
+  const oldestFirst = { key: 'follow_ups.created_at', id: 'follow_ups.id', direction: 'asc', cast: 'timestamptz' } as const;
+  return keysetPage(q, oldestFirst, query, (r) => toDto(actor, r));
 }
 
 export async function getFollowUp(actor: Actor, id: string, db: Db = defaultDb): Promise<FollowUpDto> {
@@ -98,7 +95,7 @@ export async function countOpenBySeverity(actor: Actor, siteId: string | null, d
   let q = db
     .selectFrom('follow_ups')
     .innerJoin('sites', 'sites.id', 'follow_ups.site_id')
-    .where(siteVisibleTo(actor))
+    .where(siteRecordVisibleTo(actor, 'follow_ups'))
     .where('follow_ups.status', 'in', ['open', 'scheduled'])
     .select(['follow_ups.severity', (eb) => eb.fn.countAll<number>().as('n')])
     .groupBy('follow_ups.severity')

@@ -1,12 +1,11 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { photoVisibleTo, siteRecordVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { decodeCursor } from '@/lib/api/cursor';
-import { afterCursor, toPage } from '@/lib/api/paging';
+import { keysetPage } from '@/lib/api/paging';
 import { assertCan, can } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -26,8 +25,7 @@ export function visiblePhotos(actor: Actor, db: Db) {
     .innerJoin('equipment', 'equipment.id', 'photos.equipment_id')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
     .innerJoin('users as uploader', 'uploader.id', 'photos.uploaded_by')
-    .where(siteVisibleTo(actor))
-    .where('photos.company_id', '=', actor.companyId)
+    .where(photoVisibleTo(actor))
     .where('equipment.deleted_at', 'is', null);
 }
 
@@ -60,8 +58,7 @@ async function equipmentForPhotos(actor: Actor, equipmentId: string, db: Db) {
     .selectFrom('equipment')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
     .innerJoin('companies', 'companies.id', 'equipment.company_id')
-    .where(siteVisibleTo(actor))
-    .where('equipment.company_id', '=', actor.companyId)
+    .where(siteRecordVisibleTo(actor, 'equipment'))
     .where('equipment.id', '=', equipmentId)
     .where('equipment.deleted_at', 'is', null)
     .select(['equipment.id', 'equipment.name', 'sites.time_zone', 'companies.keep_photo_location'])
@@ -73,14 +70,10 @@ async function equipmentForPhotos(actor: Actor, equipmentId: string, db: Db) {
 export async function listPhotos(actor: Actor, equipmentId: string, query: ListPhotosQuery, db: Db = defaultDb): Promise<PhotoListDto> {
   assertCan(actor, 'photos.read');
   const equipment = await equipmentForPhotos(actor, equipmentId, db);
-  const cursor = decodeCursor(query.cursor);
-  // The cursor carries the time as Postgres prints it: microseconds survive, unlike a JS Date.
-  let q = visiblePhotos(actor, db)
-    .where('photos.equipment_id', '=', equipmentId)
-    .select([...dtoColumns, sql<string>`photos.sort_at::text`.as('sort_key')]);
+  let q = visiblePhotos(actor, db).where('photos.equipment_id', '=', equipmentId).select(dtoColumns);
   if (query.kind.length) q = q.where('photos.kind', 'in', query.kind);
-  if (cursor) q = q.where(afterCursor(cursor, 'photos.sort_at', 'photos.id', 'desc', 'timestamptz'));
-  const rows = await q.orderBy('photos.sort_at', 'desc').orderBy('photos.id', 'desc').limit(query.limit + 1).execute();
+  const newestFirst = { key: 'photos.sort_at', id: 'photos.id', direction: 'desc', cast: 'timestamptz' } as const;
+  const page = await keysetPage(q, newestFirst, query, (r) => toPhotoDto(r, canEdit(actor, r.uploaded_by)));
   const counts = await db
     .selectFrom('photos')
     .where('photos.equipment_id', '=', equipmentId)
@@ -91,7 +84,7 @@ export async function listPhotos(actor: Actor, equipmentId: string, query: ListP
   const kindCounts = Object.fromEntries(photoKinds.map((k) => [k, 0])) as Record<PhotoKind, number>;
   for (const c of counts) kindCounts[c.kind as PhotoKind] = Number(c.n);
   return {
-    ...toPage(rows, query.limit, (r) => toPhotoDto(r, canEdit(actor, r.uploaded_by)), (r) => ({ k: r.sort_key, id: r.id })),
+    ...page,
     kindCounts,
     total: Object.values(kindCounts).reduce((a, b) => a + b, 0),
     canUpload: can(actor, 'photos.upload'),

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { siteRecordVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan, can } from '@/lib/auth/access';
@@ -28,29 +28,28 @@ import { getSite } from '@/lib/sites/service';
 
 function requestQuery(actor: Actor, db: Db) {
   return db
-    .selectFrom('service_requests as r')
-    .innerJoin('sites', 'sites.id', 'r.site_id')
+    .selectFrom('service_requests')
+    .innerJoin('sites', 'sites.id', 'service_requests.site_id')
     .innerJoin('clients', 'clients.id', 'sites.client_id')
-    .leftJoin('equipment', 'equipment.id', 'r.equipment_id')
-    .innerJoin('users as requester', 'requester.id', 'r.requested_by')
-    .where(siteVisibleTo(actor))
-    .where('r.company_id', '=', actor.companyId)
+    .leftJoin('equipment', 'equipment.id', 'service_requests.equipment_id')
+    .innerJoin('users as requester', 'requester.id', 'service_requests.requested_by')
+    .where(siteRecordVisibleTo(actor, 'service_requests'))
     .select([
-      'r.id',
-      'r.site_id',
+      'service_requests.id',
+      'service_requests.site_id',
       'sites.name as site_name',
       'clients.name as client_name',
-      'r.equipment_id',
+      'service_requests.equipment_id',
       'equipment.name as equipment_name',
       'requester.name as requester_name',
-      'r.description',
-      'r.urgency',
-      'r.photo_id',
-      'r.status',
-      'r.office_note',
-      'r.visit_id',
-      'r.created_at',
-      'r.updated_at',
+      'service_requests.description',
+      'service_requests.urgency',
+      'service_requests.photo_id',
+      'service_requests.status',
+      'service_requests.office_note',
+      'service_requests.visit_id',
+      'service_requests.created_at',
+      'service_requests.updated_at',
     ]);
 }
 
@@ -77,20 +76,20 @@ function toDto(actor: Actor, r: Row): ServiceRequestDto {
   };
 }
 
-const urgencyRank = sql<number>`case r.urgency when 'emergency' then 0 when 'soon' then 1 else 2 end`;
+const urgencyRank = sql<number>`case service_requests.urgency when 'emergency' then 0 when 'soon' then 1 else 2 end`;
 
 export async function listRequests(actor: Actor, query: ListRequestsQuery, db: Db = defaultDb): Promise<ServiceRequestDto[]> {
   assertCan(actor, 'requests.read');
   let q = requestQuery(actor, db);
-  if (query.siteId) q = q.where('r.site_id', '=', query.siteId);
-  if (query.status?.length) q = q.where('r.status', 'in', query.status);
-  const rows = await q.orderBy(urgencyRank).orderBy('r.created_at', 'desc').limit(query.limit).execute();
+  if (query.siteId) q = q.where('service_requests.site_id', '=', query.siteId);
+  if (query.status?.length) q = q.where('service_requests.status', 'in', query.status);
+  const rows = await q.orderBy(urgencyRank).orderBy('service_requests.created_at', 'desc').limit(query.limit).execute();
   return rows.map((r) => toDto(actor, r));
 }
 
 export async function getRequest(actor: Actor, id: string, db: Db = defaultDb): Promise<ServiceRequestDto> {
   assertCan(actor, 'requests.read');
-  const row = foundOr404(await requestQuery(actor, db).where('r.id', '=', id).executeTakeFirst(), 'Service request not found.');
+  const row = foundOr404(await requestQuery(actor, db).where('service_requests.id', '=', id).executeTakeFirst(), 'Service request not found.');
   return toDto(actor, row);
 }
 

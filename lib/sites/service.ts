@@ -5,8 +5,8 @@ import { escapeLike } from '@/db/helpers';
 import { seesSiteAccessNotes, siteVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
-import { decodeCursor, type Page } from '@/lib/api/cursor';
-import { afterCursor, toPage } from '@/lib/api/paging';
+import type { Page } from '@/lib/api/cursor';
+import { byName, keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { archivedView, setArchived } from '@/lib/audit/archive';
@@ -59,7 +59,6 @@ function siteQuery(actor: Actor, db: Db) {
 
 export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = defaultDb): Promise<Page<SiteDto>> {
   assertCan(actor, 'sites.read');
-  const cursor = decodeCursor(query.cursor);
   let q = siteQuery(actor, db);
   if (query.clientId) q = q.where('sites.client_id', '=', query.clientId);
   q = q.where(archivedView('sites', query.archived));
@@ -67,9 +66,7 @@ export async function listSites(actor: Actor, query: ListSitesQuery, db: Db = de
     const like = `%${escapeLike(query.q)}%`;
     q = q.where((eb) => eb.or([eb('sites.name', 'ilike', like), eb('sites.city', 'ilike', like), eb('clients.name', 'ilike', like)]));
   }
-  if (cursor) q = q.where(afterCursor(cursor, 'lower(sites.name)', 'sites.id', 'asc'));
-  const rows = await q.orderBy(sql`lower(sites.name)`).orderBy('sites.id').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, siteDtoFor(actor), (r) => ({ k: r.name.toLowerCase(), id: r.id }));
+  return keysetPage(q, byName('sites'), query, siteDtoFor(actor));
 }
 
 export async function getSite(actor: Actor, id: string, db: Db = defaultDb): Promise<SiteDto> {

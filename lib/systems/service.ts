@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
-import { siteVisibleTo } from '@/lib/auth/scope';
+import { siteRecordVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
@@ -21,7 +21,7 @@ function systemQuery(actor: Actor, db: Db) {
     .selectFrom('systems')
     .innerJoin('sites', 'sites.id', 'systems.site_id')
     .leftJoin('areas', 'areas.id', 'systems.area_id')
-    .where(siteVisibleTo(actor))
+    .where(siteRecordVisibleTo(actor, 'systems'))
     .select((eb) => [
       'systems.id',
       'systems.site_id',

@@ -4,8 +4,8 @@ import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
-import { decodeCursor, type Page } from '@/lib/api/cursor';
-import { afterCursor, toPage } from '@/lib/api/paging';
+import type { Page } from '@/lib/api/cursor';
+import { keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
@@ -68,11 +68,8 @@ function toPrintRunDto(row: RunRow): PrintRunDto {
 
 export async function listPrintRuns(actor: Actor, query: ListPrintRunsQuery, db: Db = defaultDb): Promise<Page<PrintRunDto>> {
   assertCan(actor, 'tags.print');
-  const cursor = decodeCursor(query.cursor);
-  let q = printRunQuery(db, actor.companyId);
-  if (cursor) q = q.where(afterCursor(cursor, 'print_runs.created_at', 'print_runs.id', 'desc', 'timestamptz'));
-  const rows = await q.orderBy('print_runs.created_at', 'desc').orderBy('print_runs.id', 'desc').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, toPrintRunDto, (r) => ({ k: r.created_at.toISOString(), id: r.id }));
+  const newestFirst = { key: 'print_runs.created_at', id: 'print_runs.id', direction: 'desc', cast: 'timestamptz' } as const;
+  return keysetPage(printRunQuery(db, actor.companyId), newestFirst, query, toPrintRunDto);
 }
 
 export async function getPrintRun(actor: Actor, id: string, db: Db = defaultDb): Promise<PrintRunDetailDto> {

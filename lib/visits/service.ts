@@ -1,11 +1,11 @@
 import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
+import { siteRecordVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
-import { decodeCursor, type Page } from '@/lib/api/cursor';
-import { afterCursor, cursorKey, toPage } from '@/lib/api/paging';
+import type { Page } from '@/lib/api/cursor';
+import { keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { auditedChange } from '@/lib/audit/change';
@@ -28,8 +28,7 @@ function visitQuery(actor: Actor, db: Db) {
     .innerJoin('sites', 'sites.id', 'visits.site_id')
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
-    .where(siteVisibleTo(actor))
-    .where('visits.company_id', '=', actor.companyId)
+    .where(siteRecordVisibleTo(actor, 'visits'))
     .select((eb) => [
       'visits.id',
       'visits.site_id',
@@ -125,15 +124,13 @@ export async function getVisit(actor: Actor, id: string, db: Db = defaultDb): Pr
 
 export async function listVisits(actor: Actor, query: ListVisitsQuery, db: Db = defaultDb): Promise<Page<VisitDto>> {
   assertCan(actor, 'visits.read');
-  const cursor = decodeCursor(query.cursor);
   let q = visibleVisits(actor, db);
   if (query.siteId) q = q.where('visits.site_id', '=', query.siteId);
   if (query.status) q = q.where('visits.status', '=', query.status);
   if (query.technicianId) q = q.where('visits.technician_id', '=', query.technicianId);
   if (query.review === 'needed') q = q.where('visits.status', '=', 'closed').where('visits.reviewed_at', 'is', null);
-  if (cursor) q = q.where(afterCursor(cursor, 'visits.started_at', 'visits.id', 'desc', 'timestamptz'));
-  const rows = await q.orderBy('visits.started_at', 'desc').orderBy('visits.id', 'desc').limit(query.limit + 1).execute();
-  return toPage(rows, query.limit, (r) => toVisitDto(actor, r), (r) => ({ k: cursorKey(r.started_at), id: r.id }));
+  const newestFirst = { key: 'visits.started_at', id: 'visits.id', direction: 'desc', cast: 'timestamptz' } as const;
+  return keysetPage(q, newestFirst, query, (r) => toVisitDto(actor, r));
 }
 
 export async function startVisit(actor: Actor, input: StartVisitInput, db: Kysely<DB> = defaultDb): Promise<VisitDto> {
