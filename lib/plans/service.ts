@@ -1,5 +1,5 @@
 import 'server-only';
-import { sql, type Kysely, type Transaction } from 'kysely';
+import { sql, type Kysely, type Transaction, type Updateable } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
@@ -215,48 +215,61 @@ export async function createPlan(actor: Actor, input: CreatePlanInput, db: Kysel
   return afterCommit(result);
 }
 
-/** Another day, window or technician for a plan not yet started. */
-export async function movePlan(actor: Actor, id: string, input: MovePlanInput, db: Kysely<DB> = defaultDb, now = new Date()): Promise<PlanDto> {
+/**
+ * One change to a plan not yet started, in one transaction: the plan locked and refused unless
+ * still planned, the columns `change` gives written (none: nothing changed, nothing recorded),
+ * audited with before and after, and the client mailed when `mailFor` names an event.
+ */
+async function changePlanned(
+  actor: Actor,
+  id: string,
+  step: { action: 'move' | 'cancel'; doing: string; db: Kysely<DB>; now: Date },
+  change: (trx: Transaction<DB>, before: PlanDto, siteTimeZone: string) => Promise<Updateable<DB['visit_plans']> | null>,
+  mailFor: (before: PlanDto, after: PlanDto) => PlanMailEvent | null,
+): Promise<PlanDto> {
   assertCan(actor, 'plans.write');
-  const result = await db.transaction().execute(async (trx) => {
+  const result = await step.db.transaction().execute(async (trx) => {
     const locked = await lockPlan(actor, id, trx);
-    refuseUnlessPlanned(locked.status, 'moved');
-    const before = await getPlan(actor, id, trx, now);
-    if (before.day === input.day && before.windowStart === input.windowStart && before.windowEnd === input.windowEnd && before.technicianId === input.technicianId) {
-      return { value: before, mailed: false };
-    }
-    checkDay(input.day, localDate(now, locked.time_zone));
-    await checkTechnician(actor, input.technicianId, trx);
-    await trx
-      .updateTable('visit_plans')
-      .set({ day: input.day, window_start: input.windowStart, window_end: input.windowEnd, technician_id: input.technicianId, updated_by: actor.id, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .execute();
-    const after = await getPlan(actor, id, trx, now);
-    await recordAudit(trx, actor, { action: 'move', entityType: 'visit_plan', entityId: id, before, after });
-    // The client cares about the day and hours, not which technician comes.
-    const clientSeesChange = before.day !== after.day || before.windowStart !== after.windowStart || before.windowEnd !== after.windowEnd;
-    return { value: after, mailed: clientSeesChange ? await notify(actor, after, 'moved', trx, before) : false };
+    refuseUnlessPlanned(locked.status, step.doing);
+    const before = await getPlan(actor, id, trx, step.now);
+    const columns = await change(trx, before, locked.time_zone);
+    if (!columns) return { value: before, mailed: false };
+    await trx.updateTable('visit_plans').set({ ...columns, updated_by: actor.id, updated_at: sql`now()` }).where('id', '=', id).execute();
+    const after = await getPlan(actor, id, trx, step.now);
+    await recordAudit(trx, actor, { action: step.action, entityType: 'visit_plan', entityId: id, before, after });
+    const event = mailFor(before, after);
+    return { value: after, mailed: event ? await notify(actor, after, event, trx, before) : false };
   });
   return afterCommit(result);
 }
 
+/** Another day, window or technician for a plan not yet started. */
+export async function movePlan(actor: Actor, id: string, input: MovePlanInput, db: Kysely<DB> = defaultDb, now = new Date()): Promise<PlanDto> {
+  return changePlanned(
+    actor,
+    id,
+    { action: 'move', doing: 'moved', db, now },
+    async (trx, before, siteTimeZone) => {
+      if (before.day === input.day && before.windowStart === input.windowStart && before.windowEnd === input.windowEnd && before.technicianId === input.technicianId) {
+        return null;
+      }
+      checkDay(input.day, localDate(now, siteTimeZone));
+      await checkTechnician(actor, input.technicianId, trx);
+      return { day: input.day, window_start: input.windowStart, window_end: input.windowEnd, technician_id: input.technicianId };
+    },
+    // The client cares about the day and hours, not which technician comes.
+    (before, after) => (before.day !== after.day || before.windowStart !== after.windowStart || before.windowEnd !== after.windowEnd ? 'moved' : null),
+  );
+}
+
 export async function cancelPlan(actor: Actor, id: string, input: CancelPlanInput, db: Kysely<DB> = defaultDb, now = new Date()): Promise<PlanDto> {
-  assertCan(actor, 'plans.write');
-  const result = await db.transaction().execute(async (trx) => {
-    const locked = await lockPlan(actor, id, trx);
-    refuseUnlessPlanned(locked.status, 'cancelled');
-    const before = await getPlan(actor, id, trx, now);
-    await trx
-      .updateTable('visit_plans')
-      .set({ status: 'cancelled', cancel_reason: input.reason ?? null, updated_by: actor.id, updated_at: sql`now()` })
-      .where('id', '=', id)
-      .execute();
-    const after = await getPlan(actor, id, trx, now);
-    await recordAudit(trx, actor, { action: 'cancel', entityType: 'visit_plan', entityId: id, before, after });
-    return { value: after, mailed: await notify(actor, after, 'cancelled', trx, before) };
-  });
-  return afterCommit(result);
+  return changePlanned(
+    actor,
+    id,
+    { action: 'cancel', doing: 'cancelled', db, now },
+    async () => ({ status: 'cancelled', cancel_reason: input.reason ?? null }),
+    () => 'cancelled',
+  );
 }
 
 /**
