@@ -5,10 +5,10 @@ import { ButtonLink } from '@/components/ui/button';
 import { SignedOutShell } from '@/components/ui/signed-out-shell';
 import { getActor } from '@/lib/auth';
 import { isAppError } from '@/lib/errors';
-import { codeFromPathSegment } from '@/lib/tags/code';
 import { SCAN_VIA, type ScanVia } from '@/lib/tags/schemas';
 import { isRegisteredCode, resolveTag } from '@/lib/tags/service';
 import { TagCode } from '@/components/tags/tag-code';
+import { tagCodeOrNotFound, type TagRouteProps } from '@/app/T/[code]/tag-route';
 
 // The short route a tag's QR symbol holds: /T/<CODE> in upper case (QR alphanumeric mode; see
 // lib/tags/qr.ts). The code itself is read case-insensitively; /tag/<code> is a lower-case alias.
@@ -18,15 +18,8 @@ import { TagCode } from '@/components/tags/tag-code';
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Equipment tag', robots: { index: false, follow: false } };
 
-export default async function TagLinkPage({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ code: string }>;
-  searchParams: Promise<Record<string, string | string[] | undefined>>;
-}) {
-  const code = codeFromPathSegment((await params).code);
-  if (!code) notFound();
+export default async function TagLinkPage({ params, searchParams }: TagRouteProps) {
+  const code = await tagCodeOrNotFound(params);
   const actor = await getActor();
   if (!actor) {
     if (!(await isRegisteredCode(code))) notFound();

@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { Button } from '@/components/ui/button';
 import { EmptyState, PageHeader } from '@/components/ui/card';
 import { Field, Select } from '@/components/ui/field';
+import { SiteLine } from '@/components/sites/site-line';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { EQUIPMENT_TYPES, type EquipmentType } from '@/lib/equipment/types';
@@ -65,15 +65,7 @@ export default async function NewEquipmentPage({ searchParams }: { searchParams:
     <>
       <PageHeader
         title="Register equipment"
-        subtitle={
-          <>
-            At{' '}
-            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-              {site.name}
-            </Link>
-            {actor.role !== 'client' ? ` · ${site.clientName}` : ''}
-          </>
-        }
+        subtitle={<SiteLine site={site} lead="At" showClient={actor.role !== 'client'} />}
       />
       <EquipmentForm
         siteId={site.id}

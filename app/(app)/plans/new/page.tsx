@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { z } from 'zod';
 import { SitePicker } from '@/components/sites/site-picker';
 import { PlanForm } from '@/components/plans/plan-form';
 import { Alert } from '@/components/ui/alert';
 import { Card, PageHeader } from '@/components/ui/card';
+import { SiteLine } from '@/components/sites/site-line';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { listEquipment } from '@/lib/equipment/service';
@@ -46,14 +46,7 @@ export default async function PlanVisitPage({ searchParams }: { searchParams: Pr
     <div className="space-y-5">
       <PageHeader
         title="Plan a visit"
-        subtitle={
-          <>
-            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
-              {site.name}
-            </Link>{' '}
-            · {site.clientName} · times in the site’s time zone ({site.timeZone})
-          </>
-        }
+        subtitle={<SiteLine site={site}> · times in the site’s time zone ({site.timeZone})</SiteLine>}
       />
       {site.archivedAt ? (
         <Alert tone="warning" title="This site is archived">

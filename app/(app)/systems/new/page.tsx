@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { PageHeader } from '@/components/ui/card';
+import { TextLink } from '@/components/ui/text-link';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { getSite, listAreas } from '@/lib/sites/service';
@@ -23,9 +23,9 @@ export default async function NewSystemPage({ searchParams }: { searchParams: Pr
         subtitle={
           <>
             One refrigeration circuit at{' '}
-            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
+            <TextLink href={`/sites/${site.id}`}>
               {site.name}
-            </Link>
+            </TextLink>
             : a condensing unit or rack and the evaporators and controls it serves.
           </>
         }

@@ -23,6 +23,17 @@ import { VisitWorkspace } from '@/app/(app)/visits/[id]/_components/visit-worksp
 
 export const metadata: Metadata = { title: 'Visit' };
 
+/** The visit's title: the name of its site, which it links to. */
+function SiteHeading({ visit, className }: { visit: { siteId: string; siteName: string }; className: string }) {
+  return (
+    <h1 className={cn('break-words font-bold tracking-tight text-slate-900', className)}>
+      <Link href={`/sites/${visit.siteId}`} className="inline-flex min-h-11 items-center hover:underline">
+        {visit.siteName}
+      </Link>
+    </h1>
+  );
+}
+
 export default async function VisitPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const actor = await requirePageActor(`/visits/${id}`);
@@ -32,11 +43,7 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
   const header = (
     <header className="space-y-2">
       <p className="text-sm font-semibold uppercase tracking-wide text-slate-600">Service visit · {visitReasonLabels[visit.reason]}</p>
-      <h1 className="break-words text-2xl font-bold tracking-tight text-slate-900">
-        <Link href={`/sites/${visit.siteId}`} className="inline-flex min-h-11 items-center hover:underline">
-          {visit.siteName}
-        </Link>
-      </h1>
+      <SiteHeading visit={visit} className="text-2xl" />
       <p className="text-slate-700">
         {actor.role !== 'client' ? `${visit.clientName} · ` : ''}
         {visit.technicianName} · started {formatTime(visit.startedAt, visit.timeZone)}
@@ -61,11 +68,7 @@ export default async function VisitPage({ params }: { params: Promise<{ id: stri
       <div className="space-y-4">
         {/* A phone's first screen is for the work: the visit in two lines. */}
         <header>
-          <h1 className="break-words text-xl font-bold tracking-tight text-slate-900">
-            <Link href={`/sites/${visit.siteId}`} className="inline-flex min-h-11 items-center hover:underline">
-              {visit.siteName}
-            </Link>
-          </h1>
+          <SiteHeading visit={visit} className="text-xl" />
           <p className="text-sm text-slate-700">
             {visitReasonLabels[visit.reason]} · {visit.technicianName} · started {formatTime(visit.startedAt, visit.timeZone)}
           </p>

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { z } from 'zod';
 import { SitePicker } from '@/components/sites/site-picker';
 import { Alert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
+import { SiteLine } from '@/components/sites/site-line';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { getSite, listSites } from '@/lib/sites/service';
@@ -34,14 +34,7 @@ export default async function StartVisitPage({ searchParams }: { searchParams: P
     <div className="space-y-5">
       <PageHeader
         title="Start a visit"
-        subtitle={
-          <>
-            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
-              {site.name}
-            </Link>{' '}
-            · {site.clientName}
-          </>
-        }
+        subtitle={<SiteLine site={site} />}
       />
       {site.archivedAt ? (
         <Alert tone="warning" title="This site is archived">

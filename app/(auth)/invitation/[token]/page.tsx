@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { roleLabels, type Role } from '@/lib/auth/permissions';
 import { findOpenInvitation } from '@/lib/users/service';
+import { SignInNotice } from '@/app/(auth)/_components/sign-in-notice';
 import { AcceptInvitationForm } from '@/app/(auth)/invitation/[token]/accept-form';
 
 export const metadata: Metadata = { title: 'Accept invitation' };
@@ -11,15 +11,9 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
   const invitation = token.length <= 200 ? await findOpenInvitation(token) : null;
   if (!invitation) {
     return (
-      <>
-        <h1 className="mb-3 text-xl font-bold">This invitation is no longer valid</h1>
-        <p className="text-slate-700">It may have expired, been replaced or already been used. Ask your admin to send a new one.</p>
-        <p className="mt-4">
-          <Link className="font-semibold text-ice-800 underline" href="/sign-in">
-            Go to sign-in
-          </Link>
-        </p>
-      </>
+      <SignInNotice title="This invitation is no longer valid" backLabel="Go to sign-in">
+        It may have expired, been replaced or already been used. Ask your admin to send a new one.
+      </SignInNotice>
     );
   }
   return (

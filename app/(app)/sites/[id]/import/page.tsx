@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { Card, PageHeader } from '@/components/ui/card';
+import { SiteLine } from '@/components/sites/site-line';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { csvColumns } from '@/lib/equipment/csv';
@@ -19,15 +19,7 @@ export default async function ImportEquipmentPage({ params }: { params: Promise<
     <div className="space-y-6">
       <PageHeader
         title="Import equipment from CSV"
-        subtitle={
-          <>
-            Into{' '}
-            <Link href={`/sites/${site.id}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-              {site.name}
-            </Link>{' '}
-            · {site.clientName}
-          </>
-        }
+        subtitle={<SiteLine site={site} lead="Into" />}
       />
       <Card className="space-y-2 text-sm text-slate-700">
         <p>
