@@ -4,6 +4,9 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import type { Kysely } from 'kysely';
+import { afterAll, beforeAll, beforeEach } from 'vitest';
+import type { DB } from '@/db/schema.gen';
 import { openTestObjectStore, type TestObjectStore } from '@/tests/helpers/front-port';
 
 const KEYS = ['S3_ENDPOINT', 'S3_BUCKET', 'S3_FORCE_PATH_STYLE'] as const;
@@ -50,4 +53,22 @@ export async function openPrivateObjectStore(bucket: string): Promise<PrivateObj
       forgetS3Client();
     },
   };
+}
+
+/**
+ * The hooks of a test file with its own store: the store starts before the file's tests and closes
+ * after them (with the file's database pool); each test starts from the demo and an empty bucket.
+ * Register it before the file's own beforeEach, which then runs after it.
+ */
+export function freshDemoAndBucket(objects: PrivateObjectStore, db: Kysely<DB>): void {
+  beforeAll(() => objects.start());
+  afterAll(async () => {
+    await objects.close();
+    await db.destroy();
+  });
+  beforeEach(async () => {
+    // Imported here, not at the top: this module runs before the app reads the store's address.
+    await (await import('@/tests/helpers/db')).resetToDemo(db);
+    await objects.empty();
+  });
 }

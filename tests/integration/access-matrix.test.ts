@@ -10,6 +10,7 @@ type RoleName = 'admin' | 'office' | 'technician' | 'client';
 const roles: RoleName[] = ['admin', 'office', 'technician', 'client'];
 
 interface Ids {
+  company: string;
   clientOne: string;
   siteOne: string;
   areaOne: string;
@@ -23,6 +24,9 @@ interface Ids {
 let ids: Ids;
 let counter = 0;
 
+/** The id of the row an insert returns. */
+const idOf = async (insert: { executeTakeFirstOrThrow(): Promise<{ id: string }> }): Promise<string> => (await insert.executeTakeFirstOrThrow()).id;
+
 beforeAll(async () => {
   await resetToDemo(db);
   const client = await db.selectFrom('clients').select('id').where('name', '=', 'Marrowgate Eatery Group').executeTakeFirstOrThrow();
@@ -30,13 +34,9 @@ beforeAll(async () => {
   const area = await db.selectFrom('areas').select('id').where('site_id', '=', site.id).executeTakeFirstOrThrow();
   const tech = await db.selectFrom('users').select('id').where('email', '=', demoEmails.technician).executeTakeFirstOrThrow();
   const company = (await db.selectFrom('clients').select('company_id').where('id', '=', client.id).executeTakeFirstOrThrow()).company_id;
-  const system = await db
-    .insertInto('systems')
-    .values({ company_id: company, site_id: site.id, name: 'Matrix circuit', refrigerant: 'R-404A', application: 'commercial_refrigeration' })
-    .returning('id')
-    .executeTakeFirstOrThrow();
+  const system = await idOf(db.insertInto('systems').values({ company_id: company, site_id: site.id, name: 'Matrix circuit', refrigerant: 'R-404A', application: 'commercial_refrigeration' }).returning('id'));
   const siteTwo = await db.selectFrom('sites').select('id').where('client_id', '=', client.id).where('id', '<>', site.id).executeTakeFirstOrThrow();
-  ids = { clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id, system: system.id, equipment: '', closedVisit: '', followUp: '', siteTwo: siteTwo.id };
+  ids = { company, clientOne: client.id, siteOne: site.id, areaOne: area.id, techUser: tech.id, system, equipment: '', closedVisit: '', followUp: '', siteTwo: siteTwo.id };
   ids.equipment = await newEquipment();
   ids.closedVisit = await newVisit('closed');
   ids.followUp = await newFollowUp();
@@ -44,58 +44,26 @@ beforeAll(async () => {
 
 /** A visit with a technician of its own, so the one-open-visit rule never collides between rows. */
 async function newVisit(status: 'open' | 'closed', technicianId?: string): Promise<string> {
-  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
-  const techId =
-    technicianId ??
-    (await db.insertInto('users').values({ company_id: company, email: `visit-tech-${++counter}@example.test`, name: 'Visit Tech', role: 'technician' }).returning('id').executeTakeFirstOrThrow()).id;
+  const techId = technicianId ?? (await idOf(db.insertInto('users').values({ company_id: ids.company, email: `visit-tech-${++counter}@example.test`, name: 'Visit Tech', role: 'technician' }).returning('id')));
   // One open visit per technician per site: an earlier row's visit for the same person is closed first.
   await db.updateTable('visits').set({ status: 'closed', ended_at: new Date() }).where('technician_id', '=', techId).where('site_id', '=', ids.siteOne).where('status', '=', 'open').execute();
-  const row = await db
-    .insertInto('visits')
-    .values({ company_id: company, site_id: ids.siteOne, technician_id: techId, reason: 'maintenance', status, started_at: new Date(), ended_at: status === 'closed' ? new Date() : null, summary: status === 'closed' ? 'Matrix' : null })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('visits').values({ company_id: ids.company, site_id: ids.siteOne, technician_id: techId, reason: 'maintenance', status, started_at: new Date(), ended_at: status === 'closed' ? new Date() : null, summary: status === 'closed' ? 'Matrix' : null }).returning('id'));
 }
 
 async function newEntry(visitId: string, authorId: string): Promise<string> {
-  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
-  const row = await db
-    .insertInto('entries')
-    .values({ company_id: company, visit_id: visitId, equipment_id: ids.equipment, kind: 'note', data: JSON.stringify({ text: 'Matrix' }), recorded_at: new Date(), created_by: authorId, client_entry_id: crypto.randomUUID() })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('entries').values({ company_id: ids.company, visit_id: visitId, equipment_id: ids.equipment, kind: 'note', data: JSON.stringify({ text: 'Matrix' }), recorded_at: new Date(), created_by: authorId, client_entry_id: crypto.randomUUID() }).returning('id'));
 }
 
 async function newFollowUp(): Promise<string> {
-  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
-  const row = await db
-    .insertInto('follow_ups')
-    .values({ company_id: company, site_id: ids.siteOne, equipment_id: ids.equipment, title: 'Matrix follow-up', severity: 'minor', created_by: ids.techUser })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('follow_ups').values({ company_id: ids.company, site_id: ids.siteOne, equipment_id: ids.equipment, title: 'Matrix follow-up', severity: 'minor', created_by: ids.techUser }).returning('id'));
 }
 
 async function newEquipment(): Promise<string> {
-  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
-  const row = await db
-    .insertInto('equipment')
-    .values({ company_id: company, site_id: ids.siteOne, system_id: ids.system, type: 'contactor', name: `Matrix contactor ${++counter}` })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('equipment').values({ company_id: ids.company, site_id: ids.siteOne, system_id: ids.system, type: 'contactor', name: `Matrix contactor ${++counter}` }).returning('id'));
 }
 
 async function newRelation(): Promise<string> {
-  const company = (await db.selectFrom('sites').select('company_id').where('id', '=', ids.siteOne).executeTakeFirstOrThrow()).company_id;
-  const row = await db
-    .insertInto('equipment_relations')
-    .values({ company_id: company, from_equipment_id: ids.equipment, to_equipment_id: await newEquipment(), kind: 'controls' })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('equipment_relations').values({ company_id: ids.company, from_equipment_id: ids.equipment, to_equipment_id: await newEquipment(), kind: 'controls' }).returning('id'));
 }
 
 afterAll(async () => {
@@ -103,22 +71,12 @@ afterAll(async () => {
 });
 
 async function newContact(): Promise<string> {
-  const row = await db
-    .insertInto('client_contacts')
-    .values({ company_id: (await db.selectFrom('clients').select('company_id').where('id', '=', ids.clientOne).executeTakeFirstOrThrow()).company_id, client_id: ids.clientOne, name: `Temp ${++counter}` })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('client_contacts').values({ company_id: ids.company, client_id: ids.clientOne, name: `Temp ${++counter}` }).returning('id'));
 }
 
 async function newInvitation(): Promise<string> {
   const admin = await actorFor(db, demoEmails.admin);
-  const row = await db
-    .insertInto('invitations')
-    .values({ company_id: admin.companyId, email: `temp${++counter}@example.test`, name: 'Temp', role: 'technician', token_hash: `hash-${counter}-${Date.now()}`, invited_by: admin.id, expires_at: new Date(Date.now() + 86_400_000) })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return row.id;
+  return idOf(db.insertInto('invitations').values({ company_id: admin.companyId, email: `temp${++counter}@example.test`, name: 'Temp', role: 'technician', token_hash: `hash-${counter}-${Date.now()}`, invited_by: admin.id, expires_at: new Date(Date.now() + 86_400_000) }).returning('id'));
 }
 
 interface Case {

@@ -215,15 +215,17 @@ describe('GET /api/calc/saturation', () => {
     expect(error.issues[0]).toMatchObject({ path: 'pressure' });
   });
 
-  it('bad or missing units and inputs → 422 with the field named', async () => {
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&temperature=-20&unit=K')).issues[0]).toMatchObject({ path: 'unit' });
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&pressure=30&unit=atm')).issues[0]).toMatchObject({ path: 'unit' });
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&pressure=30&unit=C')).issues[0]).toMatchObject({ path: 'unit' });
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&temperature=-20&pressure=30&unit=C')).issues[0]).toMatchObject({ path: 'temperature' });
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&temperature=cold&unit=C')).issues[0]).toMatchObject({ path: 'temperature' });
-    expect((await unprocessable('saturation', 'temperature=-20&unit=C')).issues[0]).toMatchObject({ path: 'refrigerant' });
-    // Below a perfect vacuum is impossible, not merely out of range.
-    expect((await unprocessable('saturation', 'refrigerant=R-404A&pressure=-20&unit=psig')).issues[0]).toMatchObject({ path: 'pressure' });
+  // Below a perfect vacuum (a pressure under −14.7 psig) is impossible, not merely out of range.
+  it.each([
+    ['refrigerant=R-404A&temperature=-20&unit=K', 'unit'],
+    ['refrigerant=R-404A&pressure=30&unit=atm', 'unit'],
+    ['refrigerant=R-404A&pressure=30&unit=C', 'unit'],
+    ['refrigerant=R-404A&temperature=-20&pressure=30&unit=C', 'temperature'],
+    ['refrigerant=R-404A&temperature=cold&unit=C', 'temperature'],
+    ['temperature=-20&unit=C', 'refrigerant'],
+    ['refrigerant=R-404A&pressure=-20&unit=psig', 'pressure'],
+  ])('bad or missing units and inputs → 422 with the field named: %s → %s', async (query, path) => {
+    expect((await unprocessable('saturation', query)).issues[0]).toMatchObject({ path });
   });
 });
 
@@ -260,12 +262,14 @@ describe('GET /api/calc/pt-table', () => {
     expect(rel(rows[1]!.bubble, 4502.18)).toBeLessThan(0.003); // TR §1.3
   });
 
-  it('rejects a bad range, step or unit → 422', async () => {
-    expect((await unprocessable('pt-table', 'refrigerant=R-404A&from=40&to=-40&step=5&temperatureUnit=C&pressureUnit=psig')).issues[0]).toMatchObject({ path: 'to' });
-    expect((await unprocessable('pt-table', 'refrigerant=R-404A&from=-40&to=40&step=0&temperatureUnit=C&pressureUnit=psig')).issues[0]).toMatchObject({ path: 'step' });
-    expect((await unprocessable('pt-table', 'refrigerant=R-404A&from=-40&to=40&step=0.01&temperatureUnit=C&pressureUnit=psig')).issues[0]).toMatchObject({ path: 'step' });
-    expect((await unprocessable('pt-table', 'refrigerant=R-404A&from=-40&to=40&step=5&temperatureUnit=K&pressureUnit=psig')).issues[0]).toMatchObject({ path: 'temperatureUnit' });
-    expect((await unprocessable('pt-table', 'refrigerant=R-404A&from=-40&to=40&step=5&temperatureUnit=C&pressureUnit=psig&elevationM=20000')).issues[0]).toMatchObject({ path: 'elevationM' });
+  it.each([
+    ['from=40&to=-40&step=5&temperatureUnit=C&pressureUnit=psig', 'to'],
+    ['from=-40&to=40&step=0&temperatureUnit=C&pressureUnit=psig', 'step'],
+    ['from=-40&to=40&step=0.01&temperatureUnit=C&pressureUnit=psig', 'step'],
+    ['from=-40&to=40&step=5&temperatureUnit=K&pressureUnit=psig', 'temperatureUnit'],
+    ['from=-40&to=40&step=5&temperatureUnit=C&pressureUnit=psig&elevationM=20000', 'elevationM'],
+  ])('rejects a bad range, step or unit → 422: refrigerant=R-404A&%s → %s', async (query, path) => {
+    expect((await unprocessable('pt-table', `refrigerant=R-404A&${query}`)).issues[0]).toMatchObject({ path });
   });
 });
 

@@ -24,12 +24,20 @@ const healthy = {
   outbox: { waitingOver5Minutes: 0, givenUpLast7Days: 0 },
 };
 
+/** Degraded with these checks and outbox counts (the other checks ok). */
+const degraded = (checks: Partial<typeof healthy.checks>, outbox: typeof healthy.outbox) => ({ ...healthy, status: 'degraded', checks: { ...healthy.checks, ...checks }, outbox });
+
+/** GET /api/health answers 200 (a degraded answer too) with exactly this body. */
+async function expectHealth(body: object): Promise<void> {
+  const { GET } = await import('@/app/api/health/route');
+  const res = await GET();
+  expect(res.status).toBe(200);
+  expect(await res.json()).toEqual(body);
+}
+
 describe('GET /api/health', () => {
   it('answers 200 when database, storage and mail answer and no mail waits', async () => {
-    const { GET } = await import('@/app/api/health/route');
-    const res = await GET();
-    expect(res.status).toBe(200);
-    expect(await res.json()).toEqual(healthy);
+    await expectHealth(healthy);
   });
 
   it('answers 503 naming storage while the object store is stopped, and 200 again when it is back', async () => {
@@ -46,7 +54,7 @@ describe('GET /api/health', () => {
       await store.stop();
       const down = await GET();
       expect(down.status).toBe(503);
-      expect(await down.json()).toEqual({ ...healthy, status: 'degraded', checks: { ...healthy.checks, storage: 'failing' } });
+      expect(await down.json()).toEqual(degraded({ storage: 'failing' }, healthy.outbox));
       await store.start();
       expect((await GET()).status).toBe(200);
     } finally {
@@ -68,54 +76,34 @@ describe('GET /api/health', () => {
     db.updateTable('mail_outbox').set({ created_at: sql`now() - make_interval(mins => ${minutes})`, status }).where('id', '=', id).execute();
 
   it('reports mail unsent for over 5 minutes as a backlog: degraded, with the count, still 200', async () => {
-    const { GET } = await import('@/app/api/health/route');
     try {
       // Fresh mail, and old mail that was sent, is no backlog (nor is mail given up: next case).
       const fresh = await queue(1);
       await age(fresh, 4);
       await age(await queue(2), 30, 'sent');
-      let res = await GET();
-      expect(res.status).toBe(200);
-      expect(await res.json()).toEqual(healthy);
+      await expectHealth(healthy);
 
       // Two messages older than 5 minutes, still pending: degraded with the count.
       await age(await queue(4), 6);
       await age(await queue(5), 90);
-      res = await GET();
-      expect(res.status).toBe(200);
-      expect(await res.json()).toEqual({
-        ...healthy,
-        status: 'degraded',
-        checks: { ...healthy.checks, outbox: 'backlog' },
-        outbox: { waitingOver5Minutes: 2, givenUpLast7Days: 0 },
-      });
+      await expectHealth(degraded({ outbox: 'backlog' }, { waitingOver5Minutes: 2, givenUpLast7Days: 0 }));
     } finally {
       await db.deleteFrom('mail_outbox').execute();
     }
   });
 
   it('reports mail given up in the last 7 days as undelivered: degraded, with the count, still 200', async () => {
-    const { GET } = await import('@/app/api/health/route');
     try {
       // Given up over 7 days ago: no longer counted (nothing re-sends it, so it would never clear).
       await age(await queue(1), 8 * 24 * 60, 'failed');
       await age(await queue(2), 30, 'sent');
-      let res = await GET();
-      expect(res.status).toBe(200);
-      expect(await res.json()).toEqual(healthy);
+      await expectHealth(healthy);
 
       await age(await queue(3), 30, 'failed');
       await age(await queue(4), 6 * 24 * 60, 'failed');
       // A backlog at the same time is reported beside it, each with its own count.
       await age(await queue(5), 20);
-      res = await GET();
-      expect(res.status).toBe(200);
-      expect(await res.json()).toEqual({
-        ...healthy,
-        status: 'degraded',
-        checks: { ...healthy.checks, outbox: 'backlog', undelivered: 'given_up' },
-        outbox: { waitingOver5Minutes: 1, givenUpLast7Days: 2 },
-      });
+      await expectHealth(degraded({ outbox: 'backlog', undelivered: 'given_up' }, { waitingOver5Minutes: 1, givenUpLast7Days: 2 }));
     } finally {
       await db.deleteFrom('mail_outbox').execute();
     }

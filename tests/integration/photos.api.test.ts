@@ -3,15 +3,16 @@
 // read back from storage, scoping by URL, deletion, and an upload while the store is down.
 import { NextRequest } from 'next/server';
 import sharp from 'sharp';
-import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
-import { actorFor, createOtherCompany, createTestDb, demoActors, resetToDemo } from '@/tests/helpers/db';
+import { actorFor, createOtherCompany, createTestDb, demoActors } from '@/tests/helpers/db';
 import { cameraImage, gifImage, hasLocation, heicHeader, isRed, pixelAt, pngBomb, readBack } from '@/tests/helpers/photo-images';
+import { freshDemoAndBucket } from '@/tests/helpers/private-object-store';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
 // A private object store on a port of its own (port 0 behind a front that stays put while the
 // store stops and starts), set before any app module reads the environment.
-const { store, start: startStore, empty: emptyStore, close: closeStore } = await vi.hoisted(async () =>
+const objects = await vi.hoisted(async () =>
   (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-api-test'),
 );
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -20,7 +21,6 @@ const { GET: listRoute, POST: uploadRoute } = await import('@/app/api/equipment/
 const { GET: getRoute, PATCH: patchRoute, DELETE: deleteRoute } = await import('@/app/api/photos/[id]/route');
 const { GET: fileRoute } = await import('@/app/api/photos/[id]/[variant]/route');
 const { listObjects } = await import('@/storage/objects');
-
 
 const db = createTestDb();
 let tech: Actor;
@@ -44,16 +44,8 @@ async function newEquipment(clientName: string, name: string): Promise<string> {
   return row.id;
 }
 
-beforeAll(async () => {
-  await startStore();
-});
-afterAll(async () => {
-  await closeStore();
-  await db.destroy();
-});
+freshDemoAndBucket(objects, db);
 beforeEach(async () => {
-  await resetToDemo(db);
-  await emptyStore();
   ({ technician: tech, office, admin, client: clientOne, clientTwo } = await demoActors(db));
   companyId = tech.companyId;
   equipmentOne = await newEquipment('Marrowgate Eatery Group', 'Walk-in condensing unit');
@@ -347,7 +339,7 @@ describe('object store outage', () => {
     const bytes = await cameraImage({ gps: true });
     const before = await upload(equipmentOne, form({ kind: 'general' }, { bytes }));
     const id = (before.body as PhotoBody).id;
-    await store.stop();
+    await objects.store.stop();
     try {
       const failed = await upload(equipmentOne, form({ kind: 'damage' }, { bytes }));
       expect(failed.status).toBe(503);
@@ -357,7 +349,7 @@ describe('object store outage', () => {
       // Reading a photo while the store is down is a plain 503 too, never a broken 500.
       expect((await file(id, 'thumb')).status).toBe(503);
     } finally {
-      await startStore();
+      await objects.start();
     }
     expect(await storedKeys()).toHaveLength(3);
     const retried = await upload(equipmentOne, form({ kind: 'damage' }, { bytes }));

@@ -5,14 +5,15 @@ import { promisify } from 'node:util';
 import type { KyselyPlugin } from 'kysely';
 import { NextRequest } from 'next/server';
 import sharp from 'sharp';
-import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Actor } from '@/lib/auth/actor';
 import type { StorageReportDto, StorageRepairDto } from '@/lib/photos/dto';
-import { createTestDb, demoActors, resetToDemo } from '@/tests/helpers/db';
+import { createTestDb, demoActors } from '@/tests/helpers/db';
 import { cameraImage } from '@/tests/helpers/photo-images';
+import { freshDemoAndBucket } from '@/tests/helpers/private-object-store';
 import { mockAuthModule, session } from '@/tests/helpers/session';
 
-const { start: startStore, empty: emptyStore, close: closeStore } = await vi.hoisted(async () =>
+const objects = await vi.hoisted(async () =>
   (await import('@/tests/helpers/private-object-store')).openPrivateObjectStore('photos-storage-test'),
 );
 vi.mock('@/lib/auth', () => mockAuthModule());
@@ -29,16 +30,8 @@ let admin: Actor;
 let equipmentId: string;
 const later = () => new Date(Date.now() + 20 * 60_000);
 
-beforeAll(async () => {
-  await startStore();
-});
-afterAll(async () => {
-  await closeStore();
-  await db.destroy();
-});
+freshDemoAndBucket(objects, db);
 beforeEach(async () => {
-  await resetToDemo(db);
-  await emptyStore();
   ({ technician: tech, admin } = await demoActors(db));
   const site = await db.selectFrom('sites').select(['id', 'company_id']).orderBy('name').executeTakeFirstOrThrow();
   equipmentId = (await db.insertInto('equipment').values({ company_id: site.company_id, site_id: site.id, type: 'evaporator', name: 'Unit cooler A' }).returning('id').executeTakeFirstOrThrow()).id;
