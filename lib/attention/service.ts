@@ -2,7 +2,7 @@ import 'server-only';
 import { sql } from 'kysely';
 import { z } from 'zod';
 import { db as defaultDb } from '@/db';
-import { conditionTrendVisibleTo, noCoolingVisitsVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
+import { keptRowsVisibleTo, siteVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -45,7 +45,7 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
   const noCoolingSince = new Date(today.getTime() - 90 * 86_400_000);
   const noCoolingQuery = db
     .selectFrom('no_cooling_visits')
-    .where(noCoolingVisitsVisibleTo(actor))
+    .where(keptRowsVisibleTo(actor, 'no_cooling_visits'))
     .where('no_cooling_visits.second_started_at', '>', noCoolingSince)
     .select([
       'no_cooling_visits.equipment_id as id',
@@ -57,7 +57,7 @@ async function findSignals(actor: Actor, siteId: string | null, db: Db, today: D
   // (migration 2026_12_05_0430), so only the units that got worse are read.
   const ratingsQuery = db
     .selectFrom('condition_trends')
-    .where(conditionTrendVisibleTo(actor))
+    .where(keptRowsVisibleTo(actor, 'condition_trends'))
     .whereRef('condition_trends.latest_rating', '<', 'condition_trends.previous_rating')
     .$if(Boolean(siteId), (q) => q.where('condition_trends.equipment_id', 'in', (eb) => eb.selectFrom('equipment').select('equipment.id').where('equipment.site_id', '=', siteId!)))
     .select(['condition_trends.equipment_id', 'condition_trends.latest_visit_id as visit_id', 'condition_trends.latest_rating as to', 'condition_trends.previous_rating as from'])

@@ -81,29 +81,19 @@ export function entryVisibleTo(actor: Actor) {
 }
 
 /**
- * The kept last-two-ratings rows (table condition_trends, see its migration) an actor's ratings
- * make: staff read the row built from every rating, an owner the one built from closed visits on
- * their client's sites, the same entries `entryVisibleTo` lets each see. Needs `condition_trends`.
+ * Rows of a table the database keeps per audience (condition_trends: each unit's last two ratings;
+ * no_cooling_visits: each unit's no-cooling visits; see their migrations): staff read the row built
+ * from everything of their company (no client), an owner the one built from closed visits on their
+ * client's sites, the same entries and visits `entryVisibleTo` and `visitVisibleTo` let each see.
  */
-export function conditionTrendVisibleTo(actor: Actor) {
+export function keptRowsVisibleTo(actor: Actor, table: 'condition_trends' | 'no_cooling_visits') {
   const clientId = clientScope(actor);
+  const company = sql.ref(`${table}.company_id`);
+  const client = sql.ref(`${table}.client_id`);
   return (): Expression<SqlBool> =>
     clientId === null
-      ? sql<SqlBool>`(condition_trends.company_id = ${actor.companyId} and condition_trends.client_id is null)`
-      : sql<SqlBool>`(condition_trends.company_id = ${actor.companyId} and condition_trends.client_id = ${clientId})`;
-}
-
-/**
- * The kept no-cooling visit rows (table no_cooling_visits, see its migration) an actor's visits
- * make: staff read the row built from every visit of their company, an owner the one built from
- * closed visits on their client's sites, as `visitVisibleTo` lets each see. Needs `no_cooling_visits`.
- */
-export function noCoolingVisitsVisibleTo(actor: Actor) {
-  const clientId = clientScope(actor);
-  return (): Expression<SqlBool> =>
-    clientId === null
-      ? sql<SqlBool>`(no_cooling_visits.company_id = ${actor.companyId} and no_cooling_visits.client_id is null)`
-      : sql<SqlBool>`(no_cooling_visits.company_id = ${actor.companyId} and no_cooling_visits.client_id = ${clientId})`;
+      ? sql<SqlBool>`(${company} = ${actor.companyId} and ${client} is null)`
+      : sql<SqlBool>`(${company} = ${actor.companyId} and ${client} = ${clientId})`;
 }
 
 /** Photos belong to their unit and are seen with it: needs `photos` and `sites` (the unit's). */
