@@ -64,11 +64,13 @@ describe('report CSV (site equipment, refrigerant)', () => {
   });
 });
 
-describe('unescapeCell', () => {
-  it('removes exactly the one apostrophe the export added', () => {
-    expect(unescapeCell("'=1")).toBe('=1');
-    expect(unescapeCell("''=1")).toBe("'=1");
-    expect(unescapeCell("'plain")).toBe("'plain");
-    expect(unescapeCell("'-4.5")).toBe("'-4.5");
+describe('unescapeCell removes exactly the one apostrophe the export added', () => {
+  it.each([
+    ["'=1", '=1'],
+    ["''=1", "'=1"],
+    ["'plain", "'plain"],
+    ["'-4.5", "'-4.5"],
+  ])('%s → %s', (cell, value) => {
+    expect(unescapeCell(cell)).toBe(value);
   });
 });

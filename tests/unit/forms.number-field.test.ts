@@ -4,15 +4,19 @@ import { describe, expect, it } from 'vitest';
 import { flipSign } from '@/components/forms/number-field';
 
 describe('flipSign', () => {
-  it('adds a minus to a positive or empty value and takes it off a negative one', () => {
-    expect(flipSign('12.5')).toBe('-12.5');
-    expect(flipSign('-12.5')).toBe('12.5');
-    expect(flipSign('')).toBe('-');
-    expect(flipSign('-')).toBe('');
+  // A minus goes onto a positive or empty value and comes off a negative one; the digits stay
+  // as typed (a decimal comma stays for the resolver to read).
+  it.each([
+    ['12.5', '-12.5'],
+    ['-12.5', '12.5'],
+    ['', '-'],
+    ['-', ''],
+    [' 3,2 ', '-3,2'],
+  ])('%j → %j', (typed, flipped) => {
+    expect(flipSign(typed)).toBe(flipped);
   });
 
-  it('keeps the digits as typed (a decimal comma stays for the resolver to read)', () => {
-    expect(flipSign(' 3,2 ')).toBe('-3,2');
+  it('flipped twice gives back what was typed', () => {
     expect(flipSign(flipSign('0.05'))).toBe('0.05');
   });
 });

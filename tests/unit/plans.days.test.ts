@@ -6,21 +6,30 @@ import { addDays, isOverdue, weekDays, weekStart } from '@/lib/plans/days';
 import { createPlanSchema, movePlanSchema } from '@/lib/plans/schemas';
 
 describe('plan days', () => {
-  it('finds the Monday of a week, across a month, a year and a leap day', () => {
-    expect(weekStart('2026-12-04')).toBe('2026-11-30');
-    expect(weekStart('2026-12-07')).toBe('2026-12-07');
-    expect(weekStart('2026-12-13')).toBe('2026-12-07');
-    expect(weekStart('2027-01-01')).toBe('2026-12-28');
-    expect(weekStart('2028-02-29')).toBe('2028-02-28');
+  // The Monday of a week, across a month, a year and a leap day.
+  it.each([
+    ['2026-12-04', '2026-11-30'],
+    ['2026-12-07', '2026-12-07'],
+    ['2026-12-13', '2026-12-07'],
+    ['2027-01-01', '2026-12-28'],
+    ['2028-02-29', '2028-02-28'],
+  ])('the week of %s starts on %s', (day, monday) => {
+    expect(weekStart(day)).toBe(monday);
+  });
+
+  it('lists a week across a year end and steps onto a leap day', () => {
     expect(weekDays('2026-12-28')).toEqual(['2026-12-28', '2026-12-29', '2026-12-30', '2026-12-31', '2027-01-01', '2027-01-02', '2027-01-03']);
     expect(addDays('2028-02-28', 1)).toBe('2028-02-29');
   });
 
-  it('calls a plan overdue only when it is still planned and its day has passed on the site calendar', () => {
-    expect(isOverdue({ status: 'planned', day: '2026-12-03' }, '2026-12-04')).toBe(true);
-    expect(isOverdue({ status: 'planned', day: '2026-12-04' }, '2026-12-04')).toBe(false);
-    expect(isOverdue({ status: 'started', day: '2026-12-01' }, '2026-12-04')).toBe(false);
-    expect(isOverdue({ status: 'cancelled', day: '2026-12-01' }, '2026-12-04')).toBe(false);
+  // Overdue only when still planned and its day has passed on the site calendar (today 2026-12-04).
+  it.each([
+    ['planned', '2026-12-03', true],
+    ['planned', '2026-12-04', false],
+    ['started', '2026-12-01', false],
+    ['cancelled', '2026-12-01', false],
+  ] as const)('a %s plan for %s is overdue: %s', (status, day, overdue) => {
+    expect(isOverdue({ status, day }, '2026-12-04')).toBe(overdue);
   });
 
   it('shows wall-clock times as written, whatever the reader’s zone', () => {

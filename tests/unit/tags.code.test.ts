@@ -49,12 +49,15 @@ function sampleCodes(): string[] {
 }
 
 describe('Crockford check symbol', () => {
-  it('matches the worked examples of the specification', () => {
-    // 1234 = "16J" → 1234 mod 37 = 13 → "D"; 32 = "10" → 32 → "*"; 123456789 = "3NQK8N" → 36 → "U".
-    expect(checkSymbol('16J')).toBe('D');
-    expect(checkSymbol('10')).toBe('*');
-    expect(checkSymbol('3NQK8N')).toBe('U');
-    expect(checkSymbol('0')).toBe('0');
+  // The worked examples of the specification: 1234 = "16J" → 1234 mod 37 = 13 → "D";
+  // 32 = "10" → 32 → "*"; 123456789 = "3NQK8N" → 36 → "U".
+  it.each([
+    ['16J', 'D'],
+    ['10', '*'],
+    ['3NQK8N', 'U'],
+    ['0', '0'],
+  ])('check symbol of %s is %s', (data, symbol) => {
+    expect(checkSymbol(data)).toBe(symbol);
   });
 
   it('uses the 32 data symbols without I, L, O, U and 37 check symbols', () => {
