@@ -3,32 +3,28 @@
 // rating someone sees (a rating added, a visit closed, an entry voided, a visit reopened and a
 // new rating, a unit moved) the attention list says what ranking every visible rating says, for
 // staff (open visits count) and for the owner (closed visits only).
-import { randomUUID } from 'node:crypto';
 import { sql } from 'kysely';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, it, vi } from 'vitest';
 import { needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';
 import { entryVisibleTo } from '@/lib/auth/scope';
 import { updateEquipment } from '@/lib/equipment/service';
 import { createArea } from '@/lib/sites/service';
 import { closeVisit } from '@/lib/visits/close';
-import { addEntry, voidEntry } from '@/lib/visits/entries';
+import { voidEntry } from '@/lib/visits/entries';
 import { reopenVisit, startVisit } from '@/lib/visits/service';
 import { createTestDb } from '@/tests/helpers/db';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { ago, demoWithRatedVisit, expectBothAudiences, expectRebuildKeepsRows, rate } from '@/tests/helpers/kept-rows';
+import type { CoolerCircuit } from '@/tests/helpers/registry';
 import { mockAuthModule } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const db = createTestDb();
-const DAY = 86_400_000;
 let tech: Actor;
 let office: Actor;
 let owner: Actor;
 let circuit: CoolerCircuit;
-const ago = (days: number) => new Date(Date.now() - days * DAY).toISOString();
-const rate = (visitId: string, equipmentId: string, rating: number, days: number) =>
-  addEntry(tech, visitId, { equipmentId, clientEntryId: randomUUID(), kind: 'condition' as const, recordedAt: ago(days), data: { rating } });
 
 /** What the attention list says got worse on the circuit's site: unit, from, to, visit. */
 async function listed(actor: Actor): Promise<string[]> {
@@ -65,23 +61,13 @@ async function ranked(actor: Actor): Promise<string[]> {
   return rows.map((r) => `${r.equipment_id} ${r.from}->${r.to} ${r.visit_id}`).sort();
 }
 
-async function expectBoth(staff: string[], ownerSees: string[]): Promise<void> {
-  expect(await listed(office)).toEqual(staff.sort());
-  expect(await ranked(office)).toEqual(staff.sort());
-  expect(await listed(owner)).toEqual(ownerSees.sort());
-  expect(await ranked(owner)).toEqual(ownerSees.sort());
-}
+const expectBoth = (staff: string[], ownerSees: string[]) => expectBothAudiences({ office, owner }, { listed, replaced: ranked }, staff, ownerSees);
 
-let first: string;
 let second: string;
 let worseEntry: string;
 
 beforeAll(async () => {
-  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
-  first = (await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance', startedAt: ago(30) })).id;
-  await rate(first, circuit.evaporatorId, 4, 30);
-  await rate(first, circuit.condensingUnitId, 3, 30);
-  await closeVisit(tech, first, { summary: 'Routine check.', confirmBypassRemoved: false });
+  ({ tech, office, owner, circuit } = await demoWithRatedVisit(db, { reason: 'maintenance', days: 30, evaporator: 4, condensingUnit: 3, summary: 'Routine check.' }));
 });
 afterAll(async () => {
   await db.destroy();
@@ -90,9 +76,9 @@ afterAll(async () => {
 describe('condition got worse, from the kept rows', () => {
   it('a worse rating in an open visit counts for staff only', async () => {
     second = (await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(3) })).id;
-    worseEntry = (await rate(second, circuit.evaporatorId, 2, 3)).id;
+    worseEntry = (await rate(tech, second, circuit.evaporatorId, 2, 3)).id;
     // Better is not worse: the condensing unit went from 3 to 5.
-    await rate(second, circuit.condensingUnitId, 5, 3);
+    await rate(tech, second, circuit.condensingUnitId, 5, 3);
     await expectBoth([`${circuit.evaporatorId} 4->2 ${second}`], []);
   });
 
@@ -108,7 +94,7 @@ describe('condition got worse, from the kept rows', () => {
 
   it('reopening hides the visit from the owner again, and a new rating there counts for staff at once', async () => {
     await reopenVisit(office, second);
-    await rate(second, circuit.evaporatorId, 1, 2);
+    await rate(tech, second, circuit.evaporatorId, 1, 2);
     // The owner sees only the first visit's rating again: one rating, nothing to compare.
     await expectBoth([`${circuit.evaporatorId} 4->1 ${second}`], []);
     await closeVisit(tech, second, { summary: 'Coil cleaned; motor on order.', confirmBypassRemoved: false });
@@ -122,11 +108,6 @@ describe('condition got worse, from the kept rows', () => {
   });
 
   it('keeps one row per unit and audience, rebuilt by the migration exactly as the triggers left it', async () => {
-    const rows = async () =>
-      (await db.selectFrom('condition_trends').selectAll().orderBy('equipment_id').orderBy(sql`client_id nulls first`).execute()).map((r) => JSON.stringify(r));
-    const kept = await rows();
-    expect(kept.length).toBeGreaterThanOrEqual(4);
-    await sql`select refresh_condition_trends(array(select id from equipment))`.execute(db);
-    expect(await rows()).toEqual(kept);
+    await expectRebuildKeepsRows(db, 'condition_trends');
   });
 });

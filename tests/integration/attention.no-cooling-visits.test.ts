@@ -4,30 +4,26 @@
 // visit of another reason, the 90-day window moving on) the attention list says what grouping
 // every visible visit's entries says, for staff (open visits count) and for the owner (closed
 // visits only).
-import { randomUUID } from 'node:crypto';
 import { sql } from 'kysely';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, it, vi } from 'vitest';
 import { needsAttention } from '@/lib/attention/service';
 import type { Actor } from '@/lib/auth/actor';
 import { visitVisibleTo } from '@/lib/auth/scope';
 import { closeVisit } from '@/lib/visits/close';
-import { addEntry, voidEntry } from '@/lib/visits/entries';
+import { voidEntry } from '@/lib/visits/entries';
 import { reopenVisit, startVisit } from '@/lib/visits/service';
 import { createTestDb } from '@/tests/helpers/db';
-import { demoWithCircuit, type CoolerCircuit } from '@/tests/helpers/registry';
+import { ago, DAY, demoWithRatedVisit, expectBothAudiences, expectRebuildKeepsRows, rate } from '@/tests/helpers/kept-rows';
+import type { CoolerCircuit } from '@/tests/helpers/registry';
 import { mockAuthModule } from '@/tests/helpers/session';
 
 vi.mock('@/lib/auth', () => mockAuthModule());
 
 const db = createTestDb();
-const DAY = 86_400_000;
 let tech: Actor;
 let office: Actor;
 let owner: Actor;
 let circuit: CoolerCircuit;
-const ago = (days: number) => new Date(Date.now() - days * DAY).toISOString();
-const rate = (visitId: string, equipmentId: string, rating: number, days: number) =>
-  addEntry(tech, visitId, { equipmentId, clientEntryId: randomUUID(), kind: 'condition' as const, recordedAt: ago(days), data: { rating } });
 
 /** What the attention list says had no cooling twice on the circuit's site: unit, then its visits. */
 async function listed(actor: Actor, today: Date): Promise<string[]> {
@@ -52,12 +48,8 @@ async function grouped(actor: Actor, today: Date): Promise<string[]> {
   return rows.map((r) => `${r.id} ${r.visit_ids.join(',')}`).sort();
 }
 
-async function expectBoth(staff: string[], ownerSees: string[], today = new Date()): Promise<void> {
-  expect(await listed(office, today)).toEqual(staff.sort());
-  expect(await grouped(office, today)).toEqual(staff.sort());
-  expect(await listed(owner, today)).toEqual(ownerSees.sort());
-  expect(await grouped(owner, today)).toEqual(ownerSees.sort());
-}
+const expectBoth = (staff: string[], ownerSees: string[], today = new Date()) =>
+  expectBothAudiences({ office, owner }, { listed: (a) => listed(a, today), replaced: (a) => grouped(a, today) }, staff, ownerSees);
 
 let first: string;
 let second: string;
@@ -65,11 +57,7 @@ let secondEntry: string;
 const both = () => [first, second].sort().join(',');
 
 beforeAll(async () => {
-  ({ tech, office, owner, circuit } = await demoWithCircuit(db));
-  first = (await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(40) })).id;
-  await rate(first, circuit.evaporatorId, 3, 40);
-  await rate(first, circuit.condensingUnitId, 4, 40);
-  await closeVisit(tech, first, { summary: 'Iced coil; defrost reset.', confirmBypassRemoved: false });
+  ({ tech, office, owner, circuit, first } = await demoWithRatedVisit(db, { reason: 'no_cooling', days: 40, evaporator: 3, condensingUnit: 4, summary: 'Iced coil; defrost reset.' }));
 });
 afterAll(async () => {
   await db.destroy();
@@ -82,7 +70,7 @@ describe('no cooling twice within 90 days, from the kept rows', () => {
 
   it('a second one, still open, counts for staff only', async () => {
     second = (await startVisit(tech, { siteId: circuit.siteId, reason: 'no_cooling', startedAt: ago(3) })).id;
-    secondEntry = (await rate(second, circuit.evaporatorId, 2, 3)).id;
+    secondEntry = (await rate(tech, second, circuit.evaporatorId, 2, 3)).id;
     await expectBoth([`${circuit.evaporatorId} ${both()}`], []);
   });
 
@@ -107,7 +95,7 @@ describe('no cooling twice within 90 days, from the kept rows', () => {
 
   it('a visit for another reason adds nothing', async () => {
     const other = (await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance', startedAt: ago(2) })).id;
-    await rate(other, circuit.condensingUnitId, 4, 2);
+    await rate(tech, other, circuit.condensingUnitId, 4, 2);
     await closeVisit(tech, other, { summary: 'Routine check.', confirmBypassRemoved: false });
     await expectBoth([`${circuit.evaporatorId} ${both()}`], [`${circuit.evaporatorId} ${both()}`]);
   });
@@ -118,11 +106,6 @@ describe('no cooling twice within 90 days, from the kept rows', () => {
   });
 
   it('keeps one row per unit and audience, rebuilt by the migration exactly as the triggers left it', async () => {
-    const rows = async () =>
-      (await db.selectFrom('no_cooling_visits').selectAll().orderBy('equipment_id').orderBy('company_id').orderBy(sql`client_id nulls first`).execute()).map((r) => JSON.stringify(r));
-    const kept = await rows();
-    expect(kept.length).toBeGreaterThanOrEqual(4);
-    await sql`select refresh_no_cooling_visits(array(select id from equipment))`.execute(db);
-    expect(await rows()).toEqual(kept);
+    await expectRebuildKeepsRows(db, 'no_cooling_visits');
   });
 });
