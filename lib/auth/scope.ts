@@ -1,4 +1,5 @@
-import { sql, type Expression, type SqlBool } from 'kysely';
+import { sql, type Expression, type SelectQueryBuilder, type SqlBool } from 'kysely';
+import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
 import { AppError } from '@/lib/errors';
 
@@ -59,6 +60,17 @@ export function siteRecordVisibleTo(actor: Actor, table: SiteRecordTable) {
   const site = siteVisibleTo(actor);
   const companyId = sql.ref(`${table}.company_id`);
   return (): Expression<SqlBool> => sql<SqlBool>`(${companyId} = ${actor.companyId} and ${site()})`;
+}
+
+/**
+ * For `.$call(…)` straight after `selectFrom(table)`: joins the record's own site (its `site_id`)
+ * and keeps the rows the actor sees, so the filter always has the `sites` it needs. The filter is
+ * `siteRecordVisibleTo` unless the table has its own rule (plans: `planVisibleTo`).
+ */
+export function atVisibleSite<T extends Exclude<SiteRecordTable, 'photos'>>(actor: Actor, table: T, visible = siteRecordVisibleTo(actor, table)) {
+  // Named through sql.ref: Kysely's typed join columns cannot be spelled for a table still generic.
+  const onOwnSite = sql<SqlBool>`${sql.ref('sites.id')} = ${sql.ref(`${table}.site_id`)}`;
+  return <O>(query: SelectQueryBuilder<DB, T, O>) => query.innerJoin('sites', (join) => join.on(onOwnSite)).where(visible);
 }
 
 /** Visits: needs `visits` and `sites` (the visit's own site) in the query. */

@@ -1,6 +1,6 @@
 import { sql } from 'kysely';
 import { escapeLike } from '@/db/helpers';
-import { siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
 import { afterCursor, type CursorCast } from '@/lib/api/paging';
@@ -13,13 +13,12 @@ import type { EquipmentSort, ListEquipmentQuery } from '@/lib/equipment/schemas'
 export function equipmentBaseQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('equipment')
-    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .$call(atVisibleSite(actor, 'equipment'))
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .leftJoin('areas', 'areas.id', 'equipment.area_id')
     .leftJoin('systems', 'systems.id', 'equipment.system_id')
     // A deleted replacement is not linked to: its page would not open.
-    .leftJoin('equipment as replacement', (join) => join.onRef('replacement.id', '=', 'equipment.replaced_by_id').on('replacement.deleted_at', 'is', null))
-    .where(siteRecordVisibleTo(actor, 'equipment'));
+    .leftJoin('equipment as replacement', (join) => join.onRef('replacement.id', '=', 'equipment.replaced_by_id').on('replacement.deleted_at', 'is', null));
 }
 
 export const refrigerantExpr = sql<string | null>`coalesce(systems.refrigerant, equipment.nameplate->>'refrigerant')`;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
@@ -19,11 +19,10 @@ import type { Severity } from '@/lib/visits/schemas';
 function followUpQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('follow_ups')
-    .innerJoin('sites', 'sites.id', 'follow_ups.site_id')
+    .$call(atVisibleSite(actor, 'follow_ups'))
     .leftJoin('equipment', 'equipment.id', 'follow_ups.equipment_id')
     .innerJoin('users as author', 'author.id', 'follow_ups.created_by')
     .leftJoin('users as closer', 'closer.id', 'follow_ups.closed_by')
-    .where(siteRecordVisibleTo(actor, 'follow_ups'))
     .select([
       'follow_ups.id',
       'follow_ups.site_id',
@@ -94,8 +93,7 @@ export async function countOpenBySeverity(actor: Actor, siteId: string | null, d
   assertCan(actor, 'followups.read');
   let q = db
     .selectFrom('follow_ups')
-    .innerJoin('sites', 'sites.id', 'follow_ups.site_id')
-    .where(siteRecordVisibleTo(actor, 'follow_ups'))
+    .$call(atVisibleSite(actor, 'follow_ups'))
     .where('follow_ups.status', 'in', ['open', 'scheduled'])
     .select(['follow_ups.severity', (eb) => eb.fn.countAll<number>().as('n')])
     .groupBy('follow_ups.severity')

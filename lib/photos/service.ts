@@ -2,7 +2,7 @@ import 'server-only';
 import { randomUUID } from 'node:crypto';
 import { type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { photoVisibleTo, siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite, photoVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db } from '@/db/types';
 import { keysetPage } from '@/lib/api/paging';
@@ -56,9 +56,8 @@ export function canEdit(actor: Actor, uploadedBy: string): boolean {
 async function equipmentForPhotos(actor: Actor, equipmentId: string, db: Db) {
   const row = await db
     .selectFrom('equipment')
-    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .$call(atVisibleSite(actor, 'equipment'))
     .innerJoin('companies', 'companies.id', 'equipment.company_id')
-    .where(siteRecordVisibleTo(actor, 'equipment'))
     .where('equipment.id', '=', equipmentId)
     .where('equipment.deleted_at', 'is', null)
     .select(['equipment.id', 'equipment.name', 'sites.time_zone', 'companies.keep_photo_location'])

@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
-import { planVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite, planVisibleTo } from '@/lib/auth/scope';
 import type { VisitReason } from '@/lib/visits/terms';
 
 export interface PlannedCover {
@@ -22,10 +22,9 @@ export async function plannedCover(actor: Actor, systemIds: string[], db: Kysely
   if (systemIds.length === 0) return [];
   return db
     .selectFrom('visit_plans')
-    .innerJoin('sites', 'sites.id', 'visit_plans.site_id')
+    .$call(atVisibleSite(actor, 'visit_plans', planVisibleTo(actor)))
     .innerJoin('systems', 'systems.site_id', 'visit_plans.site_id')
     .innerJoin('users as tech', 'tech.id', 'visit_plans.technician_id')
-    .where(planVisibleTo(actor))
     .where('systems.id', 'in', systemIds)
     .where(
       sql<boolean>`(visit_plans.status = 'planned'

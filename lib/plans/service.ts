@@ -14,7 +14,7 @@ import type { PlanDto, PlanPage } from '@/lib/plans/dto';
 import { planFlags, planListFlags } from '@/lib/plans/permissions';
 import { queuePlanMail, type PlanMailEvent } from '@/lib/plans/mail';
 import type { CancelPlanInput, CreatePlanInput, ListPlansQuery, MovePlanInput } from '@/lib/plans/schemas';
-import { planVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite, planVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
 import type { PlanStatus } from '@/lib/plans/terms';
 import type { VisitReason } from '@/lib/visits/terms';
 
@@ -25,11 +25,10 @@ import type { VisitReason } from '@/lib/visits/terms';
 function planQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('visit_plans')
-    .innerJoin('sites', 'sites.id', 'visit_plans.site_id')
+    .$call(atVisibleSite(actor, 'visit_plans', planVisibleTo(actor)))
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .innerJoin('users as tech', 'tech.id', 'visit_plans.technician_id')
     .leftJoin('visits', 'visits.id', 'visit_plans.visit_id')
-    .where(planVisibleTo(actor))
     .select([
       'visit_plans.id',
       'visit_plans.site_id',
@@ -136,8 +135,7 @@ function checkDay(day: string, siteToday: string): void {
 async function lockPlan(actor: Actor, id: string, trx: Db) {
   const row = await trx
     .selectFrom('visit_plans')
-    .innerJoin('sites', 'sites.id', 'visit_plans.site_id')
-    .where(planVisibleTo(actor))
+    .$call(atVisibleSite(actor, 'visit_plans', planVisibleTo(actor)))
     .where('visit_plans.id', '=', id)
     .select(['visit_plans.id', 'visit_plans.status', 'visit_plans.site_id', 'sites.time_zone'])
     .forUpdate()

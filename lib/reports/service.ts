@@ -3,7 +3,7 @@ import Papa from 'papaparse';
 import { escapeFormulae } from '@/lib/equipment/csv-cells';
 import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { entryVisibleTo, siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite, entryVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
@@ -119,9 +119,8 @@ export async function refrigerantReport(actor: Actor, systemId: string, year: nu
   assertCan(actor, 'reports.read');
   const system = await db
     .selectFrom('systems')
-    .innerJoin('sites', 'sites.id', 'systems.site_id')
+    .$call(atVisibleSite(actor, 'systems'))
     .innerJoin('clients', 'clients.id', 'sites.client_id')
-    .where(siteRecordVisibleTo(actor, 'systems'))
     .where('systems.id', '=', systemId)
     .select(['systems.id', 'systems.name', 'systems.refrigerant', 'systems.full_charge_kg', 'systems.application', 'sites.name as site_name', 'sites.time_zone', 'clients.name as client_name'])
     .executeTakeFirst();

@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely, type Transaction } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan, can } from '@/lib/auth/access';
@@ -29,11 +29,10 @@ import { getSite } from '@/lib/sites/service';
 function requestQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('service_requests')
-    .innerJoin('sites', 'sites.id', 'service_requests.site_id')
+    .$call(atVisibleSite(actor, 'service_requests'))
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .leftJoin('equipment', 'equipment.id', 'service_requests.equipment_id')
     .innerJoin('users as requester', 'requester.id', 'service_requests.requested_by')
-    .where(siteRecordVisibleTo(actor, 'service_requests'))
     .select([
       'service_requests.id',
       'service_requests.site_id',

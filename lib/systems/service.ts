@@ -2,7 +2,7 @@ import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { escapeLike } from '@/db/helpers';
-import { siteRecordVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
@@ -19,9 +19,8 @@ import { getSite } from '@/lib/sites/service';
 function systemQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('systems')
-    .innerJoin('sites', 'sites.id', 'systems.site_id')
+    .$call(atVisibleSite(actor, 'systems'))
     .leftJoin('areas', 'areas.id', 'systems.area_id')
-    .where(siteRecordVisibleTo(actor, 'systems'))
     .select((eb) => [
       'systems.id',
       'systems.site_id',

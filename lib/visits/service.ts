@@ -1,7 +1,7 @@
 import 'server-only';
 import { sql, type Kysely } from 'kysely';
 import { db as defaultDb } from '@/db';
-import { siteRecordVisibleTo, visitVisibleTo } from '@/lib/auth/scope';
+import { atVisibleSite, visitVisibleTo } from '@/lib/auth/scope';
 import type { DB } from '@/db/schema.gen';
 import type { Db, QueryRow } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
@@ -25,10 +25,9 @@ import type { EntryKind, ListVisitsQuery, StartVisitInput, VisitReason } from '@
 function visitQuery(actor: Actor, db: Db) {
   return db
     .selectFrom('visits')
-    .innerJoin('sites', 'sites.id', 'visits.site_id')
+    .$call(atVisibleSite(actor, 'visits'))
     .innerJoin('clients', 'clients.id', 'sites.client_id')
     .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
-    .where(siteRecordVisibleTo(actor, 'visits'))
     .select((eb) => [
       'visits.id',
       'visits.site_id',
