@@ -37,10 +37,14 @@ export type Priority = 'urgent' | 'soon' | 'watch';
 export const PRIORITIES: readonly Priority[] = ['urgent', 'soon', 'watch'];
 export const priorityLabels: Record<Priority, string> = { urgent: 'Urgent', soon: 'Soon', watch: 'Watch' };
 
-export interface RankedUnit extends UnitSignals {
+/** A unit placed on the list: its priority and score, before its reasons are put in words. */
+export interface ScoredUnit extends UnitSignals {
   priority: Priority;
   /** Orders units within one priority (more, and more serious, problems first); never shown. */
   score: number;
+}
+
+export interface RankedUnit extends ScoredUnit {
   reasons: { text: string; kind: Signal['kind']; href: string | null }[];
 }
 
@@ -138,7 +142,7 @@ export interface RankKey {
   id: string;
 }
 
-export function rankKey(u: RankedUnit): RankKey {
+export function rankKey(u: ScoredUnit): RankKey {
   return { priority: PRIORITIES.indexOf(u.priority), score: u.score, oldest: oldest(u), name: u.equipmentName, id: u.equipmentId };
 }
 
@@ -157,16 +161,24 @@ export function compareRankKeys(a: RankKey, b: RankKey): number {
   return a.priority - b.priority || b.score - a.score || compareCodePoints(a.oldest, b.oldest) || compareCodePoints(a.name, b.name) || compareCodePoints(a.id, b.id);
 }
 
-export function rankUnits(units: UnitSignals[]): RankedUnit[] {
+/**
+ * The units with a signal, in list order, not yet described: putting reasons in words formats
+ * numbers and dates, which costs more than the ranking, so a page describes only what it shows.
+ */
+export function scoreUnits(units: UnitSignals[]): ScoredUnit[] {
   return units
     .filter((u) => u.signals.length > 0)
-    .map((u) => ({
-      ...u,
-      priority: unitPriority(u.signals),
-      score: u.signals.reduce((sum, s) => sum + scoreSignal(s), 0),
-      reasons: [...u.signals].sort((a, b) => scoreSignal(b) - scoreSignal(a)).map((s) => ({ kind: s.kind, ...describeSignal(s) })),
-    }))
+    .map((u) => ({ ...u, priority: unitPriority(u.signals), score: u.signals.reduce((sum, s) => sum + scoreSignal(s), 0) }))
     .map((u) => ({ u, key: rankKey(u) }))
     .sort((a, b) => compareRankKeys(a.key, b.key))
     .map(({ u }) => u);
+}
+
+/** A scored unit's reasons in words, the most serious first. */
+export function describeUnit(u: ScoredUnit): RankedUnit {
+  return { ...u, reasons: [...u.signals].sort((a, b) => scoreSignal(b) - scoreSignal(a)).map((s) => ({ kind: s.kind, ...describeSignal(s) })) };
+}
+
+export function rankUnits(units: UnitSignals[]): RankedUnit[] {
+  return scoreUnits(units).map(describeUnit);
 }

@@ -7,7 +7,7 @@ import type { Db } from '@/db/types';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { openLeaks } from '@/lib/attention/open-leaks';
-import { compareRankKeys, PRIORITIES, rankKey, rankUnits, type RankedUnit, type RankKey, type Signal, type UnitSignals } from '@/lib/attention/rank';
+import { compareRankKeys, describeUnit, PRIORITIES, rankKey, rankUnits, scoreUnits, type RankedUnit, type RankKey, type Signal, type UnitSignals } from '@/lib/attention/rank';
 import { medianServiceLife, type EquipmentType } from '@/lib/calc/service-life';
 import { ageYearsSql, pastExpectedLifeSql, serviceLifeTable } from '@/lib/overview/service-life-sql';
 import { decodeCursor, encodeCursor } from '@/lib/api/cursor';
@@ -195,11 +195,11 @@ export async function attentionPage(
   const countInScan = wantTotal && !afterWatch;
   const counting = wantTotal && afterWatch ? pastLife().select(sql<number>`count(*)::int`.as('n')).executeTakeFirstOrThrow() : null;
   const [found, ahead, counted] = await Promise.all([findSignals(actor, siteId, db, today), ageOrdered([], take, countInScan), counting]);
-  const signalled = rankUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
+  const signalled = scoreUnits(await unitsWithSignals(actor, siteId, db, today, found, false));
   const signalledIds = new Set(signalled.map((u) => u.equipmentId));
   let rows: Omit<(typeof ahead)[number], 'matching'>[] = ahead.filter((r) => !signalledIds.has(r.id));
   if (rows.length < options.limit + 1 && ahead.length === take) rows = await ageOrdered([...signalledIds], options.limit + 1, false);
-  const ageRanked = rankUnits(
+  const ageRanked = scoreUnits(
     rows.slice(0, options.limit + 1).map((r) => ({
       equipmentId: r.id,
       equipmentName: r.name,
@@ -217,7 +217,8 @@ export async function attentionPage(
   // Every unit past its life: the window count (or the count), which includes those with another reason too.
   const pastLifeCount = counted ? counted.n : countInScan ? ((ahead[0] as { matching?: number } | undefined)?.matching ?? 0) : null;
   return {
-    items: kept.map((c) => c.u),
+    // Only the page's units are put in words.
+    items: kept.map((c) => describeUnit(c.u)),
     // Units past their life that also have another reason are in `signalled` already.
     total: pastLifeCount === null ? null : signalled.length + pastLifeCount - signalled.filter((u) => u.signals.some((x) => x.kind === 'past_expected_life')).length,
     nextCursor: candidates.length > options.limit && last ? encodeRankCursor(last.key) : null,
