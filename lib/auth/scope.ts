@@ -30,22 +30,28 @@ export function seesSiteAccessNotes(actor: Actor): boolean {
   return actor.role !== 'client';
 }
 
-/** Clients: needs `clients` in the query. */
-export function clientVisibleTo(actor: Actor) {
+/**
+ * The rule clients and sites share: of the actor's company, and for an owner also of their own
+ * client (`client` is the column naming it: a client's id, a site's client_id).
+ */
+function ofCompanyAndClient(actor: Actor, company: 'clients.company_id' | 'sites.company_id', client: 'clients.id' | 'sites.client_id') {
   const clientId = clientScope(actor);
+  const companyRef = sql.ref(company);
+  const clientRef = sql.ref(client);
   return (): Expression<SqlBool> =>
     clientId === null
-      ? sql<SqlBool>`clients.company_id = ${actor.companyId}`
-      : sql<SqlBool>`(clients.company_id = ${actor.companyId} and clients.id = ${clientId})`;
+      ? sql<SqlBool>`${companyRef} = ${actor.companyId}`
+      : sql<SqlBool>`(${companyRef} = ${actor.companyId} and ${clientRef} = ${clientId})`;
+}
+
+/** Clients: needs `clients` in the query. */
+export function clientVisibleTo(actor: Actor) {
+  return ofCompanyAndClient(actor, 'clients.company_id', 'clients.id');
 }
 
 /** Sites, and anything reached through a site (areas, systems, units, follow-ups): needs `sites`. */
 export function siteVisibleTo(actor: Actor) {
-  const clientId = clientScope(actor);
-  return (): Expression<SqlBool> =>
-    clientId === null
-      ? sql<SqlBool>`sites.company_id = ${actor.companyId}`
-      : sql<SqlBool>`(sites.company_id = ${actor.companyId} and sites.client_id = ${clientId})`;
+  return ofCompanyAndClient(actor, 'sites.company_id', 'sites.client_id');
 }
 
 /** The records that hang from one site, each with its own company column. */
