@@ -15,6 +15,15 @@ export function archivedView(table: ArchivableTable, view: 'exclude' | 'only' | 
     view === 'exclude' ? sql<SqlBool>`${archivedAt} is null` : view === 'only' ? sql<SqlBool>`${archivedAt} is not null` : sql<SqlBool>`true`;
 }
 
+/** The children a list counts beside each record: a client's sites, a site's areas. */
+const childrenOf = { clients: { table: 'sites', key: 'client_id' }, sites: { table: 'areas', key: 'site_id' } } as const;
+
+/** For `.select(…)`: how many of the record's children are not archived (an archived one has left the lists). */
+export function liveChildCount(parent: keyof typeof childrenOf) {
+  const { table, key } = childrenOf[parent];
+  return sql<number>`(select count(*) from ${sql.table(table)} where ${sql.ref(`${table}.${key}`)} = ${sql.ref(`${parent}.id`)} and ${sql.ref(`${table}.archived_at`)} is null)`;
+}
+
 /**
  * Archives or restores one record of the caller's company in one transaction, audited with the
  * record as `read` returns it before and after (so `read` also checks the caller may see it).

@@ -9,7 +9,7 @@ import type { Page } from '@/lib/api/cursor';
 import { byName, keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { archivedView, setArchived } from '@/lib/audit/archive';
+import { archivedView, liveChildCount, setArchived } from '@/lib/audit/archive';
 import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
 import { changedColumns } from '@/lib/changed-columns';
@@ -43,13 +43,7 @@ function clientQuery(actor: Actor, db: Db) {
       'clients.archived_at',
       'clients.created_at',
       'clients.updated_at',
-      (eb) =>
-        eb
-          .selectFrom('sites')
-          .whereRef('sites.client_id', '=', 'clients.id')
-          .where('sites.archived_at', 'is', null)
-          .select(eb.fn.countAll<number>().as('n'))
-          .as('site_count'),
+      liveChildCount('clients').as('site_count'),
     ]);
 }
 

@@ -9,7 +9,7 @@ import type { Page } from '@/lib/api/cursor';
 import { byName, keysetPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
-import { archivedView, setArchived } from '@/lib/audit/archive';
+import { archivedView, liveChildCount, setArchived } from '@/lib/audit/archive';
 import { auditedChange, auditedCreate } from '@/lib/audit/change';
 import { recordAudit } from '@/lib/audit/service';
 import { changedColumns } from '@/lib/changed-columns';
@@ -47,13 +47,7 @@ function siteQuery(actor: Actor, db: Db) {
       'sites.archived_at',
       'sites.created_at',
       'sites.updated_at',
-      (eb) =>
-        eb
-          .selectFrom('areas')
-          .whereRef('areas.site_id', '=', 'sites.id')
-          .where('areas.archived_at', 'is', null)
-          .select(eb.fn.countAll<number>().as('n'))
-          .as('area_count'),
+      liveChildCount('sites').as('area_count'),
     ]);
 }
 

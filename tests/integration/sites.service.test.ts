@@ -2,7 +2,7 @@
 // client scoping, archive and restore.
 import { describe, expect, it } from 'vitest';
 import { createClient, getClient, listClients, setClientArchived, updateClient } from '@/lib/clients/service';
-import { createArea, createSite, getSite, listSites, updateSite } from '@/lib/sites/service';
+import { createArea, createSite, getSite, listSites, setAreaArchived, setSiteArchived, updateSite } from '@/lib/sites/service';
 import { createSiteSchema } from '@/lib/sites/schemas';
 import { actorFor, createOtherCompany, createTestDb, demoEmails } from '@/tests/helpers/db';
 import { resetDemoEach } from '@/tests/helpers/registry';
@@ -98,6 +98,19 @@ describe('clients and sites', () => {
     } while (cursor);
     expect(seen.length).toBe(12);
     expect(new Set(seen).size).toBe(12);
+  });
+
+  it('a client counts its sites and a site its areas, archived ones left out', async () => {
+    const office = await actorFor(db, demoEmails.office);
+    const client = await createClient(office, { name: 'Counting Corner Grocer', notes: null });
+    const kept = await createSite(office, createSiteSchema.parse({ clientId: client.id, name: 'Counted site' }));
+    const gone = await createSite(office, createSiteSchema.parse({ clientId: client.id, name: 'Archived site' }));
+    await setSiteArchived(office, gone.id, true);
+    expect((await getClient(office, client.id)).siteCount).toBe(1);
+    const roof = await createArea(office, kept.id, { name: 'Roof', kind: 'roof', notes: null });
+    await createArea(office, kept.id, { name: 'Back room', kind: 'mechanical_room', notes: null });
+    await setAreaArchived(office, kept.id, roof.id, true);
+    expect((await getSite(office, kept.id)).areaCount).toBe(1);
   });
 
   it('a technician cannot create sites or areas', async () => {
