@@ -10,10 +10,16 @@ export const safeString = () => z.string().refine(isValidText, INVALID_TEXT_MESS
 
 export const idParamsSchema = z.object({ id: z.uuid() });
 
+/** A list page's size: a whole number from 1 to `max`, `fallback` when the query leaves it out. */
+export const pageLimit = (max: number, fallback: number) => z.coerce.number().int().min(1).max(max).default(fallback);
+
+/** A keyset list's paging parameters (lib/api/paging.ts): the cursor it handed out, and the page size. */
+export const pageParams = (max: number, fallback: number) => ({ cursor: z.string().max(500).optional(), limit: pageLimit(max, fallback) });
+
 export const listQueryBase = z.object({
   q: safeString().max(200).optional(),
   cursor: safeString().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(200).default(50),
+  limit: pageLimit(200, 50),
   archived: z.enum(['include', 'only', 'exclude']).default('exclude'),
 });
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
+import { optionalText, pageParams, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { labelled } from '@/lib/labelled';
 import { SEVERITIES } from '@/lib/visits/schemas';
 
@@ -11,8 +11,7 @@ export const listFollowUpsQuerySchema = z.object({
   equipmentId: z.uuid().optional(),
   status: repeatedParam(z.enum(FOLLOW_UP_STATUSES)),
   severity: repeatedParam(z.enum(SEVERITIES)),
-  cursor: z.string().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(200).default(50),
+  ...pageParams(200, 50),
 });
 
 export const createFollowUpSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageParams } from '@/lib/api/schemas';
 import { photoKinds } from '@/lib/photos/terms';
 
 // Photo contracts shared by the uploader, the route handlers and the services.
@@ -42,8 +43,7 @@ const oneOrMany = <T extends z.ZodType>(item: T) =>
 
 export const listPhotosQuerySchema = z.object({
   kind: oneOrMany(z.enum(photoKinds)),
-  cursor: z.string().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(100).default(48),
+  ...pageParams(100, 48),
 });
 export type ListPhotosQuery = z.infer<typeof listPhotosQuerySchema>;
 

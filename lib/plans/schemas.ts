@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, repeatedParam } from '@/lib/api/schemas';
+import { optionalText, pageLimit, repeatedParam } from '@/lib/api/schemas';
 import { PLAN_STATUSES } from '@/lib/plans/terms';
 import { VISIT_REASONS } from '@/lib/visits/terms';
 
@@ -40,7 +40,7 @@ export const listPlansQuerySchema = z.object({
   siteId: z.uuid().optional(),
   technicianId: z.uuid().optional(),
   status: repeatedParam(z.enum(PLAN_STATUSES)),
-  limit: z.coerce.number().int().min(1).max(500).default(200),
+  limit: pageLimit(500, 200),
 });
 
 export type CreatePlanInput = z.infer<typeof createPlanSchema>;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText, repeatedParam, requiredText } from '@/lib/api/schemas';
+import { optionalText, pageLimit, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { labelled } from '@/lib/labelled';
 
 export const { values: URGENCIES, labels: urgencyLabels } = labelled({
@@ -35,7 +35,7 @@ export const updateRequestSchema = z.object({
 export const listRequestsQuerySchema = z.object({
   siteId: z.uuid().optional(),
   status: repeatedParam(z.enum(REQUEST_STATUSES)),
-  limit: z.coerce.number().int().min(1).max(200).default(100),
+  limit: pageLimit(200, 100),
 });
 
 export type CreateRequestInput = z.infer<typeof createRequestSchema>;

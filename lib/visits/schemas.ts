@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { requiredText, repeatedParam } from '@/lib/api/schemas';
+import { pageParams, repeatedParam, requiredText } from '@/lib/api/schemas';
 import { actionDataSchema } from '@/lib/visits/kinds/action';
 import { conditionDataSchema } from '@/lib/visits/kinds/condition';
 import { findingDataSchema } from '@/lib/visits/kinds/finding';
@@ -87,8 +87,7 @@ export const listVisitsQuerySchema = z.object({
   technicianId: z.uuid().optional(),
   /** Closed visits the office has not reviewed yet. */
   review: z.enum(['needed']).optional(),
-  cursor: z.string().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(100).default(30),
+  ...pageParams(100, 30),
 });
 
 /** One page of a unit's history: enough to fill a phone screen or two. */
@@ -96,8 +95,7 @@ export const HISTORY_PAGE_SIZE = 25;
 
 export const historyQuerySchema = z.object({
   kind: repeatedParam(z.enum(ENTRY_KINDS)),
-  cursor: z.string().max(500).optional(),
-  limit: z.coerce.number().int().min(1).max(100).default(HISTORY_PAGE_SIZE),
+  ...pageParams(100, HISTORY_PAGE_SIZE),
 });
 
 export type CreateEntryInput = z.infer<typeof createEntrySchema>;
