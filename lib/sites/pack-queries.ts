@@ -1,4 +1,4 @@
-import { sql } from 'kysely';
+import { sql, type Expression, type SqlBool } from 'kysely';
 import type { Db } from '@/db/types';
 import type { Actor } from '@/lib/auth/actor';
 import { equipmentBaseQuery, refrigerantExpr } from '@/lib/equipment/queries';
@@ -7,13 +7,20 @@ import { PACK_HISTORY_PER_UNIT } from '@/lib/sites/pack-schema';
 // Query builders of the site pack (no connection of their own): the service runs them, and the
 // benchmark times the very same SQL through pg. One query per kind of thing, never one per unit.
 
-/** Units still on the site (removed and deleted ones left out), with their attached tag's code. */
+/**
+ * The units the pack carries: still on the site (removed and deleted ones left out). Stated once
+ * so that the units and their history agree; `unit` is the name the query gives the equipment.
+ */
+function stillOnSite(siteId: string, unit: 'equipment' | 'unit') {
+  const column = (name: 'site_id' | 'deleted_at' | 'status') => sql.ref(`${unit}.${name}`);
+  return (): Expression<SqlBool> => sql<SqlBool>`(${column('site_id')} = ${siteId} and ${column('deleted_at')} is null and ${column('status')} != 'removed')`;
+}
+
+/** Units still on the site, with their attached tag's code. */
 export function packUnitsQuery(actor: Actor, db: Db, siteId: string) {
   return equipmentBaseQuery(actor, db)
     .leftJoin('tags', (join) => join.onRef('tags.equipment_id', '=', 'equipment.id').on('tags.state', '=', 'attached'))
-    .where('equipment.site_id', '=', siteId)
-    .where('equipment.deleted_at', 'is', null)
-    .where('equipment.status', '!=', 'removed')
+    .where(stillOnSite(siteId, 'equipment'))
     .select([
       'equipment.id',
       'equipment.name',
@@ -60,10 +67,8 @@ export function packHistoryQuery(actor: Actor, db: Db, siteId: string) {
     .innerJoin('users as author', 'author.id', 'e.created_by')
     .innerJoin('users as tech', 'tech.id', 'visits.technician_id')
     .innerJoin('sites as visit_site', 'visit_site.id', 'visits.site_id')
-    .where('unit.site_id', '=', siteId)
     .where('unit.company_id', '=', actor.companyId)
-    .where('unit.deleted_at', 'is', null)
-    .where('unit.status', '!=', 'removed')
+    .where(stillOnSite(siteId, 'unit'))
     .select([
       'e.id',
       'e.visit_id',
