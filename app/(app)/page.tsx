@@ -8,8 +8,9 @@ import { requirePageActor } from '@/lib/auth';
 import { roleLabels } from '@/lib/auth/permissions';
 import { getHomeCounts } from '@/lib/home/service';
 import { attentionPage } from '@/lib/attention/service';
+import type { RankedUnit } from '@/lib/attention/rank';
 import { dueWork } from '@/lib/overview/due';
-import { chartData, siteSummaries } from '@/lib/overview/service';
+import { ownerOverview } from '@/lib/overview/service';
 import { listRequests } from '@/lib/requests/service';
 import { listVisits } from '@/lib/visits/service';
 import { listFollowUps } from '@/lib/follow-ups/service';
@@ -108,11 +109,19 @@ export default async function HomePage({ searchParams }: { searchParams: Promise
   );
 }
 
+/** The first units of the attention list, linked to the whole list and its ordering rule. */
+function AttentionSection({ id, linkLabel, units }: { id: string; linkLabel: string; units: RankedUnit[] }) {
+  return (
+    <Section id={id} title="Needs attention" link={{ href: '/attention', label: linkLabel }}>
+      <AttentionList units={units} />
+    </Section>
+  );
+}
+
 async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePageActor>> }) {
-  const [summaries, attention, charts, requests] = await Promise.all([
-    siteSummaries(actor),
+  const [{ summaries, charts }, attention, requests] = await Promise.all([
+    ownerOverview(actor),
     attentionPage(actor, { limit: 5, withTotal: false }),
-    chartData(actor, null),
     listRequests(actor, { status: ['new', 'acknowledged', 'scheduled'], limit: 5 }),
   ]);
   return (
@@ -130,13 +139,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
           </ButtonLink>
         ) : null}
       </div>
-      <Section
-        id="attention-h"
-        title="Needs attention"
-        link={{ href: '/attention', label: 'How this list is ordered · all' }}
-      >
-        <AttentionList units={attention.items} />
-      </Section>
+      <AttentionSection id="attention-h" linkLabel="How this list is ordered · all" units={attention.items} />
       <Section id="sites-summary-h" title="Your sites">
         {summaries.length === 0 ? <p className="text-slate-700">No sites are shared with your account yet.</p> : null}
         <div className="grid gap-3 md:grid-cols-2">
@@ -156,13 +159,7 @@ async function OfficeOverview({ actor }: { actor: Awaited<ReturnType<typeof requ
   const [attention, due, requests] = await Promise.all([attentionPage(actor, { limit: 6, withTotal: false }), dueWork(actor), listRequests(actor, { status: ['new'], limit: 5 })]);
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
-      <Section
-        id="office-attention-h"
-        title="Needs attention"
-        link={{ href: '/attention', label: 'All, and how they are ordered' }}
-      >
-        <AttentionList units={attention.items} />
-      </Section>
+      <AttentionSection id="office-attention-h" linkLabel="All, and how they are ordered" units={attention.items} />
       <div className="space-y-6">
         <Section
           id="requests-h"

@@ -23,9 +23,43 @@ export interface SiteSummary {
   lastVisitAt: string | null;
 }
 
+/**
+ * The visible units counted per site (archived sites too): in all, per condition rating, and past
+ * their expected life. Counted in SQL, so an owner with thousands of units gets a row per site;
+ * one scan serves both the site cards and the condition chart.
+ */
+function unitCountsBySite(actor: Actor, siteId: string | null, db: Db, today: Date) {
+  return db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .leftJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+    .where(siteVisibleTo(actor))
+    .where('equipment.deleted_at', 'is', null)
+    .where('equipment.status', '<>', 'removed')
+    .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+    .select([
+      'equipment.site_id',
+      sql<number>`count(*)::int`.as('n'),
+      sql<number>`(count(*) filter (where equipment.condition = 1))::int`.as('c1'),
+      sql<number>`(count(*) filter (where equipment.condition = 2))::int`.as('c2'),
+      sql<number>`(count(*) filter (where equipment.condition = 3))::int`.as('c3'),
+      sql<number>`(count(*) filter (where equipment.condition = 4))::int`.as('c4'),
+      sql<number>`(count(*) filter (where equipment.condition = 5))::int`.as('c5'),
+      sql<number>`(count(*) filter (where ${pastExpectedLife(today)}))::int`.as('past_life'),
+    ])
+    .groupBy('equipment.site_id')
+    .execute();
+}
+
+type UnitCounts = Awaited<ReturnType<typeof unitCountsBySite>>;
+
 /** One row per visible site, from a handful of grouped queries sent at once (no per-site round trips). */
 export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = new Date()): Promise<SiteSummary[]> {
   assertCan(actor, 'overview.read');
+  return summariesFrom(actor, db, today, unitCountsBySite(actor, null, db, today));
+}
+
+async function summariesFrom(actor: Actor, db: Db, today: Date, unitCounts: Promise<UnitCounts>): Promise<SiteSummary[]> {
   // Each site's last closed visit found through its own index entry (visits_closed_site_idx), not by
   // grouping every visit of the company.
   const sitesQuery = db
@@ -42,27 +76,6 @@ export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = ne
     .orderBy('sites.name')
     .execute();
 
-  // Counted in SQL, one row per site: an owner with thousands of units gets 50 rows, not 5,000.
-  const equipmentQuery = db
-    .selectFrom('equipment')
-    .innerJoin('sites', 'sites.id', 'equipment.site_id')
-    .leftJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
-    .where(siteVisibleTo(actor))
-    .where('equipment.deleted_at', 'is', null)
-    .where('equipment.status', '<>', 'removed')
-    .select([
-      'equipment.site_id',
-      sql<number>`count(*)::int`.as('n'),
-      sql<number>`(count(*) filter (where equipment.condition = 1))::int`.as('c1'),
-      sql<number>`(count(*) filter (where equipment.condition = 2))::int`.as('c2'),
-      sql<number>`(count(*) filter (where equipment.condition = 3))::int`.as('c3'),
-      sql<number>`(count(*) filter (where equipment.condition = 4))::int`.as('c4'),
-      sql<number>`(count(*) filter (where equipment.condition = 5))::int`.as('c5'),
-      sql<number>`(count(*) filter (where ${pastExpectedLife(today)}))::int`.as('past_life'),
-    ])
-    .groupBy('equipment.site_id')
-    .execute();
-
   const followQuery = db
     .selectFrom('follow_ups')
     .innerJoin('sites', 'sites.id', 'follow_ups.site_id')
@@ -73,7 +86,7 @@ export async function siteSummaries(actor: Actor, db: Db = defaultDb, today = ne
     .execute();
 
   // Independent lookups: sent at once rather than one round trip after another.
-  const [sites, equipment, follow, leaks] = await Promise.all([sitesQuery, equipmentQuery, followQuery, openLeaks(actor, null, db, today)]);
+  const [sites, equipment, follow, leaks] = await Promise.all([sitesQuery, unitCounts, followQuery, openLeaks(actor, null, db, today)]);
   if (sites.length === 0) return [];
   const out = new Map<string, SiteSummary>(
     sites.map((s) => [
@@ -128,25 +141,45 @@ export interface ChartData {
 /** What the owner's charts plot, for all visible sites or one. */
 export async function chartData(actor: Actor, siteId: string | null, db: Db = defaultDb, today = new Date()): Promise<ChartData> {
   assertCan(actor, 'overview.read');
-  // Counted and ranked in SQL: the charts need six counts and the 40 oldest units, not every unit.
-  const units = () =>
-    db
-      .selectFrom('equipment')
-      .innerJoin('sites', 'sites.id', 'equipment.site_id')
-      .where(siteVisibleTo(actor))
-      .where('equipment.deleted_at', 'is', null)
-      .where('equipment.status', '<>', 'removed')
-      .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!));
-  const byConditionQuery = units()
-    .select(['equipment.condition', sql<number>`count(*)::int`.as('n')])
-    .groupBy('equipment.condition')
-    .execute();
-  const oldestQuery = units()
-    .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
-    .where('equipment.installed_on', 'is not', null)
-    .select(['equipment.name', ageYearsSql(today).as('age_years'), 'life.median_years'])
-    .orderBy(sql`${ageYearsSql(today)} / life.median_years`, 'desc')
-    .orderBy('equipment.name')
+  return chartsFrom(actor, siteId, db, today, unitCountsBySite(actor, siteId, db, today));
+}
+
+/** The owner home's site cards and charts, with the units counted once for both. */
+export async function ownerOverview(actor: Actor, db: Db = defaultDb, today = new Date()): Promise<{ summaries: SiteSummary[]; charts: ChartData }> {
+  assertCan(actor, 'overview.read');
+  const unitCounts = unitCountsBySite(actor, null, db, today);
+  const [summaries, charts] = await Promise.all([summariesFrom(actor, db, today, unitCounts), chartsFrom(actor, null, db, today, unitCounts)]);
+  return { summaries, charts };
+}
+
+async function chartsFrom(actor: Actor, siteId: string | null, db: Db, today: Date, unitCounts: Promise<UnitCounts>): Promise<ChartData> {
+  // Counted and ranked in SQL: the charts need six counts (unitCounts) and the 40 oldest units, not every unit.
+  // The 40 oldest for their expected life: within one type that is the earliest installed, so
+  // each type's first 40 in install order (index equipment_type_age_idx) are merged and cut to 40.
+  const oldestQuery = db
+    .selectFrom(serviceLifeTable().as('life'))
+    .innerJoinLateral(
+      (eb) =>
+        eb
+          .selectFrom('equipment')
+          .innerJoin('sites', 'sites.id', 'equipment.site_id')
+          .where(siteVisibleTo(actor))
+          .where('equipment.company_id', '=', actor.companyId)
+          .whereRef('equipment.type', '=', 'life.type')
+          .where('equipment.deleted_at', 'is', null)
+          .where('equipment.installed_on', 'is not', null)
+          .where('equipment.status', '<>', 'removed')
+          .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+          .select(['equipment.name', ageYearsSql(today).as('age_years')])
+          .orderBy('equipment.installed_on')
+          .orderBy('equipment.name')
+          .limit(40)
+          .as('oldest'),
+      (join) => join.onTrue(),
+    )
+    .select(['oldest.name', 'oldest.age_years', 'life.median_years'])
+    .orderBy(sql`oldest.age_years / life.median_years`, 'desc')
+    .orderBy('oldest.name')
     .limit(40)
     .execute();
   const addedQuery = db
@@ -182,12 +215,17 @@ export async function chartData(actor: Actor, siteId: string | null, db: Db = de
     .groupBy(sql`1`)
     .execute();
   // Independent queries: sent at once.
-  const [byCondition, oldest, added, visits] = await Promise.all([byConditionQuery, oldestQuery, addedQuery, visitsQuery]);
+  const [perSite, oldest, added, visits] = await Promise.all([unitCounts, oldestQuery, addedQuery, visitsQuery]);
   const labels: Record<string, string> = { '5': '5 like new', '4': '4 good', '3': '3 fair', '2': '2 poor', '1': '1 failing', unrated: 'not rated' };
   const counts = new Map<string, number>(Object.keys(labels).map((k) => [k, 0]));
-  for (const c of byCondition) {
-    const key = c.condition ? String(c.condition) : 'unrated';
-    counts.set(key, (counts.get(key) ?? 0) + c.n);
+  const add = (key: string, n: number) => counts.set(key, counts.get(key)! + n);
+  for (const c of perSite) {
+    add('1', c.c1);
+    add('2', c.c2);
+    add('3', c.c3);
+    add('4', c.c4);
+    add('5', c.c5);
+    add('unrated', c.n - c.c1 - c.c2 - c.c3 - c.c4 - c.c5);
   }
   const ageVsLife = oldest.map((e) => ({ name: e.name, ageYears: Math.round(Number(e.age_years) * 10) / 10, medianYears: Number(e.median_years) }));
   const perMonth = new Map(visits.map((v) => [v.month, Number(v.n)]));
