@@ -1,8 +1,9 @@
 import 'server-only';
-import { sql } from 'kysely';
+import { sql, type ExpressionBuilder } from 'kysely';
 import { db as defaultDb } from '@/db';
 import { siteVisibleTo } from '@/lib/auth/scope';
 import type { Db } from '@/db/types';
+import type { DB } from '@/db/schema.gen';
 import { assertCan } from '@/lib/auth/access';
 import type { Actor } from '@/lib/auth/actor';
 import { getRefrigerant } from '@/lib/calc/refrigerants';
@@ -28,11 +29,22 @@ export interface DueItem {
   planned: { planId: string; day: string; technicianName: string } | null;
 }
 
-/** The visit reasons whose visit does the work (the same reasons that count as done above). */
+/** The visit reasons whose closed visit does the work: it counts as done, and a planned one covers it. */
 const reasonsCovering: Record<DueItem['kind'], readonly VisitReason[]> = {
   maintenance: ['maintenance'],
   leak_inspection: ['leak_check', 'maintenance', 'inspection'],
 };
+
+/** When a closed visit for one of `reasons` last recorded something on the system (its start). */
+function lastClosedVisit(eb: ExpressionBuilder<DB, 'systems'>, reasons: readonly VisitReason[]) {
+  return eb
+    .selectFrom('visits')
+    .innerJoin('entries', 'entries.visit_id', 'visits.id')
+    .whereRef('entries.system_id', '=', 'systems.id')
+    .where('visits.reason', 'in', reasons)
+    .where('visits.status', '=', 'closed')
+    .select(sql<Date>`max(visits.started_at)`.as('m'));
+}
 
 /**
  * Periodic leak checks by charge in tonnes CO2-equivalent (charge × GWP), as in the EU F-gas
@@ -67,22 +79,8 @@ export async function dueWork(actor: Actor, db: Db = defaultDb, today = new Date
       'sites.id as site_id',
       'sites.name as site_name',
       'clients.name as client_name',
-      eb
-        .selectFrom('visits')
-        .innerJoin('entries', 'entries.visit_id', 'visits.id')
-        .whereRef('entries.system_id', '=', 'systems.id')
-        .where('visits.reason', '=', 'maintenance')
-        .where('visits.status', '=', 'closed')
-        .select(sql<Date>`max(visits.started_at)`.as('m'))
-        .as('last_maintenance'),
-      eb
-        .selectFrom('visits')
-        .innerJoin('entries', 'entries.visit_id', 'visits.id')
-        .whereRef('entries.system_id', '=', 'systems.id')
-        .where('visits.reason', 'in', ['leak_check', 'maintenance', 'inspection'])
-        .where('visits.status', '=', 'closed')
-        .select(sql<Date>`max(visits.started_at)`.as('m'))
-        .as('last_leak_check'),
+      lastClosedVisit(eb, reasonsCovering.maintenance).as('last_maintenance'),
+      lastClosedVisit(eb, reasonsCovering.leak_inspection).as('last_leak_check'),
       // A leak inspection or verification test recorded on any visit counts as a check too.
       eb
         .selectFrom('entries')

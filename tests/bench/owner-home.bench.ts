@@ -27,13 +27,7 @@ async function seed(): Promise<void> {
     .values({ company_id: company.id, email: OWNER, name: 'Bench Owner', role: 'client', client_id: client.id, password_hash: await bcrypt.hash(DEMO_PASSWORD, 11) })
     .execute();
   await sql`insert into sites (company_id, client_id, name, city) select ${company.id}, ${client.id}, 'Bench store ' || g, 'Benchton' from generate_series(1, ${SITES}) g`.execute(db);
-  await sql`
-    with s as (select id, row_number() over (order by name) - 1 as n from sites where client_id = ${client.id})
-    insert into equipment (company_id, site_id, type, name, condition, installed_on)
-    select ${company.id}, s.id,
-      (array['condensing_unit','evaporator','thermostat','solenoid_valve','fan_motor','contactor'])[1 + g % 6],
-      'Bench unit ' || g, case when g % 7 = 0 then null else 1 + g % 5 end, date '1998-01-01' + (g % 9000)
-    from generate_series(1, ${UNITS}) g join s on s.n = g % ${SITES}`.execute(db);
+  await insertUnits(company.id, client.id, 1, UNITS);
   const tech = await db.selectFrom('users').select('id').where('email', '=', 'tech@rimeline.test').executeTakeFirstOrThrow();
   // Some history so the summaries and the ranking have work to do: a closed visit per site with
   // condition ratings, and open follow-ups.
@@ -51,17 +45,25 @@ async function seed(): Promise<void> {
   await sql`analyze`.execute(db);
 }
 
+/**
+ * Units `from`…`to` (numbered in their names), spread over the bench client's sites in turn, with
+ * every type, rating (every seventh unrated) and install day from 1998 on.
+ */
+async function insertUnits(companyId: string, clientId: string, from: number, to: number): Promise<void> {
+  await sql`
+    with s as (select id, row_number() over (order by name) - 1 as n from sites where client_id = ${clientId})
+    insert into equipment (company_id, site_id, type, name, condition, installed_on)
+    select ${companyId}, s.id,
+      (array['condensing_unit','evaporator','thermostat','solenoid_valve','fan_motor','contactor'])[1 + g % 6],
+      'Bench unit ' || g, case when g % 7 = 0 then null else 1 + g % 5 end, date '1998-01-01' + (g % 9000)
+    from generate_series(${from}::int, ${to}::int) g join s on s.n = g % ${SITES}`.execute(db);
+}
+
 /** More units, spread over the bench client's sites like the first 5,000. */
 async function grow(count: number): Promise<void> {
   const company = await db.selectFrom('companies').select('id').executeTakeFirstOrThrow();
   const client = await db.selectFrom('clients').select('id').where('name', '=', 'Bench Provisions Cooperative').executeTakeFirstOrThrow();
-  await sql`
-    with s as (select id, row_number() over (order by name) - 1 as n from sites where client_id = ${client.id})
-    insert into equipment (company_id, site_id, type, name, condition, installed_on)
-    select ${company.id}, s.id,
-      (array['condensing_unit','evaporator','thermostat','solenoid_valve','fan_motor','contactor'])[1 + g % 6],
-      'Bench unit ' || g, case when g % 7 = 0 then null else 1 + g % 5 end, date '1998-01-01' + (g % 9000)
-    from generate_series(${UNITS + 1}::int, ${UNITS + count}::int) g join s on s.n = g % ${SITES}`.execute(db);
+  await insertUnits(company.id, client.id, UNITS + 1, UNITS + count);
   await sql`analyze`.execute(db);
 }
 
