@@ -3,7 +3,7 @@
 // circuit, for staff and for the owner, and rebuild the table to see the triggers left it right.
 import { randomUUID } from 'node:crypto';
 import { sql, type Kysely } from 'kysely';
-import { expect } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import type { DB } from '@/db/schema.gen';
 import type { Actor } from '@/lib/auth/actor';
 import { closeVisit } from '@/lib/visits/close';
@@ -18,11 +18,10 @@ export const ago = (days: number) => new Date(Date.now() - days * DAY).toISOStri
 export const rate = (tech: Actor, visitId: string, equipmentId: string, rating: number, days: number) =>
   addEntry(tech, visitId, { equipmentId, clientEntryId: randomUUID(), kind: 'condition' as const, recordedAt: ago(days), data: { rating } });
 
+type RatedVisit = { reason: 'maintenance' | 'no_cooling'; days: number; evaporator: number; condensingUnit: number; summary: string };
+
 /** The demo with a cooler circuit and one closed visit `days` ago that rated its evaporator and condensing unit. */
-export async function demoWithRatedVisit(
-  db: Kysely<DB>,
-  visit: { reason: 'maintenance' | 'no_cooling'; days: number; evaporator: number; condensingUnit: number; summary: string },
-) {
+async function demoWithRatedVisit(db: Kysely<DB>, visit: RatedVisit) {
   const demo = await demoWithCircuit(db);
   const { tech, circuit } = demo;
   const first = (await startVisit(tech, { siteId: circuit.siteId, reason: visit.reason, startedAt: ago(visit.days) })).id;
@@ -30,6 +29,21 @@ export async function demoWithRatedVisit(
   await rate(tech, first, circuit.condensingUnitId, visit.condensingUnit, visit.days);
   await closeVisit(tech, first, { summary: visit.summary, confirmBypassRemoved: false });
   return { ...demo, first };
+}
+
+/**
+ * A test file's hooks around that demo: set up once before all its tests (which then build on each
+ * other's changes), the pool closed after all. The returned object is filled in by beforeAll.
+ */
+export function ratedVisitDemo(db: Kysely<DB>, visit: RatedVisit): Awaited<ReturnType<typeof demoWithRatedVisit>> {
+  const demo = {} as Awaited<ReturnType<typeof demoWithRatedVisit>>;
+  beforeAll(async () => {
+    Object.assign(demo, await demoWithRatedVisit(db, visit));
+  });
+  afterAll(async () => {
+    await db.destroy();
+  });
+  return demo;
 }
 
 type Reading = (actor: Actor) => Promise<string[]>;
