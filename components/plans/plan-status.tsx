@@ -1,7 +1,14 @@
 import { AlertTriangle, CalendarClock, CircleX, PlayCircle } from 'lucide-react';
+import { StatusPill, type Look } from '@/components/status/status-pill';
 import { Pill } from '@/components/ui/pill';
 import type { PlanDto } from '@/lib/plans/dto';
-import { OVERDUE_LABEL, planStatusLabels } from '@/lib/plans/terms';
+import { OVERDUE_LABEL, planStatusLabels, type PlanStatus } from '@/lib/plans/terms';
+
+const looks: Record<PlanStatus, Look> = {
+  planned: { Icon: CalendarClock, box: 'border-ice-300 bg-ice-50 text-ice-950' },
+  started: { Icon: PlayCircle, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
+  cancelled: { Icon: CircleX, box: 'border-slate-300 bg-slate-100 text-slate-800' },
+};
 
 // A plan's state as a word with an icon; an overdue plan says so in words, in amber.
 export function PlanStatusPill({ plan }: { plan: Pick<PlanDto, 'status' | 'overdue'> }) {
@@ -12,14 +19,5 @@ export function PlanStatusPill({ plan }: { plan: Pick<PlanDto, 'status' | 'overd
       </Pill>
     );
   }
-  const look = {
-    planned: { Icon: CalendarClock, box: 'border-ice-300 bg-ice-50 text-ice-950' },
-    started: { Icon: PlayCircle, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
-    cancelled: { Icon: CircleX, box: 'border-slate-300 bg-slate-100 text-slate-800' },
-  }[plan.status];
-  return (
-    <Pill Icon={look.Icon} box={look.box} srPrefix="Plan:">
-      {planStatusLabels[plan.status]}
-    </Pill>
-  );
+  return <StatusPill value={plan.status} looks={looks} labels={planStatusLabels} srPrefix="Plan:" />;
 }

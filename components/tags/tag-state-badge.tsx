@@ -1,8 +1,8 @@
-import { CircleDashed, Link2, Ban, type LucideIcon } from 'lucide-react';
+import { CircleDashed, Link2, Ban } from 'lucide-react';
 import { tagStateLabels, type TagState } from '@/lib/tags/schemas';
-import { Pill } from '@/components/ui/pill';
+import { StatusPill, type Look } from '@/components/status/status-pill';
 
-const looks: Record<TagState, { Icon: LucideIcon; box: string }> = {
+const looks: Record<TagState, Look> = {
   blank: { Icon: CircleDashed, box: 'border-slate-300 bg-white text-slate-800' },
   attached: { Icon: Link2, box: 'border-ice-300 bg-ice-50 text-ice-950' },
   retired: { Icon: Ban, box: 'border-slate-300 bg-slate-100 text-slate-700' },
@@ -10,10 +10,5 @@ const looks: Record<TagState, { Icon: LucideIcon; box: string }> = {
 
 /** Tag state as a word and an icon, never colour alone. */
 export function TagStateBadge({ state, className }: { state: TagState; className?: string }) {
-  const { Icon, box } = looks[state];
-  return (
-    <Pill Icon={Icon} box={box} srPrefix="Tag state:" className={className}>
-      {tagStateLabels[state]}
-    </Pill>
-  );
+  return <StatusPill value={state} looks={looks} labels={tagStateLabels} srPrefix="Tag state:" className={className} />;
 }

@@ -27,12 +27,13 @@ import {
 } from 'lucide-react';
 import { followUpStatusLabels, type FollowUpStatus } from '@/lib/follow-ups/schemas';
 import { entryKindLabels, severityLabels, type EntryKind, type Severity } from '@/lib/visits/schemas';
+import { StatusPill, type Look } from '@/components/status/status-pill';
 import { Pill } from '@/components/ui/pill';
 import { cn } from '@/lib/utils';
 
 // Status is never colour alone: every badge here has its word and an icon (components/ui/pill.tsx).
 
-export const severityLooks: Record<Severity, { Icon: LucideIcon; box: string; hint: string }> = {
+export const severityLooks: Record<Severity, Look & { hint: string }> = {
   safety: { Icon: OctagonAlert, box: 'border-red-400 bg-red-50 text-red-950', hint: 'A hazard to people or property' },
   down: { Icon: PowerOff, box: 'border-red-300 bg-white text-red-900', hint: 'Not cooling or not running' },
   degraded: { Icon: TriangleAlert, box: 'border-amber-400 bg-amber-50 text-amber-950', hint: 'Running, but not as it should' },
@@ -40,15 +41,10 @@ export const severityLooks: Record<Severity, { Icon: LucideIcon; box: string; hi
 };
 
 export function SeverityBadge({ severity, className }: { severity: Severity; className?: string }) {
-  const { Icon, box } = severityLooks[severity];
-  return (
-    <Pill Icon={Icon} box={box} srPrefix="Severity:" className={className}>
-      {severityLabels[severity]}
-    </Pill>
-  );
+  return <StatusPill value={severity} looks={severityLooks} labels={severityLabels} srPrefix="Severity:" className={className} />;
 }
 
-const followUpLooks: Record<FollowUpStatus, { Icon: LucideIcon; box: string }> = {
+const followUpLooks: Record<FollowUpStatus, Look> = {
   open: { Icon: CircleDot, box: 'border-amber-400 bg-amber-50 text-amber-950' },
   scheduled: { Icon: CalendarClock, box: 'border-ice-300 bg-ice-50 text-ice-950' },
   resolved: { Icon: CircleCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950' },
@@ -56,12 +52,7 @@ const followUpLooks: Record<FollowUpStatus, { Icon: LucideIcon; box: string }> =
 };
 
 export function FollowUpStatusBadge({ status, className }: { status: FollowUpStatus; className?: string }) {
-  const { Icon, box } = followUpLooks[status];
-  return (
-    <Pill Icon={Icon} box={box} srPrefix="Status:" className={className}>
-      {followUpStatusLabels[status]}
-    </Pill>
-  );
+  return <StatusPill value={status} looks={followUpLooks} labels={followUpStatusLabels} srPrefix="Status:" className={className} />;
 }
 
 export function VisitStatusBadge({ status, reviewed, className }: { status: 'open' | 'closed'; reviewed?: boolean; className?: string }) {
@@ -111,7 +102,7 @@ export function EntryKindLabel({ kind, className }: { kind: EntryKind; className
 
 export type SaveState = 'saved' | 'sending' | 'waiting' | 'refused';
 
-const saveLooks: Record<SaveState, { Icon: LucideIcon; box: string; word: string }> = {
+const saveLooks: Record<SaveState, Look & { word: string }> = {
   saved: { Icon: ClipboardCheck, box: 'border-emerald-300 bg-emerald-50 text-emerald-950', word: 'Saved' },
   sending: { Icon: LoaderCircle, box: 'border-ice-300 bg-ice-50 text-ice-950', word: 'Saving…' },
   waiting: { Icon: CloudOff, box: 'border-amber-400 bg-amber-50 text-amber-950', word: 'Waiting for signal — kept on this phone' },
