@@ -5,6 +5,7 @@ import { KeepSitePanel } from '@/components/offline/keep-site-panel';
 import { Card, PageHeader } from '@/components/ui/card';
 import { FollowUpList } from '@/components/visits/follow-up-list';
 import { SitePlans } from '@/components/plans/site-plans';
+import { TextLink } from '@/components/ui/text-link';
 import { upcomingPlansForSite } from '@/lib/plans/service';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
@@ -54,9 +55,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
             siteAddress(site)
           ) : (
             <>
-              <Link href={`/clients/${site.clientId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-                {site.clientName}
-              </Link>
+              <TextLink href={`/clients/${site.clientId}`}>{site.clientName}</TextLink>
               {siteAddress(site) ? ` · ${siteAddress(site)}` : ''}
             </>
           )

@@ -15,6 +15,7 @@ import { HISTORY_PAGE_SIZE } from '@/lib/visits/schemas';
 import { systemHistory } from '@/lib/visits/history';
 import { ArchiveSystemButton } from '@/app/(app)/systems/[id]/_components/archive-system-button';
 import { Section } from '@/components/ui/section';
+import { TextLink } from '@/components/ui/text-link';
 
 export const metadata: Metadata = { title: 'System' };
 
@@ -42,9 +43,7 @@ export default async function SystemPage({ params }: { params: Promise<{ id: str
           <p className="text-sm font-semibold uppercase tracking-wide text-slate-600">Refrigeration system</p>
           <h1 className="text-2xl font-bold tracking-tight text-slate-900">{system.name}</h1>
           <p className="mt-1 text-slate-700">
-            <Link href={`/sites/${system.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-              {system.siteName}
-            </Link>
+            <TextLink href={`/sites/${system.siteId}`}>{system.siteName}</TextLink>
             {system.areaName ? ` · serves ${system.areaName}` : ''}
           </p>
         </div>

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { PageHeader } from '@/components/ui/card';
+import { TextLink } from '@/components/ui/text-link';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { getEquipment } from '@/lib/equipment/service';
@@ -27,9 +27,7 @@ export default async function EditEquipmentPage({ params }: { params: Promise<{ 
       <PageHeader
         title={`Edit ${equipment.name}`}
         subtitle={
-          <Link href={`/sites/${equipment.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-            {equipment.siteName}
-          </Link>
+          <TextLink href={`/sites/${equipment.siteId}`}>{equipment.siteName}</TextLink>
         }
       />
       <EquipmentForm equipment={equipment} siteId={equipment.siteId} areas={areaOptions} systems={systemOptions} prefs={{ units: actor.units, metricPressure: actor.metricPressure }} />

@@ -1,8 +1,9 @@
 'use client';
 
 import { ClipboardList, ClipboardPen, CloudOff, QrCode, ScanLine, Wifi } from 'lucide-react';
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useState } from 'react';
 import { ConditionBadge } from '@/components/equipment/condition-badge';
+import { DetailList } from '@/components/equipment/detail-list';
 import { EquipmentTypeIcon } from '@/components/equipment/equipment-type-icon';
 import { EquipmentStatusBadge } from '@/components/equipment/status-badge';
 import { buttonVariants } from '@/components/ui/button';
@@ -96,15 +97,6 @@ function NotOnPhone({ query, online }: { query: UnitQuery | null; online: boolea
           </a>
         ) : null}
       </div>
-    </div>
-  );
-}
-
-function Fact({ label, children }: { label: string; children: ReactNode }) {
-  return (
-    <div className="flex flex-wrap gap-x-2 py-1.5">
-      <dt className="w-32 shrink-0 text-sm font-medium text-slate-600">{label}</dt>
-      <dd className="min-w-0 break-words font-medium text-slate-900">{children}</dd>
     </div>
   );
 }
@@ -284,13 +276,7 @@ function KeptUnit({ kept, unit, online }: { kept: StoredPack; unit: PackUnit; on
         {details.length > 0 ? (
           <Card>
             <h2 className="text-lg font-semibold">Details</h2>
-            <dl className="mt-2 divide-y divide-slate-100">
-              {details.map((d) => (
-                <Fact key={d.label} label={d.label}>
-                  {d.value}
-                </Fact>
-              ))}
-            </dl>
+            <DetailList rows={details} />
           </Card>
         ) : null}
       </aside>

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
 import { PageHeader } from '@/components/ui/card';
+import { TextLink } from '@/components/ui/text-link';
 import { orNotFound } from '@/lib/api/page';
 import { requirePageActor } from '@/lib/auth';
 import { listAreas } from '@/lib/sites/service';
@@ -19,9 +19,7 @@ export default async function EditSystemPage({ params }: { params: Promise<{ id:
       <PageHeader
         title={`Edit ${system.name}`}
         subtitle={
-          <Link href={`/sites/${system.siteId}`} className="inline-flex min-h-11 items-center font-medium text-ice-800 underline">
-            {system.siteName}
-          </Link>
+          <TextLink href={`/sites/${system.siteId}`}>{system.siteName}</TextLink>
         }
       />
       <SystemForm system={system} siteId={system.siteId} areas={areas.map((a) => ({ id: a.id, name: a.name }))} prefs={{ units: actor.units, metricPressure: actor.metricPressure }} />
