@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { controlWarningMessage, type ControlWarningCode, type ControlWarningData } from '@/lib/calc/control-warnings';
-import { highPressureControl, lowPressureControl } from '@/lib/calc/pressure-controls';
+import { highPressureControl, lowPressureControl, type LowPressureControlInput } from '@/lib/calc/pressure-controls';
 import { calcUnitsFor, conversionFor, formatQuantity, type UnitPrefs } from '@/lib/units/quantities';
 import { kpaDiff, kpaG, tempC, tempDiffK } from '@/lib/visits/kinds/fields';
 import { attempt } from '@/lib/visits/kinds/reading';
@@ -123,6 +123,8 @@ function controlUnits(prefs?: UnitPrefs) {
 
 type ControlUnits = ReturnType<typeof controlUnits>;
 type ControlRun = ReturnType<typeof lowPressureControl> | ReturnType<typeof highPressureControl>;
+/** What both controls run with, whichever side: the refrigerant, the units and the site's elevation. */
+type ControlBase = Pick<LowPressureControlInput, 'refrigerant' | 'unit' | 'temperatureUnit' | 'elevationM'>;
 
 /**
  * One side of a pressure control: the end it is set by, how the calculation runs (only with a
@@ -131,37 +133,21 @@ type ControlRun = ReturnType<typeof lowPressureControl> | ReturnType<typeof high
  */
 interface PressureSide<S extends { differentialKpa: number }, R extends ControlRun> {
   set: (s: S) => number;
-  run: (s: S, u: ControlUnits, ctx: EntryContext, refrigerant: string) => R;
+  run: (s: S, base: ControlBase, u: ControlUnits, ctx: EntryContext) => R;
   read: (r: R) => { other: number; settingSat: number | null | undefined; otherSat: number | null | undefined };
 }
 
 const lowPressureSide: PressureSide<LowSettings, ReturnType<typeof lowPressureControl>> = {
   set: (s) => s.cutInKpaG,
-  run: (s, u, ctx, refrigerant) =>
-    lowPressureControl({
-      refrigerant,
-      unit: u.pressureUnit,
-      temperatureUnit: u.temperatureUnit,
-      elevationM: ctx.elevationM,
-      cutIn: u.p(s.cutInKpaG),
-      differential: u.dp(s.differentialKpa),
-      designBoxTemp: orNull(ctx.designBoxTempC, u.t) ?? undefined,
-    }),
+  run: (s, base, u, ctx) =>
+    lowPressureControl({ ...base, cutIn: u.p(s.cutInKpaG), differential: u.dp(s.differentialKpa), designBoxTemp: orNull(ctx.designBoxTempC, u.t) ?? undefined }),
   read: (r) => ({ other: r.cutOut, settingSat: r.cutInSaturation?.dew, otherSat: r.cutOutSaturation?.dew }),
 };
 
 const highPressureSide: PressureSide<HighSettings, ReturnType<typeof highPressureControl>> = {
   set: (s) => s.cutOutKpaG,
-  run: (s, u, ctx, refrigerant) =>
-    highPressureControl({
-      refrigerant,
-      unit: u.pressureUnit,
-      temperatureUnit: u.temperatureUnit,
-      elevationM: ctx.elevationM,
-      cutOut: u.p(s.cutOutKpaG),
-      differential: u.dp(s.differentialKpa),
-      designPressure: orNull(ctx.designPressureHighKpaG, u.p) ?? undefined,
-    }),
+  run: (s, base, u, ctx) =>
+    highPressureControl({ ...base, cutOut: u.p(s.cutOutKpaG), differential: u.dp(s.differentialKpa), designPressure: orNull(ctx.designPressureHighKpaG, u.p) ?? undefined }),
   read: (r) => ({ other: r.cutIn, settingSat: r.cutOutSaturation?.bubble, otherSat: r.cutInSaturation?.bubble }),
 };
 
@@ -182,7 +168,8 @@ function sideComputed<S extends { differentialKpa: number }, R extends ControlRu
     return side;
   }
   const u = controlUnits(prefs);
-  const run = (s: S) => attempt(out.problems, () => spec.run(s, u, ctx, refrigerant));
+  const base: ControlBase = { refrigerant, unit: u.pressureUnit, temperatureUnit: u.temperatureUnit, elevationM: ctx.elevationM };
+  const run = (s: S) => attempt(out.problems, () => spec.run(s, base, u, ctx));
   const f = run(found);
   const l = run(left);
   const [fr, lr] = [f && spec.read(f), l && spec.read(l)];
