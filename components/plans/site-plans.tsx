@@ -1,8 +1,8 @@
-import Link from 'next/link';
 import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
 import type { PlanDto } from '@/lib/plans/dto';
 import { Section } from '@/components/ui/section';
+import { TextLink } from '@/components/ui/text-link';
 
 /** A site's coming planned visits (on its own page, so no site link); the technician a plan names starts it here on its day (`canStart`). */
 export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId: string; canPlan: boolean }) {
@@ -10,15 +10,7 @@ export function SitePlans({ plans, siteId, canPlan }: { plans: PlanDto[]; siteId
     <Section
       id="site-plans-h"
       title="Planned visits"
-      actions={
-        <>
-          {canPlan ? (
-            <Link href={`/plans/new?siteId=${siteId}`} className="inline-flex min-h-11 items-center font-semibold text-ice-800 underline">
-              Plan a visit here
-            </Link>
-          ) : null}
-        </>
-      }
+      actions={canPlan ? <TextLink href={`/plans/new?siteId=${siteId}`}>Plan a visit here</TextLink> : null}
     >
       {plans.length === 0 ? (
         <p className="text-slate-700">No visit planned yet.</p>

@@ -12,13 +12,11 @@ export function SiteSystems({ siteId, systems, canWrite }: { siteId: string; sys
       id="systems-h"
       title="Systems"
       actions={
-        <>
-          {canWrite ? (
-            <ButtonLink href={`/systems/new?siteId=${siteId}`} variant="secondary">
-              New system
-            </ButtonLink>
-          ) : null}
-        </>
+        canWrite ? (
+          <ButtonLink href={`/systems/new?siteId=${siteId}`} variant="secondary">
+            New system
+          </ButtonLink>
+        ) : null
       }
     >
       {systems.length === 0 ? (
