@@ -114,7 +114,7 @@ if [ "$with_app" = 1 ]; then
   if [ "$build" = 1 ]; then
     next_step "Building the app for the bench profile (next build)"
     rm -f "$RL_DIST/rimeline-profile"
-    rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build \
+    rl_build "$RIMELINE_LOGS/build.log" \
       || rl_die "next build failed." "fix the build error above." "$RIMELINE_LOGS/build.log"
     echo bench >"$RL_DIST/rimeline-profile"
     rl_ok
@@ -126,7 +126,7 @@ if [ "$with_app" = 1 ]; then
   next_step "Starting the app on 127.0.0.1:$APP_PORT"
   rl_free_port "$APP_PORT" "app" || exit 1
   RL_READY_TIMEOUT=90 rl_service_start app "app" "http://127.0.0.1:$APP_PORT/api/health" \
-    node "$RL_NEXT" start -H 127.0.0.1 -p "$APP_PORT" || exit 1
+    "${RL_SERVE[@]}" "$APP_PORT" || exit 1
   export BENCH_APP_URL="$APP_URL"
   rl_ok
 fi

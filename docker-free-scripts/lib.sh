@@ -167,6 +167,16 @@ rl_run_logged() {
   return "$rc"
 }
 
+# rl_build LOG → next build, then the brotli copies of its scripts and stylesheets that server.ts
+# sends (precompress-static.ts): every script that builds goes through here, so no build lacks them.
+rl_build() {
+  rl_run_logged "$1" node "$RL_NEXT" build && rl_run_logged "$1" "$RL_TSX" "$RL_SCRIPTS/precompress-static.ts" "$RL_DIST"
+}
+
+# rl_serve PORT → the command line of the built app on 127.0.0.1:PORT (server.ts: Next's handler
+# with the brotli copies first), for rl_service_start.
+RL_SERVE=(node --import tsx "$RL_ROOT/server.ts" -H 127.0.0.1 -p)
+
 # rl_last_run LOG → the output of the last command rl_run_logged appended to LOG.
 rl_last_run() {
   awk '/^===== / { buf = ""; next } { buf = buf $0 "\n" } END { printf "%s", buf }' "$1" 2>/dev/null

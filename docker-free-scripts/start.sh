@@ -113,7 +113,7 @@ else
   else
     printf '%s, building (about a minute) … ' "$why"
     rm -f "$RL_DIST/rimeline-profile"
-    rl_run_logged "$LOGS/build.log" node "$RL_NEXT" build \
+    rl_build "$LOGS/build.log" \
       || rl_die "next build failed." "fix the error shown above (full output: $(rl_rel "$LOGS")/build.log), then run npm start again." "$LOGS/build.log"
     echo dev >"$RL_DIST/rimeline-profile"
     rl_ok
@@ -129,7 +129,7 @@ if [ "$mode" = dev ]; then
     node "$RL_NEXT" dev -H 127.0.0.1 -p "$APP_PORT" || exit 1
 else
   RL_READY_TIMEOUT=90 rl_service_start app "app" "http://127.0.0.1:$APP_PORT/api/health" \
-    node "$RL_NEXT" start -H 127.0.0.1 -p "$APP_PORT" || exit 1
+    "${RL_SERVE[@]}" "$APP_PORT" || exit 1
 fi
 health_code="$(rl_http_status "http://127.0.0.1:$APP_PORT/api/health")"
 if [ "$health_code" = 200 ]; then

@@ -246,7 +246,7 @@ if [ "$run_e2e" = 1 ]; then
     [ "$build" = 0 ] && printf 'no test build to reuse, building … '
     rm -f "$RL_DIST/rimeline-profile"
     built=0
-    if rl_run_logged "$RIMELINE_LOGS/build.log" node "$RL_NEXT" build; then
+    if rl_build "$RIMELINE_LOGS/build.log"; then
       echo "$profile" >"$RL_DIST/rimeline-profile"
       built=1
       rl_ok

@@ -1,7 +1,7 @@
 // Browser tests: Playwright driving Debian's chromium (/usr/bin/chromium; the Playwright browser
 // download does not work here, never run `playwright install`). Run through `npm test`, which
 // starts the test-profile services and exports their environment first; Playwright itself starts
-// the app (next start on 127.0.0.1:3100) from the build that npm test made.
+// the app (server.ts on 127.0.0.1:3100) from the build that npm test made.
 //
 // Projects:
 //   desktop  1280×800, every spec except the ones tagged @camera
@@ -90,7 +90,7 @@ export default defineConfig({
   // The shell records the server's pid (exec keeps it) so npm test can stop a server left behind
   // by a crashed run; Playwright starts and stops it itself.
   webServer: {
-    command: `mkdir -p '${testData}/run' && echo $$ > '${testData}/run/app.pid' && exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${appPort}`,
+    command: `mkdir -p '${testData}/run' && echo $$ > '${testData}/run/app.pid' && exec node --import tsx server.ts -H 127.0.0.1 -p ${appPort}`,
     cwd: root,
     url: `http://127.0.0.1:${appPort}/api/health`,
     reuseExistingServer: false,

@@ -109,7 +109,7 @@ async function packFigures(label: string, siteId: string, api: Awaited<ReturnTyp
   }
   apiTimes.sort((a, b) => a - b);
   sqlTimes.sort((a, b) => a - b);
-  // The phone stores the JSON as it is; over the wire it travels compressed (next start gzips).
+  // The phone stores the JSON as it is; over the wire it travels compressed (server.ts: brotli, or gzip for a client without it).
   benchRow(`site pack size (${label})`, `${(bytes / 1024).toFixed(0)} KB JSON`, `${(gzipped / 1024).toFixed(0)} KB gzipped`, '-', '-');
   for (const p of [50, 95]) {
     const a = percentile(apiTimes, p);
