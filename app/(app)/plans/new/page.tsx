@@ -1,18 +1,15 @@
 import type { Metadata } from 'next';
 import { z } from 'zod';
-import { SitePicker } from '@/components/sites/site-picker';
 import { PlanForm } from '@/components/plans/plan-form';
 import { Alert } from '@/components/ui/alert';
 import { Card, PageHeader } from '@/components/ui/card';
 import { SiteLine } from '@/components/sites/site-line';
-import { orNotFound } from '@/lib/api/page';
-import { requirePageActor } from '@/lib/auth';
 import { listEquipment } from '@/lib/equipment/service';
 import { localDate } from '@/lib/format/dates';
 import { listPlanTechnicians } from '@/lib/plans/scheduling';
-import { getSite, listSites } from '@/lib/sites/service';
 import { listSystems } from '@/lib/systems/service';
 import { VISIT_REASONS } from '@/lib/visits/terms';
+import { siteFirst } from '@/app/(app)/site-first';
 
 export const metadata: Metadata = { title: 'Plan a visit' };
 
@@ -26,14 +23,9 @@ const querySchema = z.object({
 
 export default async function PlanVisitPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const query = querySchema.parse(await searchParams);
-  const actor = await requirePageActor(`/plans/new${query.siteId ? `?siteId=${query.siteId}` : ''}`, 'plans.write');
-
-  if (!query.siteId) {
-    const sites = await listSites(actor, { limit: 200, archived: 'exclude' });
-    return <SitePicker title="Plan a visit" subtitle="Choose the site first." sites={sites.items} path="/plans/new" />;
-  }
-
-  const site = await orNotFound(getSite(actor, query.siteId));
+  const at = await siteFirst('/plans/new', 'plans.write', query.siteId, { title: 'Plan a visit', subtitle: 'Choose the site first.' });
+  if (!at.site) return at.picker;
+  const { actor, site } = at;
   const [systems, equipment, technicians] = await Promise.all([
     listSystems(actor, { siteId: site.id, limit: 200, archived: 'exclude' }),
     listEquipment(actor, { siteId: site.id, limit: 200, sort: 'name', dir: 'asc' }),

@@ -1,16 +1,13 @@
 import type { Metadata } from 'next';
 import { z } from 'zod';
-import { SitePicker } from '@/components/sites/site-picker';
 import { Alert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { SiteLine } from '@/components/sites/site-line';
-import { orNotFound } from '@/lib/api/page';
-import { requirePageActor } from '@/lib/auth';
-import { getSite, listSites } from '@/lib/sites/service';
 import { formatTime } from '@/lib/visits/report-content';
 import { visitReasonLabels } from '@/lib/visits/schemas';
 import { listVisits } from '@/lib/visits/service';
+import { siteFirst } from '@/app/(app)/site-first';
 import { StartVisitForm } from '@/app/(app)/visits/new/_components/start-visit-form';
 
 export const metadata: Metadata = { title: 'Start a visit' };
@@ -19,14 +16,12 @@ const querySchema = z.object({ siteId: z.uuid().optional().catch(undefined), equ
 
 export default async function StartVisitPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const query = querySchema.parse(await searchParams);
-  const actor = await requirePageActor(`/visits/new${query.siteId ? `?siteId=${query.siteId}` : ''}`, 'visits.start');
-
-  if (!query.siteId) {
-    const sites = await listSites(actor, { limit: 200, archived: 'exclude' });
-    return <SitePicker title="Start a visit" subtitle="Choose the site you are at. Scanning a unit’s tag also takes you to its site." sites={sites.items} path="/visits/new" />;
-  }
-
-  const site = await orNotFound(getSite(actor, query.siteId));
+  const at = await siteFirst('/visits/new', 'visits.start', query.siteId, {
+    title: 'Start a visit',
+    subtitle: 'Choose the site you are at. Scanning a unit’s tag also takes you to its site.',
+  });
+  if (!at.site) return at.picker;
+  const { actor, site } = at;
   const open = await listVisits(actor, { siteId: site.id, status: 'open', technicianId: actor.id, limit: 1 });
   const current = open.items[0];
 
