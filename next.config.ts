@@ -8,10 +8,6 @@ const nextConfig: NextConfig = {
   // server.ts compresses (brotli where the browser takes it); Next's own would only gzip.
   compress: false,
   serverExternalPackages: ['sharp', 'pino', 'pino-pretty'],
-  // The stylesheet (about 9 kB compressed) goes inside each page's HTML: a phone on a slow link
-  // paints the page as its HTML arrives, instead of waiting for a second request that competes
-  // with the scripts for the link (DEVELOPERS.md, "Phone pages").
-  experimental: { inlineCss: true },
   // A private lane may build while someone else's change is half-typed; npm test and CI never set this.
   typescript: { ignoreBuildErrors: process.env.RIMELINE_LANE_SKIP_TYPECHECK === '1' },
   // Static files skip proxy.ts; they still get the fixed headers (the CSP comes from the proxy).
