@@ -8,6 +8,9 @@ const nextConfig: NextConfig = {
   // server.ts compresses (brotli where the browser takes it); Next's own would only gzip.
   compress: false,
   serverExternalPackages: ['sharp', 'pino', 'pino-pretty'],
+  // The stylesheet goes inside each page's HTML: a phone on a slow link paints as the HTML arrives
+  // instead of after a second request that competes with the scripts (DEVELOPERS.md, "Phone pages").
+  experimental: { inlineCss: true },
   // A private lane may build while someone else's change is half-typed; npm test and CI never set this.
   typescript: { ignoreBuildErrors: process.env.RIMELINE_LANE_SKIP_TYPECHECK === '1' },
   // Static files skip proxy.ts; they still get the fixed headers (the CSP comes from the proxy).
