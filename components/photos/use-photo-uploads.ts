@@ -65,17 +65,6 @@ export function usePhotoUploads(equipmentId: string, { onUploaded }: { onUploade
   }, []);
   const patch = useCallback((id: string, change: Partial<UploadItem>) => update((all) => all.map((i) => (i.id === id ? { ...i, ...change } : i))), [update]);
 
-  useEffect(() => {
-    mounted.current = true;
-    const controllers = running.current;
-    return () => {
-      mounted.current = false;
-      // Leaving was confirmed (or nothing was pending): stop what is on the wire, free the memory.
-      controllers.forEach((c) => c.abort());
-      store.current.forEach((i) => URL.revokeObjectURL(i.preview));
-    };
-  }, []);
-
   const pump = useCallback(() => {
     while (mounted.current && running.current.size < PARALLEL) {
       const next = store.current.find((i) => i.status === 'queued');
@@ -84,6 +73,20 @@ export function usePhotoUploads(equipmentId: string, { onUploaded }: { onUploade
     }
     // send and pump call each other; both read only refs and stable setters.
   }, []);
+
+  useEffect(() => {
+    mounted.current = true;
+    // A photo chosen between the first paint and this effect (a quick tap, or a test) waited
+    // queued with nothing to start it: start what is queued now.
+    pump();
+    const controllers = running.current;
+    return () => {
+      mounted.current = false;
+      // Leaving was confirmed (or nothing was pending): stop what is on the wire, free the memory.
+      controllers.forEach((c) => c.abort());
+      store.current.forEach((i) => URL.revokeObjectURL(i.preview));
+    };
+  }, [pump]);
 
   async function send(item: UploadItem): Promise<void> {
     let key = uploadKeys.current.get(item.id);
