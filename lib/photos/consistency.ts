@@ -6,7 +6,7 @@ import type { Actor } from '@/lib/auth/actor';
 import { recordAudit } from '@/lib/audit/service';
 import { comparePhotoStorage, isPhotoObjectKey, ORPHAN_GRACE_MS, repairFor, type ListedObject } from '@/lib/photos/compare';
 import type { OrphanObjectDto, StorageRepairDto, StorageReportDto } from '@/lib/photos/dto';
-import { displayPipeline, sharpInputOptions, thumbPipeline } from '@/lib/photos/process';
+import { displayPipeline, thumbPipeline, uprightImage } from '@/lib/photos/process';
 import type { PhotoKind } from '@/lib/photos/schemas';
 import { deleteObject, getObjectBytes, listObjects, putObject } from '@/storage/objects';
 
@@ -111,9 +111,8 @@ export async function repairPhotoStorage(
     try {
       if (problem.repair === 'regenerate') {
         const original = Buffer.from(await getObjectBytes(row.original_key));
-        const image = sharp(original, sharpInputOptions).rotate();
-        if (problem.missing.includes('display')) await putObject(row.display_key, await displayPipeline(image).toBuffer(), 'image/webp');
-        if (problem.missing.includes('thumb')) await putObject(row.thumb_key, await thumbPipeline(image).toBuffer(), 'image/webp');
+        if (problem.missing.includes('display')) await putObject(row.display_key, await displayPipeline(uprightImage(original)).toBuffer(), 'image/webp');
+        if (problem.missing.includes('thumb')) await putObject(row.thumb_key, await thumbPipeline(uprightImage(original)).toBuffer(), 'image/webp');
         regenerated++;
       } else if (problem.repair === 'restore_original') {
         // The camera's file is lost; the display copy is the best image left, so it becomes the original.

@@ -46,15 +46,23 @@ export interface ProcessOptions {
 /** The settings shared with the benchmark's sharp-alone baseline, so both do the same work. */
 export const sharpInputOptions = { limitInputPixels: MAX_PHOTO_PIXELS, failOn: 'truncated' } as const;
 
-export function displayPipeline(image: Sharp): Sharp {
-  return image
-    .clone()
-    .resize({ width: DISPLAY_MAX_SIDE, height: DISPLAY_MAX_SIDE, fit: 'inside', withoutEnlargement: true })
-    .webp({ quality: 80 });
+/**
+ * A new upright image over `bytes`, one per copy made. Not sharp's clone(): for a Buffer input it
+ * structured-clones the whole input (a fresh copy of a multi-megabyte photo per copy made, and
+ * the collection work after it), where each pipeline decodes the bytes on its own either way.
+ */
+export function uprightImage(bytes: Buffer): Sharp {
+  return sharp(bytes, sharpInputOptions).rotate();
 }
 
+/** Turns `image` (not shared with another pipeline) into the display copy. */
+export function displayPipeline(image: Sharp): Sharp {
+  return image.resize({ width: DISPLAY_MAX_SIDE, height: DISPLAY_MAX_SIDE, fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 });
+}
+
+/** Turns `image` (not shared with another pipeline) into the thumbnail. */
 export function thumbPipeline(image: Sharp): Sharp {
-  return image.clone().resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'cover' }).webp({ quality: 70 });
+  return image.resize({ width: THUMB_SIDE, height: THUMB_SIDE, fit: 'cover' }).webp({ quality: 70 });
 }
 
 const typeNames: Record<string, string> = {
@@ -159,9 +167,8 @@ export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Pr
     throw new AppError('unsupported_media_type', 'Animated images are not photos we can store. Upload a still JPEG, PNG or WebP image.');
   }
 
-  const image = sharp(bytes, sharpInputOptions).rotate();
   // Both start at once; the display copy's failure is reported when it is awaited.
-  const display = displayPipeline(image)
+  const display = displayPipeline(uprightImage(bytes))
     .toBuffer()
     .catch((error: unknown) => {
       throw unreadable(error);
@@ -169,7 +176,7 @@ export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Pr
   display.catch(() => undefined);
   let thumb: Buffer;
   try {
-    thumb = await thumbPipeline(image).toBuffer();
+    thumb = await thumbPipeline(uprightImage(bytes)).toBuffer();
   } catch (error) {
     throw unreadable(error);
   }

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
 import { zodIssues } from '@/lib/api/issues';
-import { formFields, isMultipart, readMultipart } from '@/lib/api/multipart';
+import { isMultipart, readMultipartParts } from '@/lib/api/multipart';
 import { AppError } from '@/lib/errors';
 import { assertPhotoSize } from '@/lib/photos/process';
 import { cleanFileName, formatBytes, MAX_PHOTO_BYTES, MAX_UPLOAD_OVERHEAD_BYTES, uploadPhotoFieldsSchema, type UploadPhotoFields } from '@/lib/photos/schemas';
@@ -28,9 +28,13 @@ export async function formPhotoFile(form: FormData): Promise<{ fileName: string 
 /** Parses `file` plus the `kind`, `caption` and `uploadKey` fields of a multipart/form-data body. */
 export async function readPhotoUpload(req: NextRequest): Promise<PhotoUpload> {
   if (!isMultipart(req)) throw new AppError('unsupported_media_type', 'Send the photo as multipart/form-data with the image in the "file" field.');
-  const form = await readMultipart(req, PHOTO_UPLOAD_LIMIT, photoTooLarge);
-  const parsed = uploadPhotoFieldsSchema.safeParse(formFields(form));
-  const file = form.get('file') instanceof Blob ? await formPhotoFile(form) : null;
+  // The photo as one Buffer straight from the parser (no File to copy it into and out of).
+  const { fields, files } = await readMultipartParts(req, PHOTO_UPLOAD_LIMIT, photoTooLarge);
+  // As formFields: an empty field counts as absent, a repeated one keeps its last value.
+  const parsed = uploadPhotoFieldsSchema.safeParse(Object.fromEntries(fields.filter(([, value]) => value !== '')));
+  const sent = files.find(([name]) => name === 'file')?.[1];
+  if (sent) assertPhotoSize(sent.bytes.byteLength);
+  const file = sent ? { fileName: cleanFileName(sent.fileName), bytes: sent.bytes } : null;
   const issues = parsed.success ? [] : zodIssues(parsed.error);
   if (!file) issues.push({ path: 'file', message: 'Choose a photo to upload.' });
   if (!parsed.success || !file) throw new AppError('validation_failed', 'Some fields need attention.', issues);

@@ -7,12 +7,11 @@
 import { register } from 'node:module';
 import { performance } from 'node:perf_hooks';
 import { Kysely, PostgresDialect } from 'kysely';
-import sharp from 'sharp';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import type { Actor } from '@/lib/auth/actor';
-import { checkPhoto, displayPipeline, sharpInputOptions, thumbPipeline } from '@/lib/photos/process';
+import { checkPhoto, displayPipeline, thumbPipeline, uprightImage } from '@/lib/photos/process';
 import { benchRow, signedInFetch } from '@/tests/bench/support/http';
 import { cameraImage } from '@/tests/helpers/photo-images';
 
@@ -52,8 +51,7 @@ async function mediansInTurn(measured: (run: number) => Promise<unknown>, baseli
 const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 
 async function sharpAlone(bytes: Buffer): Promise<void> {
-  const image = sharp(bytes, sharpInputOptions).rotate();
-  await Promise.all([displayPipeline(image).toBuffer(), thumbPipeline(image).toBuffer()]);
+  await Promise.all([displayPipeline(uprightImage(bytes)).toBuffer(), thumbPipeline(uprightImage(bytes)).toBuffer()]);
 }
 
 async function setup(): Promise<{ actor: Actor; equipmentId: string }> {

@@ -4,7 +4,7 @@
 import { randomBytes } from 'node:crypto';
 import { NextRequest } from 'next/server';
 import { describe, expect, it } from 'vitest';
-import { readMultipart } from '@/lib/api/multipart';
+import { readMultipart, readMultipartParts } from '@/lib/api/multipart';
 import { AppError } from '@/lib/errors';
 
 const tooLarge = () => new AppError('payload_too_large', 'too large');
@@ -62,5 +62,33 @@ describe('reading a multipart body', () => {
     const { type, body } = await encoded(form);
     await expect(readMultipart(chunked(type, body, 16_384), 100_000, tooLarge)).rejects.toMatchObject({ code: 'payload_too_large' });
     expect((await readMultipart(chunked(type, body, 16_384), 300_000, tooLarge)).get('file')).toBeInstanceOf(File);
+  });
+
+  it('gives each file as one Buffer with the same bytes, names and checks (readMultipartParts)', async () => {
+    const bytes = randomBytes(300_000);
+    const form = new FormData();
+    form.set('caption', 'Kühlraum 😀');
+    form.set('file', new File([bytes], 'plate\u202egpj.exe', { type: 'image/jpeg' }));
+    form.set('kind', '');
+    const { type, body } = await encoded(form);
+    for (const size of [7, 65_536, body.length]) {
+      const parsed = await readMultipartParts(chunked(type, body, size), 1_000_000, tooLarge);
+      expect(parsed.fields).toEqual([
+        ['caption', 'Kühlraum 😀'],
+        ['kind', ''],
+      ]);
+      expect(parsed.files).toHaveLength(1);
+      const [name, file] = parsed.files[0]!;
+      expect(name).toBe('file');
+      // Bidirectional controls removed from the name, as readMultipart does.
+      expect(file).toMatchObject({ fileName: 'plategpj.exe', type: 'image/jpeg' });
+      expect(Buffer.isBuffer(file.bytes) && file.bytes.equals(bytes)).toBe(true);
+    }
+    await expect(readMultipartParts(chunked(type, body, 16_384), 100_000, tooLarge)).rejects.toMatchObject({ code: 'payload_too_large' });
+    await expect(readMultipartParts(chunked(type, body.subarray(0, 30_000), 4096), 1_000_000, tooLarge)).rejects.toMatchObject({ code: 'bad_request' });
+    const nul = new FormData();
+    nul.set('caption', 'a\u0000b');
+    const withNul = await encoded(nul);
+    await expect(readMultipartParts(chunked(withNul.type, withNul.body, 4096), 1_000_000, tooLarge)).rejects.toMatchObject({ code: 'validation_failed' });
   });
 });

@@ -161,3 +161,27 @@ describe('storage check', () => {
     expect(clean).toMatchObject({ code: 0, stdout: expect.stringContaining('Photo storage is consistent.') });
   }, 120_000);
 });
+
+describe('a put to the loopback store', () => {
+  it('signs UNSIGNED-PAYLOAD instead of hashing the body, and the store keeps the exact bytes', async () => {
+    const { PutObjectCommand } = await import('@aws-sdk/client-s3');
+    const { bucket, s3 } = await import('@/storage/client');
+    const body = await cameraImage({ width: 1200, height: 900, grain: 10 });
+    const key = objectKey(tech.companyId, 'photos', 'signing-check');
+    const command = new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: 'image/jpeg', ContentLength: body.byteLength });
+    // The request as it leaves, signed: the deserialize step runs after signing.
+    const sent: Record<string, string>[] = [];
+    command.middlewareStack.add(
+      (next) => (args) => {
+        sent.push({ ...(args.request as { headers: Record<string, string> }).headers });
+        return next(args);
+      },
+      { step: 'deserialize', name: 'captureSignedHeaders' },
+    );
+    await s3.send(command);
+    expect(sent).toHaveLength(1);
+    expect(sent[0]!['x-amz-content-sha256']).toBe('UNSIGNED-PAYLOAD');
+    expect(sent[0]!.authorization).toMatch(/SignedHeaders=[^,]*x-amz-content-sha256/);
+    expect(Buffer.from(await getObjectBytes(key)).equals(body)).toBe(true);
+  });
+});
