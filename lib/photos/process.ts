@@ -41,6 +41,11 @@ export interface ProcessOptions {
   keepLocation: boolean;
   /** Where the equipment is: an EXIF time without an offset is read as local time there. */
   timeZone: string;
+  /**
+   * The caller hands the bytes over (an upload's own buffer): location is removed from them in
+   * place instead of from a copy. Otherwise the input is left as it was.
+   */
+  handedOver?: boolean;
 }
 
 /** The settings shared with the benchmark's sharp-alone baseline, so both do the same work. */
@@ -154,9 +159,19 @@ export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Pr
   const bytes = Buffer.isBuffer(input) ? input : Buffer.from(input.buffer, input.byteOffset, input.byteLength);
   const contentType = await sniffPhotoType(bytes);
 
+  // Location goes first, so the image work reads the very bytes that are stored (their pixels and
+  // orientation are untouched) and nothing reads them while they change.
+  let original = bytes;
+  let locationRemoved = false;
+  if (!options.keepLocation) {
+    const stripped = removeLocation(bytes, contentType, { inPlace: options.handedOver === true });
+    original = stripped.bytes;
+    locationRemoved = stripped.removed;
+  }
+
   let meta: Metadata;
   try {
-    meta = await sharp(bytes, sharpInputOptions).metadata();
+    meta = await sharp(original, sharpInputOptions).metadata();
   } catch (error) {
     throw unreadable(error);
   }
@@ -168,7 +183,7 @@ export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Pr
   }
 
   // Both start at once; the display copy's failure is reported when it is awaited.
-  const display = displayPipeline(uprightImage(bytes))
+  const display = displayPipeline(uprightImage(original))
     .toBuffer()
     .catch((error: unknown) => {
       throw unreadable(error);
@@ -176,19 +191,12 @@ export async function checkPhoto(input: Uint8Array, options: ProcessOptions): Pr
   display.catch(() => undefined);
   let thumb: Buffer;
   try {
-    thumb = await thumbPipeline(uprightImage(bytes)).toBuffer();
+    thumb = await thumbPipeline(uprightImage(original)).toBuffer();
   } catch (error) {
     throw unreadable(error);
   }
 
   const facts = readExif(meta.exif, options.timeZone);
-  let original = bytes;
-  let locationRemoved = false;
-  if (!options.keepLocation) {
-    const stripped = removeLocation(bytes, contentType);
-    original = stripped.bytes;
-    locationRemoved = stripped.removed;
-  }
   const turned = (meta.orientation ?? 1) >= 5;
   return {
     contentType,

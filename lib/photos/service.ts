@@ -118,6 +118,8 @@ export interface UploadPhotoInput {
   uploadKey?: string;
   fileName: string | null;
   bytes: Uint8Array;
+  /** The bytes are the upload's own (nothing else reads them): location is removed in place. */
+  handedOver?: boolean;
 }
 
 async function existingUpload(actor: Actor, uploadKey: string, equipmentId: string, db: Db): Promise<PhotoDto | null> {
@@ -181,7 +183,7 @@ export async function storePhoto<T = undefined>(
   alongside?: (trx: Transaction<DB>, photoId: string) => Promise<T>,
 ): Promise<{ photoId: string; result: T | undefined }> {
   const equipment = await equipmentForPhotos(actor, input.equipmentId, db);
-  const processed = await checkPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone });
+  const processed = await checkPhoto(input.bytes, { keepLocation: equipment.keep_photo_location, timeZone: equipment.time_zone, handedOver: input.handedOver });
 
   const id = randomUUID();
   const keys = {

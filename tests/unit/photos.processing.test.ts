@@ -149,6 +149,24 @@ describe('location metadata', () => {
     expect(hasLocation(await readBack(photo.thumb))).toBe(false);
   });
 
+  it('is removed from the upload\'s own bytes when they are handed over, and from a copy otherwise', async () => {
+    const input = await cameraImage({ gps: true, orientation: 6, takenAt: '2024:06:14 09:31:07' });
+    const before = Buffer.from(input);
+    const copied = await processPhoto(input, opts);
+    // Not handed over: the caller's bytes are left as they were.
+    expect(input.equals(before)).toBe(true);
+    expect(copied.original.buffer).not.toBe(input.buffer);
+    const handed = await processPhoto(input, { ...opts, handedOver: true });
+    // Handed over: the same memory, edited, with the same result as the copy (so the smaller
+    // copies were made from the stored bytes: same size, turn and time).
+    expect(handed.original.buffer).toBe(input.buffer);
+    expect(hasLocation(await readBack(input))).toBe(false);
+    expect(handed.original.equals(copied.original)).toBe(true);
+    expect(handed).toMatchObject({ width: copied.width, height: copied.height, takenAt: copied.takenAt, hadLocation: true, locationKept: false });
+    expect(handed.display.equals(copied.display)).toBe(true);
+    expect(handed.thumb.equals(copied.thumb)).toBe(true);
+  });
+
   it('leaves a file without location byte for byte as it was', async () => {
     const input = await cameraImage({ takenAt: '2024:06:14 09:31:07' });
     const out = removeLocation(input, 'image/jpeg');

@@ -14,5 +14,6 @@ export const GET = withApi({ permission: 'photos.read', params: equipmentPhotosP
 // POST /api/equipment/:id/photos: upload one photo (multipart: file, kind, caption?, uploadKey?).
 export const POST = withApi({ permission: 'photos.upload', params: equipmentPhotosParamsSchema, status: 201 }, async ({ actor, params, req }) => {
   const upload = await readPhotoUpload(req);
-  return uploadPhoto(actor, { equipmentId: params.id, ...upload.fields, fileName: upload.fileName, bytes: upload.bytes });
+  // The parser's buffer belongs to this request alone, so location comes out of it in place.
+  return uploadPhoto(actor, { equipmentId: params.id, ...upload.fields, fileName: upload.fileName, bytes: upload.bytes, handedOver: true });
 });
