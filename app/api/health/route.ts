@@ -1,4 +1,4 @@
-import { NextResponse } from 'next/server';
+import { jsonResponse } from '@/lib/api/handler';
 import { checkHealth, isServiceDown } from '@/lib/health/service';
 
 export const dynamic = 'force-dynamic';
@@ -8,5 +8,5 @@ export const dynamic = 'force-dynamic';
 // retry in the last 7 days: either is degraded with its count, still 200.
 export async function GET(): Promise<Response> {
   const report = await checkHealth();
-  return NextResponse.json(report, { status: isServiceDown(report) ? 503 : 200, headers: { 'Cache-Control': 'no-store' } });
+  return jsonResponse(report, isServiceDown(report) ? 503 : 200, { 'Cache-Control': 'no-store' });
 }
