@@ -107,6 +107,13 @@ mkdir -p "$RIMELINE_LOGS" "$RIMELINE_RUN"
 rl_start_reaper
 if [ "$keep" = 1 ]; then rl_ok "kept the previous data (--keep)"; else rl_ok "wiped"; fi
 
+# The phone and offline benches drive Debian's chromium, as the browser tests do.
+if [ ! -x /usr/bin/chromium ]; then
+  printf '      installing chromium with apt-get (a few minutes) … '
+  rl_apt_install "$RIMELINE_LOGS/apt.log" chromium || exit 1
+  rl_ok "installed"
+fi
+
 rl_up next_step   # npm packages, PostgreSQL, S3 fake, mail catcher, migrations (lib.sh)
 
 # Benches that time the JSON API need the app over HTTP.
