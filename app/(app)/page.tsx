@@ -20,6 +20,9 @@ import { getClient } from '@/lib/clients/service';
 import { AttentionList } from '@/components/overview/attention-list';
 import { OverviewCharts } from '@/components/overview/overview-charts';
 import { SiteSummaryCard } from '@/components/overview/site-summary-card';
+import { SiteSummaryRow } from '@/components/overview/site-summary-row';
+import { sitesForHome } from '@/lib/overview/site-need';
+import { formatCount } from '@/lib/format/numbers';
 import { DueList } from '@/components/overview/due-list';
 import { PlanCard } from '@/components/plans/plan-card';
 import { StartPlanButton } from '@/components/plans/start-plan-button';
@@ -124,6 +127,7 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
     attentionPage(actor, { limit: 5, withTotal: false }),
     listRequests(actor, { status: ['new', 'acknowledged', 'scheduled'], limit: 5 }),
   ]);
+  const { cards, rest } = sitesForHome(summaries);
   return (
     <>
       <div className="flex flex-wrap gap-2">
@@ -140,13 +144,30 @@ async function OwnerHome({ actor }: { actor: Awaited<ReturnType<typeof requirePa
         ) : null}
       </div>
       <AttentionSection id="attention-h" linkLabel="How this list is ordered · all" units={attention.items} />
-      <Section id="sites-summary-h" title="Your sites">
+      <Section
+        id="sites-summary-h"
+        title="Your sites"
+        link={rest.length > 0 ? { href: '/sites', label: `All ${formatCount(summaries.length)} sites` } : undefined}
+      >
         {summaries.length === 0 ? <p className="text-slate-700">No sites are shared with your account yet.</p> : null}
+        {summaries.length > 1 ? <p className="text-sm text-slate-700">Sites with the most pressing open items come first.</p> : null}
         <div className="grid gap-3 md:grid-cols-2">
-          {summaries.map((s) => (
+          {cards.map((s) => (
             <SiteSummaryCard key={s.siteId} summary={s} showClient={false} />
           ))}
         </div>
+        {rest.length > 0 ? (
+          <section aria-labelledby="sites-rest-h" className="space-y-2">
+            <h3 id="sites-rest-h" className="font-semibold">
+              Your other {formatCount(rest.length)} {rest.length === 1 ? 'site' : 'sites'}
+            </h3>
+            <ul className="divide-y divide-slate-200 rounded-lg border border-slate-200 bg-white">
+              {rest.map((s) => (
+                <SiteSummaryRow key={s.siteId} summary={s} />
+              ))}
+            </ul>
+          </section>
+        ) : null}
       </Section>
       <Section id="charts-h" title="At a glance">
         <OverviewCharts data={charts} prefs={{ units: actor.units, metricPressure: actor.metricPressure }} />

@@ -1,8 +1,11 @@
-import { CalendarCheck, Droplets, Hourglass, MapPin } from 'lucide-react';
+import { Droplets, Hourglass, MapPin } from 'lucide-react';
 import Link from 'next/link';
 import { conditionLook } from '@/components/equipment/condition-badge';
 import { severityLooks } from '@/components/visits/badges';
+import { formatCount } from '@/lib/format/numbers';
+import { formatDay } from '@/lib/format/dates';
 import type { SiteSummary } from '@/lib/overview/service';
+import { openFollowUpTotal } from '@/lib/overview/site-need';
 import { severityLabels, SEVERITIES } from '@/lib/visits/schemas';
 import { cn } from '@/lib/utils';
 
@@ -10,15 +13,21 @@ function Count({ Icon, label, value, box }: { Icon: typeof MapPin; label: string
   return (
     <li className={cn('flex items-center gap-1.5 rounded-md border px-2 py-1 text-sm', box ?? 'border-slate-200 bg-white')}>
       <Icon aria-hidden className="size-4 shrink-0" />
-      <span className="font-bold">{value}</span> {label}
+      <span className="font-bold">{formatCount(value)}</span> {label}
     </li>
   );
+}
+
+/** "120 units · last visit Dec 1, 2026", the day on the site's own calendar. */
+export function siteFacts(summary: SiteSummary): string {
+  const units = `${formatCount(summary.equipmentCount)} ${summary.equipmentCount === 1 ? 'unit' : 'units'}`;
+  return `${units} · ${summary.lastVisitAt ? `last visit ${formatDay(summary.lastVisitAt, summary.timeZone)}` : 'no visits recorded yet'}`;
 }
 
 /** One site at a glance: condition, open follow-ups, leaks, ageing units, last visit. Words and icons, never colour alone. */
 export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary; showClient: boolean }) {
   const ratings = ([1, 2, 3, 4, 5] as const).filter((r) => summary.byCondition[r] > 0);
-  const openTotal = SEVERITIES.reduce((a, s) => a + summary.openFollowUps[s], 0);
+  const openTotal = openFollowUpTotal(summary);
   return (
     <article className="rounded-lg border border-slate-200 bg-white p-4 shadow-sm" aria-labelledby={`site-${summary.siteId}`}>
       <h3 id={`site-${summary.siteId}`} className="text-lg font-semibold">
@@ -27,10 +36,7 @@ export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary;
         </Link>
       </h3>
       {showClient ? <p className="text-sm text-slate-600">{summary.clientName}</p> : null}
-      <p className="mt-1 text-sm text-slate-700">
-        {summary.equipmentCount} {summary.equipmentCount === 1 ? 'unit' : 'units'}
-        {summary.lastVisitAt ? ` · last visit ${summary.lastVisitAt.slice(0, 10)}` : ' · no visits recorded yet'}
-      </p>
+      <p className="mt-1 text-sm text-slate-700">{siteFacts(summary)}</p>
       {summary.equipmentCount > 0 ? (
         <>
           <h4 className="mt-3 text-xs font-semibold uppercase tracking-wide text-slate-600">Condition</h4>
@@ -54,11 +60,6 @@ export function SiteSummaryCard({ summary, showClient }: { summary: SiteSummary;
         ) : null}
         {summary.pastExpectedLife > 0 ? <Count Icon={Hourglass} label="past expected life" value={summary.pastExpectedLife} box="border-amber-400 bg-amber-50 text-amber-950" /> : null}
       </ul>
-      {summary.lastVisitAt ? (
-        <p className="mt-3 flex items-center gap-1 text-xs text-slate-600">
-          <CalendarCheck aria-hidden className="size-4" /> Last visit {summary.lastVisitAt.slice(0, 10)}
-        </p>
-      ) : null}
     </article>
   );
 }

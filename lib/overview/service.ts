@@ -14,6 +14,8 @@ export interface SiteSummary {
   siteId: string;
   siteName: string;
   clientName: string;
+  /** The site's own zone, to show its last visit on its calendar. */
+  timeZone: string;
   equipmentCount: number;
   /** Count per condition rating 1–5, and units not yet rated. */
   byCondition: { 1: number; 2: number; 3: number; 4: number; 5: number; unrated: number };
@@ -71,7 +73,7 @@ async function summariesFrom(actor: Actor, db: Db, today: Date, unitCounts: Prom
     )
     .where(siteVisibleTo(actor))
     .where('sites.archived_at', 'is', null)
-    .select(['sites.id', 'sites.name', 'clients.name as client_name', 'last_visit.started_at as last_visit_at'])
+    .select(['sites.id', 'sites.name', 'sites.time_zone', 'clients.name as client_name', 'last_visit.started_at as last_visit_at'])
     .orderBy('clients.name')
     .orderBy('sites.name')
     .execute();
@@ -95,6 +97,7 @@ async function summariesFrom(actor: Actor, db: Db, today: Date, unitCounts: Prom
         siteId: s.id,
         siteName: s.name,
         clientName: s.client_name,
+        timeZone: s.time_zone,
         equipmentCount: 0,
         byCondition: { 1: 0, 2: 0, 3: 0, 4: 0, 5: 0, unrated: 0 },
         openFollowUps: { safety: 0, down: 0, degraded: 0, minor: 0 },
@@ -130,6 +133,60 @@ async function summariesFrom(actor: Actor, db: Db, today: Date, unitCounts: Prom
   return [...out.values()];
 }
 
+/** Live units with an install day, as the age chart counts them. */
+function agedUnits(actor: Actor, db: Db) {
+  return db
+    .selectFrom('equipment')
+    .innerJoin('sites', 'sites.id', 'equipment.site_id')
+    .where(siteVisibleTo(actor))
+    .where('equipment.company_id', '=', actor.companyId)
+    .where('equipment.deleted_at', 'is', null)
+    .where('equipment.installed_on', 'is not', null)
+    .where('equipment.status', '<>', 'removed');
+}
+
+/**
+ * The 40 oldest for their expected life among an owner's units or one site's: a few thousand at
+ * most, ranked directly. Walking each type's install-order index instead would pass over every
+ * other client's units of the company first (about 50 ms at 5,000 of 105,000 units).
+ */
+function oldestAmongFew(actor: Actor, siteId: string | null, db: Db, today: Date) {
+  return agedUnits(actor, db)
+    .innerJoin(serviceLifeTable().as('life'), 'life.type', 'equipment.type')
+    .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
+    .select(['equipment.name', ageYearsSql(today).as('age_years'), 'life.median_years'])
+    .orderBy(sql`${ageYearsSql(today)} / life.median_years`, 'desc')
+    .orderBy('equipment.name')
+    .limit(40)
+    .execute();
+}
+
+/**
+ * The same for staff, who see every unit of the company: within one type the oldest for its life
+ * is the earliest installed, so each type's first 40 in install order (index
+ * equipment_type_age_idx) are merged and cut to 40.
+ */
+function oldestOfCompany(actor: Actor, db: Db, today: Date) {
+  return db
+    .selectFrom(serviceLifeTable().as('life'))
+    .innerJoinLateral(
+      () =>
+        agedUnits(actor, db)
+          .where(sql<boolean>`equipment.type = life.type`)
+          .select(['equipment.name', ageYearsSql(today).as('age_years')])
+          .orderBy('equipment.installed_on')
+          .orderBy('equipment.name')
+          .limit(40)
+          .as('oldest'),
+      (join) => join.onTrue(),
+    )
+    .select(['oldest.name', 'oldest.age_years', 'life.median_years'])
+    .orderBy(sql`oldest.age_years / life.median_years`, 'desc')
+    .orderBy('oldest.name')
+    .limit(40)
+    .execute();
+}
+
 export interface ChartData {
   conditionDistribution: { rating: string; count: number }[];
   ageVsLife: { name: string; ageYears: number; medianYears: number }[];
@@ -153,35 +210,9 @@ export async function ownerOverview(actor: Actor, db: Db = defaultDb, today = ne
 }
 
 async function chartsFrom(actor: Actor, siteId: string | null, db: Db, today: Date, unitCounts: Promise<UnitCounts>): Promise<ChartData> {
-  // Counted and ranked in SQL: the charts need six counts (unitCounts) and the 40 oldest units, not every unit.
-  // The 40 oldest for their expected life: within one type that is the earliest installed, so
-  // each type's first 40 in install order (index equipment_type_age_idx) are merged and cut to 40.
-  const oldestQuery = db
-    .selectFrom(serviceLifeTable().as('life'))
-    .innerJoinLateral(
-      (eb) =>
-        eb
-          .selectFrom('equipment')
-          .innerJoin('sites', 'sites.id', 'equipment.site_id')
-          .where(siteVisibleTo(actor))
-          .where('equipment.company_id', '=', actor.companyId)
-          .whereRef('equipment.type', '=', 'life.type')
-          .where('equipment.deleted_at', 'is', null)
-          .where('equipment.installed_on', 'is not', null)
-          .where('equipment.status', '<>', 'removed')
-          .$if(Boolean(siteId), (q) => q.where('equipment.site_id', '=', siteId!))
-          .select(['equipment.name', ageYearsSql(today).as('age_years')])
-          .orderBy('equipment.installed_on')
-          .orderBy('equipment.name')
-          .limit(40)
-          .as('oldest'),
-      (join) => join.onTrue(),
-    )
-    .select(['oldest.name', 'oldest.age_years', 'life.median_years'])
-    .orderBy(sql`oldest.age_years / life.median_years`, 'desc')
-    .orderBy('oldest.name')
-    .limit(40)
-    .execute();
+  // Counted and ranked in SQL: the charts need six counts (unitCounts) and the 40 oldest units
+  // for their expected life, not every unit.
+  const oldestQuery = actor.role === 'client' || siteId ? oldestAmongFew(actor, siteId, db, today) : oldestOfCompany(actor, db, today);
   const addedQuery = db
     .selectFrom('entries')
     .innerJoin('equipment', 'equipment.id', 'entries.equipment_id')

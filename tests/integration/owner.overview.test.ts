@@ -47,12 +47,13 @@ afterAll(async () => {
 });
 
 /** The figures straight from the unit rows the owner may see, counted in JavaScript. */
-async function countedByHand(actor: Actor) {
+async function countedByHand(actor: Actor, siteId: string | null = null) {
   const units = await db
     .selectFrom('equipment')
     .innerJoin('sites', 'sites.id', 'equipment.site_id')
     .where('sites.company_id', '=', actor.companyId)
     .$if(actor.role === 'client', (q) => q.where('sites.client_id', '=', actor.clientId!))
+    .$if(siteId !== null, (q) => q.where('equipment.site_id', '=', siteId!))
     .where('equipment.deleted_at', 'is', null)
     .where('equipment.status', '<>', 'removed')
     .select(['equipment.site_id', 'sites.archived_at', 'equipment.name', 'equipment.type', 'equipment.condition', 'equipment.installed_on'])
@@ -118,6 +119,17 @@ describe('owner home counts, shared by the site cards and the charts', () => {
     const both = await expectSameFigures(owner);
     expect(both.summaries.find((s) => s.siteId === otherSiteId)!.equipmentCount).toBeGreaterThanOrEqual(12);
     await expectSameFigures(office);
+  });
+
+  it("rank one site's oldest units alike for the office and the owner (the site page's chart)", async () => {
+    // One site's units are ranked directly, the whole company's through each type's install order:
+    // both must give what the rows say.
+    for (const actor of [office, owner]) {
+      const hand = await countedByHand(actor, otherSiteId);
+      const charts = await chartData(actor, otherSiteId, db, today);
+      expect(hand.oldest.length).toBeGreaterThan(0);
+      expect(sortedByName(charts.ageVsLife)).toEqual(sortedByName(hand.oldest));
+    }
   });
 
   it('follow a rating recorded and the visit closed', async () => {
