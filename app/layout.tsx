@@ -1,7 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import { cookies } from 'next/headers';
 import type { ReactNode } from 'react';
-import { inter } from '@/app/fonts';
 import './globals.css';
 
 export const metadata: Metadata = {
@@ -15,7 +14,7 @@ export const viewport: Viewport = { width: 'device-width', initialScale: 1, them
 export default async function RootLayout({ children }: { children: ReactNode }) {
   const contrast = (await cookies()).get('rl-contrast')?.value === 'high';
   return (
-    <html lang="en" className={`${inter.variable} ${contrast ? 'contrast-high' : ''}`}>
+    <html lang="en" className={contrast ? 'contrast-high' : undefined}>
       <body className="min-h-screen bg-slate-50 font-sans text-slate-900 antialiased">
         {/* No app-wide providers: the query provider sits in the layouts of the pages that fetch in the browser. */}
         {children}
