@@ -100,7 +100,10 @@ test('a visit recorded and closed without signal reaches the server once, after 
 
   // A unit never opened before, by typing its tag code in the visit's scanner.
   await page.getByRole('button', { name: 'Scan' }).click();
-  await page.getByLabel('Tag code').fill(cu.code);
+  // The unit picker's search is labelled "… name, type or tag code" too: type only once the scan
+  // step has replaced it, into the field labelled exactly "Tag code".
+  await expect(page.getByRole('heading', { name: 'Scan the unit’s tag' })).toBeVisible();
+  await page.getByLabel('Tag code', { exact: true }).fill(cu.code);
   await page.getByRole('button', { name: 'Open' }).click();
   await expect(page.getByRole('heading', { level: 2, name: cu.name })).toBeVisible();
 
@@ -149,7 +152,7 @@ test('a visit started without signal at a kept site reaches the server once, eve
   // No signal from here. A unit never opened, by its typed code; the visit starts on the phone.
   await context.setOffline(true);
   await page.reload();
-  await page.getByLabel('Tag code').fill(cu.code);
+  await page.getByLabel('Tag code', { exact: true }).fill(cu.code);
   await page.getByRole('button', { name: 'Open' }).click();
   await expect(page.getByTestId('offline-unit').getByRole('heading', { level: 1, name: cu.name })).toBeVisible();
   await page.getByRole('link', { name: /Log a visit/ }).click();
