@@ -135,9 +135,9 @@ const cleanName = (file: { fileName: string }) => stripBidiControls(file.fileNam
  * A form's text fields as a plain object for the route's zod schema. An empty field counts as
  * absent, as a blank select or input means "not given"; files are left to the handler.
  */
-export function formFields(form: FormData): Record<string, string> {
+export function formFields(form: Iterable<[string, FormDataEntryValue]>): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const [key, value] of form.entries()) {
+  for (const [key, value] of form) {
     if (typeof value === 'string' && value !== '') out[key] = value;
   }
   return out;

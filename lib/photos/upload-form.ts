@@ -1,7 +1,7 @@
 import 'server-only';
 import type { NextRequest } from 'next/server';
 import { zodIssues } from '@/lib/api/issues';
-import { isMultipart, readMultipartParts } from '@/lib/api/multipart';
+import { formFields, isMultipart, readMultipartParts } from '@/lib/api/multipart';
 import { AppError } from '@/lib/errors';
 import { assertPhotoSize } from '@/lib/photos/process';
 import { cleanFileName, formatBytes, MAX_PHOTO_BYTES, MAX_UPLOAD_OVERHEAD_BYTES, uploadPhotoFieldsSchema, type UploadPhotoFields } from '@/lib/photos/schemas';
@@ -30,8 +30,7 @@ export async function readPhotoUpload(req: NextRequest): Promise<PhotoUpload> {
   if (!isMultipart(req)) throw new AppError('unsupported_media_type', 'Send the photo as multipart/form-data with the image in the "file" field.');
   // The photo as one Buffer straight from the parser (no File to copy it into and out of).
   const { fields, files } = await readMultipartParts(req, PHOTO_UPLOAD_LIMIT, photoTooLarge);
-  // As formFields: an empty field counts as absent, a repeated one keeps its last value.
-  const parsed = uploadPhotoFieldsSchema.safeParse(Object.fromEntries(fields.filter(([, value]) => value !== '')));
+  const parsed = uploadPhotoFieldsSchema.safeParse(formFields(fields));
   const sent = files.find(([name]) => name === 'file')?.[1];
   if (sent) assertPhotoSize(sent.bytes.byteLength);
   const file = sent ? { fileName: cleanFileName(sent.fileName), bytes: sent.bytes } : null;
