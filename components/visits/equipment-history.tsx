@@ -9,6 +9,8 @@ import type { EntryDto } from '@/lib/visits/dto';
 import type { HistoryScope } from '@/lib/visits/keys';
 import { ENTRY_KINDS, type EntryKind } from '@/lib/visits/terms';
 
+const NEWEST_ENTRY_ID = 'newest-entry';
+
 /**
  * An equipment item's (or a system's) history, newest first, grouped by visit, filterable by entry
  * kind. A server component: the first page is rendered here, into the page's HTML, so a scanned
@@ -41,7 +43,14 @@ export function EquipmentHistory({
     initialPage.items.length === 0 ? (
       <EmptyState title="No history yet.">Entries appear here as visits are recorded.</EmptyState>
     ) : (
-      <HistoryGroups items={initialPage.items} prefs={prefs} showEquipment={showEquipment} />
+      <>
+        {/* The browser holds its first frame until the newest entry has arrived (React puts the link
+            in the head). On a slow link it would otherwise paint the header alone, and the frame
+            with the entry would queue behind the scripts' start-up, hundreds of ms on a slow phone.
+            Browsers without render-blocking links ignore it. */}
+        <link rel="expect" href={`#${NEWEST_ENTRY_ID}`} blocking="render" />
+        <HistoryGroups items={initialPage.items} prefs={prefs} showEquipment={showEquipment} newestId={NEWEST_ENTRY_ID} />
+      </>
     );
   return <HistoryShell scope={scope} id={id} prefs={prefs} initialPage={initialPage} firstPage={firstPage} kindIcons={kindIcons} showEquipment={showEquipment} title={title} />;
 }

@@ -19,8 +19,11 @@ function visitOf(e: EntryDto): VisitGroupVisit {
   return e.visit ?? { reason: 'maintenance', startedAt: e.recordedAt, technicianName: e.createdByName, status: 'closed', timeZone: 'UTC' };
 }
 
-/** History entries, newest first, grouped by visit. */
-export function HistoryGroups({ items, prefs, showEquipment }: { items: EntryDto[]; prefs: UnitPrefs; showEquipment: boolean }) {
+/**
+ * History entries, newest first, grouped by visit. `newestId` names the newest entry's element, for
+ * the page's first history page only (one element per id).
+ */
+export function HistoryGroups({ items, prefs, showEquipment, newestId }: { items: EntryDto[]; prefs: UnitPrefs; showEquipment: boolean; newestId?: string }) {
   const groups = groupByVisit(items, visitOf);
   return (
     <ol aria-label="History, newest first" className="space-y-2">
@@ -36,7 +39,7 @@ export function HistoryGroups({ items, prefs, showEquipment }: { items: EntryDto
           <ul className="divide-y divide-slate-100">
             {g.entries.map((e, ei) => (
               <li key={e.id}>
-                <article className={cn('px-3 py-2', e.voidedAt && 'bg-slate-50')} data-entry-kind={e.kind} aria-label={`${entryKindLabels[e.kind]}, ${timeIn(e.recordedAt, g.visit.timeZone)}`}>
+                <article id={gi === 0 && ei === 0 ? newestId : undefined} className={cn('px-3 py-2', e.voidedAt && 'bg-slate-50')} data-entry-kind={e.kind} aria-label={`${entryKindLabels[e.kind]}, ${timeIn(e.recordedAt, g.visit.timeZone)}`}>
                   <div className="mb-0.5 flex flex-wrap items-baseline gap-x-2 gap-y-0.5">
                     <EntryKindLabel kind={e.kind} />
                     {/* The newest entry's paint is what a scan waits for: npm run bench reads its time. */}

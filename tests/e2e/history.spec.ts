@@ -53,6 +53,9 @@ test('history is newest first, grouped by visit, filtered by kind, and loads old
   await expect(groups.first()).toHaveAttribute('data-visit-group', newer);
   await expect(entries.first()).toHaveAttribute('data-entry-kind', 'reading');
   await expect(list.getByText(`Evaporator coil cleaned ${label}`)).toHaveCount(0);
+  // The first frame waits for the newest entry: a render-blocking link in the head names it.
+  await expect(page.locator('head link[rel="expect"][blocking="render"]')).toHaveAttribute('href', '#newest-entry');
+  await expect(entries.first()).toHaveAttribute('id', 'newest-entry');
   const firstPage = await recordedTimes(list);
   expect(firstPage).toEqual([...firstPage].sort().reverse());
   await shot(page, `history-first-page-${info.project.name}`);
@@ -67,6 +70,8 @@ test('history is newest first, grouped by visit, filtered by kind, and loads old
   const all = await recordedTimes(list);
   expect(all).toEqual([...all].sort().reverse());
   expect(new Set(all).size).toBe(32);
+  // The list the browser now shows (all pages) never repeats the newest entry's id.
+  expect(await page.locator('#newest-entry').count()).toBeLessThanOrEqual(1);
 
   // Filter by kind: only the two readings.
   await page.getByRole('button', { name: 'Readings' }).click();
