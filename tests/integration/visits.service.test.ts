@@ -183,6 +183,18 @@ describe('visits', () => {
     await expect(getVisit(stranger, visit.id)).rejects.toMatchObject({ code: 'not_found' });
   });
 
+  it('a unit’s history is not found for a viewer who may not see the unit, entries or not', async () => {
+    const stranger = await actorFor(db, demoEmails.clientTwo);
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    await addEntry(tech, visit.id, entry(circuit.evaporatorId, { kind: 'note' as const, data: { text: 'Coil cleaned' } }));
+    await closeVisit(tech, visit.id, { summary: 'Routine maintenance', confirmBypassRemoved: false });
+    await expect(equipmentHistory(stranger, circuit.evaporatorId, { limit: 10 })).rejects.toMatchObject({ code: 'not_found' });
+    expect((await equipmentHistory(tech, circuit.evaporatorId, { limit: 10 })).items).toHaveLength(1);
+    // A deleted unit still has entries its viewers' scope admits; the unit's own check refuses them.
+    await db.updateTable('equipment').set({ deleted_at: new Date() }).where('id', '=', circuit.evaporatorId).execute();
+    await expect(equipmentHistory(tech, circuit.evaporatorId, { limit: 10 })).rejects.toMatchObject({ code: 'not_found' });
+  });
+
   it('e-mails the report to the client’s contacts and keeps the PDF in the object store', async () => {
     await clearMail();
     await ensureBucket();
