@@ -10,5 +10,10 @@ declare module 'compression' {
     filter?: (req: IncomingMessage, res: ServerResponse) => boolean;
   }
 
-  export default function compression(options?: CompressionOptions): (req: IncomingMessage, res: ServerResponse, next: (error?: unknown) => void) => void;
+  function compression(options?: CompressionOptions): (req: IncomingMessage, res: ServerResponse, next: (error?: unknown) => void) => void;
+  namespace compression {
+    /** The default filter: whether the response's type is compressible. */
+    function filter(req: IncomingMessage, res: ServerResponse): boolean;
+  }
+  export default compression;
 }

@@ -14,6 +14,7 @@ import { requestIdFrom } from '@/lib/api/request-id';
 import { badQuery } from '@/lib/api/query-check';
 import { API_CSP, cameOverHttps, setSecurityHeaders } from '@/lib/api/security-headers';
 import { runWithRequestId } from '@/lib/request-context';
+import { BODY_BYTES_HEADER } from '@/lib/http/small-answers';
 
 type RouteContext = { params: Promise<Record<string, string | string[] | undefined>> };
 
@@ -102,15 +103,15 @@ export function apiRoute<C>(handle: (req: NextRequest, ctx: C) => Promise<Respon
 }
 
 /**
- * A JSON answer that states its length. Without one the server cannot tell a small answer from a
- * large one and compresses every answer, and starting a compressor for a few hundred bytes cost
- * about half a millisecond a request (server.ts compresses from 1 kB).
+ * A JSON answer that states its length, so server.ts sends one under 1 kB uncompressed: starting a
+ * compressor for a few hundred bytes cost about half a millisecond a request.
  */
 export function jsonResponse(body: unknown, status: number, headers?: Record<string, string>): Response {
   const text = JSON.stringify(body);
   return new Response(text, {
     status,
-    headers: { ...headers, 'Content-Type': 'application/json', 'Content-Length': String(Buffer.byteLength(text)) },
+    // Not Content-Length, which Next drops; server.ts turns this into it (lib/http/small-answers.ts).
+    headers: { ...headers, 'Content-Type': 'application/json', [BODY_BYTES_HEADER]: String(Buffer.byteLength(text)) },
   });
 }
 
