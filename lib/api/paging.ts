@@ -57,7 +57,7 @@ export async function keysetPage<DB, TB extends keyof DB, O extends { id: string
   const cursor = decodeCursor(page.cursor);
   const q = cursor ? query.where(afterCursor(cursor, order.key, order.id, order.direction, order.cast)) : query;
   const rows = await q
-    .select(sql<string | null>`(${sql.raw(order.key)})::text`.as('cursor_key'))
+    .select(cursorKeyColumn(order.key))
     .orderBy(sql.raw(order.key), order.direction)
     .orderBy(sql.ref(order.id), order.direction)
     .limit(page.limit + 1)
@@ -65,8 +65,16 @@ export async function keysetPage<DB, TB extends keyof DB, O extends { id: string
   return toPage(rows, page.limit, (r) => map(r), (r) => ({ k: printedKey(r), id: r.id }));
 }
 
-/** The key column `keysetPage` adds, read back with a check rather than a type assertion. */
-function printedKey(row: object): string | null {
+/**
+ * The sort key as Postgres prints it, for the next cursor: a time keeps its microseconds (a JS
+ * Date would round them off, and the next page would repeat or skip rows within a millisecond).
+ */
+export function cursorKeyColumn(key: string) {
+  return sql<string | null>`(${sql.raw(key)})::text`.as('cursor_key');
+}
+
+/** The key column `cursorKeyColumn` adds, read back with a check rather than a type assertion. */
+export function printedKey(row: object): string | null {
   return 'cursor_key' in row && typeof row.cursor_key === 'string' ? row.cursor_key : null;
 }
 

@@ -3,7 +3,7 @@ import { sql } from 'kysely';
 import { db as defaultDb } from '@/db';
 import type { Db } from '@/db/types';
 import type { Page } from '@/lib/api/cursor';
-import { toPage } from '@/lib/api/paging';
+import { printedKey, toPage } from '@/lib/api/paging';
 import { assertCan } from '@/lib/auth/access';
 import { entryVisibleTo } from '@/lib/auth/scope';
 import type { Actor } from '@/lib/auth/actor';
@@ -47,7 +47,7 @@ async function historyPage(actor: Actor, db: Db, query: HistoryQuery, scope: His
       timeZone: r.visit_time_zone,
     },
   });
-  return toPage(rows, query.limit, toDto, (r) => ({ k: r.recorded_at.toISOString(), id: r.id }));
+  return toPage(rows, query.limit, toDto, (r) => ({ k: printedKey(r), id: r.id }));
 }
 
 const COMPUTED_KEYS = new Set(['superheatK', 'subcoolingK', 'evaporatorTdK', 'condenserSplitK', 'compressionRatio', 'unbalancePct', 'evaporatingC', 'condensingC']);

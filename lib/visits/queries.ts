@@ -1,6 +1,6 @@
 import type { Db } from '@/db/types';
 import { decodeCursor } from '@/lib/api/cursor';
-import { afterCursor } from '@/lib/api/paging';
+import { afterCursor, cursorKeyColumn } from '@/lib/api/paging';
 import type { Actor } from '@/lib/auth/actor';
 import { atVisibleSite, entryVisibleTo } from '@/lib/auth/scope';
 import type { HistoryQuery } from '@/lib/visits/schemas';
@@ -63,7 +63,7 @@ export function buildHistoryQuery(actor: Actor, db: Db, query: HistoryQuery, sco
       : q.where((eb) => eb.or([eb('entries.system_id', '=', scope.systemId), eb('equipment.system_id', '=', scope.systemId)]));
   if (query.kind?.length) q = q.where('entries.kind', 'in', query.kind);
   if (cursor) q = q.where(afterCursor(cursor, 'entries.recorded_at', 'entries.id', 'desc', 'timestamptz'));
-  return q.orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1);
+  return q.select(cursorKeyColumn('entries.recorded_at')).orderBy('entries.recorded_at', 'desc').orderBy('entries.id', 'desc').limit(query.limit + 1);
 }
 
 /** The unit's id if the viewer sees it and it is not deleted, else no row (so nothing matches it). */

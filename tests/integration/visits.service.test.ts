@@ -2,6 +2,7 @@
 // warning and deadline, follow-up lifecycle, history order and pages, bypass confirmation,
 // one open visit per technician per site, idempotent saves, and the report by e-mail and PDF.
 import { randomUUID } from 'node:crypto';
+import { sql } from 'kysely';
 import { describe, expect, it } from 'vitest';
 import { computeReadings } from '@/lib/calc/readings';
 import { lowPressureControl } from '@/lib/calc/pressure-controls';
@@ -169,6 +170,27 @@ describe('visits', () => {
     const voided = await voidEntry(tech, merged.items[0]!.id, 'Typed on the wrong unit');
     expect(voided.voidedAt).not.toBeNull();
     expect((await equipmentHistory(tech, circuit.condensingUnitId, { limit: 50 })).items).toHaveLength(30);
+  });
+
+  it('history pages keep entries apart that lie within one millisecond (rows written by SQL keep microseconds)', async () => {
+    const visit = await startVisit(tech, { siteId: circuit.siteId, reason: 'maintenance' });
+    for (let i = 0; i < 4; i++) await addEntry(tech, visit.id, entry(circuit.condensingUnitId, { kind: 'note' as const, data: { text: `Same millisecond ${i}` } }));
+    const ids = (await db.selectFrom('entries').select('id').where('visit_id', '=', visit.id).execute()).map((r) => r.id);
+    // Two pairs of entries at one instant each, the pairs 250 µs apart, inside one millisecond.
+    await sql`update entries set recorded_at = timestamptz '2026-11-02 09:30:00.000500+00' where id in (${ids[0]}, ${ids[1]})`.execute(db);
+    await sql`update entries set recorded_at = timestamptz '2026-11-02 09:30:00.000250+00' where id in (${ids[2]}, ${ids[3]})`.execute(db);
+    const seen: string[] = [];
+    let cursor: string | undefined;
+    do {
+      const page = await equipmentHistory(tech, circuit.condensingUnitId, { limit: 1, cursor });
+      seen.push(...page.items.map((e) => e.id));
+      cursor = page.nextCursor ?? undefined;
+    } while (cursor && seen.length < 10);
+    // Each entry once, newest first: a cursor rounded to the millisecond ended the history after
+    // the first entry.
+    expect(seen).toHaveLength(4);
+    expect(new Set(seen)).toEqual(new Set(ids));
+    expect(seen.slice(0, 2).sort()).toEqual([ids[0], ids[1]].sort());
   });
 
   it('an owner sees closed visits of their sites only', async () => {
