@@ -67,6 +67,15 @@ async function grow(count: number): Promise<void> {
   await sql`analyze`.execute(db);
 }
 
+/**
+ * Back to the first 5,000 units: a run with --keep finds the last run's grown units (nothing else
+ * refers to them), and would otherwise time the home at 50,000 units and grow by 45,000 more.
+ */
+async function shrink(): Promise<void> {
+  const gone = await sql`delete from equipment where name like 'Bench unit %' and substring(name from 12)::int > ${UNITS}`.execute(db);
+  if (Number(gone.numAffectedRows ?? 0) > 0) await sql`analyze`.execute(db);
+}
+
 async function time(fetcher: (p: string) => Promise<Response>, path: string): Promise<number[]> {
   const out: number[] = [];
   for (let i = 0; i < SAMPLES; i++) {
@@ -85,6 +94,7 @@ async function main(): Promise<void> {
     process.exit(1);
   }
   await seed();
+  await shrink();
   const owner = await signedInFetch(appUrl, OWNER);
   for (let i = 0; i < 5; i++) {
     await (await owner('/')).text();
