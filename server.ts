@@ -16,7 +16,7 @@ import next from 'next';
 import nextConfig from './next.config';
 import { staticSecurityHeaders } from '@/lib/api/security-headers';
 import { precompressedFor } from '@/lib/http/precompressed';
-import { sendsSmallAnswer } from '@/lib/http/small-answers';
+import { COMPRESS_FROM_BYTES, sendsSmallAnswer } from '@/lib/http/small-answers';
 
 const { values } = parseArgs({
   options: { hostname: { type: 'string', short: 'H', default: '127.0.0.1' }, port: { type: 'string', short: 'p', default: '3000' } },
@@ -28,7 +28,7 @@ const staticDir = path.resolve(nextConfig.distDir ?? '.next', 'static');
 const app = next({ dev: false, hostname, port });
 const handle = app.getRequestHandler();
 // Small API answers say so (lib/http/small-answers.ts) and go out as they are.
-const compress = compression({ filter: (req, res) => !sendsSmallAnswer(res) && compression.filter(req, res) });
+const compress = compression({ threshold: COMPRESS_FROM_BYTES, filter: (req, res) => !sendsSmallAnswer(res) && compression.filter(req, res) });
 await app.prepare();
 
 const server = createServer((req, res) => {

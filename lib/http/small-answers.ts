@@ -7,7 +7,7 @@
 import type { ServerResponse } from 'node:http';
 
 export const BODY_BYTES_HEADER = 'x-rimeline-body-bytes';
-/** The compression middleware's own default threshold. */
+/** Where compression starts: server.ts gives the middleware this threshold too. */
 export const COMPRESS_FROM_BYTES = 1024;
 
 /**
