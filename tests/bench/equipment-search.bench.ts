@@ -17,7 +17,8 @@ async function seed(): Promise<void> {
   await seedDemo(db);
   const have = await db.selectFrom('equipment').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (have.n >= ROWS) return;
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('name').executeTakeFirstOrThrow();
+  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
+  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
   // Invented makes and serials; generated in SQL so 100,000 rows take seconds.
   await sql`
     insert into sites (company_id, client_id, name, city)

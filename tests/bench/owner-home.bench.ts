@@ -68,11 +68,14 @@ async function grow(count: number): Promise<void> {
 }
 
 /**
- * Back to the first 5,000 units: a run with --keep finds the last run's grown units (nothing else
- * refers to them), and would otherwise time the home at 50,000 units and grow by 45,000 more.
+ * Back to the first 5,000 units: a run with --keep finds the last run's grown units, and would
+ * otherwise time the home at 50,000 units and grow by 45,000 more. Benches that ran after it may
+ * have tagged them (tags.bench.ts tags units of every client), so their tags go first.
  */
 async function shrink(): Promise<void> {
-  const gone = await sql`delete from equipment where name like 'Bench unit %' and substring(name from 12)::int > ${UNITS}`.execute(db);
+  const grown = sql`select id from equipment where name like 'Bench unit %' and substring(name from 12)::int > ${UNITS}`;
+  await sql`delete from tags where equipment_id in (${grown})`.execute(db);
+  const gone = await sql`delete from equipment where id in (${grown})`.execute(db);
   if (Number(gone.numAffectedRows ?? 0) > 0) await sql`analyze`.execute(db);
 }
 

@@ -19,7 +19,8 @@ const { db, pool } = benchDatabase();
 /** A site of `units` units with tags, history and follow-ups; returns its id and one tag code. */
 async function seedSite(units: number): Promise<{ siteId: string; code: string; unitName: string }> {
   const name = `Pack bench site ${units}`;
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('name').executeTakeFirstOrThrow();
+  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
+  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
   const tech = await db.selectFrom('users').select('id').where('email', '=', 'tech@rimeline.test').executeTakeFirstOrThrow();
   const existing = await db.selectFrom('sites').select('id').where('name', '=', name).executeTakeFirst();
   const siteId =

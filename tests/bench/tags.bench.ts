@@ -71,7 +71,8 @@ async function benchPdf(): Promise<void> {
 async function seedTags(companyId: string): Promise<void> {
   const have = await db.selectFrom('tags').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (have.n >= TAGS) return;
-  const client = await db.selectFrom('clients').select('id').where('company_id', '=', companyId).orderBy('name').executeTakeFirstOrThrow();
+  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
+  const client = await db.selectFrom('clients').select('id').where('company_id', '=', companyId).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
   const attached = Math.round(TAGS * 0.9);
   const equipmentCount = await db.selectFrom('equipment').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (equipmentCount.n < attached) {

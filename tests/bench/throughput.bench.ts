@@ -19,7 +19,8 @@ const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool: new pg.Pool({ c
 
 async function seed(): Promise<string[]> {
   await seedDemo(db);
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('name').executeTakeFirstOrThrow();
+  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
+  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
   if (!(await db.selectFrom('sites').select('id').where('name', '=', 'Load site 1').executeTakeFirst())) {
     await sql`insert into sites (company_id, client_id, name, city) select ${client.company_id}, ${client.id}, 'Load site ' || g, 'Benchton' from generate_series(1, ${SITES}) g`.execute(db);
     await sql`
