@@ -5,7 +5,7 @@ import { sql } from 'kysely';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { buildEquipmentListQuery } from '@/lib/equipment/queries';
 import { listEquipmentQuerySchema } from '@/lib/equipment/schemas';
-import { benchDatabase, demoActor, requireAppUrl, sendSql, timeApiBesideSql } from '@/tests/bench/support/db';
+import { benchDatabase, demoActor, demoClient, requireAppUrl, sendSql, timeApiBesideSql } from '@/tests/bench/support/db';
 import { benchRow, floorRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const SITES = 2_000;
@@ -17,8 +17,7 @@ async function seed(): Promise<void> {
   await seedDemo(db);
   const have = await db.selectFrom('equipment').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (have.n >= ROWS) return;
-  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
+  const client = await demoClient(db);
   // Invented makes and serials; generated in SQL so 100,000 rows take seconds.
   await sql`
     insert into sites (company_id, client_id, name, city)

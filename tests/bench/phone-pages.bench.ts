@@ -25,8 +25,8 @@ const SLOW_RUNS = 5;
  * context; the app's HTML then answered at a median 212 against 98 ms, so the server waited for
  * the CPU too). Loads started inside that second painted the entry at a median of about 1,240 ms
  * after 0.5 s of rest, 900 ms after 1 s, 690 to 760 ms after 1.5 s (three rounds) and 780 ms after
- * 2.5 s, against 1,280 to 1,290 ms started at once (probe, 6 loads a round, one build). A phone opening a unit's page is not also starting a browser context
- * for a test harness.
+ * 2.5 s, against 1,280 to 1,290 ms started at once (probe, 6 loads a round, one build). A phone
+ * opening a unit's page is not also starting a browser context for a test harness.
  */
 const SETTLE_MS = 2000;
 const appUrl = process.env.BENCH_APP_URL;

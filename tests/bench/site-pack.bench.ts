@@ -9,7 +9,7 @@ import { sql } from 'kysely';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
 import { packFollowUpsQuery, packHistoryQuery, packOpenVisitQuery, packUnitsQuery } from '@/lib/sites/pack-queries';
 import { checkSymbol, formatCode } from '@/lib/tags/code';
-import { benchDatabase, demoActor, requireAppUrl } from '@/tests/bench/support/db';
+import { benchDatabase, demoActor, demoClient, requireAppUrl } from '@/tests/bench/support/db';
 import { benchRow, percentile, signedInFetch } from '@/tests/bench/support/http';
 
 const SAMPLES = 30;
@@ -19,8 +19,7 @@ const { db, pool } = benchDatabase();
 /** A site of `units` units with tags, history and follow-ups; returns its id and one tag code. */
 async function seedSite(units: number): Promise<{ siteId: string; code: string; unitName: string }> {
   const name = `Pack bench site ${units}`;
-  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
+  const client = await demoClient(db);
   const tech = await db.selectFrom('users').select('id').where('email', '=', 'tech@rimeline.test').executeTakeFirstOrThrow();
   const existing = await db.selectFrom('sites').select('id').where('name', '=', name).executeTakeFirst();
   const siteId =

@@ -12,7 +12,7 @@ import { generateCode } from '@/lib/tags/code';
 import { renderLabelSheet, type LabelContent } from '@/lib/tags/pdf';
 import { chooseErrorCorrection, tagUrl } from '@/lib/tags/qr';
 import { lastScanQuery, layoutQuery, tagByCodeQuery, toLayout } from '@/lib/tags/queries';
-import { benchDatabase, demoActor } from '@/tests/bench/support/db';
+import { benchDatabase, demoActor, demoClient } from '@/tests/bench/support/db';
 import { benchRow, floorRow, percentile, signedInFetch, timeFloor } from '@/tests/bench/support/http';
 
 const LABELS = 1_000;
@@ -71,8 +71,7 @@ async function benchPdf(): Promise<void> {
 async function seedTags(companyId: string): Promise<void> {
   const have = await db.selectFrom('tags').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (have.n >= TAGS) return;
-  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
-  const client = await db.selectFrom('clients').select('id').where('company_id', '=', companyId).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
+  const client = await demoClient(db);
   const attached = Math.round(TAGS * 0.9);
   const equipmentCount = await db.selectFrom('equipment').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
   if (equipmentCount.n < attached) {

@@ -9,6 +9,7 @@ import { Kysely, PostgresDialect, sql } from 'kysely';
 import { pg } from '@/db/pg-types';
 import type { DB } from '@/db/schema.gen';
 import { seedDemo } from '@/docker-free-scripts/demo/scenario';
+import { demoClient } from '@/tests/bench/support/db';
 import { benchRow, sessionCookie } from '@/tests/bench/support/http';
 
 const SITES = 200;
@@ -19,8 +20,7 @@ const db = new Kysely<DB>({ dialect: new PostgresDialect({ pool: new pg.Pool({ c
 
 async function seed(): Promise<string[]> {
   await seedDemo(db);
-  // A client of the demo's own, never one another bench added (the owner-home bench's sorts first by name).
-  const client = await db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
+  const client = await demoClient(db);
   if (!(await db.selectFrom('sites').select('id').where('name', '=', 'Load site 1').executeTakeFirst())) {
     await sql`insert into sites (company_id, client_id, name, city) select ${client.company_id}, ${client.id}, 'Load site ' || g, 'Benchton' from generate_series(1, ${SITES}) g`.execute(db);
     await sql`

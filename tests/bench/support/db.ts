@@ -27,6 +27,15 @@ export async function demoActor(db: Kysely<DB>, email: string): Promise<Actor> {
   return actorFromRow(await db.selectFrom('users').selectAll().where('email', '=', email).executeTakeFirstOrThrow());
 }
 
+/**
+ * The demo's first client (by creation, then name), to put a bench's own sites under. Never the
+ * first by name: that is the owner-home bench's client once it has run, and its home would then
+ * be timed with every other bench's sites.
+ */
+export async function demoClient(db: Kysely<DB>): Promise<{ id: string; company_id: string }> {
+  return db.selectFrom('clients').select(['id', 'company_id']).orderBy('created_at').orderBy('name').executeTakeFirstOrThrow();
+}
+
 /** Sends a compiled query through the bare pool: the SQL's own time, no app around it. */
 export async function sendSql(pool: pg.Pool, compiled: CompiledQuery): Promise<void> {
   await pool.query(compiled.sql, compiled.parameters as unknown[]);
